@@ -1,0 +1,388 @@
+/**
+ * The catalog store: one SQLite file (better-sqlite3, synchronous), opened read-write for
+ * `load` and read-only (or read-write) for questions. WAL mode on disk; a busy timeout so a
+ * reader never fails while a load writes.
+ */
+import Database from "better-sqlite3";
+import { randomUUID } from "node:crypto";
+import { accessSync, constants, existsSync, openSync, readSync, closeSync, statSync } from "node:fs";
+import { TiepointError } from "../model/index.js";
+import { SCHEMA_SQL, SCHEMA_VERSION } from "./schema.js";
+
+type DB = Database.Database;
+
+/** Options of {@link Catalog.open}; all optional. */
+export interface OpenOptions {
+  /** Create the file when it does not exist. @default false */
+  readonly create?: boolean;
+  /** Open read-only (also chosen automatically when the file is not writable). @default false */
+  readonly readonly?: boolean;
+  /** Milliseconds to wait on a lock held by another process. @default 10000 */
+  readonly busyTimeout?: number;
+}
+
+/** A type (class) of the catalog with its direct parents. */
+export interface TypeInfo {
+  readonly num: number;
+  readonly id: string;
+  readonly label: string;
+  readonly aliases: readonly string[];
+  /** Direct supertypes (nums). */
+  readonly parents: readonly number[];
+}
+
+/** A predicate: a relation (used between entities) or an attribute name (used with literals). */
+export interface PredicateInfo {
+  readonly num: number;
+  readonly id: string;
+  /** Its label, or a label derived from the IRI's last segment when none was given. */
+  readonly label: string;
+  readonly aliases: readonly string[];
+}
+
+/** A literal attribute of an entity. */
+export interface AttributeInfo {
+  readonly predicate: string;
+  readonly label: string;
+  readonly value: string;
+  readonly datatype: string | null;
+  readonly lang: string | null;
+  /** The value read as a number (years and dates as a year with fraction), when it is one. */
+  readonly num: number | null;
+}
+
+/** One relation edge seen from an entity. */
+export interface NeighbourInfo {
+  readonly relation: string;
+  readonly relationLabel: string;
+  /** "out": entity → other; "in": other → entity. */
+  readonly direction: "out" | "in";
+  readonly id: string;
+  readonly label: string;
+}
+
+/** Everything `show` prints about one entity. */
+export interface EntityInfo {
+  readonly num: number;
+  readonly id: string;
+  readonly label: string;
+  readonly description: string | null;
+  readonly aliases: readonly string[];
+  readonly types: readonly { readonly id: string; readonly label: string }[];
+  readonly attributes: readonly AttributeInfo[];
+}
+
+/** An alias hit: which entity a normalised surface form names. */
+export interface AliasHit {
+  readonly entity: number;
+  readonly text: string;
+  /** 0 = the entity's label, 1 = an alias. */
+  readonly kind: number;
+}
+
+/** Counts for `stats`. */
+export interface CatalogCounts {
+  readonly entities: number;
+  readonly predicates: number;
+  readonly relations: number;
+  readonly edges: number;
+  readonly types: number;
+  readonly aliases: number;
+  readonly attributes: number;
+}
+
+/** A label derived from an IRI when the file gave none: its last path or fragment segment. */
+export function labelFromId(id: string): string {
+  const m = /([^/#:]+)[/#]?$/.exec(id);
+  const seg = m ? m[1]! : id;
+  try {
+    return decodeURIComponent(seg).replace(/[_]+/g, " ");
+  } catch {
+    return seg.replace(/[_]+/g, " ");
+  }
+}
+
+function isSqliteFile(path: string): boolean {
+  const st = statSync(path);
+  if (st.size === 0) return true; // an empty file is a fresh database
+  const fd = openSync(path, "r");
+  try {
+    const buf = Buffer.alloc(16);
+    readSync(fd, buf, 0, 16, 0);
+    return buf.toString("latin1") === "SQLite format 3\u0000";
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/**
+ * A handle on one catalog file. Read methods use statements prepared once per handle.
+ */
+export class Catalog {
+  /** The underlying better-sqlite3 handle (for the catalog stage and its importers only). */
+  readonly db: DB;
+  /** The file path (":memory:" for an in-memory catalog). */
+  readonly path: string;
+  /** True when opened read-only. */
+  readonly readonly: boolean;
+  private readonly stmts = new Map<string, Database.Statement>();
+
+  private constructor(db: DB, path: string, readonly: boolean) {
+    this.db = db;
+    this.path = path;
+    this.readonly = readonly;
+  }
+
+  /** Opens (or, with `create`, creates) the catalog at `path`; checks the schema version. */
+  static open(path: string, options: OpenOptions = {}): Catalog {
+    const memory = path === ":memory:";
+    if (!memory) {
+      if (!existsSync(path)) {
+        if (!options.create) {
+          throw new TiepointError("catalog/missing", `catalog not found (create one with: tiepoint load FILE --db ${path})`, { file: path });
+        }
+      } else {
+        if (statSync(path).isDirectory()) throw new TiepointError("catalog/not-sqlite", "is a directory, not a catalog file", { file: path });
+        if (!isSqliteFile(path)) throw new TiepointError("catalog/not-sqlite", "not a tiepoint catalog (not an SQLite database file)", { file: path });
+      }
+    }
+    let readonly = options.readonly ?? false;
+    if (!memory && existsSync(path) && !readonly) {
+      try {
+        accessSync(path, constants.W_OK);
+      } catch {
+        readonly = true;
+      }
+    }
+    let db: DB;
+    try {
+      db = new Database(path, { readonly, fileMustExist: !options.create && !memory });
+    } catch (e) {
+      throw new TiepointError("catalog/open", `cannot open catalog: ${(e as Error).message}`, { file: path });
+    }
+    db.pragma(`busy_timeout = ${options.busyTimeout ?? 10000}`);
+    const cat = new Catalog(db, path, readonly);
+    try {
+      cat.initialise(!memory);
+    } catch (e) {
+      db.close();
+      if (e instanceof TiepointError) throw e;
+      const msg = (e as Error).message;
+      if (/not a database|file is encrypted|malformed/i.test(msg)) {
+        throw new TiepointError("catalog/not-sqlite", "not a tiepoint catalog (not an SQLite database file)", { file: path });
+      }
+      throw new TiepointError("catalog/open", `cannot open catalog: ${msg}`, { file: path });
+    }
+    return cat;
+  }
+
+  private initialise(onDisk: boolean): void {
+    const hasMeta = this.db.prepare("SELECT 1 FROM sqlite_master WHERE type='table' AND name='meta'").get() !== undefined;
+    if (!hasMeta) {
+      const others = this.db.prepare("SELECT count(*) AS n FROM sqlite_master").get() as { n: number };
+      if (others.n > 0) throw new TiepointError("catalog/schema", "an SQLite file, but not a tiepoint catalog (no meta table)", { file: this.path });
+      if (this.readonly) throw new TiepointError("catalog/schema", "empty catalog file opened read-only", { file: this.path });
+      if (onDisk) this.db.pragma("journal_mode = WAL");
+      this.db.exec("BEGIN");
+      this.db.exec(SCHEMA_SQL);
+      const put = this.db.prepare("INSERT OR REPLACE INTO meta(key, value) VALUES (?, ?)");
+      put.run("schema_version", String(SCHEMA_VERSION));
+      put.run("uid", randomUUID());
+      put.run("generation", "0");
+      this.db.exec("COMMIT");
+      return;
+    }
+    const v = this.db.prepare("SELECT value FROM meta WHERE key='schema_version'").get() as { value: string } | undefined;
+    const version = v ? Number(v.value) : NaN;
+    if (!Number.isInteger(version)) throw new TiepointError("catalog/schema", "catalog has no readable schema version", { file: this.path });
+    if (version > SCHEMA_VERSION) {
+      throw new TiepointError("catalog/schema", `catalog schema version ${version} is newer than this tiepoint understands (${SCHEMA_VERSION}); upgrade tiepoint`, { file: this.path });
+    }
+    if (version < SCHEMA_VERSION) {
+      throw new TiepointError("catalog/schema", `catalog schema version ${version} is older than ${SCHEMA_VERSION}; rebuild it with tiepoint load --replace`, { file: this.path });
+    }
+    if (onDisk && !this.readonly) {
+      const mode = this.db.pragma("journal_mode", { simple: true });
+      if (mode !== "wal") this.db.pragma("journal_mode = WAL");
+    }
+  }
+
+  /** @internal a statement prepared once per handle. */
+  stmt(sql: string): Database.Statement {
+    let s = this.stmts.get(sql);
+    if (!s) {
+      s = this.db.prepare(sql);
+      this.stmts.set(sql, s);
+    }
+    return s;
+  }
+
+  /** Closes the handle. */
+  close(): void {
+    this.db.close();
+  }
+
+  /** A meta value. */
+  meta(key: string): string | undefined {
+    const r = this.stmt("SELECT value FROM meta WHERE key = ?").get(key) as { value: string } | undefined;
+    return r?.value;
+  }
+
+  /** The catalog's uid (new for each file) and generation (bumped per committed load). */
+  version(): { uid: string; generation: number } {
+    return { uid: this.meta("uid") ?? "", generation: Number(this.meta("generation") ?? 0) };
+  }
+
+  /** Entity num of an id, or undefined. */
+  numOf(id: string): number | undefined {
+    const r = this.stmt("SELECT num FROM entity WHERE id = ?").get(id) as { num: number } | undefined;
+    return r?.num;
+  }
+
+  /** Id and label of an entity num (label falls back to one derived from the id). */
+  ref(num: number): { id: string; label: string } {
+    const r = this.stmt("SELECT id, label FROM entity WHERE num = ?").get(num) as { id: string; label: string | null } | undefined;
+    if (!r) throw new RangeError(`catalog: no entity with num ${num}`);
+    return { id: r.id, label: r.label ?? labelFromId(r.id) };
+  }
+
+  /** Entities whose label or alias has normalised form `norm`. */
+  byNorm(norm: string): AliasHit[] {
+    return this.stmt("SELECT entity, text, kind FROM alias WHERE norm = ?").all(norm) as AliasHit[];
+  }
+
+  /** Entities whose label or alias has stemmed form `stem`. */
+  byStem(stem: string): AliasHit[] {
+    return this.stmt("SELECT entity, text, kind FROM alias WHERE stem = ?").all(stem) as AliasHit[];
+  }
+
+  /** Entities whose exact label (or id) is `text`. */
+  byLabelOrId(text: string): number[] {
+    const byId = this.numOf(text);
+    if (byId !== undefined) return [byId];
+    return (this.stmt("SELECT num FROM entity WHERE label = ? ORDER BY id").all(text) as { num: number }[]).map((r) => r.num);
+  }
+
+  /** All entity data that `show` needs. */
+  entity(num: number): EntityInfo {
+    const r = this.stmt("SELECT num, id, label, description FROM entity WHERE num = ?").get(num) as
+      | { num: number; id: string; label: string | null; description: string | null }
+      | undefined;
+    if (!r) throw new RangeError(`catalog: no entity with num ${num}`);
+    const aliases = (this.stmt("SELECT text FROM alias WHERE entity = ? AND kind = 1 ORDER BY text").all(num) as { text: string }[]).map((a) => a.text);
+    return {
+      num: r.num,
+      id: r.id,
+      label: r.label ?? labelFromId(r.id),
+      description: r.description,
+      aliases,
+      types: this.typesOf(num).map((t) => this.ref(t)),
+      attributes: this.attributes(num),
+    };
+  }
+
+  /** Direct type nums of an entity. */
+  typesOf(num: number): number[] {
+    return (this.stmt("SELECT type FROM entity_type WHERE entity = ? ORDER BY type").all(num) as { type: number }[]).map((r) => r.type);
+  }
+
+  /** Literal attributes of an entity. */
+  attributes(num: number): AttributeInfo[] {
+    const rows = this.stmt(
+      "SELECT p.id AS pid, p.label AS plabel, a.value, a.datatype, a.lang, a.num FROM attribute a JOIN predicate p ON p.num = a.predicate WHERE a.entity = ? ORDER BY p.id, a.value",
+    ).all(num) as { pid: string; plabel: string | null; value: string; datatype: string | null; lang: string | null; num: number | null }[];
+    return rows.map((a) => ({ predicate: a.pid, label: a.plabel ?? labelFromId(a.pid), value: a.value, datatype: a.datatype, lang: a.lang, num: a.num }));
+  }
+
+  /** Relation edges at an entity, both directions, at most `limit` of each. */
+  neighbours(num: number, limit = 200): NeighbourInfo[] {
+    const out = this.stmt(
+      "SELECT p.id AS rel, p.label AS rlabel, e.id, e.label FROM edge x JOIN predicate p ON p.num = x.rel JOIN entity e ON e.num = x.dst WHERE x.src = ? ORDER BY p.id, e.id LIMIT ?",
+    ).all(num, limit) as { rel: string; rlabel: string | null; id: string; label: string | null }[];
+    const inn = this.stmt(
+      "SELECT p.id AS rel, p.label AS rlabel, e.id, e.label FROM edge x JOIN predicate p ON p.num = x.rel JOIN entity e ON e.num = x.src WHERE x.dst = ? ORDER BY p.id, e.id LIMIT ?",
+    ).all(num, limit) as { rel: string; rlabel: string | null; id: string; label: string | null }[];
+    const map = (direction: "out" | "in") => (r: { rel: string; rlabel: string | null; id: string; label: string | null }): NeighbourInfo => ({
+      relation: r.rel,
+      relationLabel: r.rlabel ?? labelFromId(r.rel),
+      direction,
+      id: r.id,
+      label: r.label ?? labelFromId(r.id),
+    });
+    return [...out.map(map("out")), ...inn.map(map("in"))];
+  }
+
+  /** True when the edge `src rel dst` is stored (by ids). */
+  hasEdge(src: string, rel: string, dst: string): boolean {
+    return (
+      this.stmt(
+        "SELECT 1 FROM edge x JOIN entity s ON s.num = x.src JOIN entity d ON d.num = x.dst JOIN predicate p ON p.num = x.rel WHERE s.id = ? AND p.id = ? AND d.id = ?",
+      ).get(src, rel, dst) !== undefined
+    );
+  }
+
+  /** All predicates with labels and aliases. */
+  predicates(): PredicateInfo[] {
+    const rows = this.stmt("SELECT num, id, label FROM predicate ORDER BY num").all() as { num: number; id: string; label: string | null }[];
+    const al = this.stmt("SELECT predicate, text FROM predicate_alias ORDER BY predicate, text").all() as { predicate: number; text: string }[];
+    const byP = new Map<number, string[]>();
+    for (const a of al) {
+      const list = byP.get(a.predicate) ?? [];
+      list.push(a.text);
+      byP.set(a.predicate, list);
+    }
+    return rows.map((r) => ({ num: r.num, id: r.id, label: r.label ?? labelFromId(r.id), aliases: byP.get(r.num) ?? [] }));
+  }
+
+  /** All types (entities used as an rdf:type object or in rdfs:subClassOf), with parents. */
+  types(): TypeInfo[] {
+    const nums = this.stmt("SELECT DISTINCT type AS n FROM entity_type UNION SELECT sub FROM subclass UNION SELECT sup FROM subclass").all() as { n: number }[];
+    const parents = this.stmt("SELECT sub, sup FROM subclass").all() as { sub: number; sup: number }[];
+    const byChild = new Map<number, number[]>();
+    for (const p of parents) {
+      const list = byChild.get(p.sub) ?? [];
+      list.push(p.sup);
+      byChild.set(p.sub, list);
+    }
+    const aliasStmt = this.stmt("SELECT text FROM alias WHERE entity = ? AND kind = 1 ORDER BY text");
+    return nums
+      .map(({ n }) => {
+        const r = this.ref(n);
+        const aliases = (aliasStmt.all(n) as { text: string }[]).map((a) => a.text);
+        return { num: n, id: r.id, label: r.label, aliases, parents: (byChild.get(n) ?? []).sort((a, b) => a - b) };
+      })
+      .sort((a, b) => a.num - b.num);
+  }
+
+  /** Iterates all relation edges as [src, rel, dst] nums (for the relation index). */
+  *edges(): IterableIterator<[number, number, number]> {
+    const s = this.db.prepare("SELECT src, rel, dst FROM edge").raw(true);
+    for (const row of s.iterate()) yield row as [number, number, number];
+  }
+
+  /** Iterates all aliases (labels included) as [entity, text, norm, kind]. */
+  *aliases(): IterableIterator<[number, string, string, number]> {
+    const s = this.db.prepare("SELECT entity, text, norm, kind FROM alias").raw(true);
+    for (const row of s.iterate()) yield row as [number, string, string, number];
+  }
+
+  /** The largest entity num (for sizing arrays), 0 when empty. */
+  maxEntityNum(): number {
+    const r = this.stmt("SELECT max(num) AS m FROM entity").get() as { m: number | null };
+    return r.m ?? 0;
+  }
+
+  /** Counts for `stats`. */
+  counts(): CatalogCounts {
+    const n = (sql: string) => (this.stmt(sql).get() as { n: number }).n;
+    return {
+      entities: n("SELECT count(*) AS n FROM entity"),
+      predicates: n("SELECT count(*) AS n FROM predicate"),
+      relations: n("SELECT count(DISTINCT rel) AS n FROM edge"),
+      edges: n("SELECT count(*) AS n FROM edge"),
+      types: n("SELECT count(*) AS n FROM (SELECT DISTINCT type FROM entity_type UNION SELECT sub FROM subclass UNION SELECT sup FROM subclass)"),
+      aliases: n("SELECT count(*) AS n FROM alias"),
+      attributes: n("SELECT count(*) AS n FROM attribute"),
+    };
+  }
+}

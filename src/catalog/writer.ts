@@ -1,0 +1,182 @@
+/**
+ * Batched writes into a catalog inside one explicit transaction (BEGIN … COMMIT).
+ * Importers call the `add*` methods; `commit` bumps the generation counter, `rollback`
+ * leaves the catalog exactly as it was. Ids are interned to integer nums through an
+ * in-memory cache so a large load does not look each id up twice.
+ */
+import type Database from "better-sqlite3";
+import { normalize, stemKey } from "./normalize.js";
+import type { Catalog } from "./store.js";
+
+/** Parses a literal as a number for attribute comparisons: plain numbers, years and ISO dates. */
+export function literalNumber(value: string, datatype: string | null): number | null {
+  const v = value.trim();
+  if (v === "") return null;
+  if (/^[+-]?(\d{1,3}(,\d{3})+|\d+)(\.\d+)?([eE][+-]?\d+)?$/.test(v)) return Number(v.replace(/,/g, ""));
+  const iso = /^(-?\d{4})(?:-(\d{2})(?:-(\d{2}))?)?(?:T.*)?$/.exec(v);
+  if (iso && (datatype === null || /date|year|gYear|time/i.test(datatype) || iso[2] !== undefined)) {
+    const y = Number(iso[1]);
+    const m = iso[2] ? Number(iso[2]) : 1;
+    const d = iso[3] ? Number(iso[3]) : 1;
+    if (m < 1 || m > 12 || d < 1 || d > 31) return null;
+    const start = Date.UTC(y, 0, 1);
+    const end = Date.UTC(y + 1, 0, 1);
+    return y + (Date.UTC(y, m - 1, d) - start) / (end - start);
+  }
+  return null;
+}
+
+/** Writes into one catalog within one transaction. */
+export class CatalogWriter {
+  private readonly cat: Catalog;
+  private readonly db: Database.Database;
+  private readonly entityNums = new Map<string, number>();
+  private readonly predNums = new Map<string, number>();
+  private readonly s: Record<string, Database.Statement>;
+  private open = false;
+  /** Edges written in this transaction. */
+  edgesWritten = 0;
+
+  constructor(cat: Catalog) {
+    this.cat = cat;
+    this.db = cat.db;
+    const p = (sql: string) => this.db.prepare(sql);
+    this.s = {
+      findEntity: p("SELECT num FROM entity WHERE id = ?"),
+      insEntity: p("INSERT INTO entity(id) VALUES (?)"),
+      findPred: p("SELECT num FROM predicate WHERE id = ?"),
+      insPred: p("INSERT INTO predicate(id) VALUES (?)"),
+      getLabel: p("SELECT label FROM entity WHERE num = ?"),
+      setLabel: p("UPDATE entity SET label = ? WHERE num = ?"),
+      setDesc: p("UPDATE entity SET description = ? WHERE num = ?"),
+      getDesc: p("SELECT description FROM entity WHERE num = ?"),
+      insAlias: p("INSERT OR IGNORE INTO alias(entity, text, norm, stem, kind) VALUES (?, ?, ?, ?, ?)"),
+      demoteLabel: p("UPDATE alias SET kind = 1 WHERE entity = ? AND kind = 0"),
+      insType: p("INSERT OR IGNORE INTO entity_type(entity, type) VALUES (?, ?)"),
+      insSub: p("INSERT OR IGNORE INTO subclass(sub, sup) VALUES (?, ?)"),
+      insEdge: p("INSERT OR IGNORE INTO edge(src, rel, dst) VALUES (?, ?, ?)"),
+      insAttr: p("INSERT OR IGNORE INTO attribute(entity, predicate, value, datatype, lang, num) VALUES (?, ?, ?, ?, ?, ?)"),
+      getPredLabel: p("SELECT label FROM predicate WHERE num = ?"),
+      setPredLabel: p("UPDATE predicate SET label = ? WHERE num = ?"),
+      insPredAlias: p("INSERT OR IGNORE INTO predicate_alias(predicate, text, norm, stem) VALUES (?, ?, ?, ?)"),
+      bump: p("UPDATE meta SET value = CAST(CAST(value AS INTEGER) + 1 AS TEXT) WHERE key = 'generation'"),
+    };
+  }
+
+  /** Starts the transaction (`BEGIN IMMEDIATE`, so a concurrent writer waits). */
+  begin(): void {
+    this.db.exec("BEGIN IMMEDIATE");
+    this.open = true;
+  }
+
+  /** Empties every data table (for `--replace`), inside the open transaction. */
+  clear(): void {
+    for (const t of ["entity", "predicate", "alias", "predicate_alias", "entity_type", "subclass", "edge", "attribute"]) this.db.exec(`DELETE FROM ${t}`);
+    this.entityNums.clear();
+    this.predNums.clear();
+  }
+
+  /** Commits, bumping the catalog generation. */
+  commit(): void {
+    this.s.bump!.run();
+    this.db.exec("COMMIT");
+    this.open = false;
+  }
+
+  /** Rolls everything back. */
+  rollback(): void {
+    if (this.open && this.db.inTransaction) this.db.exec("ROLLBACK");
+    this.open = false;
+  }
+
+  /** True when an entity with this id exists (in the catalog or earlier in this load). */
+  hasEntity(id: string): boolean {
+    return this.entityNums.has(id) || this.s.findEntity!.get(id) !== undefined;
+  }
+
+  /** The num of entity `id`, creating it when new. */
+  entity(id: string): number {
+    let n = this.entityNums.get(id);
+    if (n !== undefined) return n;
+    const r = this.s.findEntity!.get(id) as { num: number } | undefined;
+    n = r ? r.num : Number(this.s.insEntity!.run(id).lastInsertRowid);
+    this.entityNums.set(id, n);
+    return n;
+  }
+
+  /** The num of predicate `id`, creating it when new. */
+  predicate(id: string): number {
+    let n = this.predNums.get(id);
+    if (n !== undefined) return n;
+    const r = this.s.findPred!.get(id) as { num: number } | undefined;
+    n = r ? r.num : Number(this.s.insPred!.run(id).lastInsertRowid);
+    this.predNums.set(id, n);
+    return n;
+  }
+
+  /** Adds a label: the first one becomes the label, later ones aliases (contract). */
+  label(id: string, text: string, preferred = false): void {
+    const n = this.entity(id);
+    const cur = this.s.getLabel!.get(n) as { label: string | null };
+    if (cur.label === null || preferred) {
+      if (cur.label !== null && cur.label !== text) this.s.demoteLabel!.run(n);
+      this.s.setLabel!.run(text, n);
+      this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 0);
+    } else if (cur.label !== text) {
+      this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 1);
+    }
+  }
+
+  /** Adds an alias. */
+  alias(id: string, text: string): void {
+    const n = this.entity(id);
+    this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 1);
+  }
+
+  /** Sets the description (the first one wins; later ones are appended after a blank line). */
+  description(id: string, text: string): void {
+    const n = this.entity(id);
+    const cur = this.s.getDesc!.get(n) as { description: string | null };
+    if (cur.description === null) this.s.setDesc!.run(text, n);
+    else if (!cur.description.includes(text)) this.s.setDesc!.run(`${cur.description}\n\n${text}`, n);
+  }
+
+  /** `id rdf:type type`. */
+  type(id: string, type: string): void {
+    this.s.insType!.run(this.entity(id), this.entity(type));
+  }
+
+  /** `sub rdfs:subClassOf sup`. */
+  subclass(sub: string, sup: string): void {
+    this.s.insSub!.run(this.entity(sub), this.entity(sup));
+  }
+
+  /** A relation edge `src rel dst`. */
+  edge(src: string, rel: string, dst: string): void {
+    const r = this.s.insEdge!.run(this.entity(src), this.predicate(rel), this.entity(dst));
+    this.edgesWritten += r.changes;
+  }
+
+  /** A literal attribute. */
+  attribute(id: string, predicate: string, value: string, datatype: string | null = null, lang: string | null = null): void {
+    this.s.insAttr!.run(this.entity(id), this.predicate(predicate), value, datatype, lang, literalNumber(value, datatype));
+  }
+
+  /** A relation's (predicate's) label; the first one wins, later ones become aliases. */
+  predicateLabel(id: string, text: string): void {
+    const n = this.predicate(id);
+    const cur = this.s.getPredLabel!.get(n) as { label: string | null };
+    if (cur.label === null) this.s.setPredLabel!.run(text, n);
+    else if (cur.label !== text) this.s.insPredAlias!.run(n, text, normalize(text), stemKey(text));
+  }
+
+  /** A relation's alias phrasing. */
+  predicateAlias(id: string, text: string): void {
+    this.s.insPredAlias!.run(this.predicate(id), text, normalize(text), stemKey(text));
+  }
+
+  /** The catalog written to. */
+  get catalog(): Catalog {
+    return this.cat;
+  }
+}

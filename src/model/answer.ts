@@ -1,0 +1,92 @@
+/**
+ * The JSON-shaped types that flow between stages and out of `ask --json`.
+ * Field names follow ../shared/contract.md exactly; extra fields are additive.
+ */
+
+/** An entity as it appears in outputs: id (IRI or source id) and label. */
+export interface EntityRef {
+  readonly id: string;
+  readonly label: string;
+}
+
+/** A ranked alternative for a mention. */
+export interface Alternative extends EntityRef {
+  /** Calibrated probability that the mention names this entity, 0..1. */
+  readonly confidence: number;
+}
+
+/** A span of the question linked to a catalog entity. */
+export interface Mention {
+  /** The question text of the span (`question.slice(start, end)`). */
+  readonly text: string;
+  /** UTF-16 offset of the first character. */
+  readonly start: number;
+  /** UTF-16 offset one past the last character. */
+  readonly end: number;
+  /** The chosen entity. */
+  readonly entity: EntityRef;
+  /** Calibrated confidence of the chosen entity, 0..1. */
+  readonly confidence: number;
+  /** Other candidates, best first. */
+  readonly alternatives: readonly Alternative[];
+  /** True when the user pinned this link (`--pin`). */
+  readonly pinned?: boolean;
+}
+
+/** One walked edge of a path. */
+export interface PathStep {
+  readonly from: string;
+  /** The relation's id (IRI). */
+  readonly relation: string;
+  readonly to: string;
+  /** True when the walk goes against the stored triple `to relation from`. */
+  readonly inverse: boolean;
+}
+
+/** A relation path from a clue entity to an answer. */
+export interface AnswerPath {
+  /** The clue (seed) entity id. */
+  readonly from: string;
+  readonly steps: readonly PathStep[];
+}
+
+/** A ranked answer with its explanation. */
+export interface Answer {
+  readonly id: string;
+  readonly label: string;
+  /** Comparable within one question only. */
+  readonly score: number;
+  /** Type ids of the answer. */
+  readonly types: readonly string[];
+  readonly paths: readonly AnswerPath[];
+}
+
+/** The uniqueness verdict. */
+export type VerdictStatus = "unique" | "tied" | "weak" | "none";
+
+export interface Verdict {
+  readonly status: VerdictStatus;
+  /** Relative lead of the best answer over the next one, 0..1. */
+  readonly margin: number;
+  /** Ids of the other answers that fit as well (status `tied`). */
+  readonly tiedWith: readonly string[];
+  /** Human-readable reason for the status (additive). */
+  readonly reason?: string;
+}
+
+/** One document of `ask --json`. */
+export interface AskResult {
+  readonly question: string;
+  readonly mentions: readonly Mention[];
+  readonly answerTypes: readonly EntityRef[];
+  readonly answers: readonly Answer[];
+  readonly verdict: Verdict;
+  /** Additive: notes and warnings for the user (unlinked words, ignored conditions, …). */
+  readonly notes?: readonly string[];
+  /** Additive: a reminder that answers are ranked suggestions, not facts. */
+  readonly disclaimer?: string;
+}
+
+/** The reminder printed with every answer set. */
+export const DISCLAIMER =
+  "Answers are ranked suggestions drawn from the catalog, not facts: check the paths before relying on one.";

@@ -1,0 +1,13 @@
+export { TiepointError, USAGE_CODES } from "./errors.js";
+export type {
+  EntityRef,
+  Alternative,
+  Mention,
+  PathStep,
+  AnswerPath,
+  Answer,
+  VerdictStatus,
+  Verdict,
+  AskResult,
+} from "./answer.js";
+export { DISCLAIMER } from "./answer.js";
