@@ -90,3 +90,34 @@ export interface AskResult {
 /** The reminder printed with every answer set. */
 export const DISCLAIMER =
   "Answers are ranked suggestions drawn from the catalog, not facts: check the paths before relying on one.";
+
+/** One question's result in `check --json`. */
+export interface CheckItem {
+  /** 1-based line of the question file. */
+  readonly line: number;
+  readonly question: string;
+  /** Expected ids or labels as written in the file (empty when none given). */
+  readonly expected: readonly string[];
+  /** 1-based rank of the best-ranked expected answer, null when none is among the answers. */
+  readonly rank: number | null;
+  /** rank === 1 (false when no expected answers were given). */
+  readonly hit: boolean;
+  readonly answer: AskResult;
+}
+
+/** The summary of `check --json`. */
+export interface CheckSummary {
+  readonly questions: number;
+  readonly withExpected: number;
+  readonly hits1: number;
+  readonly hits5: number;
+  readonly mrr: number;
+  readonly verdicts: Readonly<Record<VerdictStatus, number>>;
+  readonly seconds: number;
+}
+
+/** The one document of `check --json`. */
+export interface CheckReport {
+  readonly results: readonly CheckItem[];
+  readonly summary: CheckSummary;
+}

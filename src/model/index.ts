@@ -9,5 +9,8 @@ export type {
   VerdictStatus,
   Verdict,
   AskResult,
+  CheckItem,
+  CheckSummary,
+  CheckReport,
 } from "./answer.js";
 export { DISCLAIMER } from "./answer.js";
