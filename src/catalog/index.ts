@@ -3,3 +3,9 @@ export type { OpenOptions, TypeInfo, PredicateInfo, AttributeInfo, NeighbourInfo
 export { CatalogWriter, literalNumber } from "./writer.js";
 export { normalize, tokens, stemToken, stemKey } from "./normalize.js";
 export { SCHEMA_VERSION } from "./schema.js";
+export { loadFiles, formatOf } from "./load.js";
+export type { LoadOptions, LoadReport, FileReport, ImportFormat, LoadProgress } from "./load.js";
+export { catalogStats, nearestRank, unionFindComponents } from "./stats.js";
+export type { CatalogStats, Hub } from "./stats.js";
+export { demoCatalogPath, demoSourceFiles, demoDataDir, cacheDir, DEMO_SOURCES } from "./demo.js";
+export type { DemoCatalogOptions } from "./demo.js";

@@ -366,10 +366,66 @@ export class Catalog {
     for (const row of s.iterate()) yield row as [number, string, string, number];
   }
 
+  /** Iterates all (entity, type) pairs as [entity, type] nums, ordered by entity then type (for the relation index). */
+  *entityTypePairs(): IterableIterator<[number, number]> {
+    const s = this.db.prepare("SELECT entity, type FROM entity_type ORDER BY entity, type").raw(true);
+    for (const row of s.iterate()) yield row as [number, number];
+  }
+
+  /** All direct subtype pairs as [sub, sup] nums, ordered (for the relation index). */
+  subclassPairs(): [number, number][] {
+    return this.stmt("SELECT sub, sup FROM subclass ORDER BY sub, sup").raw(true).all() as [number, number][];
+  }
+
+  /** The largest predicate num (for sizing per-relation arrays), 0 when empty. */
+  maxPredicateNum(): number {
+    const r = this.stmt("SELECT max(num) AS m FROM predicate").get() as { m: number | null };
+    return r.m ?? 0;
+  }
+
   /** The largest entity num (for sizing arrays), 0 when empty. */
   maxEntityNum(): number {
     const r = this.stmt("SELECT max(num) AS m FROM entity").get() as { m: number | null };
     return r.m ?? 0;
+  }
+
+  /** Iterates every entity as [num, label, description] (for the linker's lexical snapshot). */
+  *entityTexts(): IterableIterator<[number, string | null, string | null]> {
+    const s = this.db.prepare("SELECT num, label, description FROM entity").raw(true);
+    for (const row of s.iterate()) yield row as [number, string | null, string | null];
+  }
+
+  /** Label and aliases of an entity num as [text, norm, kind] rows (kind 0 = label). */
+  aliasRows(num: number): [string, string, number][] {
+    return this.stmt("SELECT text, norm, kind FROM alias WHERE entity = ? ORDER BY kind, text").raw(true).all(num) as [string, string, number][];
+  }
+
+  /** The description of an entity num, or null. */
+  descriptionOf(num: number): string | null {
+    const r = this.stmt("SELECT description FROM entity WHERE num = ?").get(num) as { description: string | null } | undefined;
+    return r?.description ?? null;
+  }
+
+  /** Nums of the entities joined to `num` by an edge (either direction), at most `limit` each way. */
+  neighbourNums(num: number, limit = 1000): number[] {
+    const out = this.stmt("SELECT dst AS n FROM edge WHERE src = ? LIMIT ?").pluck().all(num, limit) as number[];
+    const inn = this.stmt("SELECT src AS n FROM edge WHERE dst = ? LIMIT ?").pluck().all(num, limit) as number[];
+    return out.concat(inn);
+  }
+
+  /** Label and description of the entities joined to `num` by an edge, at most `limit` each way. */
+  neighbourTexts(num: number, limit = 50): [string | null, string | null][] {
+    const out = this.stmt("SELECT e.label, e.description FROM edge x JOIN entity e ON e.num = x.dst WHERE x.src = ? LIMIT ?").raw(true).all(num, limit) as [string | null, string | null][];
+    const inn = this.stmt("SELECT e.label, e.description FROM edge x JOIN entity e ON e.num = x.src WHERE x.dst = ? LIMIT ?").raw(true).all(num, limit) as [string | null, string | null][];
+    return out.concat(inn);
+  }
+
+  /** True when entity `num` has an edge of relation `rel` (predicate num), in either direction. */
+  hasRelationEdge(num: number, rel: number): boolean {
+    return (
+      this.stmt("SELECT 1 FROM edge WHERE src = ? AND rel = ? LIMIT 1").get(num, rel) !== undefined ||
+      this.stmt("SELECT 1 FROM edge WHERE dst = ? AND rel = ? LIMIT 1").get(num, rel) !== undefined
+    );
   }
 
   /** Counts for `stats`. */

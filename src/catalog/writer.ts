@@ -26,6 +26,14 @@ export function literalNumber(value: string, datatype: string | null): number | 
   return null;
 }
 
+/** Edges per multi-row INSERT (SQLite allows 32766 bound parameters; 3 per edge). */
+export const EDGE_BATCH = 128;
+
+/** Bits of the writer's per-entity flags. */
+const KNOWN = 1;
+const HAS_LABEL = 2;
+const HAS_DESC = 4;
+
 /** Writes into one catalog within one transaction. */
 export class CatalogWriter {
   private readonly cat: Catalog;
@@ -34,6 +42,13 @@ export class CatalogWriter {
   private readonly predNums = new Map<string, number>();
   private readonly s: Record<string, Database.Statement>;
   private open = false;
+  /** Entity nums at or below this existed before the transaction; above were made in it. */
+  private maxNumBefore = 0;
+  /** Per entity num: what this writer knows about its label and description (bits below). */
+  private flags = new Uint8Array(1024);
+  /** Secondary indexes dropped for a fast load into an empty catalog, recreated at commit. */
+  private deferred: { name: string; sql: string }[] = [];
+  private readonly edgeBuf: number[] = [];
   /** Edges written in this transaction. */
   edgesWritten = 0;
 
@@ -47,6 +62,8 @@ export class CatalogWriter {
       findPred: p("SELECT num FROM predicate WHERE id = ?"),
       insPred: p("INSERT INTO predicate(id) VALUES (?)"),
       getLabel: p("SELECT label FROM entity WHERE num = ?"),
+      getLabelDesc: p("SELECT label, description FROM entity WHERE num = ?"),
+      promoteAlias: p("UPDATE alias SET kind = 0 WHERE entity = ? AND text = ?"),
       setLabel: p("UPDATE entity SET label = ? WHERE num = ?"),
       setDesc: p("UPDATE entity SET description = ? WHERE num = ?"),
       getDesc: p("SELECT description FROM entity WHERE num = ?"),
@@ -55,6 +72,7 @@ export class CatalogWriter {
       insType: p("INSERT OR IGNORE INTO entity_type(entity, type) VALUES (?, ?)"),
       insSub: p("INSERT OR IGNORE INTO subclass(sub, sup) VALUES (?, ?)"),
       insEdge: p("INSERT OR IGNORE INTO edge(src, rel, dst) VALUES (?, ?, ?)"),
+      insEdges: p(`INSERT OR IGNORE INTO edge(src, rel, dst) VALUES ${Array(EDGE_BATCH).fill("(?, ?, ?)").join(", ")}`),
       insAttr: p("INSERT OR IGNORE INTO attribute(entity, predicate, value, datatype, lang, num) VALUES (?, ?, ?, ?, ?, ?)"),
       getPredLabel: p("SELECT label FROM predicate WHERE num = ?"),
       setPredLabel: p("UPDATE predicate SET label = ? WHERE num = ?"),
@@ -67,38 +85,95 @@ export class CatalogWriter {
   begin(): void {
     this.db.exec("BEGIN IMMEDIATE");
     this.open = true;
+    this.resetState();
   }
+
+  private resetState(): void {
+    this.entityNums.clear();
+    this.predNums.clear();
+    this.edgeBuf.length = 0;
+    this.flags = new Uint8Array(1024);
+    this.maxNumBefore = (this.db.prepare("SELECT max(num) AS m FROM entity").get() as { m: number | null }).m ?? 0;
+    this.predicatesBefore = (this.db.prepare("SELECT count(*) AS n FROM predicate").get() as { n: number }).n;
+  }
+
+  private predicatesBefore = 0;
 
   /** Empties every data table (for `--replace`), inside the open transaction. */
   clear(): void {
     for (const t of ["entity", "predicate", "alias", "predicate_alias", "entity_type", "subclass", "edge", "attribute"]) this.db.exec(`DELETE FROM ${t}`);
-    this.entityNums.clear();
-    this.predNums.clear();
+    this.resetState();
+  }
+
+  /** True when the catalog held no entity when the transaction began (or after `clear`). */
+  get startedEmpty(): boolean {
+    return this.maxNumBefore === 0 && this.predicatesBefore === 0;
+  }
+
+  /**
+   * For a load into an empty catalog: drops the secondary indexes now and rebuilds them at
+   * commit, inside the same transaction (building an index once from sorted data is much
+   * faster than keeping it up to date row by row). A rollback restores them unchanged.
+   */
+  deferIndexes(): void {
+    if (!this.open || this.deferred.length > 0) return;
+    const rows = this.db.prepare("SELECT name, sql FROM sqlite_master WHERE type = 'index' AND sql IS NOT NULL ORDER BY name").all() as { name: string; sql: string }[];
+    for (const r of rows) this.db.exec(`DROP INDEX "${r.name.replace(/"/g, '""')}"`);
+    this.deferred = rows;
+  }
+
+  /** Rebuilds deferred indexes (called by `commit`; callable earlier when a load needs them). */
+  restoreIndexes(): void {
+    this.flush();
+    for (const r of this.deferred) this.db.exec(r.sql);
+    this.deferred = [];
   }
 
   /** Commits, bumping the catalog generation. */
   commit(): void {
+    this.restoreIndexes();
+    this.flush();
     this.s.bump!.run();
     this.db.exec("COMMIT");
     this.open = false;
   }
 
-  /** Rolls everything back. */
+  /** Rolls everything back (deferred indexes come back with the rollback). */
   rollback(): void {
+    this.edgeBuf.length = 0;
     if (this.open && this.db.inTransaction) this.db.exec("ROLLBACK");
     this.open = false;
+    this.deferred = [];
+  }
+
+  private flag(n: number): number {
+    if (n >= this.flags.length) {
+      const bigger = new Uint8Array(Math.max(n + 1, this.flags.length * 2));
+      bigger.set(this.flags);
+      this.flags = bigger;
+    }
+    let f = this.flags[n]!;
+    if ((f & KNOWN) === 0) {
+      if (n > this.maxNumBefore) f = KNOWN;
+      else {
+        const r = this.s.getLabelDesc!.get(n) as { label: string | null; description: string | null };
+        f = KNOWN | (r.label !== null ? HAS_LABEL : 0) | (r.description !== null ? HAS_DESC : 0);
+      }
+      this.flags[n] = f;
+    }
+    return f;
   }
 
   /** True when an entity with this id exists (in the catalog or earlier in this load). */
   hasEntity(id: string): boolean {
-    return this.entityNums.has(id) || this.s.findEntity!.get(id) !== undefined;
+    return this.entityNums.has(id) || (this.maxNumBefore > 0 && this.s.findEntity!.get(id) !== undefined);
   }
 
   /** The num of entity `id`, creating it when new. */
   entity(id: string): number {
     let n = this.entityNums.get(id);
     if (n !== undefined) return n;
-    const r = this.s.findEntity!.get(id) as { num: number } | undefined;
+    const r = this.maxNumBefore > 0 ? (this.s.findEntity!.get(id) as { num: number } | undefined) : undefined;
     n = r ? r.num : Number(this.s.insEntity!.run(id).lastInsertRowid);
     this.entityNums.set(id, n);
     return n;
@@ -117,14 +192,27 @@ export class CatalogWriter {
   /** Adds a label: the first one becomes the label, later ones aliases (contract). */
   label(id: string, text: string, preferred = false): void {
     const n = this.entity(id);
-    const cur = this.s.getLabel!.get(n) as { label: string | null };
-    if (cur.label === null || preferred) {
-      if (cur.label !== null && cur.label !== text) this.s.demoteLabel!.run(n);
+    const f = this.flag(n);
+    if ((f & HAS_LABEL) === 0) {
       this.s.setLabel!.run(text, n);
       this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 0);
-    } else if (cur.label !== text) {
+      this.flags[n] = f | HAS_LABEL;
+      return;
+    }
+    const cur = (this.s.getLabel!.get(n) as { label: string | null }).label;
+    if (preferred) {
+      if (cur !== text) this.s.demoteLabel!.run(n);
+      this.s.setLabel!.run(text, n);
+      this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 0);
+      this.s.promoteAlias!.run(n, text);
+    } else if (cur !== text) {
       this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 1);
     }
+  }
+
+  /** True when entity `id` has a label already. */
+  hasLabel(id: string): boolean {
+    return (this.flag(this.entity(id)) & HAS_LABEL) !== 0;
   }
 
   /** Adds an alias. */
@@ -136,6 +224,12 @@ export class CatalogWriter {
   /** Sets the description (the first one wins; later ones are appended after a blank line). */
   description(id: string, text: string): void {
     const n = this.entity(id);
+    const f = this.flag(n);
+    if ((f & HAS_DESC) === 0) {
+      this.s.setDesc!.run(text, n);
+      this.flags[n] = f | HAS_DESC;
+      return;
+    }
     const cur = this.s.getDesc!.get(n) as { description: string | null };
     if (cur.description === null) this.s.setDesc!.run(text, n);
     else if (!cur.description.includes(text)) this.s.setDesc!.run(`${cur.description}\n\n${text}`, n);
@@ -151,10 +245,20 @@ export class CatalogWriter {
     this.s.insSub!.run(this.entity(sub), this.entity(sup));
   }
 
-  /** A relation edge `src rel dst`. */
+  /** A relation edge `src rel dst` (buffered; written in batches of {@link EDGE_BATCH}). */
   edge(src: string, rel: string, dst: string): void {
-    const r = this.s.insEdge!.run(this.entity(src), this.predicate(rel), this.entity(dst));
-    this.edgesWritten += r.changes;
+    const b = this.edgeBuf;
+    b.push(this.entity(src), this.predicate(rel), this.entity(dst));
+    if (b.length === 3 * EDGE_BATCH) this.flush();
+  }
+
+  /** Writes buffered rows now (done before every read of the edge table and at commit). */
+  flush(): void {
+    const b = this.edgeBuf;
+    if (b.length === 0) return;
+    if (b.length === 3 * EDGE_BATCH) this.edgesWritten += this.s.insEdges!.run(b).changes;
+    else for (let i = 0; i < b.length; i += 3) this.edgesWritten += this.s.insEdge!.run(b[i], b[i + 1], b[i + 2]).changes;
+    b.length = 0;
   }
 
   /** A literal attribute. */

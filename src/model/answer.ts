@@ -74,6 +74,20 @@ export interface Verdict {
   readonly reason?: string;
 }
 
+/** A suggested extra clue (additive; explain stage): appended to the question it would single out the best answer. */
+export interface SuggestionDoc {
+  /** The clue as a writer would append it, e.g. `that is moored at Harrowgate`. */
+  readonly text: string;
+  /** The question with the clue appended. */
+  readonly question: string;
+  /** The catalog fact behind it (ids; `object` is a literal value when `literal`). */
+  readonly triple: { readonly subject: string; readonly predicate: string; readonly object: string; readonly literal: boolean };
+  /** Ids of the rival answers the fact rules out. */
+  readonly rulesOut: readonly string[];
+  /** True/false when the pipeline re-asked the extended question and it came out unique with the same answer / did not. */
+  readonly verified?: boolean;
+}
+
 /** One document of `ask --json`. */
 export interface AskResult {
   readonly question: string;
@@ -85,6 +99,8 @@ export interface AskResult {
   readonly notes?: readonly string[];
   /** Additive: a reminder that answers are ranked suggestions, not facts. */
   readonly disclaimer?: string;
+  /** Additive: clues that would single out the best answer (tied or weak verdicts). */
+  readonly suggestions?: readonly SuggestionDoc[];
 }
 
 /** The reminder printed with every answer set. */

@@ -9,6 +9,7 @@ export type {
   VerdictStatus,
   Verdict,
   AskResult,
+  SuggestionDoc,
   CheckItem,
   CheckSummary,
   CheckReport,

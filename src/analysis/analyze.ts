@@ -1,0 +1,122 @@
+/**
+ * Question analysis: from the linked question to what the ranking needs — the clues (linked
+ * entities that seed the walk), the expected answer types and the relation cues.
+ *
+ * Steps: (1) split the question into words (words.ts); (2) mentions whose entity is itself a
+ * type of the catalog are not clues (a type names what is asked for, not a place to start);
+ * (3) the answer type from the wh-phrase and head noun (answer-type.ts); (4) the content
+ * words left over — not in a clue mention, not used for the type, not function words —
+ * give the relation cues (relation-cues.ts); (5) a clue that pre-modifies the next one
+ * ("the Ostrel engineer Ilse Varrick") gets a lower weight (see `modifierOf`).
+ */
+import type { LinkResult, LinkedMention } from "../linking/index.js";
+import type { EntityRef } from "../model/index.js";
+import { detectAnswerType, type AnswerTypeOptions, type AnswerTypeSource } from "./answer-type.js";
+import type { QuestionModel } from "./question-model.js";
+import { relationCues, type RelationCue, type RelationCueOptions } from "./relation-cues.js";
+import { isFunctionWord, words } from "./words.js";
+
+/** A linked entity that seeds one personalized PageRank. */
+export interface Clue {
+  /** Entity num (the relation index's node id). */
+  readonly node: number;
+  readonly id: string;
+  readonly label: string;
+  /** The clue's weight: the link confidence. */
+  readonly weight: number;
+  /** Index into `Analysis.mentions`. */
+  readonly mention: number;
+}
+
+/** An expected answer type. */
+export interface AnswerType extends EntityRef {
+  readonly num: number;
+}
+
+/** What the analysis found in one question. */
+export interface Analysis {
+  readonly question: string;
+  /** All linked mentions, as the linker returned them. */
+  readonly mentions: readonly LinkedMention[];
+  /** Expected answer types (empty: any type). Subtypes count. */
+  readonly answerTypes: readonly AnswerType[];
+  /** How the answer type was found. */
+  readonly answerTypeSource: AnswerTypeSource;
+  /** Relations cued by the question's words, best first. */
+  readonly relationCues: readonly RelationCue[];
+  /** The clues, in mention order. */
+  readonly clues: readonly Clue[];
+  /** Notes for the user (unlinked words, type words, missing type filter, …). */
+  readonly notes: readonly string[];
+}
+
+/** Options of {@link analyze}; all optional. */
+export interface AnalyzeOptions {
+  /** Weight factor of a clue that pre-modifies another one ("the *Ostrel* engineer Ilse Varrick"). @default 0.25 */
+  readonly modifierWeight?: number;
+  readonly answerType?: AnswerTypeOptions;
+  readonly relationCues?: RelationCueOptions;
+}
+
+/** Defaults of {@link AnalyzeOptions}. */
+export const DEFAULTS = { modifierWeight: 0.25 } as const;
+
+/**
+ * The mention that mention `i` pre-modifies, if any: the next clue mention follows it with
+ * nothing between them but type nouns and a possessive ("the Ostrel engineer Ilse Varrick",
+ * "Ostrel's Ilse Varrick"). In an English noun phrase the pre-modifiers narrow down which
+ * entity the head names (Quirk et al. 1985, "A Comprehensive Grammar of the English
+ * Language", §17.97 ff., premodification), so the modifier is weaker evidence about the
+ * answer than the head.
+ */
+function modifierOf(question: string, mentions: readonly LinkedMention[], i: number, isClue: readonly boolean[], model: QuestionModel): number | undefined {
+  const m = mentions[i]!;
+  let j = -1;
+  for (let k = 0; k < mentions.length; k++) {
+    if (k === i || !isClue[k] || mentions[k]!.start < m.end) continue;
+    if (j < 0 || mentions[k]!.start < mentions[j]!.start) j = k;
+  }
+  if (j < 0) return undefined;
+  const gap = question.slice(m.end, mentions[j]!.start);
+  if (/[,;:()!?]/.test(gap)) return undefined;
+  const between = words(gap).filter((w) => !/^s$/.test(w.norm));
+  if (between.length > 2) return undefined;
+  return between.every((w) => model.typesByKey.has(w.stem)) ? j : undefined;
+}
+
+/** Analyses one linked question against the catalog's vocabulary. */
+export function analyze(question: string, link: LinkResult, model: QuestionModel, options: AnalyzeOptions = {}): Analysis {
+  const ws = words(question);
+  const notes: string[] = [];
+  const clueMention: boolean[] = link.mentions.map((m) => !model.typeByNum.has(m.num));
+  link.mentions.forEach((m, i) => {
+    if (!clueMention[i]) notes.push(`"${m.text}" names a type (${m.entity.label}), not a clue`);
+  });
+  const inClue = ws.map((w) => link.mentions.some((m, i) => clueMention[i] && w.start < m.end && w.end > m.start));
+
+  const at = detectAnswerType(ws, inClue, model, options.answerType);
+  notes.push(...at.notes);
+  const used = new Set(at.usedWords);
+  const content: number[] = [];
+  ws.forEach((w, i) => {
+    if (!inClue[i] && !used.has(i) && !isFunctionWord(w.norm)) content.push(i);
+  });
+  const cues = relationCues(ws, content, model, options.relationCues);
+
+  const modifierWeight = options.modifierWeight ?? DEFAULTS.modifierWeight;
+  const clues: Clue[] = [];
+  link.mentions.forEach((m, i) => {
+    if (!clueMention[i]) return;
+    const head = modifierOf(question, link.mentions, i, clueMention, model);
+    if (head !== undefined) notes.push(`"${m.text}" qualifies "${link.mentions[head]!.text}": weighed as a weaker clue`);
+    clues.push({ node: m.num, id: m.entity.id, label: m.entity.label, weight: m.confidence * (head !== undefined ? modifierWeight : 1), mention: i });
+  });
+  for (const u of link.unlinked) notes.push(`"${u.text}" matched no catalog entity${u.suggestions.length > 0 ? ` (did you mean ${u.suggestions.slice(0, 3).map((s) => s.label).join(", ")}?)` : ""}`);
+  if (clues.length === 0) notes.push("no clue entity linked: nothing to start from");
+
+  const answerTypes: AnswerType[] = at.types.map((t) => {
+    const mt = model.typeByNum.get(t)!;
+    return { num: t, id: mt.id, label: mt.label };
+  });
+  return { question, mentions: link.mentions, answerTypes, answerTypeSource: at.source, relationCues: cues, clues, notes };
+}

@@ -1,0 +1,13 @@
+/**
+ * Question analysis: expected answer types, relation cues and clues of one linked question.
+ */
+export { analyze, DEFAULTS as ANALYZE_DEFAULTS } from "./analyze.js";
+export type { Analysis, AnalyzeOptions, AnswerType, Clue } from "./analyze.js";
+export { buildQuestionModel, PERSON_WORDS, PLACE_WORDS } from "./question-model.js";
+export type { QuestionModel, QuestionModelOptions, ModelType, ModelRelation } from "./question-model.js";
+export { detectAnswerType, DEFAULTS as ANSWER_TYPE_DEFAULTS } from "./answer-type.js";
+export type { AnswerTypeOptions, AnswerTypeResult, AnswerTypeSource } from "./answer-type.js";
+export { relationCues, expectedInverse, DEFAULTS as RELATION_CUE_DEFAULTS } from "./relation-cues.js";
+export type { RelationCue, RelationCueOptions } from "./relation-cues.js";
+export { words, FUNCTION_WORDS, isFunctionWord } from "./words.js";
+export type { Word } from "./words.js";

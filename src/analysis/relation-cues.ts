@@ -1,0 +1,122 @@
+/**
+ * Relation cues: the question's remaining content words matched to relation labels and
+ * aliases, giving per-relation transition weights for this question.
+ *
+ * Method: token containment of Porter stems (Porter 1980) — the share of a relation
+ * surface's content stems found among the question's content stems, an exact stem counting
+ * 1 and a shared prefix of at least `prefixMin` letters (one stem a prefix of the other:
+ * "carrier"/"carri(ed)") counting `partialCredit` — the best surface per relation. The
+ * weight is a soft boost, `1 + boost × score`, so uncued relations keep weight 1 and are
+ * still walked; each cue also records where it stands in the question and whether the voice
+ * flips its direction (see {@link expectedInverse}) (lexical relation matching as a soft prior, as in the relation-matching step
+ * of Yih et al. 2015, "Semantic Parsing via Staged Query Graph Generation", ACL, here with
+ * plain stem overlap instead of a learned similarity).
+ */
+import { tokens } from "../catalog/index.js";
+import type { QuestionModel } from "./question-model.js";
+import type { Word } from "./words.js";
+
+/** Options of {@link relationCues}; all optional. */
+export interface RelationCueOptions {
+  /** Weight added at a full match (weight = 1 + boost × score). @default 4 */
+  readonly boost?: number;
+  /** Smallest score that counts as a cue. @default 0.5 */
+  readonly minScore?: number;
+  /** Credit of a prefix (partial) stem match. @default 0.7 */
+  readonly partialCredit?: number;
+  /** Shortest shared prefix of a partial match. @default 4 */
+  readonly prefixMin?: number;
+}
+
+/** Defaults of {@link RelationCueOptions}. */
+export const DEFAULTS = { boost: 4, minScore: 0.5, partialCredit: 0.7, prefixMin: 4 } as const;
+
+/** One relation cued by the question. */
+export interface RelationCue {
+  /** Predicate num. */
+  readonly relation: number;
+  readonly id: string;
+  readonly label: string;
+  /** Transition weight for this question (uncued relations: 1). */
+  readonly weight: number;
+  /** Match score 0..1. */
+  readonly score: number;
+  /** The question words that matched. */
+  readonly words: readonly string[];
+  /** UTF-16 offset of the first matched word. */
+  readonly start: number;
+  /**
+   * True when the question's voice differs from the label's: "made by" (passive) against
+   * "manufactured by" (a passive label) is no flip; "which company made …" (active) is.
+   */
+  readonly flip: boolean;
+}
+
+/**
+ * The stored direction a clue should walk a cued relation in (SVO order of English, Quirk
+ * et al. 1985 §2.11): the subject stands left of the verb and the object right of it, so
+ * from a clue right of the cue word the walk goes object → subject, against the stored
+ * triple `subject relation object` — unless the voice flips it. True: against (inverse).
+ */
+export function expectedInverse(cue: RelationCue, clueStart: number): boolean {
+  return clueStart > cue.start !== cue.flip;
+}
+
+function stemCredit(a: string, b: string, options: Required<RelationCueOptions>): number {
+  if (a === b) return 1;
+  const short = a.length <= b.length ? a : b;
+  const long = a.length <= b.length ? b : a;
+  if (short.length >= options.prefixMin && long.startsWith(short)) return options.partialCredit;
+  return 0;
+}
+
+/** Matches content words (by index into `ws`) to the model's relations; best first, ties by id. */
+export function relationCues(ws: readonly Word[], content: readonly number[], model: QuestionModel, options: RelationCueOptions = {}): RelationCue[] {
+  const o: Required<RelationCueOptions> = { ...DEFAULTS, ...options };
+  const cues: RelationCue[] = [];
+  for (const r of model.relations) {
+    let best = 0;
+    let bestWords: number[] = [];
+    for (const surface of r.surfaces) {
+      let sum = 0;
+      const used: number[] = [];
+      for (const s of surface) {
+        let c = 0;
+        let w = -1;
+        for (const k of content) {
+          const x = stemCredit(s, ws[k]!.stem, o);
+          if (x > c) {
+            c = x;
+            w = k;
+          }
+        }
+        sum += c;
+        if (c > 0 && !used.includes(w)) used.push(w);
+      }
+      const score = surface.length > 0 ? sum / surface.length : 0;
+      if (score > best) {
+        best = score;
+        bestWords = used.sort((a, b) => a - b);
+      }
+    }
+    if (best >= o.minScore) {
+      const first = bestWords[0]!;
+      const last = bestWords[bestWords.length - 1]!;
+      // voice: the question's ("made by") against the label's ("manufactured by")
+      const questionPassive = ws[last + 1]?.norm === "by";
+      const labelTokens = tokens(r.label);
+      const labelPassive = labelTokens[labelTokens.length - 1] === "by";
+      cues.push({
+        relation: r.num,
+        id: r.id,
+        label: r.label,
+        weight: 1 + o.boost * best,
+        score: best,
+        words: bestWords.map((k) => ws[k]!.text),
+        start: ws[first]!.start,
+        flip: questionPassive !== labelPassive,
+      });
+    }
+  }
+  return cues.sort((a, b) => b.score - a.score || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+}

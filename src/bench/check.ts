@@ -1,0 +1,94 @@
+/**
+ * `npm run bench:check`: one `tiepoint check` call over 1,000 generated questions on a
+ * generated 100,000-entity catalog (src/gen; 500,000 edges), run as the real CLI in a child
+ * process and timed from spawn to exit. Target (issue 8): ≤ 30 s.
+ *
+ * Reported: the cold call (first use of the catalog: builds the relation-index snapshot and
+ * whatever the linker persists), a warm second call, the check's own `summary.seconds`, the
+ * quality figures of the generated set, and an HTML report of the same run (`--format html`).
+ *
+ * Options: --entities N --edges N --questions N --seed N --keep (keep the temp folder).
+ */
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, rmSync, statSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { dirname, join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import { Catalog, loadFiles } from "../catalog/index.js";
+import { generateCatalog } from "../gen/index.js";
+import type { CheckReport } from "../model/index.js";
+
+/** Benchmark sizes and target. */
+export const DEFAULTS = {
+  entities: 100_000,
+  edges: 500_000,
+  questions: 1_000,
+  seed: 11,
+  /** Target from issue 8, seconds for one check call. */
+  targetSeconds: 30,
+};
+
+function arg(name: string, fallback: number): number {
+  const i = process.argv.indexOf(`--${name}`);
+  if (i < 0) return fallback;
+  const v = Number(process.argv[i + 1]);
+  if (!Number.isFinite(v) || v <= 0) {
+    process.stderr.write(`bench:check: --${name} needs a positive number\n`);
+    process.exit(2);
+  }
+  return v;
+}
+
+const MAIN = resolve(dirname(fileURLToPath(import.meta.url)), "../cli/main.js");
+
+function timedCheck(args: readonly string[]): { seconds: number; stdout: string } {
+  const t0 = performance.now();
+  const r = spawnSync(process.execPath, [MAIN, "check", ...args], { encoding: "utf8", maxBuffer: 1 << 30 });
+  const seconds = (performance.now() - t0) / 1000;
+  if (r.status !== 0) {
+    process.stderr.write(`bench:check: tiepoint check failed (status ${r.status}):\n${r.stderr}\n`);
+    process.exit(1);
+  }
+  return { seconds, stdout: r.stdout };
+}
+
+const entities = arg("entities", DEFAULTS.entities);
+const edges = arg("edges", DEFAULTS.edges);
+const questions = arg("questions", DEFAULTS.questions);
+const seed = arg("seed", DEFAULTS.seed);
+const dir = mkdtempSync(join(tmpdir(), "tp-bench-check-"));
+try {
+  const gen = generateCatalog({ out: join(dir, "gen"), entities, edges, seed, questions });
+  const db = join(dir, "bench.db");
+  const cat = Catalog.open(db, { create: true });
+  const load = loadFiles(cat, gen.files);
+  cat.close();
+  const cold = timedCheck([gen.questions, "--db", db, "--json"]);
+  const warm = timedCheck([gen.questions, "--db", db, "--json"]);
+  const html = join(dir, "report.html");
+  const page = timedCheck([gen.questions, "--db", db, "--format", "html", "--out", html]);
+  const report = JSON.parse(warm.stdout) as CheckReport;
+  const s = report.summary;
+  const result = {
+    bench: "check",
+    catalog: { entities: gen.entities, edgeLines: gen.edges, maxDegree: gen.maxDegree, loadSeconds: +load.seconds.toFixed(2) },
+    questions: s.questions,
+    coldCallSeconds: +cold.seconds.toFixed(2),
+    warmCallSeconds: +warm.seconds.toFixed(2),
+    checkSummarySeconds: +s.seconds.toFixed(2),
+    millisPerQuestion: +((s.seconds * 1000) / Math.max(1, s.questions)).toFixed(2),
+    htmlCallSeconds: +page.seconds.toFixed(2),
+    htmlMebibytes: +(statSync(html).size / 2 ** 20).toFixed(1),
+    quality: { withExpected: s.withExpected, hits1: +s.hits1.toFixed(3), hits5: +s.hits5.toFixed(3), mrr: +s.mrr.toFixed(3), verdicts: s.verdicts },
+    target: DEFAULTS.targetSeconds,
+    meetsTarget: cold.seconds <= DEFAULTS.targetSeconds,
+  };
+  process.stdout.write(JSON.stringify(result, null, 2) + "\n");
+  process.stderr.write(
+    `check: ${s.questions} questions on ${gen.entities.toLocaleString("en-US")} entities: cold call ${cold.seconds.toFixed(1)} s, warm ${warm.seconds.toFixed(1)} s ` +
+      `(target ${DEFAULTS.targetSeconds} s: ${result.meetsTarget ? "met" : "NOT met"}); html report ${page.seconds.toFixed(1)} s\n`,
+  );
+} finally {
+  if (!process.argv.includes("--keep")) rmSync(dir, { recursive: true, force: true });
+  else process.stderr.write(`kept ${dir}\n`);
+}

@@ -1,0 +1,305 @@
+/**
+ * Benchmark phases, each run in its own child process so that its peak memory (getrusage
+ * maxrss) is its own: load, index, ask, ppr. Each returns a JSON-shaped record.
+ */
+import { spawnSync } from "node:child_process";
+import { appendFileSync, existsSync, mkdirSync, rmSync, writeFileSync, readFileSync, statSync } from "node:fs";
+import { join } from "node:path";
+import { Catalog, loadFiles } from "../catalog/index.js";
+import { generateCatalog } from "../gen/index.js";
+import { parseQuestionFile, rankOfExpected, Session } from "../pipeline/index.js";
+import {
+  clueSeeds,
+  pprFast,
+  pprPower,
+  readSnapshot,
+  relationWeightsOf,
+  RelationIndex,
+  snapshotPath,
+  writeSnapshot,
+  RANK_DEFAULTS,
+  TRANSITION_DEFAULTS,
+  type Seed,
+} from "../ranking/index.js";
+import { IGRAPH_SCRIPT, findIgraph } from "./igraph.js";
+import { linkQuestion } from "../linking/index.js";
+import { analyze } from "../analysis/index.js";
+
+/** Peak resident set size of this process so far, in MiB. */
+export function peakMiB(): number {
+  return process.resourceUsage().maxRSS / 1024;
+}
+
+/** Median and 95th percentile (nearest rank) of a list of numbers. */
+export function quantiles(xs: readonly number[]): { median: number; p95: number; mean: number } {
+  if (xs.length === 0) return { median: NaN, p95: NaN, mean: NaN };
+  const s = [...xs].sort((a, b) => a - b);
+  const at = (q: number) => s[Math.min(s.length - 1, Math.max(0, Math.ceil(q * s.length) - 1))]!;
+  return { median: at(0.5), p95: at(0.95), mean: s.reduce((a, b) => a + b, 0) / s.length };
+}
+
+/** Paths of one size's working folder. */
+export function workPaths(work: string) {
+  return { gen: join(work, "gen"), db: join(work, "catalog.db"), questions: join(work, "gen", "questions.tsv"), igraph: join(work, "igraph") };
+}
+
+/** Generates the catalog sources (once per folder and size). */
+export function phaseGenerate(work: string, entities: number, edges: number, questions: number): Record<string, unknown> {
+  const p = workPaths(work);
+  const stamp = join(p.gen, `.done-${entities}-${edges}-${questions}`);
+  if (existsSync(stamp)) return { cached: true };
+  rmSync(p.gen, { recursive: true, force: true });
+  const t0 = performance.now();
+  const r = generateCatalog({ out: p.gen, entities, edges, questions, seed: 9 });
+  writeFileSync(stamp, JSON.stringify(r.files));
+  return { seconds: (performance.now() - t0) / 1000, files: r.files, edgeLines: r.edges, questions: r.questionCount, maxDegree: r.maxDegree };
+}
+
+/** Loads the generated files into a fresh catalog: throughput and peak memory. */
+export function phaseLoad(work: string): Record<string, unknown> {
+  const p = workPaths(work);
+  for (const f of [p.db, p.db + "-wal", p.db + "-shm", snapshotPath(p.db)]) rmSync(f, { force: true });
+  const files = JSON.parse(readFileSync(join(p.gen, readdirDone(p.gen)), "utf8")) as string[];
+  const cat = Catalog.open(p.db, { create: true });
+  const t0 = performance.now();
+  const report = loadFiles(cat, files);
+  const seconds = (performance.now() - t0) / 1000;
+  const counts = cat.counts();
+  cat.close();
+  return { seconds, statements: report.statements, triplesPerSecond: report.statements / seconds, edges: counts.edges, entities: counts.entities, peakMiB: peakMiB(), dbMiB: statSync(p.db).size / 2 ** 20 };
+}
+
+function readdirDone(dir: string): string {
+  const names = (spawnSync("ls", ["-a", dir], { encoding: "utf8" }).stdout ?? "").split("\n");
+  const done = names.find((n) => n.startsWith(".done-"));
+  if (!done) throw new Error(`bench: no generated catalog in ${dir}`);
+  return done;
+}
+
+/** Index build from SQLite, snapshot write and snapshot load times. */
+export function phaseIndex(work: string): Record<string, unknown> {
+  const p = workPaths(work);
+  const cat = Catalog.open(p.db, { readonly: true });
+  const t0 = performance.now();
+  const index = RelationIndex.fromCatalog(cat);
+  const build = (performance.now() - t0) / 1000;
+  const file = snapshotPath(p.db);
+  const t1 = performance.now();
+  writeSnapshot(file, index, cat.version());
+  const save = (performance.now() - t1) / 1000;
+  const loads: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    const t2 = performance.now();
+    const r = readSnapshot(file, cat.version());
+    loads.push((performance.now() - t2) / 1000);
+    if (!r.ok) throw new Error(`bench: snapshot not readable: ${r.reason}`);
+  }
+  const peak = peakMiB();
+  cat.close();
+  return { buildSeconds: build, saveSeconds: save, snapshotLoadSeconds: quantiles(loads).median, snapshotMiB: statSync(file).size / 2 ** 20, nodes: index.nodeCount, edges: index.edgeCount, peakMiB: peak };
+}
+
+/** Per-question latency, Hits@1 and peak memory over the generated questions, through one Session. */
+export function phaseAsk(work: string, limit: number): Record<string, unknown> {
+  const p = workPaths(work);
+  const items = parseQuestionFile(p.questions).slice(0, limit);
+  const t0 = performance.now();
+  const session = Session.open({ db: p.db });
+  const openSeconds = (performance.now() - t0) / 1000;
+  const totals: number[] = [];
+  const stages = { link: [] as number[], analyze: [] as number[], rank: [] as number[], explain: [] as number[] };
+  let hits = 0;
+  let withExpected = 0;
+  // one warm-up question (JIT), not counted
+  if (items[0]) session.ask(items[0].question);
+  for (const item of items) {
+    const t = performance.now();
+    const out = session.ask(item.question);
+    totals.push(performance.now() - t);
+    for (const k of Object.keys(stages) as (keyof typeof stages)[]) stages[k].push(out.timings[k]);
+    if (item.expected.length > 0) {
+      withExpected++;
+      if (rankOfExpected(out.result, item.expected) === 1) hits++;
+    }
+  }
+  const peak = peakMiB();
+  session.close();
+  const med = (xs: number[]) => quantiles(xs).median;
+  return {
+    questions: items.length,
+    openSeconds,
+    latencyMs: quantiles(totals),
+    stageMedianMs: { link: med(stages.link), analyze: med(stages.analyze), rank: med(stages.rank), explain: med(stages.explain) },
+    hits1: withExpected > 0 ? hits / withExpected : null,
+    withExpected,
+    peakMiB: peak,
+  };
+}
+
+/** Process start to first answer: the real CLI, spawned, timed to exit (warm snapshot). */
+export function phaseReady(work: string, cli: string): Record<string, unknown> {
+  const p = workPaths(work);
+  const q = parseQuestionFile(p.questions)[0];
+  if (!q) return { skipped: "no question" };
+  const times: number[] = [];
+  let status: number | null = null;
+  for (let i = 0; i < 3; i++) {
+    const t = performance.now();
+    const r = spawnSync(process.execPath, [cli, "ask", q.question, "--db", p.db, "--json"], { encoding: "utf8", maxBuffer: 1 << 26 });
+    times.push((performance.now() - t) / 1000);
+    status = r.status;
+    if (r.status !== 0) return { error: (r.stderr ?? "").split("\n")[0], status };
+  }
+  return { seconds: quantiles(times).median, runs: times, status };
+}
+
+/** Top-k nodes (seeds excluded), best first, ties by node. */
+function topK(nodes: ArrayLike<number>, scores: ArrayLike<number>, k: number, exclude: ReadonlySet<number>): [number, number][] {
+  const all: [number, number][] = [];
+  for (let i = 0; i < nodes.length; i++) if (scores[i]! > 0 && !exclude.has(nodes[i]!)) all.push([nodes[i]!, scores[i]!]);
+  all.sort((a, b) => b[1] - a[1] || a[0] - b[0]);
+  return all.slice(0, k);
+}
+
+/**
+ * Top-k agreement |T_fast ∩ T_exact| / k, tie-aware: a node of T_fast counts when its exact
+ * score reaches the exact k-th score (so exactly tied nodes at the boundary are not misses).
+ */
+export function agreement(fast: readonly [number, number][], exactScore: (v: number) => number, exactTop: readonly [number, number][], k: number): number {
+  if (exactTop.length === 0) return fast.length === 0 ? 1 : 0;
+  const kth = exactTop[Math.min(k, exactTop.length) - 1]![1] * (1 - 1e-9);
+  const want = Math.min(k, exactTop.length);
+  let hit = 0;
+  for (const [v] of fast.slice(0, want)) if (exactScore(v) >= kth) hit++;
+  return hit / want;
+}
+
+/**
+ * Query-time PageRank against exact PageRank on the clue seeds of the generated questions:
+ * pprFast timing, top-20 agreement with pprPower (unit relation weights, and with the
+ * questions' cue weights), and python3-igraph's exact PPR on a subset (time, agreement).
+ */
+export function phasePpr(work: string, limit: number, exactLimit: number, igraphLimit: number): Record<string, unknown> {
+  const p = workPaths(work);
+  const items = parseQuestionFile(p.questions).slice(0, limit);
+  const session = Session.open({ db: p.db });
+  const index = session.index;
+  const alpha = RANK_DEFAULTS.alpha;
+  const beta = TRANSITION_DEFAULTS.hubExponent;
+  const queries: { seeds: Seed[]; rho: Float64Array }[] = [];
+  for (const item of items) {
+    const analysis = analyze(item.question, linkQuestion(item.question, session.linker), session.model);
+    const rho = relationWeightsOf(analysis, index);
+    for (const clue of analysis.clues) {
+      const seeds = clueSeeds(analysis, clue, index);
+      if (seeds.length > 0) queries.push({ seeds, rho });
+    }
+    if (queries.length >= limit) break;
+  }
+  const K = 20;
+  const fastMs: number[] = [];
+  const fastCueMs: number[] = [];
+  const fastTops: [number, number][][] = [];
+  const fastCueTops: [number, number][][] = [];
+  for (let rep = 0; rep < 2; rep++) {
+    // rep 0 warms the JIT and the per-index tables; rep 1 is measured
+    for (const q of queries) {
+      const ex = new Set(q.seeds.map((s) => s.node));
+      let t = performance.now();
+      const f = pprFast(index, q.seeds, { alpha });
+      const dt = performance.now() - t;
+      t = performance.now();
+      const fc = pprFast(index, q.seeds, { alpha, relationWeights: q.rho });
+      const dtc = performance.now() - t;
+      if (rep === 1) {
+        fastMs.push(dt);
+        fastCueMs.push(dtc);
+        fastTops.push(topK(f.nodes, f.scores, K, ex));
+        fastCueTops.push(topK(fc.nodes, fc.scores, K, ex));
+      }
+    }
+  }
+  const agree: number[] = [];
+  const agreeCue: number[] = [];
+  const exactMs: number[] = [];
+  const nodesAll = Int32Array.from({ length: index.nodeCount }, (_, i) => i);
+  for (let i = 0; i < Math.min(exactLimit, queries.length); i++) {
+    const q = queries[i]!;
+    const ex = new Set(q.seeds.map((s) => s.node));
+    const t = performance.now();
+    const x = pprPower(index, q.seeds, { alpha, tolerance: 1e-10 });
+    exactMs.push(performance.now() - t);
+    agree.push(agreement(fastTops[i]!, (v) => x[v]!, topK(nodesAll, x, K, ex), K));
+    const xc = pprPower(index, q.seeds, { alpha, tolerance: 1e-10, relationWeights: q.rho });
+    agreeCue.push(agreement(fastCueTops[i]!, (v) => xc[v]!, topK(nodesAll, xc, K, ex), K));
+  }
+  const result: Record<string, unknown> = {
+    alpha,
+    hubExponent: beta,
+    queries: queries.length,
+    fastMs: quantiles(fastMs),
+    fastCueMs: quantiles(fastCueMs),
+    exactQueries: agree.length,
+    exactPowerMs: quantiles(exactMs),
+    agreementTop20: quantiles(agree).mean,
+    agreementTop20Cues: quantiles(agreeCue).mean,
+    peakMiB: peakMiB(),
+  };
+  const ig = findIgraph();
+  if (ig === null) {
+    result.igraph = { skipped: "python3-igraph not installed (apt-get install python3-igraph, or pip install igraph)" };
+  } else {
+    mkdirSync(p.igraph, { recursive: true });
+    const edgesFile = join(p.igraph, "arcs.txt");
+    const weightsFile = join(p.igraph, "weights.f64");
+    const queriesFile = join(p.igraph, "queries.json");
+    const outFile = join(p.igraph, "out.json");
+    const scriptFile = join(p.igraph, "ppr.py");
+    writeFileSync(scriptFile, IGRAPH_SCRIPT);
+    // arcs u → v for every adjacency entry, weight ρ(=1)·deg(v)^(−β) as in transition.ts
+    const weights = new Float64Array(index.edgeCount * 2);
+    let k = 0;
+    writeFileSync(edgesFile, "");
+    const lines: string[] = [];
+    for (let u = 0; u < index.nodeCount; u++) {
+      index.forEach(u, (v) => {
+        lines.push(`${u} ${v}`);
+        weights[k++] = Math.pow(index.degree(v), -beta);
+      });
+      if (lines.length > 200_000) {
+        appendFileSync(edgesFile, lines.join("\n") + "\n");
+        lines.length = 0;
+      }
+    }
+    if (lines.length > 0) appendFileSync(edgesFile, lines.join("\n") + "\n");
+    writeFileSync(weightsFile, new Uint8Array(weights.buffer));
+    const sub = queries.slice(0, igraphLimit);
+    writeFileSync(queriesFile, JSON.stringify({ nodeCount: index.nodeCount, alpha, top: K, queries: sub.map((q) => q.seeds.map((s) => [s.node, s.weight])) }));
+    const r = spawnSync(ig.python, [scriptFile, edgesFile, weightsFile, queriesFile, outFile], { encoding: "utf8", maxBuffer: 1 << 26 });
+    if (r.status !== 0) {
+      result.igraph = { error: (r.stderr ?? "").trim().split("\n").slice(-1)[0] };
+    } else {
+      const out = JSON.parse(readFileSync(outFile, "utf8")) as { version: string; loadSeconds: number; results: { seconds: number; top: [number, number][] }[] };
+      const ag: number[] = [];
+      out.results.forEach((res, i) => {
+        const exact = new Map(res.top);
+        // exact scores outside igraph's top 20 are below its 20th: treat as 0
+        ag.push(agreement(fastTops[i]!, (v) => exact.get(v) ?? 0, res.top, K));
+      });
+      const igMs = quantiles(out.results.map((x) => x.seconds * 1000));
+      const ours = quantiles(fastMs.slice(0, sub.length));
+      result.igraph = {
+        version: out.version,
+        queries: out.results.length,
+        graphLoadSeconds: out.loadSeconds,
+        ms: igMs,
+        agreementTop20: quantiles(ag).mean,
+        speedup: igMs.median / ours.median,
+      };
+    }
+    rmSync(edgesFile, { force: true });
+    rmSync(weightsFile, { force: true });
+  }
+  session.close();
+  return result;
+}

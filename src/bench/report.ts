@@ -1,0 +1,79 @@
+/**
+ * The benchmark's Markdown table: one row per figure, one column per catalog size, and the
+ * target from issues 5 and 9 where there is one.
+ */
+
+/** One size's phase records (JSON-shaped, as the phases return them). */
+export interface SizeResult {
+  readonly size: string;
+  readonly entities: number;
+  readonly edges: number;
+  readonly phases: Record<string, Record<string, unknown>>;
+}
+
+/** The whole benchmark document. */
+export interface BenchDocument {
+  readonly machine: Record<string, unknown>;
+  readonly results: readonly SizeResult[];
+}
+
+type Row = { label: string; target: string; value: (r: SizeResult) => string };
+
+function get(r: SizeResult, path: string): unknown {
+  let x: unknown = r.phases;
+  for (const k of path.split(".")) {
+    if (x === null || typeof x !== "object") return undefined;
+    x = (x as Record<string, unknown>)[k];
+  }
+  return x;
+}
+
+function num(r: SizeResult, path: string, digits: number, scale = 1): string {
+  const x = get(r, path);
+  if (typeof x !== "number" || !Number.isFinite(x)) {
+    const err = get(r, path.split(".")[0] + ".error") ?? get(r, path.split(".")[0] + ".skipped") ?? get(r, "ppr.igraph.skipped");
+    return typeof err === "string" && path.startsWith("ppr.igraph") ? "skipped" : "–";
+  }
+  return (x * scale).toLocaleString("en-US", { maximumFractionDigits: digits, minimumFractionDigits: digits });
+}
+
+const ROWS: Row[] = [
+  { label: "load throughput (triples/s)", target: "≥ 150,000 (L)", value: (r) => num(r, "load.triplesPerSecond", 0) },
+  { label: "load peak memory (MiB)", target: "", value: (r) => num(r, "load.peakMiB", 0) },
+  { label: "index build from SQLite (s)", target: "", value: (r) => num(r, "index.buildSeconds", 2) },
+  { label: "snapshot load (ms)", target: "", value: (r) => num(r, "index.snapshotLoadSeconds", 1, 1000) },
+  { label: "snapshot size (MiB)", target: "", value: (r) => num(r, "index.snapshotMiB", 1) },
+  { label: "process start → first answer (s)", target: "≤ 2 (L)", value: (r) => num(r, "ready.seconds", 2) },
+  { label: "session open in process (s)", target: "", value: (r) => num(r, "ask.openSeconds", 2) },
+  { label: "per question, median (ms)", target: "≤ 10 (M), ≤ 20 (L)", value: (r) => num(r, "ask.latencyMs.median", 1) },
+  { label: "per question, p95 (ms)", target: "≤ 40 (M), ≤ 60 (L)", value: (r) => num(r, "ask.latencyMs.p95", 1) },
+  { label: "  of which rank / explain, median (ms)", target: "", value: (r) => `${num(r, "ask.stageMedianMs.rank", 1)} / ${num(r, "ask.stageMedianMs.explain", 1)}` },
+  { label: "peak memory while answering (MiB)", target: "≤ 1,229 (L)", value: (r) => num(r, "ask.peakMiB", 0) },
+  { label: "Hits@1 on generated questions", target: "", value: (r) => num(r, "ask.hits1", 3) },
+  { label: "query-time PPR per clue, median / p95 (ms)", target: "", value: (r) => `${num(r, "ppr.fastMs.median", 2)} / ${num(r, "ppr.fastMs.p95", 2)}` },
+  { label: "  with the question's cue weights (ms)", target: "", value: (r) => `${num(r, "ppr.fastCueMs.median", 2)} / ${num(r, "ppr.fastCueMs.p95", 2)}` },
+  { label: "top-20 agreement with exact PPR (power iteration)", target: "≥ 0.95", value: (r) => num(r, "ppr.agreementTop20", 3) },
+  { label: "  with cue weights", target: "≥ 0.95", value: (r) => num(r, "ppr.agreementTop20Cues", 3) },
+  { label: "igraph exact PPR per query, median (ms)", target: "", value: (r) => num(r, "ppr.igraph.ms.median", 0) },
+  { label: "top-20 agreement with igraph", target: "≥ 0.95", value: (r) => num(r, "ppr.igraph.agreementTop20", 3) },
+  { label: "speed-up over igraph (median)", target: "≥ 100× (L)", value: (r) => num(r, "ppr.igraph.speedup", 0) },
+];
+
+/** Renders the document as a Markdown table with the machine line. */
+export function renderMarkdown(doc: BenchDocument): string {
+  const m = doc.machine;
+  const head = `| figure | ${doc.results.map((r) => `${r.size} (${r.entities.toLocaleString("en-US")} / ${r.edges.toLocaleString("en-US")})`).join(" | ")} | target |`;
+  const sep = `|---|${doc.results.map(() => "---:").join("|")}|---|`;
+  const rows = ROWS.map((row) => `| ${row.label} | ${doc.results.map((r) => row.value(r)).join(" | ")} | ${row.target} |`);
+  const ppr = doc.results[0]?.phases.ppr as Record<string, unknown> | undefined;
+  const lines = [
+    `Machine: ${String(m.cpus)} CPUs (${String(m.cpuModel)}), ${String(m.memoryGiB)} GiB RAM, Node ${String(m.node)}, ${String(m.platform)}; python3-igraph ${m.igraph === null ? "not installed (igraph rows skipped)" : String(m.igraph)}; ${String(m.date)}.`,
+    `PPR: restart α = ${String(ppr?.alpha ?? "?")}, hub exponent β = ${String(ppr?.hubExponent ?? "?")}; seeds = the clue seeds of the generated questions; agreement = |top-20 ∩ exact top-20| / 20, seeds excluded, ties at the 20th exact score counted as agreeing.`,
+    "",
+    head,
+    sep,
+    ...rows,
+    "",
+  ];
+  return lines.join("\n");
+}

@@ -1,0 +1,153 @@
+/**
+ * `npm run bench [-- --size S|M|L …]`: the scale benchmark suite (issue 9).
+ *
+ * On generated catalogs (src/gen) of three sizes — S 10,000 entities / 50,000 edges,
+ * M 100,000 / 500,000, L 1,000,000 / 5,000,000 (default: S and M; L only on request) — it
+ * measures, each phase in its own child process so peak memory is the phase's own:
+ * load throughput and peak memory (loadFiles), index build, snapshot save and load,
+ * process start to first answer (the real CLI, spawned), per-question latency median/p95
+ * over ≥ 200 generated questions and peak memory while answering (one Session), Hits@1, and
+ * the query-time PageRank against exact PageRank — our power iteration and, side by side,
+ * python3-igraph's PRPACK on the same graph, transition weights and seeds (time per query,
+ * top-20 agreement; the column is skipped with a note when igraph is absent).
+ *
+ * Writes bench-results/bench-SIZES-TIME.json and .md, and bench-results/latest.md.
+ * Options: --size S|M|L (repeatable or comma-separated), --questions N (default 200),
+ * --work DIR (generated catalogs; default $TMPDIR/tiepoint-bench), --out DIR.
+ */
+import { spawnSync } from "node:child_process";
+import { mkdirSync, writeFileSync } from "node:fs";
+import { cpus, totalmem, tmpdir } from "node:os";
+import { dirname, join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import { phaseAsk, phaseGenerate, phaseIndex, phaseLoad, phasePpr, phaseReady } from "./phases.js";
+import { findIgraph } from "./igraph.js";
+import { renderMarkdown, type SizeResult } from "./report.js";
+
+/** The three catalog sizes of issue 9, and per-size query counts. */
+export const SIZES = {
+  S: { entities: 10_000, edges: 50_000, exact: 100, igraph: 20 },
+  M: { entities: 100_000, edges: 500_000, exact: 100, igraph: 20 },
+  L: { entities: 1_000_000, edges: 5_000_000, exact: 30, igraph: 10 },
+} as const;
+
+type SizeName = keyof typeof SIZES;
+
+const HERE = dirname(fileURLToPath(import.meta.url));
+const ROOT = resolve(HERE, "../..");
+const CLI = join(ROOT, "dist/cli/main.js");
+
+function usage(msg: string): never {
+  process.stderr.write(`bench: ${msg}\nusage: npm run bench -- [--size S|M|L]… [--questions N] [--work DIR] [--out DIR]\n`);
+  process.exit(2);
+}
+
+function args(argv: readonly string[]) {
+  const sizes: SizeName[] = [];
+  let questions = 200;
+  let work = join(tmpdir(), "tiepoint-bench");
+  let out = join(ROOT, "bench-results");
+  let phase: string | undefined;
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i]!;
+    const next = () => argv[++i] ?? usage(`${a} needs a value`);
+    if (a === "--size") for (const s of next().split(",")) {
+      const u = s.trim().toUpperCase();
+      if (!(u in SIZES)) usage(`unknown size "${s}" (use S, M or L)`);
+      sizes.push(u as SizeName);
+    }
+    else if (a === "--questions") {
+      questions = Number(next());
+      if (!Number.isInteger(questions) || questions < 1) usage("--questions needs a positive whole number");
+    } else if (a === "--work") work = resolve(next());
+    else if (a === "--out") out = resolve(next());
+    else if (a === "--phase") phase = next();
+    else usage(`unknown option ${a}`);
+  }
+  return { sizes: sizes.length > 0 ? sizes : (["S", "M"] as SizeName[]), questions, work, out, phase };
+}
+
+/** Runs one phase in a child process; returns its JSON record. */
+function child(phase: string, size: SizeName, workBase: string, questions: number): Record<string, unknown> {
+  const r = spawnSync(process.execPath, ["--max-old-space-size=4096", fileURLToPath(import.meta.url), "--phase", phase, "--size", size, "--work", workBase, "--questions", String(questions)], {
+    encoding: "utf8",
+    stdio: ["ignore", "pipe", "inherit"],
+    maxBuffer: 1 << 26,
+  });
+  const last = (r.stdout ?? "").trim().split("\n").pop() ?? "";
+  if (r.status !== 0) return { error: `phase ${phase} exited with ${r.status}` };
+  try {
+    return JSON.parse(last) as Record<string, unknown>;
+  } catch {
+    return { error: `phase ${phase} printed no result` };
+  }
+}
+
+function runPhase(phase: string, size: SizeName, work: string, questions: number): Record<string, unknown> {
+  const s = SIZES[size];
+  switch (phase) {
+    case "generate":
+      return phaseGenerate(work, s.entities, s.edges, Math.max(questions + 50, 250));
+    case "load":
+      return phaseLoad(work);
+    case "index":
+      return phaseIndex(work);
+    case "ask":
+      return phaseAsk(work, questions);
+    case "ppr":
+      return phasePpr(work, questions, s.exact, s.igraph);
+    default:
+      usage(`unknown phase ${phase}`);
+  }
+}
+
+function main(): void {
+  const o = args(process.argv.slice(2));
+  if (o.phase !== undefined) {
+    const size = o.sizes[0]!;
+    const work = join(o.work, size);
+    mkdirSync(work, { recursive: true });
+    process.stdout.write("\n" + JSON.stringify(runPhase(o.phase, size, work, o.questions)) + "\n");
+    return;
+  }
+  const machine = {
+    cpus: cpus().length,
+    cpuModel: cpus()[0]?.model ?? "unknown",
+    memoryGiB: Math.round((totalmem() / 2 ** 30) * 10) / 10,
+    node: process.version,
+    platform: `${process.platform} ${process.arch}`,
+    igraph: findIgraph()?.version ?? null,
+    date: new Date().toISOString(),
+  };
+  const results: SizeResult[] = [];
+  for (const size of o.sizes) {
+    const work = join(o.work, size);
+    mkdirSync(work, { recursive: true });
+    const s = SIZES[size];
+    process.stderr.write(`bench ${size}: ${s.entities} entities, ${s.edges} edges (work folder ${work})\n`);
+    const r: SizeResult = { size, entities: s.entities, edges: s.edges, phases: {} };
+    for (const phase of ["generate", "load", "index", "ask", "ppr"]) {
+      process.stderr.write(`bench ${size}: ${phase}…\n`);
+      const t = performance.now();
+      r.phases[phase] = child(phase, size, o.work, o.questions);
+      process.stderr.write(`bench ${size}: ${phase} done in ${((performance.now() - t) / 1000).toFixed(1)} s\n`);
+      if (phase === "index") {
+        process.stderr.write(`bench ${size}: ready…\n`);
+        r.phases.ready = phaseReady(work, CLI);
+      }
+    }
+    results.push(r);
+  }
+  mkdirSync(o.out, { recursive: true });
+  const stamp = new Date().toISOString().replace(/[:.]/g, "-");
+  const base = join(o.out, `bench-${o.sizes.join("")}-${stamp}`);
+  const doc = { machine, results };
+  writeFileSync(base + ".json", JSON.stringify(doc, null, 2) + "\n");
+  const md = renderMarkdown(doc);
+  writeFileSync(base + ".md", md);
+  writeFileSync(join(o.out, "latest.md"), md);
+  process.stdout.write(md);
+  process.stderr.write(`bench: wrote ${base}.json and .md\n`);
+}
+
+main();

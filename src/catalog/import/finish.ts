@@ -1,0 +1,34 @@
+/**
+ * The last step of a load, inside its transaction: an IRI that is used as a predicate and
+ * also carries labels (`P rdfs:label "x"`, in any order relative to its use) gives those
+ * labels to the relation, and when it takes no part in the graph (no edge, not a type) its
+ * entity row is removed, so predicate IRIs do not linger as linkable entities.
+ */
+import type { CatalogWriter } from "../writer.js";
+
+/** Runs the end-of-load fix-ups. */
+export function finishLoad(writer: CatalogWriter, options: { rdf: boolean }): void {
+  if (!options.rdf) return;
+  const db = writer.catalog.db;
+  const pairs = db.prepare("SELECT e.num AS e, p.id AS pid FROM predicate p JOIN entity e ON e.id = p.id").all() as { e: number; pid: string }[];
+  if (pairs.length === 0) return;
+  const labels = db.prepare("SELECT text, kind FROM alias WHERE entity = ? ORDER BY kind, text");
+  const label = db.prepare("SELECT label FROM entity WHERE num = ?").pluck();
+  const used = db.prepare(
+    "SELECT EXISTS(SELECT 1 FROM edge WHERE src = @e) OR EXISTS(SELECT 1 FROM edge WHERE dst = @e) OR EXISTS(SELECT 1 FROM entity_type WHERE type = @e) OR EXISTS(SELECT 1 FROM subclass WHERE sub = @e OR sup = @e)",
+  ).pluck();
+  const typesOf = db.prepare("SELECT type FROM entity_type WHERE entity = ?").pluck();
+  const orphan = db.prepare(
+    "SELECT NOT (EXISTS(SELECT 1 FROM alias WHERE entity = @e) OR EXISTS(SELECT 1 FROM edge WHERE src = @e) OR EXISTS(SELECT 1 FROM edge WHERE dst = @e) OR EXISTS(SELECT 1 FROM entity_type WHERE entity = @e OR type = @e) OR EXISTS(SELECT 1 FROM subclass WHERE sub = @e OR sup = @e) OR EXISTS(SELECT 1 FROM attribute WHERE entity = @e) OR EXISTS(SELECT 1 FROM entity WHERE num = @e AND description IS NOT NULL))",
+  ).pluck();
+  const dels = ["DELETE FROM alias WHERE entity = ?", "DELETE FROM entity_type WHERE entity = ?", "DELETE FROM attribute WHERE entity = ?", "DELETE FROM entity WHERE num = ?"].map((s) => db.prepare(s));
+  for (const { e, pid } of pairs) {
+    const main = label.get(e) as string | null;
+    if (main !== null) writer.predicateLabel(pid, main);
+    for (const a of labels.all(e) as { text: string; kind: number }[]) if (a.text !== main) writer.predicateAlias(pid, a.text);
+    if (used.get({ e })) continue;
+    const types = typesOf.all(e) as number[];
+    for (const d of dels) d.run(e);
+    for (const t of types) if (orphan.get({ e: t })) dels[3]!.run(t);
+  }
+}

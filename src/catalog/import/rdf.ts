@@ -1,0 +1,214 @@
+/**
+ * RDF importer: RDF 1.1 N-Triples (W3C Recommendation 2014) and RDF 1.1 Turtle (W3C
+ * Recommendation 2014), parsed by the n3 package's streaming parser, fed block by block
+ * through a synchronous push source so the whole load stays in one SQLite transaction.
+ * The triples are mapped onto the catalog as fixed by ../shared/contract.md ("RDF mapping").
+ *
+ * N-Triples is line-based, so after a syntax error parsing resumes on the next line and
+ * every bad line is reported; in Turtle the first syntax error ends the file.
+ * Blank nodes keep the file's label (`_:name`); a label already used in the catalog or by
+ * an earlier file of the load gets a suffix (`_:name-2`), since blank nodes are local to
+ * their file. Anonymous Turtle nodes (`[]`, collections) are named `_:anonN`.
+ */
+import { Parser } from "n3";
+import type { Quad, Term } from "n3";
+import type { LoadContext } from "./context.js";
+import { readBlocks } from "./lines.js";
+
+const RDF = "http://www.w3.org/1999/02/22-rdf-syntax-ns#";
+const RDFS = "http://www.w3.org/2000/01/rdf-schema#";
+const SKOS = "http://www.w3.org/2004/02/skos/core#";
+const XSD_STRING = "http://www.w3.org/2001/XMLSchema#string";
+const LANG_STRING = `${RDF}langString`;
+
+/** The predicates with a fixed meaning (contract "RDF mapping"). */
+export const VOCABULARY = {
+  type: `${RDF}type`,
+  label: `${RDFS}label`,
+  prefLabel: `${SKOS}prefLabel`,
+  altLabel: `${SKOS}altLabel`,
+  subClassOf: `${RDFS}subClassOf`,
+  comment: `${RDFS}comment`,
+  description: "http://schema.org/description",
+  descriptionHttps: "https://schema.org/description",
+} as const;
+
+/** Importer options; all optional. */
+export const DEFAULTS = {
+  /** Language tags read as the "English or untagged first" preference (BCP 47 primary subtag). */
+  preferredLanguage: "en",
+};
+
+/** Marks labels the parser took from the file (vs. ones it generated). */
+const MARK = "\u0001";
+
+/** A synchronous stand-in for a readable stream: n3's lexer registers its handlers, we push. */
+class PushSource {
+  private data?: (s: string) => void;
+  private end?: () => void;
+  on(event: string, fn: (...args: never[]) => void): this {
+    if (event === "data") this.data = fn as unknown as (s: string) => void;
+    else if (event === "end") this.end = fn as unknown as () => void;
+    return this;
+  }
+  push(text: string): void {
+    this.data?.(text);
+  }
+  finish(): void {
+    this.end?.();
+  }
+}
+
+function preferred(lang: string): boolean {
+  return lang === "" || lang.toLowerCase().split("-")[0] === DEFAULTS.preferredLanguage;
+}
+
+/** Imports one N-Triples (`nt`) or Turtle (`ttl`) file. */
+export function importRdf(ctx: LoadContext, file: string, format: "nt" | "ttl"): void {
+  const w = ctx.writer;
+  const blank = new Map<string, string>();
+  let anon = 0;
+  let bytes = 0;
+  /** Entities whose current label is in a non-preferred language. */
+  const provisional = new Set<string>();
+
+  const blankId = (value: string): string => {
+    let id = blank.get(value);
+    if (id !== undefined) return id;
+    const base = value.startsWith(MARK) ? `_:${value.slice(1)}` : `_:anon${++anon}`;
+    id = base;
+    for (let k = 2; w.hasEntity(id); k++) id = `${base}-${k}`;
+    blank.set(value, id);
+    w.entity(id);
+    return id;
+  };
+  const node = (t: Term): string => (t.termType === "BlankNode" ? blankId(t.value) : t.value);
+
+  let line = 1;
+  let offset = 0; // added to the parser's line numbers (N-Triples resumes with a new parser)
+  let dead = false; // Turtle after a syntax error
+
+  const quad = (q: Quad): void => {
+    const s = node(q.subject);
+    const p = q.predicate.value;
+    const o = q.object;
+    ctx.tick(bytes);
+    if (o.termType === "NamedNode" || o.termType === "BlankNode") {
+      const target = node(o);
+      if (p === VOCABULARY.type) w.type(s, target);
+      else if (p === VOCABULARY.subClassOf) w.subclass(s, target);
+      else w.edge(s, p, target);
+      return;
+    }
+    if (o.termType !== "Literal") {
+      ctx.error(file, line, `unsupported object term (${o.termType}); expected an IRI, a blank node or a literal`);
+      return;
+    }
+    const value = o.value;
+    const lang = o.language;
+    const dt = o.datatype.value;
+    if (p === VOCABULARY.label || p === VOCABULARY.prefLabel || p === VOCABULARY.altLabel) {
+      if (value.trim() === "") {
+        ctx.error(file, line, `empty label (${p === VOCABULARY.altLabel ? "skos:altLabel" : p === VOCABULARY.label ? "rdfs:label" : "skos:prefLabel"} of ${s} is "")`);
+        return;
+      }
+      if (p === VOCABULARY.altLabel) w.alias(s, value);
+      else if (preferred(lang)) {
+        if (provisional.delete(s)) w.label(s, value, true);
+        else w.label(s, value);
+      } else {
+        const had = w.hasLabel(s);
+        w.label(s, value);
+        if (!had) provisional.add(s);
+      }
+      return;
+    }
+    if ((p === VOCABULARY.comment || p === VOCABULARY.description || p === VOCABULARY.descriptionHttps) && preferred(lang)) {
+      if (value.trim() !== "") w.description(s, value);
+      return;
+    }
+    w.attribute(s, p, value, dt === XSD_STRING || dt === LANG_STRING ? null : dt, lang === "" ? null : lang);
+  };
+
+  const makeParser = (): PushSource => {
+    const src = new PushSource();
+    const parser = new Parser({ format: format === "nt" ? "N-Triples" : "Turtle", blankNodePrefix: MARK });
+    parser.parse(src as never, {
+      onToken: (t: { line: number; type: string }) => {
+        line = t.line + offset;
+        if (t.type === ".") stmtOpen = false;
+        else if (!stmtOpen && t.type !== "eof" && t.type !== "comment") {
+          stmtOpen = true;
+          stmtStart = line;
+        }
+      },
+      onQuad: (err: Error | null, q: Quad | null) => {
+        if (err) onSyntax(err);
+        else if (q) quad(q);
+      },
+    } as never);
+    return src;
+  };
+
+  let resumeAt = 0; // N-Triples: the line after the last syntax error
+  // N-Triples: where the statement being read began; a statement left open on an earlier
+  // line (no final ".") is reported there, and reading resumes on the line after it
+  let stmtOpen = false;
+  let stmtStart = 0;
+  const onSyntax = (err: Error): void => {
+    const ctxLine = (err as { context?: { line?: number } }).context?.line;
+    const at = Math.min(ctxLine !== undefined ? ctxLine + offset : line, Math.max(lastLine, 1));
+    const token = (err as { context?: { token?: { type?: string; value?: string } } }).context?.token;
+    let msg = err.message.replace(/ on line \d+\.?$/, "").replace(/\.$/, "");
+    if (/but got\s*$/.test(msg)) msg = msg.replace(/\s*$/, ` "${token?.type ?? "end of input"}"`);
+    else if (/^Invalid IRI$/.test(msg) && token?.value) msg += ` <${token.value}>`;
+    const hint = format === "nt" ? "expected an N-Triples statement: <subject> <predicate> <object> ." : "Turtle syntax";
+    dead = true;
+    if (format === "nt" && stmtOpen && stmtStart < at) {
+      ctx.error(file, stmtStart, `syntax error: the statement does not end with "." on its line (${hint})`);
+      resumeAt = stmtStart + 1;
+    } else {
+      ctx.error(file, at, `syntax error: ${msg} (${hint})`);
+      resumeAt = at + 1;
+    }
+    stmtOpen = false;
+  };
+
+  let src = makeParser();
+  let lastLine = 1;
+  readBlocks(
+    file,
+    (block) => {
+      bytes = block.bytesRead;
+      lastLine = block.firstLine + block.lineCount - 1;
+      if (dead && format === "ttl") return;
+      let text = block.text;
+      let first = block.firstLine;
+      const endLine = block.firstLine + block.lineCount;
+      // feed; after an N-Triples syntax error restart on the next line
+      for (;;) {
+        src.push(text);
+        if (!dead || format === "ttl") return;
+        if (resumeAt >= endLine) {
+          // the error was on the block's last line(s)
+          dead = false;
+          offset = resumeAt - 1;
+          src = makeParser();
+          return;
+        }
+        const skip = Math.max(0, resumeAt - first);
+        if (resumeAt < first) resumeAt = first;
+        let pos = 0;
+        for (let k = 0; k < skip; k++) pos = text.indexOf("\n", pos) + 1;
+        text = text.slice(pos);
+        first = resumeAt;
+        offset = resumeAt - 1;
+        dead = false;
+        src = makeParser();
+        if (text === "") return;
+      }
+    },
+    (ln, kind, detail) => ctx.error(file, ln, kind === "utf8" ? `not valid UTF-8: ${detail}` : detail, "catalog/encoding"),
+  );
+  if (!dead) src.finish();
+}

@@ -1,0 +1,54 @@
+/**
+ * `tiepoint ask "QUESTION" [--db PATH] [--json | --dot] [--top N] [--pin TEXT=ENTITY]…`: links the
+ * question, ranks answers and prints them (text, or the contract JSON on stdout alone).
+ */
+import type { Command } from "commander";
+import { parsePin, type Pin } from "../../linking/index.js";
+import { TiepointError } from "../../model/index.js";
+import { Session } from "../../pipeline/index.js";
+import { askJson, catalogLabels, evidenceDot, renderAskText, renderExplanationText } from "../../present/index.js";
+import { guarded } from "../run.js";
+
+/** Parses `--top N`: a positive whole number, else a usage error. */
+export function parseTop(value: string | undefined, fallback = 10): number {
+  if (value === undefined) return fallback;
+  if (!/^\s*\d+\s*$/.test(value) || Number(value) < 1) throw new TiepointError("cli/usage", `--top "${value}": expected a positive whole number, e.g. --top 5`);
+  return Number(value);
+}
+
+/** Registers `ask`. */
+export function registerAsk(program: Command): void {
+  program
+    .command("ask")
+    .description("answer one question: linked clues, ranked answers, verdict")
+    .argument("<question>", "the question, in plain English (quote it)")
+    .option("--db <path>", "the catalog file (default: the bundled demo catalog)")
+    .option("--json", "print the contract JSON document on stdout")
+    .option("--dot", "print the evidence graph (clues, answers, their paths) as Graphviz DOT on stdout")
+    .option("--top <n>", "how many answers to return", "10")
+    .option("--pin <text=entity>", "fix a link: the question words TEXT name ENTITY (id or exact label); repeatable", (v: string, prev: string[]) => [...prev, v], [] as string[])
+    .option("--why-not <entity>", "explain why ENTITY (id or exact label) is not the best answer; repeatable", (v: string, prev: string[]) => [...prev, v], [] as string[])
+    .action((question: string, opts: { db?: string; json?: boolean; dot?: boolean; top?: string; pin: string[]; whyNot: string[] }) =>
+      guarded(() => {
+        const top = parseTop(opts.top);
+        if (opts.dot && opts.json) throw new TiepointError("cli/usage", "--dot and --json both print on stdout; use one of them");
+        const pins: Pin[] = opts.pin.map(parsePin);
+        const session = Session.open(opts.db !== undefined ? { db: opts.db } : {});
+        try {
+          const out = session.ask(question, { top, ...(pins.length > 0 ? { pins } : {}), ...(opts.whyNot.length > 0 ? { whyNot: opts.whyNot } : {}), verifySuggestions: !opts.dot });
+          if (opts.dot) process.stdout.write(evidenceDot(out.result, { labels: catalogLabels(session.catalog) }));
+          else if (opts.json) process.stdout.write(askJson(out.result));
+          else
+            process.stdout.write(
+              renderAskText(out.result, {
+                relationCues: out.analysis.relationCues.map((c) => `${c.label} (${c.words.join(" ")})`),
+                millis: out.timings.total,
+                ...(out.explanation ? { paths: 0 } : {}),
+              }) + (out.explanation ? "\n" + renderExplanationText(out.explanation) : ""),
+            );
+        } finally {
+          session.close();
+        }
+      }),
+    );
+}

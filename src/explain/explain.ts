@@ -1,0 +1,365 @@
+/**
+ * Explanation of one ranked question
+ * ==================================
+ *
+ * Puts the explain stage's algorithms together for one question: the paths from every clue
+ * to the top answers (paths.ts: Dijkstra and Yen 1971 on the evidence subgraph, bounded
+ * bidirectional BFS on the full index), the clue-coverage table (coverage.ts), the
+ * structural equivalence of rivals (relation-pattern.ts), the verdict (verdict.ts), clue
+ * ablation (ablation.ts, one re-ranking per clue through the `rerank` callback), why-not
+ * reports (why-not.ts) and suggested clues for tied or weak questions (suggest.ts).
+ *
+ * Path costs use the ranking's walk (ranking/transition.ts) with this question's relation
+ * weights and the ranking's restart probability, so the best path is the walk that carries
+ * the most of the answer's score.
+ */
+import type { Catalog } from "../catalog/index.js";
+import { normalize } from "../catalog/index.js";
+import type { Answer, AnswerPath, EntityRef, Verdict } from "../model/index.js";
+import { RANK_DEFAULTS, TRANSITION_DEFAULTS, transition, type RelationIndex } from "../ranking/index.js";
+import { clueRole, preferredByClue, type AblationEntry } from "./ablation.js";
+import { coverageTable, type CoverageCell, type CoverageTable } from "./coverage.js";
+import { PathCostModel } from "./path-cost.js";
+import { findPaths, type AnswerPaths, type ClueSeed, type NumPath, type PathOptions, DEFAULTS as PATH_DEFAULTS } from "./paths.js";
+import { matchPattern } from "./relation-pattern.js";
+import { suggestClues, type FactLookup, type SuggestedClue, type SuggestOptions } from "./suggest.js";
+import type { ExplainAnalysis, ExplainClue, ExplainRanked } from "./types.js";
+import { decideVerdict, type VerdictCandidate, type VerdictOptions } from "./verdict.js";
+import { whyNotReasons, DEFAULTS as WHY_NOT_DEFAULTS, type WhyNot, type WhyNotClue, type WhyNotOptions } from "./why-not.js";
+
+/** Options of {@link explain}; all optional. */
+export interface ExplainOptions<A extends ExplainAnalysis = ExplainAnalysis> {
+  /** Answers returned with paths. @default 10 */
+  readonly top?: number;
+  /** Rows of the coverage table (and candidates the verdict inspects in detail). @default 10 */
+  readonly rows?: number;
+  /** Restart probability of the walk (the ranking's α). @default ranking's default */
+  readonly restart?: number;
+  /** β of the hub damping (the ranking's). @default ranking's default */
+  readonly hubExponent?: number;
+  /** Relation weights of the walk. @default `ranked.relationWeights` when present, else 1 */
+  readonly relationWeights?: Float64Array;
+  readonly paths?: PathOptions;
+  readonly verdict?: VerdictOptions;
+  readonly suggest?: SuggestOptions;
+  readonly whyNotOptions?: WhyNotOptions;
+  /** Re-ranks `analysis` without the clues `dropClues`; enables ablation and why-not score parts. */
+  readonly rerank?: (analysis: A, dropClues: readonly number[]) => ExplainRanked;
+  /** Run clue ablation (needs `rerank`). @default true */
+  readonly ablation?: boolean;
+  /** Entity nums to report on ("why not this one?"). */
+  readonly whyNot?: readonly number[];
+  /** The restart seeds of a clue as the ranking used them (ranking's `clueSeeds`). @default the clue's entity alone */
+  readonly seeds?: (clue: ExplainClue) => readonly ClueSeed[];
+}
+
+/** The defaults of {@link ExplainOptions}. */
+export const DEFAULTS = { top: 10, rows: 10, ablation: true } as const;
+
+/** Everything explain produces for one question. */
+export interface Explanation {
+  /** The contract's answers, best first, each with its paths (best per clue first, then alternatives). */
+  readonly answers: readonly Answer[];
+  readonly verdict: Verdict;
+  readonly coverage: CoverageTable;
+  /** One entry per clue (empty without `rerank`, or with ablation off). */
+  readonly ablation: readonly AblationEntry[];
+  /** Clues that would single out the best answer (tied or weak questions only). */
+  readonly suggestions: readonly SuggestedClue[];
+  readonly whyNot: readonly WhyNot[];
+  /** Labels of every entity and relation id that appears in the paths. */
+  readonly labels: Readonly<Record<string, string>>;
+}
+
+const relationCache = new WeakMap<Catalog, Map<number, EntityRef & { readonly aliases: readonly string[] }>>();
+
+/** Entity and relation names from the catalog, cached per call (relations per catalog). */
+class Names implements FactLookup {
+  private readonly refs = new Map<number, EntityRef>();
+  private readonly rels: Map<number, EntityRef & { readonly aliases: readonly string[] }>;
+  private readonly counts = new Map<string, number>();
+  readonly used = new Map<string, string>();
+
+  constructor(private readonly cat: Catalog) {
+    let rels = relationCache.get(cat);
+    if (!rels) {
+      rels = new Map(cat.predicates().map((p) => [p.num, { id: p.id, label: p.label, aliases: p.aliases }]));
+      relationCache.set(cat, rels);
+    }
+    this.rels = rels;
+  }
+
+  ref(num: number): EntityRef {
+    let r = this.refs.get(num);
+    if (!r) {
+      r = this.cat.ref(num);
+      this.refs.set(num, r);
+    }
+    return r;
+  }
+
+  relation(rel: number): EntityRef {
+    const r = this.rels.get(rel);
+    return r ? { id: r.id, label: r.label } : { id: `#${rel}`, label: `relation ${rel}` };
+  }
+
+  relationAliases(rel: number): readonly string[] {
+    return this.rels.get(rel)?.aliases ?? [];
+  }
+
+  attributes(num: number): readonly { predicate: string; label: string; value: string }[] {
+    return this.cat.attributes(num);
+  }
+
+  labelCount(label: string): number {
+    let n = this.counts.get(label);
+    if (n === undefined) {
+      n = new Set(this.cat.byNorm(normalize(label)).map((h) => h.entity)).size;
+      this.counts.set(label, n);
+    }
+    return n;
+  }
+
+  /** Records the labels of a path's ids. */
+  note(path: NumPath): void {
+    for (const s of path.steps) {
+      const a = this.ref(s.from);
+      const b = this.ref(s.to);
+      const r = this.relation(s.rel);
+      this.used.set(a.id, a.label);
+      this.used.set(b.id, b.label);
+      this.used.set(r.id, r.label);
+    }
+  }
+}
+
+function toAnswerPath(p: NumPath, names: Names): AnswerPath {
+  names.note(p);
+  return {
+    from: names.ref(p.start).id,
+    steps: p.steps.map((s) => ({ from: names.ref(s.from).id, relation: names.relation(s.rel).id, to: names.ref(s.to).id, inverse: s.inverse })),
+  };
+}
+
+/**
+ * The relation-pattern matches, per clue, of the top answer's evidence: the nodes matched
+ * both by its cheapest path and by its path that reads most like the question (among its
+ * best and alternative paths, the one with the most steps over cued relations, then the
+ * fewest uncued steps, then the cheapest). Null: too many matches.
+ */
+function patternSets(index: RelationIndex, clueCount: number, top: AnswerPaths | undefined, cued: ReadonlySet<number>): (Set<number> | null | undefined)[] {
+  const rate = (p: NumPath): [number, number, number] => {
+    const c = p.steps.filter((s) => cued.has(s.rel)).length;
+    return [c, p.steps.length - c, p.cost];
+  };
+  return Array.from({ length: clueCount }, (_, i) => {
+    const paths = top?.byClue[i] ?? [];
+    let best: NumPath | undefined;
+    for (const p of paths) {
+      if (!best) {
+        best = p;
+        continue;
+      }
+      const [a1, a2, a3] = rate(p);
+      const [b1, b2, b3] = rate(best);
+      if (a1 > b1 || (a1 === b1 && (a2 < b2 || (a2 === b2 && a3 < b3)))) best = p;
+    }
+    if (!best) return undefined;
+    const match = (p: NumPath) => matchPattern(index, p.start, p.steps.map((s) => ({ rel: s.rel, inverse: s.inverse })));
+    const cheapest = paths[0]!;
+    const a = match(cheapest);
+    if (best === cheapest || a === null) return a;
+    const b = match(best);
+    return b === null ? null : new Set([...a].filter((x) => b.has(x)));
+  });
+}
+
+function intersect(sets: readonly (Set<number> | null | undefined)[], skip = -1): Set<number> | null {
+  let out: Set<number> | null = null;
+  for (let i = 0; i < sets.length; i++) {
+    if (i === skip) continue;
+    const s: Set<number> | null | undefined = sets[i];
+    if (s === null) return null;
+    if (s === undefined) continue;
+    const prev: Set<number> | null = out;
+    out = prev === null ? new Set(s) : new Set([...prev].filter((x: number) => s.has(x)));
+  }
+  return out;
+}
+
+/**
+ * Explains a ranked question: paths, coverage, verdict, ablation, why-not and suggestions.
+ * `index` is the ranking's relation index, `catalog` the store the ids and labels come from.
+ */
+export function explain<A extends ExplainAnalysis>(
+  analysis: A,
+  ranked: ExplainRanked & { readonly relationWeights?: Float64Array },
+  index: RelationIndex,
+  catalog: Catalog,
+  options: ExplainOptions<A> = {},
+): Explanation {
+  const top = options.top ?? DEFAULTS.top;
+  const rows = options.rows ?? DEFAULTS.rows;
+  if (!Number.isInteger(top) || top < 1) throw new RangeError(`explain: top must be a positive integer, got ${top}`);
+  if (!Number.isInteger(rows) || rows < 1) throw new RangeError(`explain: rows must be a positive integer, got ${rows}`);
+  const names = new Names(catalog);
+  const relationWeights = options.relationWeights ?? ranked.relationWeights;
+  const walkOptions = {
+    ...(relationWeights !== undefined ? { relationWeights } : {}),
+    hubExponent: options.hubExponent ?? TRANSITION_DEFAULTS.hubExponent,
+  };
+  const cost = new PathCostModel(index, { restart: options.restart ?? RANK_DEFAULTS.alpha, transition: transition(index, walkOptions), ...walkOptions });
+  const maxHops = options.paths?.maxHops ?? PATH_DEFAULTS.maxHops;
+  const clues = ranked.clues;
+  const clueSeeds = clues.map((c): readonly ClueSeed[] => {
+    const given = options.seeds?.(c) ?? [];
+    return given.length > 0 ? given : [{ node: c.node, weight: 1 }];
+  });
+  const seedNodes = new Set(clueSeeds.flatMap((ss) => ss.map((x) => x.node)));
+  const clueRefs = clues.map((c): EntityRef => ({ id: c.id, label: c.label }));
+  const n = Math.min(ranked.candidates.length, Math.max(top, rows));
+  const shown = ranked.candidates.slice(0, n);
+  const pathSet = findPaths(index, cost, clueSeeds, shown.map((c) => c.node), options.paths);
+  const byNode = new Map(pathSet.answers.map((a) => [a.answer, a]));
+
+  const answers: Answer[] = shown.slice(0, top).map((c, i) => {
+    const ref = names.ref(c.node);
+    const ap = pathSet.answers[i]!;
+    const best = ap.byClue.flatMap((ps) => (ps[0] ? [toAnswerPath(ps[0], names)] : []));
+    const alts = ap.byClue.flatMap((ps) => ps.slice(1).map((p) => toAnswerPath(p, names)));
+    return { id: ref.id, label: ref.label, score: c.score, types: index.typesOf(c.node).map((t) => names.ref(t).id), paths: [...best, ...alts] };
+  });
+  const coverage = coverageTable(clueRefs, pathSet.answers.slice(0, rows), (x) => names.ref(x), (r) => names.relation(r), maxHops);
+
+  const reachedOf = (node: number, skip = -1): boolean[] | undefined => {
+    const ap = byNode.get(node);
+    return ap ? ap.byClue.map((ps) => ps.length > 0).filter((_, i) => i !== skip) : undefined;
+  };
+  const hopsOf = (node: number, skip = -1): (number | null)[] | undefined => {
+    const ap = byNode.get(node);
+    return ap ? ap.byClue.map((ps) => (ps[0] ? ps[0].steps.length : null)).filter((_, i) => i !== skip) : undefined;
+  };
+  const cued = new Set(analysis.relationCues.filter((c) => c.weight > 1).map((c) => c.relation));
+  const cuedOf = (node: number, skip = -1): boolean[] | undefined => {
+    const ap = byNode.get(node);
+    return ap ? ap.byClue.map((ps) => (ps[0] ? ps[0].steps.every((st) => cued.has(st.rel)) : false)).filter((_, i) => i !== skip) : undefined;
+  };
+  const verdictCandidates = (cands: ExplainRanked["candidates"], skip = -1): VerdictCandidate[] =>
+    cands.map((c) => {
+      const r = names.ref(c.node);
+      const reached = reachedOf(c.node, skip);
+      const hops = hopsOf(c.node, skip);
+      const cuedPaths = cuedOf(c.node, skip);
+      return {
+        node: c.node,
+        id: r.id,
+        label: r.label,
+        score: c.score,
+        covered: c.covered,
+        ...(reached ? { reached } : {}),
+        ...(hops ? { hops } : {}),
+        ...(cuedPaths ? { cued: cuedPaths } : {}),
+      };
+    });
+  const topPaths = shown.length > 0 ? pathSet.answers[0] : undefined;
+  const patterns = patternSets(index, clues.length, topPaths, cued);
+  const verdict = decideVerdict(
+    { clues: clues.map((c) => c.label), candidates: verdictCandidates(ranked.candidates), equivalent: intersect(patterns), maxHops },
+    options.verdict,
+  );
+
+  // clue ablation
+  const ablation: AblationEntry[] = [];
+  if (options.rerank && (options.ablation ?? DEFAULTS.ablation) && shown.length > 0) {
+    const topRef = names.ref(shown[0]!.node);
+    clues.forEach((clue, i) => {
+      const without = options.rerank!(analysis, [i]);
+      const first = without.candidates[0];
+      const topWithout = first ? names.ref(first.node) : null;
+      const same = first !== undefined && first.node === shown[0]!.node;
+      const verdictWithout = decideVerdict(
+        {
+          clues: clues.filter((_, j) => j !== i).map((c) => c.label),
+          candidates: same ? verdictCandidates(without.candidates, i) : verdictCandidates(without.candidates).map(({ reached: _r, hops: _h, cued: _c, ...c }) => c),
+          equivalent: same ? intersect(patterns, i) : null,
+          maxHops,
+        },
+        options.verdict,
+      );
+      const pref = preferredByClue(ranked.candidates, i);
+      ablation.push({
+        clue: { id: clue.id, label: clue.label },
+        role: clueRole(topRef, verdict, topWithout, verdictWithout),
+        topWithout,
+        verdictWithout,
+        pullsTowards: pref !== null && pref !== shown[0]!.node ? names.ref(pref) : null,
+      });
+    });
+  }
+
+  // suggested clues
+  let suggestions: SuggestedClue[] = [];
+  if ((verdict.status === "tied" || verdict.status === "weak") && shown.length > 1) {
+    const s1 = shown[0]!.score;
+    const idToNode = new Map(ranked.candidates.map((c) => [names.ref(c.node).id, c.node]));
+    const rivals =
+      verdict.tiedWith.length > 0
+        ? verdict.tiedWith.map((id) => idToNode.get(id)!).filter((x) => x !== undefined)
+        : ranked.candidates.slice(1).filter((c, j) => j === 0 || c.score >= 0.5 * s1).map((c) => c.node);
+    suggestions = suggestClues(index, names, analysis.question, shown[0]!.node, rivals, seedNodes, options.suggest);
+  }
+
+  // why not
+  const whyNot = (options.whyNot ?? []).map((num) => whyNotOf(num, analysis, ranked, clueSeeds, index, cost, names, pathSet.answers[0], options));
+  for (const w of whyNot) names.used.set(w.entity.id, w.entity.label);
+  for (const c of clueRefs) names.used.set(c.id, c.label);
+  for (const a of answers) names.used.set(a.id, a.label);
+  return { answers, verdict, coverage, ablation, suggestions, whyNot, labels: Object.fromEntries([...names.used].sort((a, b) => (a[0] < b[0] ? -1 : 1))) };
+}
+
+function whyNotOf<A extends ExplainAnalysis>(
+  num: number,
+  analysis: A,
+  ranked: ExplainRanked,
+  clueSeeds: readonly (readonly ClueSeed[])[],
+  index: RelationIndex,
+  cost: PathCostModel,
+  names: Names,
+  bestPaths: AnswerPaths | undefined,
+  options: ExplainOptions<A>,
+): WhyNot {
+  const longHops = options.whyNotOptions?.longHops ?? WHY_NOT_DEFAULTS.longHops;
+  const maxHops = options.paths?.maxHops ?? PATH_DEFAULTS.maxHops;
+  const clues = ranked.clues;
+  const entity = names.ref(num);
+  const pos = ranked.candidates.findIndex((c) => c.node === num);
+  let parts: readonly number[] | null = pos >= 0 ? ranked.candidates[pos]!.perClue : null;
+  if (parts === null && options.rerank) {
+    const open = options.rerank({ ...analysis, answerTypes: [] }, []);
+    parts = open.candidates.find((c) => c.node === num)?.perClue ?? null;
+  }
+  const best = ranked.candidates[0];
+  const mine = findPaths(index, cost, clueSeeds, [num], { ...options.paths, alternatives: 0 }).answers[0]!;
+  const cells: readonly CoverageCell[] = coverageTable([], [mine], (x) => names.ref(x), (r) => names.relation(r), maxHops).rows[0]!.cells;
+  const typeSet = new Set(analysis.answerTypes.map((t) => t.num));
+  const perClue: WhyNotClue[] = clues.map((c, i) => {
+    const cell = cells[i]!;
+    const bestHops = bestPaths?.byClue[i]?.[0]?.steps.length;
+    const weak = !cell.reached || cell.hops! > longHops || (bestHops !== undefined && cell.hops! > bestHops);
+    return { clue: { id: c.id, label: c.label }, score: parts ? (parts[i] ?? null) : null, bestScore: best ? (best.perClue[i] ?? null) : null, cell, weak };
+  });
+  const base: Omit<WhyNot, "reasons"> = {
+    entity,
+    rank: pos >= 0 ? pos + 1 : null,
+    candidates: ranked.candidates.length,
+    score: pos >= 0 ? ranked.candidates[pos]!.score : null,
+    best: best ? names.ref(best.node) : null,
+    bestScore: best ? best.score : null,
+    types: index.typesOf(num).map((t) => names.ref(t)),
+    expectedTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
+    excludedByType: typeSet.size > 0 && !index.isA(num, typeSet),
+    isClue: clueSeeds.some((ss) => ss.some((x) => x.node === num)),
+    perClue,
+  };
+  return { ...base, reasons: whyNotReasons(base, maxHops, longHops) };
+}

@@ -1,0 +1,187 @@
+import fc from "fast-check";
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { Catalog, CatalogWriter } from "../catalog/index.js";
+import { TiepointError } from "../model/index.js";
+import { linkingFixture, writeLinkingFixture } from "../../test/linking-fixture.js";
+import { LexicalSnapshot, Linker, linkQuestion, parsePin } from "./index.js";
+
+let cat: Catalog;
+let linker: Linker;
+beforeAll(() => {
+  cat = linkingFixture();
+  linker = Linker.fromCatalog(cat);
+});
+afterAll(() => cat.close());
+
+const link = (q: string, pins?: { text: string; entity: string }[]) => linkQuestion(q, linker, pins ? { pins } : {});
+const only = (q: string) => {
+  const r = link(q);
+  expect(r.mentions.length, JSON.stringify(r)).toBe(1);
+  return r.mentions[0]!;
+};
+
+describe("parsePin", () => {
+  it("rejects values without TEXT=ENTITY", () => {
+    for (const bad of ["", "Ada", "=p:ada", "Ada=", "  =  "]) expect(() => parsePin(bad)).toThrow(/expected TEXT=ENTITY/);
+    try {
+      parsePin("Ada");
+    } catch (e) {
+      expect(e).toBeInstanceOf(TiepointError);
+      expect((e as TiepointError).code).toBe("cli/usage");
+    }
+  });
+
+  it("splits at the first = and trims", () => {
+    expect(parsePin(" Aurora = town:aurora ")).toEqual({ text: "Aurora", entity: "town:aurora" });
+    expect(parsePin("Q=http://x.org/a?b=c")).toEqual({ text: "Q", entity: "http://x.org/a?b=c" });
+  });
+});
+
+describe("linkQuestion on the fixture catalog", () => {
+  it("links an exact name and leaves type and relation words alone", () => {
+    const m = only("Which lab is Ada Quell a member of?");
+    expect(m).toMatchObject({ text: "Ada Quell", start: 13, end: 22, entity: { id: "p:ada", label: "Ada Quell" } });
+    expect(m.confidence).toBeGreaterThan(0.9);
+    expect(m.alternatives).toEqual([]);
+  });
+
+  it("decides a shared name by relation words and by context words", () => {
+    // "captain of" is a relation of the fixture; only the ship has such an edge
+    const ship = only("Who is the captain of the Aurora?");
+    expect(ship.entity.id).toBe("s:aurora");
+    expect(ship.alternatives.map((a) => a.id)).toEqual(["town:aurora"]);
+    // "ski lodge" appears in the town's description (BM25 context)
+    const town = only("Which hotel near the ski slopes of Aurora has a cable car?");
+    expect(town.entity.id).toBe("town:aurora");
+    expect(town.confidence).toBeGreaterThan(town.alternatives[0]!.confidence);
+    // confidences of one mention never sum above 1 (the rest is "none of these")
+    expect(town.confidence + town.alternatives.reduce((s, a) => s + a.confidence, 0)).toBeLessThanOrEqual(1.0001);
+  });
+
+  it("links misspelt, partial and reordered names with less confidence than exact ones", () => {
+    const exact = only("Where does Ada Quell work?");
+    const typo = only("Where does Ada Qwell work?");
+    expect(typo.entity.id).toBe("p:ada");
+    expect(typo.text).toBe("Ada Qwell");
+    expect(typo.confidence).toBeLessThan(exact.confidence);
+    const partial = only("What lab is Quell in?");
+    expect(partial).toMatchObject({ text: "Quell", entity: { id: "p:ada" } });
+    const reordered = only("who is quell ada");
+    expect(reordered).toMatchObject({ text: "quell ada", entity: { id: "p:ada" } });
+  });
+
+  it("folds case and diacritics, and keeps offsets into the original text", () => {
+    const q = "where does zoe nandu work";
+    const m = only(q);
+    expect(m.entity.id).toBe("p:zoe");
+    expect(q.slice(m.start, m.end)).toBe("zoe nandu");
+    const q2 = "🚢 Zoë Ñandú?";
+    const m2 = only(q2);
+    expect(m2.text).toBe("Zoë Ñandú");
+    expect(q2.slice(m2.start, m2.end)).toBe("Zoë Ñandú");
+  });
+
+  it("reports words that link to nothing, with nearest names", () => {
+    const r = link("Where is Zzyzx?");
+    expect(r.mentions).toEqual([]);
+    expect(r.unlinked).toEqual([{ text: "Zzyzx", start: 9, end: 14, suggestions: [] }]);
+    // nothing name-like links: the content words still get the nearest catalog names
+    const r2 = link("where is the glass blower from the valley");
+    expect(r2.mentions).toEqual([]);
+    expect(r2.unlinked.length).toBeGreaterThan(0);
+  });
+
+  it("lets a pin override a link, and rejects bad pins with a clear message", () => {
+    const r = link("Who is the captain of the Aurora?", [{ text: "aurora", entity: "town:aurora" }]);
+    expect(r.mentions).toEqual([
+      { text: "Aurora", start: 26, end: 32, entity: { id: "town:aurora", label: "Aurora" }, num: cat.numOf("town:aurora"), confidence: 1, alternatives: [], pinned: true },
+    ]);
+    // a pin by exact label
+    expect(link("Where does Ada work?", [{ text: "Ada", entity: "Ada Morrow" }]).mentions[0]!.entity.id).toBe("p:morrow");
+    expect(() => link("Who is Ada?", [{ text: "Ada", entity: "p:nobody" }])).toThrow(/no entity has the id or exact label "p:nobody"/);
+    expect(() => link("Who is Ada?", [{ text: "Brill", entity: "town:brill" }])).toThrow(/"Brill" does not occur in the question/);
+  });
+
+  it("is deterministic", () => {
+    const q = "Did Ada and Zoë Ñandú work at Tidewater Lab in Brill?";
+    expect(link(q)).toEqual(link(q));
+  });
+});
+
+describe("linkQuestion on arbitrary text (properties)", () => {
+  const check = (s: string) => {
+    const r = link(s);
+    for (const m of r.mentions) {
+      expect(s.slice(m.start, m.end)).toBe(m.text);
+      expect(m.confidence).toBeGreaterThan(0);
+      expect(m.confidence).toBeLessThanOrEqual(1);
+    }
+    for (const u of r.unlinked) expect(s.slice(u.start, u.end)).toBe(u.text);
+  };
+
+  it("never throws on any UTF-16 string and offsets slice back", () => {
+    fc.assert(fc.property(fc.string({ unit: "binary", maxLength: 120 }), check), { numRuns: 300 });
+  });
+
+  it("handles names mixed with emoji, right-to-left text and control characters", () => {
+    const parts = fc.constantFrom("Ada Quell", "Aurora", "Zoë Ñandú", "Brill", "🚢", "👩🏽‍🔬", "שלום", "مرحبا", "\u202e", "\u0000", "\u0007", "\t", "\r\n", "'", "-", "ﬁ", "Ｑｕｅｌｌ", "captain of", "the");
+    fc.assert(fc.property(fc.array(parts, { maxLength: 12 }).map((a) => a.join(" ")), check), { numRuns: 300 });
+  });
+
+  it("handles a 100 KB question", () => {
+    const big = "Ada Quell 🚢 שלום Aurora \u0000 ".repeat(4000).slice(0, 100_000);
+    check(big);
+    expect(link(big).mentions.length).toBeGreaterThan(1000);
+  });
+});
+
+describe("the lexical snapshot beside a catalog file", () => {
+  let dir: string;
+  beforeAll(() => {
+    dir = mkdtempSync(join(tmpdir(), "tiepoint-link-"));
+  });
+  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+  it("is saved once, reused while current and rebuilt after a load", () => {
+    const path = join(dir, "c.db");
+    const c = Catalog.open(path, { create: true });
+    writeLinkingFixture(c);
+    const first = LexicalSnapshot.forCatalog(c);
+    expect(existsSync(`${path}.link`)).toBe(true);
+    const { uid, generation } = c.version();
+    const loaded = LexicalSnapshot.load(`${path}.link`, uid, generation)!;
+    expect(loaded.vocab).toEqual(first.vocab);
+    expect([...loaded.postings]).toEqual([...first.postings]);
+    expect([...loaded.degree]).toEqual([...first.degree]);
+    expect(loaded.documentFrequency("tidal")).toBe(first.documentFrequency("tidal"));
+    // p:ada has one edge (memberOf); "quell" is in two of its aliases but posts it once
+    expect(loaded.degreeOf(c.numOf("p:ada")!)).toBe(1);
+    expect([...loaded.entitiesWithToken(loaded.tokenId("quell"))]).toEqual([c.numOf("p:ada")]);
+    // a later load bumps the generation: the old snapshot no longer applies
+    const w = new CatalogWriter(c);
+    w.begin();
+    w.label("p:new", "Nadia Quell");
+    w.commit();
+    expect(LexicalSnapshot.load(`${path}.link`, uid, c.version().generation)).toBeUndefined();
+    const again = Linker.fromCatalog(c);
+    expect(linkQuestion("Who is Nadia Quell?", again).mentions[0]!.entity.id).toBe("p:new");
+    c.close();
+  });
+
+  it("ignores a damaged snapshot file", () => {
+    const path = join(dir, "d.db");
+    const c = Catalog.open(path, { create: true });
+    writeLinkingFixture(c);
+    LexicalSnapshot.forCatalog(c);
+    const { uid, generation } = c.version();
+    // overwrite with junk of the wrong format
+    rmSync(`${path}.link`);
+    writeFileSync(`${path}.link`, "not a snapshot");
+    expect(LexicalSnapshot.load(`${path}.link`, uid, generation)).toBeUndefined();
+    expect(linkQuestion("Ada Quell", Linker.fromCatalog(c)).mentions[0]!.entity.id).toBe("p:ada");
+    c.close();
+  });
+});

@@ -1,0 +1,454 @@
+/**
+ * The linker: question text → linked mentions with calibrated confidences and alternatives.
+ *
+ * Pipeline per question: tokens with UTF-16 spans (text-spans.ts) → pins applied → mention
+ * detection (mention-detection.ts) → per candidate: prior, string similarity, BM25 context,
+ * type/relation compatibility → collective disambiguation (collective-disambiguation.ts).
+ * `Linker.fromCatalog` loads the lexical snapshot (saved beside the catalog, see
+ * lexical-snapshot.ts) and the type and relation vocabulary once; per question it makes only
+ * indexed SQLite lookups (aliases by normalised key, a candidate's description, neighbours).
+ */
+import type { AliasHit, Catalog } from "../catalog/index.js";
+import { normalize, stemKey, stemToken, tokens } from "../catalog/index.js";
+import type { Alternative, EntityRef, Mention } from "../model/index.js";
+import { TiepointError } from "../model/index.js";
+import { bm25 } from "./bm25.js";
+import type { CandidateEvidence, ScoringOptions } from "./collective-disambiguation.js";
+import { disambiguate } from "./collective-disambiguation.js";
+import { FuzzyTokenIndex } from "./fuzzy-index.js";
+import { LexicalSnapshot, NEIGHBOUR_DESCRIPTION_WEIGHT } from "./lexical-snapshot.js";
+import type { AliasLexicon, DetectedSpan, SpanCandidate } from "./mention-detection.js";
+import { detectMentions, DEFAULTS as DETECTION_DEFAULTS } from "./mention-detection.js";
+import { milneWitten } from "./relatedness.js";
+import { isStopWord } from "./stopwords.js";
+import type { QuestionToken } from "./text-spans.js";
+import { questionTokens } from "./text-spans.js";
+
+/** Options of {@link linkQuestion}. */
+export const DEFAULTS = {
+  /** Alternatives listed per mention. */
+  maxAlternatives: 4,
+  /** Alternatives below this confidence are not listed. */
+  minAlternative: 0.005,
+  /** Candidates scored per mention (best by string similarity, then prominence). */
+  maxCandidates: 24,
+  /** Neighbour labels per direction in a candidate's context document. */
+  contextNeighbours: 30,
+  /** Neighbours per direction in a candidate's link set for relatedness. */
+  linkSetLimit: 500,
+  /** Context words taken on each side of a mention (a question is shorter; long texts stay linear). */
+  contextWindow: 40,
+  /** Above this many mentions, coherence is skipped (each mention is scored on its own). */
+  maxCoherentMentions: 16,
+  /** Entries kept in each per-linker cache. */
+  cacheSize: 20_000,
+} as const;
+
+/** A user's override of one link: `text` in the question is `entity` (an id or an exact label). */
+export interface Pin {
+  readonly text: string;
+  readonly entity: string;
+}
+
+/** A mention with entity nums (for ranking) next to the contract fields. */
+export interface LinkedMention extends Mention {
+  readonly num: number;
+  readonly alternatives: readonly (Alternative & { readonly num: number })[];
+}
+
+/** A span of content words that nothing linked to, with the nearest catalog names. */
+export interface UnlinkedSpan {
+  readonly text: string;
+  readonly start: number;
+  readonly end: number;
+  readonly suggestions: readonly EntityRef[];
+}
+
+/** Result of {@link linkQuestion}. */
+export interface LinkResult {
+  readonly mentions: readonly LinkedMention[];
+  readonly unlinked: readonly UnlinkedSpan[];
+}
+
+/** Options of {@link linkQuestion}. */
+export interface LinkOptions {
+  /** User overrides; each must occur in the question and name an existing entity. */
+  readonly pins?: readonly Pin[];
+  /** @default 4 */
+  readonly maxAlternatives?: number;
+  /** Weights of the confidence combination (see collective-disambiguation.ts). */
+  readonly scoring?: ScoringOptions;
+}
+
+/** Options of {@link Linker.fromCatalog}. */
+export interface LinkerOptions {
+  /** Use this snapshot instead of loading or building one (tests, tools). */
+  readonly snapshot?: LexicalSnapshot;
+}
+
+/** A small bounded cache (drops everything when full; simple and deterministic). */
+class Bounded<K, V> {
+  private readonly map = new Map<K, V>();
+  constructor(private readonly cap: number) {}
+  get(k: K, make: () => V): V {
+    let v = this.map.get(k);
+    if (v === undefined) {
+      if (this.map.size >= this.cap) this.map.clear();
+      v = make();
+      this.map.set(k, v);
+    }
+    return v;
+  }
+}
+
+interface ContextDoc {
+  readonly terms: Map<string, number>;
+  readonly length: number;
+}
+
+/** The loaded linking state of one catalog. */
+export class Linker implements AliasLexicon {
+  readonly catalog: Catalog;
+  readonly snapshot: LexicalSnapshot;
+  private readonly phraseTypes = new Map<string, number[]>();
+  private readonly phraseRelations = new Map<string, number[]>();
+  private readonly supertypes = new Map<number, ReadonlySet<number>>();
+  /** Longest type or relation phrase, in tokens. */
+  private readonly maxPhrase: number;
+  private fuzzyIndex: FuzzyTokenIndex | undefined;
+  private readonly docs = new Bounded<number, ContextDoc>(DEFAULTS.cacheSize);
+  private readonly links = new Bounded<number, number[]>(DEFAULTS.cacheSize);
+  private readonly typeCache = new Bounded<number, readonly number[]>(DEFAULTS.cacheSize);
+
+  private constructor(cat: Catalog, snapshot: LexicalSnapshot) {
+    this.catalog = cat;
+    this.snapshot = snapshot;
+    let maxPhrase = 1;
+    const add = (map: Map<string, number[]>, text: string, num: number) => {
+      for (const key of [normalize(text), stemKey(text)]) {
+        if (key === "") continue;
+        const list = map.get(key) ?? [];
+        if (!list.includes(num)) list.push(num);
+        map.set(key, list);
+        maxPhrase = Math.max(maxPhrase, key.split(" ").length);
+      }
+    };
+    const types = cat.types();
+    const parents = new Map<number, readonly number[]>();
+    for (const t of types) {
+      parents.set(t.num, t.parents);
+      add(this.phraseTypes, t.label, t.num);
+      for (const a of t.aliases) add(this.phraseTypes, a, t.num);
+    }
+    for (const t of types) {
+      const seen = new Set<number>([t.num]);
+      const stack = [...t.parents];
+      while (stack.length > 0) {
+        const p = stack.pop()!;
+        if (seen.has(p)) continue;
+        seen.add(p);
+        stack.push(...(parents.get(p) ?? []));
+      }
+      this.supertypes.set(t.num, seen);
+    }
+    for (const p of cat.predicates()) {
+      add(this.phraseRelations, p.label, p.num);
+      for (const a of p.aliases) add(this.phraseRelations, a, p.num);
+    }
+    this.maxPhrase = maxPhrase;
+  }
+
+  /** Loads what linking needs from `cat` once (the snapshot file is reused while current). */
+  static fromCatalog(cat: Catalog, options: LinkerOptions = {}): Linker {
+    return new Linker(cat, options.snapshot ?? LexicalSnapshot.forCatalog(cat));
+  }
+
+  /** @internal */
+  byNorm(norm: string): readonly AliasHit[] {
+    return this.catalog.byNorm(norm);
+  }
+
+  /** @internal */
+  byStem(stem: string): readonly AliasHit[] {
+    return this.catalog.byStem(stem);
+  }
+
+  /** @internal */
+  aliasRows(num: number): readonly (readonly [string, string, number])[] {
+    return this.catalog.aliasRows(num);
+  }
+
+  /** @internal */
+  isVocabularyPhrase(norm: string, stem: string): boolean {
+    return this.phraseTypes.has(norm) || this.phraseTypes.has(stem) || this.phraseRelations.has(norm) || this.phraseRelations.has(stem);
+  }
+
+  /** @internal */
+  isTypeEntity(num: number): boolean {
+    return this.supertypes.has(num);
+  }
+
+  /** @internal */
+  fuzzy(): FuzzyTokenIndex {
+    return (this.fuzzyIndex ??= new FuzzyTokenIndex(this.snapshot.vocab));
+  }
+
+  /** Type and relation nums named by n-grams of the question (normalised or stemmed). */
+  vocabularyIn(toks: readonly QuestionToken[]): { types: Set<number>; relations: Set<number> } {
+    const types = new Set<number>();
+    const relations = new Set<number>();
+    for (let i = 0; i < toks.length; i++) {
+      let norm = "";
+      let stem = "";
+      for (let len = 1; len <= this.maxPhrase && i + len <= toks.length; len++) {
+        const t = toks[i + len - 1]!;
+        norm = len === 1 ? t.norm : `${norm} ${t.norm}`;
+        stem = len === 1 ? t.stem : `${stem} ${t.stem}`;
+        for (const k of [norm, stem]) {
+          for (const n of this.phraseTypes.get(k) ?? []) types.add(n);
+          for (const n of this.phraseRelations.get(k) ?? []) relations.add(n);
+        }
+      }
+    }
+    return { types, relations };
+  }
+
+  /** @internal the context document of an entity: its description, neighbours' labels and (half weight) descriptions, type labels; stemmed. */
+  contextDoc(num: number): ContextDoc {
+    return this.docs.get(num, () => {
+      const terms = new Map<string, number>();
+      let length = 0;
+      const addText = (text: string | null, weight: number) => {
+        if (!text) return;
+        for (const t of tokens(text)) {
+          if (isStopWord(t)) continue;
+          const s = stemToken(t);
+          terms.set(s, (terms.get(s) ?? 0) + weight);
+          length += weight;
+        }
+      };
+      addText(this.catalog.descriptionOf(num), 1);
+      for (const [label, description] of this.catalog.neighbourTexts(num, DEFAULTS.contextNeighbours)) {
+        addText(label, 1);
+        addText(description, NEIGHBOUR_DESCRIPTION_WEIGHT);
+      }
+      for (const t of this.typesOf(num)) addText(this.catalog.ref(t).label, 1);
+      return { terms, length };
+    });
+  }
+
+  /** @internal direct types of an entity (cached). */
+  typesOf(num: number): readonly number[] {
+    return this.typeCache.get(num, () => this.catalog.typesOf(num));
+  }
+
+  /** @internal sorted link set of an entity (cached). */
+  linkSet(num: number): number[] {
+    return this.links.get(num, () => [...new Set(this.catalog.neighbourNums(num, DEFAULTS.linkSetLimit))].sort((a, b) => a - b));
+  }
+
+  /** @internal Milne–Witten relatedness of two entities. */
+  relatedness(a: number, b: number): number {
+    return milneWitten(a, this.linkSet(a), b, this.linkSet(b), this.snapshot.entityCount);
+  }
+
+  /** @internal BM25 statistics of the catalog. */
+  get stats() {
+    const s = this.snapshot;
+    return { documents: s.entityCount, avgLength: s.avgDocLength, documentFrequency: (t: string) => s.documentFrequency(t) };
+  }
+
+  /** @internal evidence for one candidate. */
+  evidence(c: SpanCandidate, query: readonly string[], named: { types: Set<number>; relations: Set<number> }, withContext: boolean): CandidateEvidence {
+    let score = 0;
+    if (withContext && query.length > 0) {
+      const doc = this.contextDoc(c.num);
+      score = bm25(query, doc.terms, doc.length, this.stats);
+    }
+    let typeOk = 0;
+    if (named.types.size > 0) {
+      for (const t of this.typesOf(c.num)) {
+        for (const s of this.supertypes.get(t) ?? [t]) if (named.types.has(s)) typeOk = 1;
+      }
+    }
+    let relOk = 0;
+    for (const r of named.relations) {
+      if (this.catalog.hasRelationEdge(c.num, r)) {
+        relOk = 1;
+        break;
+      }
+    }
+    return { num: c.num, similarity: c.similarity, kind: c.kind, degree: this.snapshot.degreeOf(c.num), bm25: score, typeCompat: typeOk, relationCompat: relOk };
+  }
+}
+
+/**
+ * Parses a `--pin` value `TEXT=ENTITY` (split at the first "="; both sides trimmed, non-empty).
+ * @throws TiepointError `cli/usage` naming the bad value.
+ */
+export function parsePin(s: string): Pin {
+  const at = s.indexOf("=");
+  const text = at < 0 ? "" : s.slice(0, at).trim();
+  const entity = at < 0 ? "" : s.slice(at + 1).trim();
+  if (text === "" || entity === "") {
+    throw new TiepointError("cli/usage", `--pin "${s}": expected TEXT=ENTITY, e.g. --pin "Ada=p:ada" (ENTITY is an id or an exact label)`);
+  }
+  return { text, entity };
+}
+
+/** Token range of the first occurrence of `text` (normalised) in the question tokens, or undefined. */
+function findTokens(toks: readonly QuestionToken[], text: string): [number, number] | undefined {
+  const want = tokens(text);
+  if (want.length === 0) return undefined;
+  for (let i = 0; i + want.length <= toks.length; i++) {
+    let ok = true;
+    for (let k = 0; k < want.length && ok; k++) ok = toks[i + k]!.norm === want[k];
+    if (ok) return [i, i + want.length];
+  }
+  const wantStem = want.map(stemToken);
+  for (let i = 0; i + want.length <= toks.length; i++) {
+    let ok = true;
+    for (let k = 0; k < want.length && ok; k++) ok = toks[i + k]!.stem === wantStem[k];
+    if (ok) return [i, i + want.length];
+  }
+  return undefined;
+}
+
+/** Candidates of a span, trimmed to the best `limit` by similarity, then prominence, then num. */
+function topCandidates(span: DetectedSpan, linker: Linker, limit: number): SpanCandidate[] {
+  const list = [...span.candidates];
+  if (list.length <= limit) return list;
+  const d = (n: number) => linker.snapshot.degreeOf(n);
+  return list.sort((a, b) => b.similarity - a.similarity || d(b.num) - d(a.num) || a.num - b.num).slice(0, limit);
+}
+
+/**
+ * Links the question's mentions to catalog entities. Never throws on any text; throws a
+ * TiepointError (`linking/pin`) only for a pin whose text is not in the question or whose entity
+ * does not exist.
+ */
+export function linkQuestion(question: string, linker: Linker, options: LinkOptions = {}): LinkResult {
+  const maxAlt = options.maxAlternatives ?? DEFAULTS.maxAlternatives;
+  const cat = linker.catalog;
+  const toks = questionTokens(question);
+  const blocked = toks.map(() => false);
+  const pinned: { first: number; last: number; num: number }[] = [];
+  for (const pin of options.pins ?? []) {
+    const nums = cat.byLabelOrId(pin.entity);
+    if (nums.length === 0) throw new TiepointError("linking/pin", `--pin "${pin.text}=${pin.entity}": no entity has the id or exact label "${pin.entity}"`);
+    const range = findTokens(toks, pin.text);
+    if (!range) throw new TiepointError("linking/pin", `--pin "${pin.text}=${pin.entity}": "${pin.text}" does not occur in the question`);
+    for (let k = range[0]; k < range[1]; k++) blocked[k] = true;
+    pinned.push({ first: range[0], last: range[1], num: nums[0]! });
+  }
+  const allEligible = !/\p{Lu}/u.test(question);
+  const det = detectMentions(toks, linker, blocked, allEligible);
+  const named = linker.vocabularyIn(toks);
+  // context words: every content token outside the mention (computed per mention)
+  const contentStems = toks.map((t) => (isStopWord(t.norm) ? "" : t.stem));
+  const spans = det.spans.map((s) => topCandidates(s, linker, DEFAULTS.maxCandidates));
+  const evidence = spans.map((cands, m) => {
+    const span = det.spans[m]!;
+    const query: string[] = [];
+    const lo = Math.max(0, span.first - DEFAULTS.contextWindow);
+    const hi = Math.min(toks.length, span.last + DEFAULTS.contextWindow);
+    for (let k = lo; k < hi; k++) if (contentStems[k] !== "" && (k < span.first || k >= span.last)) query.push(contentStems[k]!);
+    // context only decides between candidates; an unambiguous span skips it
+    return cands.map((c) => linker.evidence(c, query, named, cands.length > 1));
+  });
+  // coherence is joint over the question's mentions; a very long text is scored mention by mention
+  const coherent = evidence.length <= DEFAULTS.maxCoherentMentions;
+  const scored = disambiguate(evidence, coherent ? (a, b) => linker.relatedness(a, b) : undefined, options.scoring);
+  const mentions: LinkedMention[] = [];
+  const spanText = (first: number, last: number) => {
+    const start = toks[first]!.start;
+    const end = toks[last - 1]!.end;
+    return { text: question.slice(start, end), start, end };
+  };
+  for (const p of pinned) {
+    const ref = cat.ref(p.num);
+    mentions.push({ ...spanText(p.first, p.last), entity: ref, num: p.num, confidence: 1, alternatives: [], pinned: true });
+  }
+  det.spans.forEach((span, m) => {
+    const withRefs = scored[m]!.map((c) => ({ ...c, ref: cat.ref(c.num) }));
+    withRefs.sort((a, b) => b.confidence - a.confidence || (a.ref.id < b.ref.id ? -1 : a.ref.id > b.ref.id ? 1 : 0));
+    const best = withRefs[0];
+    if (!best) return;
+    mentions.push({
+      ...spanText(span.first, span.last),
+      entity: best.ref,
+      num: best.num,
+      confidence: round(best.confidence),
+      alternatives: withRefs
+        .slice(1)
+        .filter((a) => a.confidence >= DEFAULTS.minAlternative)
+        .slice(0, maxAlt)
+        .map((a) => ({ id: a.ref.id, label: a.ref.label, confidence: round(a.confidence), num: a.num })),
+    });
+  });
+  mentions.sort((a, b) => a.start - b.start);
+  let unlinked: UnlinkedSpan[] = det.unmatched.map((u) => ({
+    ...spanText(u.first, u.last),
+    suggestions: u.suggestions.map((s) => cat.ref(s.num)),
+  }));
+  if (mentions.length === 0 && unlinked.length === 0) {
+    // nothing linked and no name-like words: offer the nearest names for the content words
+    const runs: [number, number][] = [];
+    for (let i = 0; i < toks.length; i++) {
+      if (isStopWord(toks[i]!.norm) || toks[i]!.norm.length < 2 || linker.isVocabularyPhrase(toks[i]!.norm, toks[i]!.stem)) continue;
+      const last = runs[runs.length - 1];
+      if (last && last[1] === i) last[1] = i + 1;
+      else runs.push([i, i + 1]);
+    }
+    const again = detectMentions(toks, linker, toks.map((t, k) => !runs.some(([a, b]) => k >= a && k < b) || t.norm === ""), true);
+    unlinked = runs.slice(0, 8).map(([a, b]) => {
+      const near = [...again.spans.filter((s) => s.first >= a && s.last <= b).flatMap((s) => s.candidates), ...again.unmatched.filter((u) => u.first >= a && u.last <= b).flatMap((u) => u.suggestions)];
+      return { ...spanText(a, b), suggestions: near.slice(0, 3).map((s) => cat.ref(s.num)) };
+    });
+  }
+  return { mentions, unlinked };
+}
+
+function round(x: number): number {
+  return Math.round(x * 10000) / 10000;
+}
+
+/**
+ * Scores the catalog candidates of one given span of `question` (start/end UTF-16 offsets) with
+ * the linker's local evidence (prior, string similarity, BM25 context); for evaluations.
+ * Candidates are the entities whose alias equals the span (normalised, else stemmed), or the
+ * given `candidates` (each then treated as an exact match; its label counts as the label kind).
+ * Returns nums best first with confidences; empty when the span names no entity.
+ */
+export function rankSpanCandidates(
+  question: string,
+  start: number,
+  end: number,
+  linker: Linker,
+  options: { scoring?: ScoringOptions; candidates?: readonly number[] } = {},
+): { num: number; confidence: number }[] {
+  const toks = questionTokens(question);
+  const inside = toks.map((t) => t.start >= start && t.end <= end);
+  const spanToks = toks.filter((_, k) => inside[k]);
+  if (spanToks.length === 0) return [];
+  let cands: SpanCandidate[];
+  if (options.candidates) {
+    cands = options.candidates.map((num) => ({ num, similarity: 1, kind: linker.aliasRows(num).some((r) => r[2] === 0 && r[1] === spanToks.map((t) => t.norm).join(" ")) ? 0 : 1 }));
+  } else {
+    const norm = spanToks.map((t) => t.norm).join(" ");
+    const stem = spanToks.map((t) => t.stem).join(" ");
+    let hits: readonly AliasHit[] = linker.byNorm(norm);
+    let sim = 1;
+    if (hits.length === 0) {
+      hits = linker.byStem(stem);
+      sim = DETECTION_DEFAULTS.stemSimilarity;
+    }
+    const best = new Map<number, number>();
+    for (const h of hits) best.set(h.entity, Math.min(best.get(h.entity) ?? 1, h.kind));
+    cands = [...best].sort((a, b) => a[0] - b[0]).map(([num, kind]) => ({ num, similarity: sim, kind }));
+  }
+  const query = toks.filter((t, k) => !inside[k] && !isStopWord(t.norm)).map((t) => t.stem);
+  const named = linker.vocabularyIn(toks);
+  const ev = cands.map((c) => linker.evidence(c, query, named, true));
+  return disambiguate([ev], undefined, options.scoring)[0]!.map((c) => ({ num: c.num, confidence: c.confidence }));
+}

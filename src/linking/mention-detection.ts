@@ -1,0 +1,296 @@
+/**
+ * Mention detection: leftmost-longest matching of token n-grams against the alias index, then
+ * fuzzy spans for what is left (misspelt, partial or reordered names).
+ *
+ * [Reference] Leftmost-longest dictionary matching is the usual gazetteer method (common
+ * practice; cf. R. Mihalcea and A. Csomai, "Wikify!", CIKM 2007, n-gram lookup against an
+ * anchor dictionary). Fuzzy spans: token corrections from a trigram index re-scored by edit
+ * distance (fuzzy-index.ts), candidates gathered from the alias-token postings, and a span
+ * similarity = Dice overlap of the span's and the alias's token sets where tokens match
+ * exactly or with Jaro–Winkler ≥ `tokenMatch` (so word order does not matter).
+ * Rules: a span may not start or end with a stop word, and a span that is only stop words or
+ * exactly a type or relation phrase of the catalog never becomes a mention.
+ */
+import type { AliasHit } from "../catalog/index.js";
+import type { FuzzyTokenIndex } from "./fuzzy-index.js";
+import { jaroWinkler } from "./jaro-winkler.js";
+import type { LexicalSnapshot } from "./lexical-snapshot.js";
+import { isStopWord } from "./stopwords.js";
+import type { QuestionToken } from "./text-spans.js";
+
+/** Options of {@link detectMentions}. */
+export const DEFAULTS = {
+  /** Longest n-gram tried. */
+  maxTokens: 8,
+  /** Similarity of a stem-only match (an exact normalised match is 1). */
+  stemSimilarity: 0.95,
+  /** Factor on the Dice similarity of a partial or reordered name. */
+  partialFactor: 0.95,
+  /** Jaro–Winkler needed for two tokens to count as the same word in a fuzzy span. */
+  tokenMatch: 0.88,
+  /** Lowest span similarity for a fuzzy candidate. */
+  minSimilarity: 0.5,
+  /** Lowest similarity for a fuzzy name that absorbs a neighbouring exact span. */
+  mergeSimilarity: 0.8,
+  /** Lowest similarity for a suggestion on an unlinked span. */
+  minSuggestion: 0.3,
+  /** Fuzzy candidates kept per span. */
+  maxFuzzyCandidates: 8,
+  /** Posting lists longer than this only filter, they never generate candidates. */
+  maxGenerator: 5000,
+} as const;
+
+/** What mention detection needs from the catalog (the Linker implements it). */
+export interface AliasLexicon {
+  readonly snapshot: LexicalSnapshot;
+  byNorm(norm: string): readonly AliasHit[];
+  byStem(stem: string): readonly AliasHit[];
+  /** Aliases of an entity as [text, norm, kind]. */
+  aliasRows(num: number): readonly (readonly [string, string, number])[];
+  /** True when the normalised or stemmed phrase is a type or relation word of the catalog. */
+  isVocabularyPhrase(norm: string, stem: string): boolean;
+  /** True when the entity is a type (types are never fuzzy candidates). */
+  isTypeEntity(num: number): boolean;
+  /** The lazily built fuzzy index over the alias token vocabulary. */
+  fuzzy(): FuzzyTokenIndex;
+}
+
+/** A candidate entity for a span. */
+export interface SpanCandidate {
+  readonly num: number;
+  /** String similarity of the span to the entity's best alias, 0..1. */
+  readonly similarity: number;
+  /** 0 when the best alias is the entity's label, 1 for another alias. */
+  readonly kind: number;
+}
+
+/** A detected span (token indexes) with its candidates. */
+export interface DetectedSpan {
+  readonly first: number;
+  /** One past the last token. */
+  readonly last: number;
+  readonly match: "exact" | "stem" | "fuzzy";
+  readonly candidates: readonly SpanCandidate[];
+}
+
+/** A run of content words that nothing matched, with the nearest names. */
+export interface UnmatchedRun {
+  readonly first: number;
+  readonly last: number;
+  readonly suggestions: readonly SpanCandidate[];
+}
+
+/** Result of {@link detectMentions}. */
+export interface Detection {
+  readonly spans: readonly DetectedSpan[];
+  readonly unmatched: readonly UnmatchedRun[];
+}
+
+function hitsToCandidates(hits: readonly AliasHit[], similarity: number): SpanCandidate[] {
+  const best = new Map<number, number>();
+  for (const h of hits) {
+    const k = best.get(h.entity);
+    if (k === undefined || h.kind < k) best.set(h.entity, h.kind);
+  }
+  return [...best].sort((a, b) => a[0] - b[0]).map(([num, kind]) => ({ num, similarity, kind }));
+}
+
+/**
+ * Detects mentions in the question tokens. `blocked[i]` marks tokens already taken (pins).
+ * `allEligible` lets lower-case words start fuzzy spans (a question typed without capitals).
+ */
+export function detectMentions(
+  toks: readonly QuestionToken[],
+  lex: AliasLexicon,
+  blocked: readonly boolean[],
+  allEligible: boolean,
+  options: Partial<typeof DEFAULTS> = {},
+): Detection {
+  const o = { ...DEFAULTS, ...options };
+  const n = toks.length;
+  const maxLen = Math.min(o.maxTokens, lex.snapshot.maxAliasTokens);
+  const spans: DetectedSpan[] = [];
+  const covered = blocked.slice();
+  // 1. leftmost-longest exact (normalised) or stemmed match
+  let i = 0;
+  while (i < n) {
+    if (covered[i] || isStopWord(toks[i]!.norm)) {
+      i++;
+      continue;
+    }
+    let found: DetectedSpan | undefined;
+    let norm = "";
+    let stem = "";
+    const keys: [string, string, number][] = [];
+    for (let len = 1; len <= maxLen && i + len <= n; len++) {
+      const t = toks[i + len - 1]!;
+      if (covered[i + len - 1]) break;
+      norm = len === 1 ? t.norm : `${norm} ${t.norm}`;
+      stem = len === 1 ? t.stem : `${stem} ${t.stem}`;
+      keys.push([norm, stem, len]);
+    }
+    for (let k = keys.length - 1; k >= 0 && !found; k--) {
+      const [kn, ks, len] = keys[k]!;
+      if (isStopWord(toks[i + len - 1]!.norm)) continue;
+      if (lex.isVocabularyPhrase(kn, ks)) continue;
+      if (lex.snapshot.mayBeKey(kn)) {
+        const hits = lex.byNorm(kn);
+        if (hits.length > 0) found = { first: i, last: i + len, match: "exact", candidates: hitsToCandidates(hits, 1) };
+      }
+      if (!found && lex.snapshot.mayBeKey(ks)) {
+        const hits = lex.byStem(ks);
+        if (hits.length > 0) found = { first: i, last: i + len, match: "stem", candidates: hitsToCandidates(hits, o.stemSimilarity) };
+      }
+    }
+    if (found) {
+      spans.push(found);
+      for (let k = found.first; k < found.last; k++) covered[k] = true;
+      i = found.last;
+    } else i++;
+  }
+  // 2. fuzzy spans over runs of uncovered content words; capitalised type or relation words
+  //    may sit inside a run (as in a misspelt "Shoal Chian Survey") but never form one alone
+  const unmatched: UnmatchedRun[] = [];
+  const free = (k: number) => !covered[k] && !isStopWord(toks[k]!.norm) && toks[k]!.norm.length >= 2 && (allEligible || toks[k]!.marked);
+  const endsAt = new Map<number, DetectedSpan>(spans.map((sp) => [sp.last, sp]));
+  const startsAt = new Map<number, DetectedSpan>(spans.map((sp) => [sp.first, sp]));
+  const vocabularyWord = (k: number) => lex.isVocabularyPhrase(toks[k]!.norm, toks[k]!.stem);
+  i = 0;
+  while (i < n) {
+    if (!free(i) || (vocabularyWord(i) && !toks[i]!.marked)) {
+      i++;
+      continue;
+    }
+    let j = i;
+    while (j < n && j - i < o.maxTokens && free(j) && (!vocabularyWord(j) || toks[j]!.marked)) j++;
+    const a = i;
+    let hasName = false;
+    for (let k = a; k < j && !hasName; k++) hasName = !vocabularyWord(k);
+    if (!hasName) {
+      i = Math.max(i + 1, j);
+      continue;
+    }
+    // an exact span right before or after the run may be the start or end of the same name
+    const beforeSpan = endsAt.get(a);
+    const afterSpan = startsAt.get(j);
+    const from = beforeSpan ? beforeSpan.first : a;
+    const to = afterSpan ? afterSpan.last : j;
+    let result = fuzzySpan(toks.slice(from, to), lex, o);
+    let base = from;
+    const reachesRun = result.candidates.length > 0 && base + result.last > a && base + result.first < j;
+    const spansExact = base + result.first < a || base + result.last > j;
+    if ((from !== a || to !== j) && !(reachesRun && spansExact && result.candidates[0]!.similarity >= o.mergeSimilarity)) {
+      result = fuzzySpan(toks.slice(a, j), lex, o);
+      base = a;
+    } else if (from !== a || to !== j) {
+      // the merged name replaces the exact spans it absorbed
+      for (const sp of [beforeSpan, afterSpan]) {
+        if (sp && sp.first >= base + result.first && sp.last <= base + result.last) {
+          spans.splice(spans.indexOf(sp), 1);
+          endsAt.delete(sp.last);
+          startsAt.delete(sp.first);
+        }
+      }
+    }
+    if (result.candidates.length > 0) {
+      spans.push({ first: base + result.first, last: base + result.last, match: "fuzzy", candidates: result.candidates });
+      for (let k = base + result.first; k < base + result.last; k++) covered[k] = true;
+    } else {
+      unmatched.push({ first: a, last: j, suggestions: result.suggestions });
+    }
+    i = Math.max(i + 1, j);
+  }
+  spans.sort((a, b) => a.first - b.first);
+  return { spans, unmatched };
+}
+
+interface FuzzyResult {
+  first: number;
+  last: number;
+  candidates: SpanCandidate[];
+  suggestions: SpanCandidate[];
+}
+
+/** Similarity of a token list to an alias's tokens: Dice over exact-or-close token matches. */
+function spanSimilarity(run: readonly string[], alias: readonly string[], tokenMatch: number): { sim: number; used: boolean[] } {
+  const used = run.map(() => false);
+  const taken = alias.map(() => false);
+  let matched = 0;
+  for (let r = 0; r < run.length; r++) {
+    let best = 0;
+    let at = -1;
+    for (let a = 0; a < alias.length; a++) {
+      if (taken[a]) continue;
+      const s = run[r] === alias[a] ? 1 : jaroWinkler(run[r]!, alias[a]!);
+      if (s > best) {
+        best = s;
+        at = a;
+      }
+    }
+    if (at >= 0 && best >= tokenMatch) {
+      taken[at] = true;
+      used[r] = true;
+      matched += best;
+    }
+  }
+  return { sim: (2 * matched) / (run.length + alias.length), used };
+}
+
+function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: typeof DEFAULTS): FuzzyResult {
+  const snap = lex.snapshot;
+  // token alternatives: the token itself when known, else close vocabulary tokens
+  const lists: Int32Array[] = [];
+  for (const t of run) {
+    const id = snap.tokenId(t.norm);
+    if (id >= 0) lists.push(snap.entitiesWithToken(id));
+    else {
+      const near = lex.fuzzy().nearest(t.norm);
+      if (near.length === 0) continue;
+      const merged = new Set<number>();
+      for (const h of near) for (const e of snap.entitiesWithToken(h.token)) merged.add(e);
+      lists.push(Int32Array.from([...merged].sort((a, b) => a - b)));
+    }
+  }
+  const empty: FuzzyResult = { first: 0, last: run.length, candidates: [], suggestions: [] };
+  if (lists.length === 0) return empty;
+  const gens = lists.filter((l) => l.length <= o.maxGenerator);
+  if (gens.length === 0) return empty;
+  const votes = new Map<number, number>();
+  for (const l of gens) for (const e of l) votes.set(e, (votes.get(e) ?? 0) + 1);
+  // keep the entities sharing the most tokens with the run (bounded work per question)
+  const ranked = [...votes].sort((a, b) => b[1] - a[1] || a[0] - b[0]).slice(0, 200);
+  const runNorms = run.map((t) => t.norm);
+  // each entity keeps its best alias by sim·(1 + covered)/(1 + |run|): a longer name that
+  // covers more of the run beats a short alias matching one word of it exactly
+  const scored: { num: number; sim: number; key: number; kind: number; used: boolean[] }[] = [];
+  for (const [num] of ranked) {
+    if (lex.isTypeEntity(num)) continue;
+    let best = { sim: 0, key: 0, kind: 1, used: [] as boolean[] };
+    for (const [, norm, kind] of lex.aliasRows(num)) {
+      const at = norm.split(" ");
+      const s = spanSimilarity(runNorms, at, o.tokenMatch);
+      // score only the covered part of the run: the span shrinks to the matched tokens
+      const first = s.used.indexOf(true);
+      if (first < 0) continue;
+      const last = s.used.lastIndexOf(true) + 1;
+      const sub = spanSimilarity(runNorms.slice(first, last), at, o.tokenMatch);
+      const exact = runNorms.slice(first, last).join(" ") === norm;
+      const sim = exact ? 1 : sub.sim * o.partialFactor;
+      const key = (sim * (1 + last - first)) / (1 + runNorms.length);
+      if (key > best.key || (key === best.key && kind < best.kind)) best = { sim, key, kind, used: s.used };
+    }
+    if (best.sim > 0) scored.push({ num, sim: best.sim, key: best.key, kind: best.kind, used: best.used });
+  }
+  scored.sort((a, b) => b.key - a.key || b.sim - a.sim || a.num - b.num);
+  const suggestions = scored.filter((s) => s.sim >= o.minSuggestion).slice(0, 3).map((s) => ({ num: s.num, similarity: s.sim, kind: s.kind }));
+  const top = scored[0];
+  if (!top || top.sim < o.minSimilarity) return { ...empty, suggestions };
+  const first = top.used.indexOf(true);
+  const last = top.used.lastIndexOf(true) + 1;
+  // candidates: everything that matches the same tokens about as well
+  const candidates = scored
+    .filter((s) => s.sim >= o.minSimilarity && s.used.indexOf(true) >= first && s.used.lastIndexOf(true) + 1 <= last)
+    .slice(0, o.maxFuzzyCandidates)
+    .map((s) => ({ num: s.num, similarity: s.sim, kind: s.kind }));
+  return { first, last, candidates, suggestions };
+}

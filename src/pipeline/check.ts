@@ -1,0 +1,64 @@
+/**
+ * `check`: a batch of questions through one session, scored against their expected answers.
+ *
+ * Metrics over the questions that carry expected answers (Manning, Raghavan & Schütze 2008,
+ * "Introduction to Information Retrieval", §8.4): Hits@k = share of questions with an
+ * expected answer among the first k; MRR = mean of 1/rank of the best-ranked expected answer
+ * (0 when none is returned; Voorhees 1999, TREC-8 QA track). An expected value matches an
+ * answer by id or by exact label.
+ */
+import type { AskResult, CheckItem, CheckReport, VerdictStatus } from "../model/index.js";
+import type { QuestionItem } from "./questions.js";
+import type { AskOptions, Session } from "./session.js";
+
+/** Options of {@link runCheck}; all optional. */
+export interface CheckOptions {
+  /** Answers per question. @default 10 */
+  readonly top?: number;
+  /** Called after each question with its result. */
+  readonly onProgress?: (done: number, total: number, item: CheckItem) => void;
+}
+
+/** The 1-based rank of the best-ranked expected answer, or null. */
+export function rankOfExpected(result: AskResult, expected: readonly string[]): number | null {
+  if (expected.length === 0) return null;
+  const want = new Set(expected);
+  const i = result.answers.findIndex((a) => want.has(a.id) || want.has(a.label));
+  return i < 0 ? null : i + 1;
+}
+
+/** Runs every question and summarises (contract.md, `check --json`). */
+export function runCheck(session: Session, items: readonly QuestionItem[], options: CheckOptions = {}): CheckReport {
+  const t0 = performance.now();
+  const ask: AskOptions = options.top !== undefined ? { top: options.top } : {};
+  const results: CheckItem[] = [];
+  for (const item of items) {
+    const answer = session.ask(item.question, ask).result;
+    const rank = rankOfExpected(answer, item.expected);
+    const r: CheckItem = { line: item.line, question: item.question, expected: item.expected, rank, hit: rank === 1, answer };
+    results.push(r);
+    options.onProgress?.(results.length, items.length, r);
+  }
+  return { results, summary: summarise(results, (performance.now() - t0) / 1000) };
+}
+
+/** The summary of a list of results. */
+export function summarise(results: readonly CheckItem[], seconds: number): CheckReport["summary"] {
+  const verdicts: Record<VerdictStatus, number> = { unique: 0, tied: 0, weak: 0, none: 0 };
+  let withExpected = 0;
+  let h1 = 0;
+  let h5 = 0;
+  let rr = 0;
+  for (const r of results) {
+    verdicts[r.answer.verdict.status]++;
+    if (r.expected.length === 0) continue;
+    withExpected++;
+    if (r.rank !== null) {
+      if (r.rank === 1) h1++;
+      if (r.rank <= 5) h5++;
+      rr += 1 / r.rank;
+    }
+  }
+  const share = (x: number) => (withExpected === 0 ? 0 : x / withExpected);
+  return { questions: results.length, withExpected, hits1: share(h1), hits5: share(h5), mrr: share(rr), verdicts, seconds };
+}

@@ -1,0 +1,12 @@
+/**
+ * The pipeline: a Session (one loaded catalog, index, linker, question model) answering
+ * questions, and the batch check over a question file.
+ */
+export { Session, DEFAULTS as ASK_DEFAULTS } from "./session.js";
+export type { SessionOptions, SessionProgress, AskOptions, AskOutcome, AskTimings } from "./session.js";
+export { parseQuestionFile, parseQuestionText } from "./questions.js";
+export type { QuestionItem } from "./questions.js";
+export { runCheck, rankOfExpected, summarise } from "./check.js";
+export type { CheckOptions } from "./check.js";
+export { basicVerdict, DEFAULTS as VERDICT_DEFAULTS } from "./verdict.js";
+export type { VerdictOptions } from "./verdict.js";

@@ -1,0 +1,222 @@
+/**
+ * The pipeline session: one opened catalog with its relation index, linker and question
+ * model, loaded once and reused for every question (`ask`, `check`, the terminal screen).
+ *
+ * ask(question) = linkQuestion → analyze → rank → answers + verdict (+ explanation), each
+ * stage timed. Answers and verdict are made in one place, {@link Session.answersOf}.
+ */
+import { Catalog, demoCatalogPath } from "../catalog/index.js";
+import { analyze, buildQuestionModel, type Analysis, type QuestionModel } from "../analysis/index.js";
+import { Linker, linkQuestion, type Pin } from "../linking/index.js";
+import { DISCLAIMER, TiepointError, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
+import { clueSeeds, openIndex, rank, type IndexProgress, type Ranked, type RankOptions, type RelationIndex } from "../ranking/index.js";
+import { basicVerdict } from "./verdict.js";
+import { explain, type Explanation } from "../explain/index.js";
+
+/** A progress event while a session opens. */
+export interface SessionProgress {
+  /** "catalog", "index", "linker", "model", "ready". */
+  readonly phase: string;
+  /** Index building detail, when phase is "index". */
+  readonly index?: IndexProgress;
+}
+
+/** Options of {@link Session.open}; all optional. */
+export interface SessionOptions {
+  /** Catalog file. @default the demo catalog (demoCatalogPath()) */
+  readonly db?: string;
+  /** Progress while opening (to stderr in the CLI). */
+  readonly onProgress?: (p: SessionProgress) => void;
+  /** Ranking options used for every question. */
+  readonly rank?: RankOptions;
+}
+
+/** Options of {@link Session.ask}; all optional. */
+export interface AskOptions {
+  /** Answers returned. @default 10 */
+  readonly top?: number;
+  /** User-fixed links (`--pin TEXT=ENTITY`). */
+  readonly pins?: readonly Pin[];
+  /** Clue indexes to leave out of the ranking (ablation). */
+  readonly dropClues?: readonly number[];
+  /** Entities (ids or exact labels) to explain the absence of (`--why-not`). */
+  readonly whyNot?: readonly string[];
+  /** Re-ask each suggested clue's question and mark it `verified` when it comes out unique with the same answer (verified ones first). @default false */
+  readonly verifySuggestions?: boolean;
+}
+
+/** Defaults of {@link AskOptions}. */
+export const DEFAULTS = { top: 10 } as const;
+
+/** Milliseconds per stage of one question. */
+export interface AskTimings {
+  readonly link: number;
+  readonly analyze: number;
+  readonly rank: number;
+  readonly explain: number;
+  readonly total: number;
+}
+
+/** Everything one question produced. */
+export interface AskOutcome {
+  /** The contract document of `ask --json`. */
+  readonly result: AskResult;
+  readonly analysis: Analysis;
+  readonly ranked: Ranked;
+  readonly timings: AskTimings;
+  /** Paths, coverage, verdict, ablation, suggestions and why-not reports (explain stage). */
+  readonly explanation?: Explanation;
+}
+
+/** One loaded catalog, ready for questions. */
+export class Session {
+  readonly catalog: Catalog;
+  readonly index: RelationIndex;
+  readonly linker: Linker;
+  readonly model: QuestionModel;
+  private readonly rankOptions: RankOptions;
+  private readonly idCache = new Map<number, { id: string; label: string }>();
+
+  private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions) {
+    this.catalog = catalog;
+    this.index = index;
+    this.linker = linker;
+    this.model = model;
+    this.rankOptions = rankOptions;
+  }
+
+  /** Opens the catalog (read-only), its relation index (snapshot or rebuilt), linker and question model. */
+  static open(options: SessionOptions = {}): Session {
+    const progress = options.onProgress;
+    const path = options.db ?? demoCatalogPath();
+    progress?.({ phase: "catalog" });
+    const catalog = Catalog.open(path, { readonly: true });
+    try {
+      progress?.({ phase: "index" });
+      const index = openIndex(catalog, { onProgress: (e: IndexProgress) => progress?.({ phase: "index", index: e }) });
+      progress?.({ phase: "linker" });
+      const linker = Linker.fromCatalog(catalog);
+      progress?.({ phase: "model" });
+      const model = buildQuestionModel(catalog, { relationEdgeCounts: relationEdgeCounts(index) });
+      progress?.({ phase: "ready" });
+      return new Session(catalog, index, linker, model, options.rank ?? {});
+    } catch (e) {
+      catalog.close();
+      throw e;
+    }
+  }
+
+  /** Answers one question. */
+  ask(question: string, options: AskOptions = {}): AskOutcome {
+    const top = options.top ?? DEFAULTS.top;
+    if (!Number.isInteger(top) || top < 1) throw new TiepointError("pipeline/options", `top must be a positive whole number, got ${String(top)}`);
+    if (question.trim() === "") throw new TiepointError("pipeline/question", "the question is empty");
+    const t0 = performance.now();
+    const link = linkQuestion(question, this.linker, options.pins !== undefined ? { pins: options.pins } : {});
+    const t1 = performance.now();
+    const analysis = analyze(question, link, this.model);
+    const t2 = performance.now();
+    const ranked = rank(analysis, this.index, { ...this.rankOptions, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
+    const t3 = performance.now();
+    const whyNot = (options.whyNot ?? []).map((e) => this.resolveEntity(e));
+    const made = this.answersOf(analysis, ranked, top, { dropClues: options.dropClues ?? [], whyNot });
+    const { answers, verdict } = made;
+    let explanation = made.explanation;
+    if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {
+      const want = answers[0].id;
+      const checked = explanation.suggestions.map((sg) => {
+        const again = this.ask(sg.question, { top: 3, ...(options.pins !== undefined ? { pins: options.pins } : {}) }).result;
+        return { ...sg, verified: again.verdict.status === "unique" && again.answers[0]?.id === want };
+      });
+      explanation = { ...explanation, suggestions: [...checked.filter((x) => x.verified), ...checked.filter((x) => !x.verified)] };
+    }
+    const t4 = performance.now();
+    const mentions: Mention[] = analysis.mentions.map((m) => ({
+      text: m.text,
+      start: m.start,
+      end: m.end,
+      entity: { id: m.entity.id, label: m.entity.label },
+      confidence: m.confidence,
+      alternatives: m.alternatives.map((a) => ({ id: a.id, label: a.label, confidence: a.confidence })),
+      ...(m.pinned ? { pinned: true } : {}),
+    }));
+    const result: AskResult = {
+      question,
+      mentions,
+      answerTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
+      answers,
+      verdict,
+      notes: [...analysis.notes, ...ranked.notes],
+      disclaimer: DISCLAIMER,
+      ...(explanation && explanation.suggestions.length > 0
+        ? { suggestions: explanation.suggestions.map((sg) => ({ text: sg.text, question: sg.question, triple: sg.triple, rulesOut: sg.rulesOut, ...(sg.verified !== undefined ? { verified: sg.verified } : {}) })) }
+        : {}),
+    };
+    return { result, analysis, ranked, explanation, timings: { link: t1 - t0, analyze: t2 - t1, rank: t3 - t2, explain: t4 - t3, total: t4 - t0 } };
+  }
+
+  /**
+   * The answers (with paths) and the verdict of a ranking: the one call site where the
+   * explanation stage plugs in. Until then: no paths, {@link basicVerdict}.
+   */
+  answersOf(
+    analysis: Analysis,
+    ranked: Ranked,
+    top: number,
+    extra: { readonly dropClues?: readonly number[]; readonly whyNot?: readonly number[] } = {},
+  ): { answers: Answer[]; verdict: Verdict; explanation?: Explanation } {
+    if (ranked.clues.length === 0 || ranked.candidates.length === 0) {
+      // nothing to explain: the basic verdict says why
+      const answers: Answer[] = ranked.candidates.slice(0, top).map((c) => {
+        const ref = this.ref(c.node);
+        return { id: ref.id, label: ref.label, score: c.score, types: this.index.typesOf(c.node).map((t) => this.ref(t).id), paths: [] };
+      });
+      return { answers, verdict: basicVerdict(ranked, (n) => this.ref(n).id) };
+    }
+    // ranked.clues are analysis.clues minus dropClues: map a ranked clue index back
+    const dropped = new Set(extra.dropClues ?? []);
+    const kept = analysis.clues.map((_, i) => i).filter((i) => !dropped.has(i));
+    const explanation = explain(analysis, ranked, this.index, this.catalog, {
+      top,
+      ...(this.rankOptions.alpha !== undefined ? { restart: this.rankOptions.alpha } : {}),
+      ...(this.rankOptions.hubExponent !== undefined ? { hubExponent: this.rankOptions.hubExponent } : {}),
+      rerank: (a, drop) => rank(a, this.index, { ...this.rankOptions, dropClues: [...dropped, ...drop.map((i) => kept[i]!)] }),
+      whyNot: extra.whyNot ?? [],
+      seeds: (clue) => clueSeeds(analysis, analysis.clues.find((c) => c.node === clue.node && c.mention === clue.mention) ?? analysis.clues[0]!, this.index, this.rankOptions),
+    });
+    return { answers: [...explanation.answers], verdict: explanation.verdict, explanation };
+  }
+
+  /** The entity num of an id or exact label (`--why-not`); a one-line error when there is none. */
+  resolveEntity(text: string): number {
+    const nums = this.catalog.byLabelOrId(text);
+    if (nums.length === 0) throw new TiepointError("pipeline/entity", `no entity with id or label "${text}" in the catalog (try: tiepoint show "${text}")`);
+    return nums[0]!;
+  }
+
+  /** Id and label of an entity num (cached). */
+  ref(num: number): { id: string; label: string } {
+    let r = this.idCache.get(num);
+    if (!r) {
+      r = this.catalog.ref(num);
+      this.idCache.set(num, r);
+    }
+    return r;
+  }
+
+  /** Closes the catalog. */
+  close(): void {
+    this.catalog.close();
+  }
+}
+
+/** Edge count per relation num, from the index (each edge is seen once, from its source). */
+function relationEdgeCounts(index: RelationIndex): Uint32Array {
+  const counts = new Uint32Array(Math.max(index.relationCount, 1));
+  for (let u = 0; u < index.nodeCount; u++) {
+    index.forEach(u, (_v, rel, inverse) => {
+      if (!inverse) counts[rel]!++;
+    });
+  }
+  return counts;
+}

@@ -1,0 +1,63 @@
+/**
+ * Plain-text rendering of one answered question (`tiepoint ask`): the linked mentions with
+ * their confidence, the expected answer type, the ranked answers with scores and types, the
+ * paths when there are any, the verdict, notes and the disclaimer.
+ */
+import { DISCLAIMER, type AskResult, type AnswerPath } from "../model/index.js";
+
+/** Extra context for {@link renderAskText}; all optional. */
+export interface AskTextOptions {
+  /** Labels of the relations the question's words cued ("borders (0.9)"). */
+  readonly relationCues?: readonly string[];
+  /** Milliseconds the question took. */
+  readonly millis?: number;
+  /** Paths shown per answer. @default 2 */
+  readonly paths?: number;
+}
+
+/** Defaults of {@link AskTextOptions}. */
+export const ASK_TEXT_DEFAULTS = { paths: 2 } as const;
+
+function pct(x: number): string {
+  return `${Math.round(x * 100)}%`;
+}
+
+function pathText(p: AnswerPath): string {
+  let s = p.from;
+  for (const st of p.steps) s += st.inverse ? ` <-[${st.relation}]- ${st.to}` : ` -[${st.relation}]-> ${st.to}`;
+  return s;
+}
+
+/** Renders an ask result as plain text, ending with the disclaimer. */
+export function renderAskText(r: AskResult, options: AskTextOptions = {}): string {
+  const out: string[] = [];
+  out.push(`question: ${r.question}`);
+  if (r.mentions.length === 0) out.push("linked:   (nothing)");
+  r.mentions.forEach((m, i) => {
+    const alts = m.alternatives.length > 0 ? `; or ${m.alternatives.slice(0, 2).map((a) => `${a.label} [${a.id}] ${pct(a.confidence)}`).join(", ")}` : "";
+    out.push(`${i === 0 ? "linked:  " : "         "} "${m.text}" -> ${m.entity.label} [${m.entity.id}] ${pct(m.confidence)}${m.pinned ? " (pinned)" : ""}${alts}`);
+  });
+  out.push(`expects:  ${r.answerTypes.length > 0 ? r.answerTypes.map((t) => `${t.label} [${t.id}]`).join(" or ") : "any type"}`);
+  if (options.relationCues && options.relationCues.length > 0) out.push(`cues:     ${options.relationCues.join(", ")}`);
+  out.push("");
+  if (r.answers.length === 0) out.push("answers:  none");
+  else {
+    out.push("answers (ranked suggestions):");
+    const w = String(r.answers.length).length;
+    const lw = Math.min(40, Math.max(...r.answers.map((a) => a.label.length)));
+    r.answers.forEach((a, i) => {
+      const types = a.types.length > 0 ? `  (${a.types.join(", ")})` : "";
+      out.push(`  ${String(i + 1).padStart(w)}. ${a.label.padEnd(lw)}  ${a.score.toFixed(4)}  [${a.id}]${types}`);
+      for (const p of a.paths.slice(0, options.paths ?? ASK_TEXT_DEFAULTS.paths)) out.push(`  ${" ".repeat(w)}    via ${pathText(p)}`);
+    });
+  }
+  const v = r.verdict;
+  const tied = v.tiedWith.length > 0 ? `; tied with ${v.tiedWith.join(", ")}` : "";
+  out.push("");
+  out.push(`verdict:  ${v.status} (margin ${v.margin.toFixed(2)}${tied})${v.reason ? ` - ${v.reason}` : ""}`);
+  for (const n of r.notes ?? []) out.push(`note:     ${n}`);
+  if (options.millis !== undefined) out.push(`time:     ${options.millis.toFixed(1)} ms`);
+  out.push("");
+  out.push(r.disclaimer ?? DISCLAIMER);
+  return out.join("\n") + "\n";
+}

@@ -1,0 +1,23 @@
+/**
+ * The ranking stage: the compact relation index and its snapshot, the walk (transition
+ * matrix), personalized PageRank (exact, push, fast), and the clue combination.
+ */
+export { RelationIndex } from "./relation-index.js";
+export type { IndexProgress, IndexProgressFn } from "./relation-index.js";
+export { openIndex, snapshotPath, readSnapshot, writeSnapshot, SNAPSHOT } from "./snapshot.js";
+export type { OpenIndexOptions, SnapshotRead, SnapshotRejection } from "./snapshot.js";
+export { transition, DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
+export type { Transition, TransitionOptions } from "./transition.js";
+export { PPR_DEFAULTS } from "./ppr-options.js";
+export type { Seed, PprOptions, SparseScores } from "./ppr-options.js";
+export { pprPower, DEFAULTS as POWER_DEFAULTS } from "./ppr-power.js";
+export { pprPush, DEFAULTS as PUSH_DEFAULTS } from "./ppr-push.js";
+export type { PushOptions, PushResult } from "./ppr-push.js";
+export { pprFast, DEFAULTS as FAST_DEFAULTS } from "./ppr-fast.js";
+export type { FastOptions, FastScores, FastStats } from "./ppr-fast.js";
+export { rank, relationWeightsOf, clueSeeds, DEFAULTS as RANK_DEFAULTS } from "./rank.js";
+export type { Ranked, RankedCandidate, RankOptions } from "./rank.js";
+export { combineClueScores, DEFAULTS as COMBINE_DEFAULTS } from "./combine.js";
+export type { Combined, CombineOptions } from "./combine.js";
+export { cueReach, MAX_CUES, DEFAULTS as CUE_PATH_DEFAULTS } from "./cue-paths.js";
+export type { CuePathOptions } from "./cue-paths.js";

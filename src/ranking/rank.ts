@@ -1,0 +1,314 @@
+/**
+ * Answer ranking: one personalized PageRank per clue, combined over the clues, filtered by
+ * the expected answer type.
+ *
+ * Method: for each clue c, a personalized PageRank (Haveliwala 2002, "Topic-sensitive
+ * PageRank") restarting at the clue's entity — weighted by link confidence, with a share
+ * spread over the mention's alternatives when the confidence is below `spreadBelow` — over
+ * the walk of transition.ts with this question's relation-cue weights (uncued relations keep
+ * weight 1). The query-time approximation is pprFast (forward push + random walks; see
+ * ppr-fast.ts).
+ *
+ * Each clue's score at a candidate v is multiplied by deg(v)^γ (γ = half the walk's hub
+ * exponent β by default), undoing part of the damping of the last step into v: hub damping
+ * keeps the walk from flowing *through* hubs, but a hub that is itself the answer (a country
+ * with many neighbours) should not lose to a small node for it; full compensation (γ = β)
+ * lets 2-hop hubs overtake 1-hop answers.
+ *
+ * Per-clue scores are normalised by their maximum over the eligible candidates and combined
+ * by combine.ts (weighted geometric mean with a floor + clue coverage, coverage first), then
+ * multiplied by `cueMiss` per question word whose cued relation no path of at most 3 hops
+ * from the clues to the candidate uses (cue-paths.ts). The walk's relation weights are a
+ * soft preference; this makes the named relations count along the whole path, so a
+ * multi-hop answer beats the intermediate entity. A relation walked only against the
+ * direction the word order implies counts as half unused (`wrongWay`): word order is only a
+ * hint.
+ *
+ * Clue entities are never answers of their own question; an alternative seeded with a
+ * low-confidence clue may be, with its restart mass α·s(v) removed from its score.
+ * Candidates are filtered by the expected types (their subtypes included, via
+ * RelationIndex.isA); when the filter leaves nothing, the unfiltered ranking is returned
+ * with a note. Ties are broken by entity num (the catalog's insertion order, deterministic)
+ * after score.
+ */
+import { expectedInverse, type Analysis, type Clue } from "../analysis/index.js";
+import { combineClueScores, DEFAULTS as COMBINE_DEFAULTS, type CombineOptions } from "./combine.js";
+import type { Seed, SparseScores } from "./ppr-options.js";
+import { pprFast, type FastOptions } from "./ppr-fast.js";
+import { cueReach, MAX_CUES, type CuePathOptions } from "./cue-paths.js";
+import type { RelationIndex } from "./relation-index.js";
+import { DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
+
+/** Options of {@link rank}; all optional. */
+export interface RankOptions extends CombineOptions {
+  /**
+   * Restart probability α of each clue's walk. @default 0.5 — questions are answered within
+   * a few hops, so mass should at least halve per hop (the walk's mean length is 1/α − 1 = 1
+   * step); PageRank's web-scale 0.15 spreads it over ~6 hops.
+   */
+  readonly alpha?: number;
+  /** Push tolerance ε of the query-time PageRank (ppr-fast.ts). @default pprFast's default */
+  readonly tolerance?: number;
+  /** β of the hub damping (see transition.ts). @default the walk's default */
+  readonly hubExponent?: number;
+  /**
+   * γ of the answer-end compensation: each clue's score at v is multiplied by deg(v)^γ,
+   * undoing the hub damping of the walk's last step into v (damping is meant for passing
+   * through a hub, not for ending at one). @default half the walk's β
+   */
+  readonly endCompensation?: number;
+  /** Below this link confidence a clue's restart mass is shared with its alternatives. @default 0.6 */
+  readonly spreadBelow?: number;
+  /** At most this many alternatives share a low-confidence clue's restart mass. @default 3 */
+  readonly maxAlternatives?: number;
+  /** Candidates returned. @default 200 */
+  readonly limit?: number;
+  /**
+   * Factor per question word whose cued relation no short path from the clues to the
+   * candidate uses (cue-paths.ts); 1 disables the check. @default 0.1
+   */
+  readonly cueMiss?: number;
+  /**
+   * Share of a cue word counted as unused when its relation is walked only against the
+   * direction the question implies ("which paper cites X" reached through "X cites it").
+   * @default 0.5
+   */
+  readonly wrongWay?: number;
+  /** Options of the cue-path search. */
+  readonly cuePaths?: CuePathOptions;
+  /** A node enters the candidate pool when some clue scores it above prune × floor × that clue's best score. @default 0.01 */
+  readonly prune?: number;
+  /** Clue indexes (into `analysis.clues`) to leave out (ablation). @default none */
+  readonly dropClues?: readonly number[];
+}
+
+/** Defaults of {@link RankOptions}. */
+export const DEFAULTS = {
+  alpha: 0.5,
+  cueMiss: 0.1,
+  wrongWay: 0.5,
+  prune: 0.01,
+  spreadBelow: 0.6,
+  maxAlternatives: 3,
+  limit: 200,
+} as const;
+
+/** One ranked candidate answer. */
+export interface RankedCandidate {
+  /** Entity num. */
+  readonly node: number;
+  /** Combined score (weighted geometric mean of normalised clue scores), comparable within one question. */
+  readonly score: number;
+  /** Normalised score per clue (same order as `Ranked.clues`), 0..1. */
+  readonly perClue: readonly number[];
+  /** Clues with a non-negligible score (≥ the cover threshold). */
+  readonly covered: number;
+  /** Cue words (weighted by match score) that no short path from the clues uses; absent when not checked. */
+  readonly cueMissing?: number;
+}
+
+/** The ranking of one question. */
+export interface Ranked {
+  /** The clues used (after `dropClues`). */
+  readonly clues: readonly Clue[];
+  /** Best first: coverage, then score, then node. Seeds excluded. */
+  readonly candidates: readonly RankedCandidate[];
+  /** True when the expected-type filter was applied (false: no types, or fallback). */
+  readonly typeFiltered: boolean;
+  /** Relation weights used for the walk (index = relation num). */
+  readonly relationWeights: Float64Array;
+  /** Notes for the user (type filter fallback, unreachable clues). */
+  readonly notes: readonly string[];
+}
+
+/** The per-question relation weights: 1 everywhere, the cue weight on cued relations. */
+export function relationWeightsOf(analysis: Analysis, index: RelationIndex): Float64Array {
+  const rho = new Float64Array(Math.max(index.relationCount, 1)).fill(1);
+  for (const cue of analysis.relationCues) if (cue.relation >= 0 && cue.relation < rho.length) rho[cue.relation] = Math.max(rho[cue.relation]!, cue.weight);
+  return rho;
+}
+
+/** The restart seeds of one clue (the clue entity and, when unsure, its alternatives). */
+export function clueSeeds(analysis: Analysis, clue: Clue, index: RelationIndex, options: RankOptions = {}): Seed[] {
+  const spreadBelow = options.spreadBelow ?? DEFAULTS.spreadBelow;
+  const maxAlt = options.maxAlternatives ?? DEFAULTS.maxAlternatives;
+  const inIndex = (n: number) => n >= 0 && n < index.nodeCount;
+  const seeds: Seed[] = inIndex(clue.node) ? [{ node: clue.node, weight: Math.max(clue.weight, 1e-3) }] : [];
+  const mention = analysis.mentions[clue.mention];
+  if (mention && clue.weight < spreadBelow) {
+    for (const alt of mention.alternatives.slice(0, maxAlt)) {
+      if (alt.num !== clue.node && inIndex(alt.num) && alt.confidence > 0) seeds.push({ node: alt.num, weight: alt.confidence });
+    }
+  }
+  return seeds;
+}
+
+/** Ranks the candidate answers of an analysed question. */
+export function rank(analysis: Analysis, index: RelationIndex, options: RankOptions = {}): Ranked {
+  const drop = new Set(options.dropClues ?? []);
+  const clues = analysis.clues.filter((_, i) => !drop.has(i));
+  const rho = relationWeightsOf(analysis, index);
+  const notes: string[] = [];
+  if (clues.length === 0) return { clues, candidates: [], typeFiltered: false, relationWeights: rho, notes };
+
+  const alpha = options.alpha ?? DEFAULTS.alpha;
+  // the clue entities themselves are never answers (alternatives seeded with them may be)
+  const seedNodes = new Set<number>(clues.map((c) => c.node));
+  const perClue: SparseScores[] = [];
+  const restart: Map<number, number>[] = [];
+  const usable: boolean[] = [];
+  for (const clue of clues) {
+    const seeds = clueSeeds(analysis, clue, index, options);
+    const total = seeds.reduce((a, s) => a + s.weight, 0);
+    restart.push(new Map(seeds.map((s) => [s.node, (alpha * s.weight) / total])));
+    if (seeds.length === 0 || seeds.every((s) => index.degree(s.node) === 0)) {
+      notes.push(`clue "${clue.label}" has no relations in the catalog: it cannot support any answer`);
+    }
+    usable.push(seeds.length > 0);
+    perClue.push(seeds.length > 0 ? clueScores(index, seeds, { alpha, tolerance: options.tolerance, relationWeights: rho, hubExponent: options.hubExponent }) : { nodes: new Int32Array(0), scores: new Float64Array(0) });
+  }
+
+  // candidate pool: every node any clue reaches, minus the clue entities; a seeded
+  // alternative keeps only the mass that walked to it (π(v) − α·s(v) ≥ 0), not its restart
+  // Nodes far below every clue's best score would only tie at the combination floor: they
+  // are left out (below prune × floor × the clue's largest score), which bounds the work
+  // when a walk touches many nodes.
+  const floor = options.floor ?? COMBINE_DEFAULTS.floor;
+  const prune = options.prune ?? DEFAULTS.prune;
+  const pool = new Map<number, Float64Array>();
+  perClue.forEach((sp, c) => {
+    let top = 0;
+    for (let i = 0; i < sp.scores.length; i++) if (sp.scores[i]! > top && !seedNodes.has(sp.nodes[i]!)) top = sp.scores[i]!;
+    const cut = top * floor * prune;
+    for (let i = 0; i < sp.nodes.length; i++) {
+      const v = sp.nodes[i]!;
+      const s = sp.scores[i]! - (restart[c]!.get(v) ?? 0);
+      if (!(s > cut) || seedNodes.has(v)) continue;
+      let row = pool.get(v);
+      if (!row) {
+        row = new Float64Array(clues.length);
+        pool.set(v, row);
+      }
+      row[c] = s;
+    }
+  });
+
+  const gamma = options.endCompensation ?? (options.hubExponent ?? TRANSITION_DEFAULTS.hubExponent) / 2;
+  if (gamma !== 0) {
+    for (const [v, row] of pool) {
+      const f = Math.pow(Math.max(index.degree(v), 1), gamma);
+      for (let c = 0; c < row.length; c++) row[c]! *= f;
+    }
+  }
+
+  const typeSet = new Set(analysis.answerTypes.map((t) => t.num));
+  let eligible = [...pool.keys()];
+  let typeFiltered = false;
+  if (typeSet.size > 0) {
+    const typed = eligible.filter((v) => index.isA(v, typeSet));
+    if (typed.length > 0) {
+      eligible = typed;
+      typeFiltered = true;
+    } else {
+      notes.push(`no reachable entity is a ${analysis.answerTypes.map((t) => t.label).join(" or ")}: answers of any type shown`);
+    }
+  }
+
+  // normalise each clue by its best eligible candidate
+  const max = new Float64Array(clues.length);
+  for (const v of eligible) {
+    const row = pool.get(v)!;
+    for (let c = 0; c < clues.length; c++) if (row[c]! > max[c]!) max[c] = row[c]!;
+  }
+  clues.forEach((clue, c) => {
+    if (usable[c] && !(max[c]! > 0) && eligible.length > 0) notes.push(`clue "${clue.label}" reaches no candidate answer`);
+  });
+  const weights = clues.map((c) => Math.max(c.weight, 1e-3));
+  const cueMiss = options.cueMiss ?? DEFAULTS.cueMiss;
+  const cueFit = cueMiss < 1 ? cueFitOf(analysis, clues, index, options, (v) => pool.has(v) || seedNodes.has(v)) : undefined;
+  const candidates: RankedCandidate[] = eligible.map((v) => {
+    const row = pool.get(v)!;
+    const norm = Array.from(row, (s, c) => (max[c]! > 0 ? s / max[c]! : 0));
+    const { score, covered } = combineClueScores(norm, weights, options);
+    const missing = cueFit ? cueFit(v) : 0;
+    return { node: v, score: score * Math.pow(cueMiss, missing), perClue: norm, covered, ...(cueFit ? { cueMissing: missing } : {}) };
+  });
+  candidates.sort((a, b) => b.covered - a.covered || b.score - a.score || a.node - b.node);
+  return { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
+}
+
+/** One clue's query-time personalized PageRank (push + random walks, ppr-fast.ts). */
+function clueScores(index: RelationIndex, seeds: readonly Seed[], options: { alpha: number; tolerance?: number; relationWeights: Float64Array; hubExponent?: number }): SparseScores {
+  const opts: FastOptions = { alpha: options.alpha, relationWeights: options.relationWeights };
+  return pprFast(index, seeds, {
+    ...opts,
+    ...(options.tolerance !== undefined ? { tolerance: options.tolerance } : {}),
+    ...(options.hubExponent !== undefined ? { hubExponent: options.hubExponent } : {}),
+  });
+}
+
+/**
+ * The cue check of one question: a function giving, for a candidate, the summed match
+ * score of the cue words that no short path from the clues uses — or undefined when there
+ * is nothing to check (no cue, or every clue's search ran out of budget).
+ */
+function cueFitOf(analysis: Analysis, clues: readonly Clue[], index: RelationIndex, options: RankOptions, within: (v: number) => boolean): ((v: number) => number) | undefined {
+  const cues = analysis.relationCues.filter((c) => c.relation >= 0 && c.relation < index.relationCount).slice(0, MAX_CUES);
+  if (cues.length === 0) return undefined;
+  // per question word: its best cue score and the cues it matched
+  const wordScore = new Map<string, number>();
+  const wordCues = new Map<string, number[]>();
+  cues.forEach((c, i) => {
+    for (const w of c.words) {
+      wordScore.set(w, Math.max(wordScore.get(w) ?? 0, c.score));
+      wordCues.set(w, [...(wordCues.get(w) ?? []), i]);
+    }
+  });
+  const rels = cues.map((x) => x.relation);
+  const reaches = clues
+    .map((c) => {
+      const at = analysis.mentions[c.mention]?.start ?? 0;
+      return cueReach(index, c.node, rels, { within, expectInverse: cues.map((x) => expectedInverse(x, at)), ...options.cuePaths });
+    })
+    .filter((r) => r !== null);
+  if (reaches.length === 0) return undefined;
+  const words = [...wordScore.keys()].sort();
+  const wrongWay = options.wrongWay ?? DEFAULTS.wrongWay;
+  // unused cue weight of a mask: a word is satisfied by one of its cues walked the expected
+  // way, partly (wrongWay) by one walked the other way
+  const missingOf = (mask: number) =>
+    words.reduce((sum, w) => {
+      let miss = 1;
+      for (const i of wordCues.get(w)!) {
+        if (mask & (1 << (2 * i))) miss = 0;
+        else if (mask & (1 << (2 * i + 1))) miss = Math.min(miss, wrongWay);
+      }
+      return sum + miss * wordScore.get(w)!;
+    }, 0);
+  return (v) => {
+    const lists = reaches.map((reach) => reach.get(v) ?? [0]);
+    // one mask per clue, the union leaving the least cue weight unused: exhaustive while
+    // the combinations are few, greedy (clue by clue) beyond
+    let combos = 1;
+    for (const l of lists) combos *= l.length;
+    if (combos <= 512) {
+      let best = Infinity;
+      const walk = (i: number, union: number): void => {
+        if (i === lists.length) {
+          best = Math.min(best, missingOf(union));
+          return;
+        }
+        for (const m of lists[i]!) walk(i + 1, union | m);
+      };
+      walk(0, 0);
+      return best;
+    }
+    let union = 0;
+    for (const l of lists) {
+      let pick = l[0]!;
+      for (const m of l) if (missingOf(union | m) < missingOf(union | pick)) pick = m;
+      union |= pick;
+    }
+    return missingOf(union);
+  };
+}

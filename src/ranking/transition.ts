@@ -1,0 +1,291 @@
+/**
+ * The walk: the one transition matrix of tiepoint
+ * ===============================================
+ *
+ * Every personalized PageRank variant (power iteration, forward push, push + random walks)
+ * and explain's path costs use this definition and nothing else.
+ *
+ * From node u the walker picks one adjacency entry e = (u → v, relation r, inverse flag) of
+ * the relation index with probability
+ *
+ *     P(u → v via e) = w(e) / W(u),   w(e) = ρ[r] · deg(v)^(−β),   W(u) = Σ_{e at u} w(e)
+ *
+ * - Both directions are walkable: an entry exists for the stored direction and for the
+ *   reverse, with the same weight (a question may run against the stored direction).
+ * - ρ = per-relation weights from the question's relation cues (`relationWeights`, a
+ *   Float64Array indexed by relation num, default 1 everywhere; ≥ 0 and finite).
+ * - Hub damping: the target's degree (both directions) to the power −β (`hubExponent`,
+ *   default β = 0.5), so hubs do not swallow the mass. β = 0 gives the plain walk.
+ *   With ρ symmetric in direction, this walk is reversible: it is the simple random walk on
+ *   the symmetric weights ρ[r]·(deg u · deg v)^(−β) (the factor deg(u)^(−β) cancels in the
+ *   normalisation), with stationary measure ∝ deg(u)^(−β)·W(u). Forward push's per-node
+ *   error bound uses that measure.
+ * - Dangling nodes (degree 0, or W(u) = 0 because every relation at u has weight 0) send
+ *   their mass back to the seed (restart) distribution. This differs from Page et al. 1999,
+ *   who spread it uniformly; for a personalized walk it keeps all mass near the question.
+ *
+ * PageRank with restart probability α and restart distribution s is then the fixed point
+ *     π = α s + (1 − α) P'ᵀ π,   P' = P with dangling rows replaced by sᵀ,
+ * i.e. π = α (I − (1 − α) P'ᵀ)⁻¹ s  (Page et al. 1999; Haveliwala 2002).
+ *
+ * [Reference]: Page, Brin, Motwani & Winograd, "The PageRank citation ranking: bringing
+ * order to the web", Stanford tech. report 1999; Haveliwala, "Topic-sensitive PageRank",
+ * WWW 2002. Degree damping of hubs is common practice (e.g. degree-normalised walks).
+ */
+import { csrOf, type Csr, type RelationIndex } from "./relation-index.js";
+import type { Random } from "./prng.js";
+
+/** Defaults of {@link TransitionOptions}. */
+export const DEFAULTS = Object.freeze({
+  /** β in w(e) = ρ[r] · deg(v)^(−β). */
+  hubExponent: 0.5,
+});
+
+/** Options shaping the walk; all optional. */
+export interface TransitionOptions {
+  /** Weight per relation num (length ≥ index.relationCount), each ≥ 0 and finite. @default 1 for every relation */
+  readonly relationWeights?: Float64Array;
+  /** β of the hub damping deg(v)^(−β), in [0, 4]. @default 0.5 */
+  readonly hubExponent?: number;
+}
+
+/** Per-(index, β) precomputed arrays: hub factors, default row totals, row prefix sums. */
+interface HubTables {
+  readonly hub: Float64Array;
+  /** W(u) with ρ = 1. */
+  readonly rowTotal: Float64Array;
+  /** μ₀(u) = deg(u)^(−β) · W(u) with ρ = 1 (the walk's stationary measure up to a constant); 1 at dangling nodes. */
+  readonly measure: Float64Array;
+  /** Prefix sums of hub[target] along each row (built on first sampling). */
+  cum: Float64Array | null;
+  /** Row totals under custom ρ, valid where rowStamp[u] equals the walk's stamp (no per-query reset). */
+  rowCache: Float64Array | null;
+  rowStamp: Uint32Array | null;
+  stamp: number;
+  /** Per adjacency entry: hub[target] / measure[target] (push in measure-normalised units; built on first push). */
+  scaled: Float64Array | null;
+}
+
+const tables = new WeakMap<Csr, Map<number, HubTables>>();
+
+function hubTables(c: Csr, beta: number): HubTables {
+  let byBeta = tables.get(c);
+  if (!byBeta) {
+    byBeta = new Map();
+    tables.set(c, byBeta);
+  }
+  let t = byBeta.get(beta);
+  if (!t) {
+    const n = c.nodeCount;
+    const hub = new Float64Array(n);
+    for (let u = 0; u < n; u++) {
+      const d = c.offsets[u + 1]! - c.offsets[u]!;
+      hub[u] = d === 0 ? 1 : beta === 0 ? 1 : Math.pow(d, -beta);
+    }
+    const rowTotal = new Float64Array(n);
+    for (let u = 0; u < n; u++) {
+      let s = 0;
+      const end = c.offsets[u + 1]!;
+      for (let e = c.offsets[u]!; e < end; e++) s += hub[c.targets[e]!]!;
+      rowTotal[u] = s;
+    }
+    const measure = new Float64Array(n);
+    for (let u = 0; u < n; u++) measure[u] = rowTotal[u]! > 0 ? hub[u]! * rowTotal[u]! : 1;
+    t = { hub, rowTotal, measure, cum: null, rowCache: null, rowStamp: null, stamp: 0, scaled: null };
+    byBeta.set(beta, t);
+  }
+  return t;
+}
+
+/** The walk's transition probabilities for one set of options (what other stages see). */
+export interface Transition {
+  /** β of the hub damping. */
+  readonly hubExponent: number;
+  /** W(u), the total weight at u; 0 means u is dangling (its mass restarts at the seeds). */
+  rowTotal(u: number): number;
+  /**
+   * Calls `fn(v, rel, inverse, probability)` for every adjacency entry of `u`, in index order,
+   * with the probability P(u → v via that entry) (0 at a dangling u).
+   */
+  forEachTransition(u: number, fn: (v: number, rel: number, inverse: boolean, probability: number) => void): void;
+}
+
+/**
+ * The transition probabilities of the walk over `index` with `options` (relation weights,
+ * hub damping): the one matrix used by every PageRank variant, for path costs and the like.
+ */
+export function transition(index: RelationIndex, options: TransitionOptions = {}): Transition {
+  return new Walk(index, options);
+}
+
+/**
+ * The resolved walk for one set of options over one index. Cheap to create (tables are
+ * cached per index and β); hold one per PageRank call.
+ */
+/** @internal */
+export class Walk implements Transition {
+  /** @internal */ readonly csr: Csr;
+  /** @internal */ readonly hub: Float64Array;
+  /** @internal */ readonly rho: Float64Array | null;
+  /** μ₀(u) = deg(u)^(−β)·W(u) at ρ = 1, the reversible measure of the walk (push thresholds). @internal */
+  readonly measure: Float64Array;
+  /** β of this walk. */
+  readonly hubExponent: number;
+  private readonly tables: HubTables;
+  private readonly rhoMax: number;
+  private readonly stamp: number;
+  private readonly rowCache: Float64Array;
+  private readonly rowStamp: Uint32Array;
+
+  /** Resolves and checks `options` against `index`. */
+  constructor(index: RelationIndex, options: TransitionOptions = {}) {
+    const beta = options.hubExponent ?? DEFAULTS.hubExponent;
+    if (typeof beta !== "number" || !Number.isFinite(beta) || beta < 0 || beta > 4) {
+      throw new RangeError(`ranking/transition: hubExponent must be a number in [0, 4], got ${String(beta)}`);
+    }
+    this.csr = csrOf(index);
+    this.hubExponent = beta;
+    this.tables = hubTables(this.csr, beta);
+    this.hub = this.tables.hub;
+    this.measure = this.tables.measure;
+    const rho = options.relationWeights;
+    let rhoMax = 1;
+    if (rho !== undefined) {
+      if (!(rho instanceof Float64Array)) throw new TypeError("ranking/transition: relationWeights must be a Float64Array indexed by relation num");
+      if (rho.length < index.relationCount) {
+        throw new RangeError(`ranking/transition: relationWeights has ${rho.length} entries, the index has ${index.relationCount} relation ids`);
+      }
+      rhoMax = 0;
+      for (let i = 0; i < rho.length; i++) {
+        const w = rho[i]!;
+        if (!(w >= 0) || !Number.isFinite(w)) throw new RangeError(`ranking/transition: relationWeights[${i}] = ${w}; weights must be finite and ≥ 0`);
+        if (w > rhoMax) rhoMax = w;
+      }
+    }
+    this.rho = rho ?? null;
+    this.rhoMax = rhoMax;
+    const t = this.tables;
+    if (this.rho !== null && t.rowCache === null) {
+      t.rowCache = new Float64Array(this.csr.nodeCount);
+      t.rowStamp = new Uint32Array(this.csr.nodeCount);
+    }
+    if (t.stamp >= 0xfffffffe) {
+      t.stamp = 0;
+      t.rowStamp?.fill(0);
+    }
+    this.stamp = ++t.stamp;
+    this.rowCache = t.rowCache ?? new Float64Array(0);
+    this.rowStamp = t.rowStamp ?? new Uint32Array(0);
+  }
+
+  /** w(e) of adjacency entry `e` (an index into the CSR arrays). @internal */
+  weight(e: number): number {
+    const h = this.hub[this.csr.targets[e]!]!;
+    return this.rho === null ? h : this.rho[this.csr.links[e]! >>> 1]! * h;
+  }
+
+  /** W(u), the total weight of u's entries (0 means dangling). */
+  rowTotal(u: number): number {
+    const rho = this.rho;
+    if (rho === null) return this.tables.rowTotal[u]!;
+    if (this.rowStamp[u] === this.stamp) return this.rowCache[u]!;
+    const c = this.csr;
+    const targets = c.targets;
+    const links = c.links;
+    const hub = this.hub;
+    let s = 0;
+    const end = c.offsets[u + 1]!;
+    for (let e = c.offsets[u]!; e < end; e++) s += rho[links[e]! >>> 1]! * hub[targets[e]!]!;
+    this.rowCache[u] = s;
+    this.rowStamp[u] = this.stamp;
+    return s;
+  }
+
+  forEachTransition(u: number, fn: (v: number, rel: number, inverse: boolean, probability: number) => void): void {
+    const c = this.csr;
+    if (!(u >= 0 && u < c.nodeCount)) return;
+    const total = this.rowTotal(u);
+    const end = c.offsets[u + 1]!;
+    for (let e = c.offsets[u]!; e < end; e++) {
+      const l = c.links[e]!;
+      fn(c.targets[e]!, l >>> 1, (l & 1) === 1, total > 0 ? this.weight(e) / total : 0);
+    }
+  }
+
+  /** P(u → target(e) via e) for an entry e of row u. @internal */
+  probability(u: number, e: number): number {
+    return this.weight(e) / this.rowTotal(u);
+  }
+
+  /**
+   * Samples one step from `u`: the next node, or −1 when u is dangling (the caller restarts
+   * at the seed distribution). Exact sampling: binary search in the row's prefix sums of
+   * deg^(−β), then acceptance with probability ρ[r]/max ρ (rejection sampling), falling back
+   * to a linear scan after 32 rejections.
+   */
+  step(u: number, random: Random): number {
+    const c = this.csr;
+    const start = c.offsets[u]!;
+    const end = c.offsets[u + 1]!;
+    if (start === end) return -1;
+    const cum = this.cumulative();
+    const rowSum = this.tables.rowTotal[u]!;
+    for (let tries = 0; tries < 32; tries++) {
+      const x = random() * rowSum;
+      // first e in [start, end) with cum[e] > x (cum is the inclusive prefix within the row)
+      let lo = start;
+      let hi = end - 1;
+      while (lo < hi) {
+        const mid = (lo + hi) >>> 1;
+        if (cum[mid]! > x) hi = mid;
+        else lo = mid + 1;
+      }
+      if (this.rho === null) return c.targets[lo]!;
+      const w = this.rho[c.links[lo]! >>> 1]!;
+      if (random() * this.rhoMax < w) return c.targets[lo]!;
+    }
+    // many rejections: ρ is small on this row; sample exactly by a linear scan (or find it dangling)
+    const total = this.rowTotal(u);
+    if (!(total > 0)) return -1;
+    let x = random() * total;
+    for (let e = start; e < end; e++) {
+      x -= this.weight(e);
+      if (x < 0) return c.targets[e]!;
+    }
+    for (let e = end - 1; e >= start; e--) if (this.weight(e) > 0) return c.targets[e]!;
+    return -1;
+  }
+
+  /** Per adjacency entry e: deg(v)^(−β) / μ₀(v) for v = target(e), so push can work in units of μ₀ with sequential reads. @internal */
+  scaledEntries(): Float64Array {
+    let sc = this.tables.scaled;
+    if (sc === null) {
+      const c = this.csr;
+      sc = new Float64Array(c.targets.length);
+      for (let e = 0; e < sc.length; e++) {
+        const v = c.targets[e]!;
+        sc[e] = this.hub[v]! / this.measure[v]!;
+      }
+      this.tables.scaled = sc;
+    }
+    return sc;
+  }
+
+  private cumulative(): Float64Array {
+    let cum = this.tables.cum;
+    if (cum === null) {
+      const c = this.csr;
+      cum = new Float64Array(c.targets.length);
+      for (let u = 0; u < c.nodeCount; u++) {
+        let s = 0;
+        const end = c.offsets[u + 1]!;
+        for (let e = c.offsets[u]!; e < end; e++) {
+          s += this.hub[c.targets[e]!]!;
+          cum[e] = s;
+        }
+      }
+      this.tables.cum = cum;
+    }
+    return cum;
+  }
+}
