@@ -3,7 +3,7 @@
  */
 export { analyze, DEFAULTS as ANALYZE_DEFAULTS } from "./analyze.js";
 export type { Analysis, AnalyzeOptions, AnswerType, Clue } from "./analyze.js";
-export { buildQuestionModel, PERSON_WORDS, PLACE_WORDS } from "./question-model.js";
+export { buildQuestionModel, PERSON_WORDS, ORGANISATION_WORDS, PLACE_WORDS } from "./question-model.js";
 export type { QuestionModel, QuestionModelOptions, ModelType, ModelRelation } from "./question-model.js";
 export { detectAnswerType, DEFAULTS as ANSWER_TYPE_DEFAULTS } from "./answer-type.js";
 export type { AnswerTypeOptions, AnswerTypeResult, AnswerTypeSource } from "./answer-type.js";

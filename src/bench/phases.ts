@@ -5,6 +5,7 @@
 import { spawnSync } from "node:child_process";
 import { appendFileSync, existsSync, mkdirSync, rmSync, writeFileSync, readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
+import { loadavg } from "node:os";
 import { Catalog, loadFiles } from "../catalog/index.js";
 import { generateCatalog } from "../gen/index.js";
 import { parseQuestionFile, rankOfExpected, Session } from "../pipeline/index.js";
@@ -36,6 +37,17 @@ export function quantiles(xs: readonly number[]): { median: number; p95: number;
   const s = [...xs].sort((a, b) => a - b);
   const at = (q: number) => s[Math.min(s.length - 1, Math.max(0, Math.ceil(q * s.length) - 1))]!;
   return { median: at(0.5), p95: at(0.95), mean: s.reduce((a, b) => a + b, 0) / s.length };
+}
+
+/** CPU milliseconds (user + system) since `since` (a process.cpuUsage() value). */
+function cpuMs(since: NodeJS.CpuUsage): number {
+  const d = process.cpuUsage(since);
+  return (d.user + d.system) / 1000;
+}
+
+/** The 1-minute load average now (other processes competing for the CPUs). */
+export function loadAverage(): number {
+  return Math.round(loadavg()[0]! * 100) / 100;
 }
 
 /** Paths of one size's working folder. */
@@ -107,6 +119,8 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
   const session = Session.open({ db: p.db });
   const openSeconds = (performance.now() - t0) / 1000;
   const totals: number[] = [];
+  const cpu: number[] = [];
+  const loadBefore = loadAverage();
   const stages = { link: [] as number[], analyze: [] as number[], rank: [] as number[], explain: [] as number[] };
   let hits = 0;
   let withExpected = 0;
@@ -114,8 +128,10 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
   if (items[0]) session.ask(items[0].question);
   for (const item of items) {
     const t = performance.now();
+    const c = process.cpuUsage();
     const out = session.ask(item.question);
     totals.push(performance.now() - t);
+    cpu.push(cpuMs(c));
     for (const k of Object.keys(stages) as (keyof typeof stages)[]) stages[k].push(out.timings[k]);
     if (item.expected.length > 0) {
       withExpected++;
@@ -129,6 +145,8 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
     questions: items.length,
     openSeconds,
     latencyMs: quantiles(totals),
+    cpuMs: quantiles(cpu),
+    loadAverage: [loadBefore, loadAverage()],
     stageMedianMs: { link: med(stages.link), analyze: med(stages.analyze), rank: med(stages.rank), explain: med(stages.explain) },
     hits1: withExpected > 0 ? hits / withExpected : null,
     withExpected,
@@ -198,7 +216,9 @@ export function phasePpr(work: string, limit: number, exactLimit: number, igraph
   }
   const K = 20;
   const fastMs: number[] = [];
+  const fastCpuMs: number[] = [];
   const fastCueMs: number[] = [];
+  const loadBefore = loadAverage();
   const fastTops: [number, number][][] = [];
   const fastCueTops: [number, number][][] = [];
   for (let rep = 0; rep < 2; rep++) {
@@ -206,13 +226,16 @@ export function phasePpr(work: string, limit: number, exactLimit: number, igraph
     for (const q of queries) {
       const ex = new Set(q.seeds.map((s) => s.node));
       let t = performance.now();
+      const c = process.cpuUsage();
       const f = pprFast(index, q.seeds, { alpha });
       const dt = performance.now() - t;
+      const dcpu = cpuMs(c);
       t = performance.now();
       const fc = pprFast(index, q.seeds, { alpha, relationWeights: q.rho });
       const dtc = performance.now() - t;
       if (rep === 1) {
         fastMs.push(dt);
+        fastCpuMs.push(dcpu);
         fastCueMs.push(dtc);
         fastTops.push(topK(f.nodes, f.scores, K, ex));
         fastCueTops.push(topK(fc.nodes, fc.scores, K, ex));
@@ -238,6 +261,8 @@ export function phasePpr(work: string, limit: number, exactLimit: number, igraph
     hubExponent: beta,
     queries: queries.length,
     fastMs: quantiles(fastMs),
+    fastCpuMs: quantiles(fastCpuMs),
+    loadAverage: [loadBefore, loadAverage()],
     fastCueMs: quantiles(fastCueMs),
     exactQueries: agree.length,
     exactPowerMs: quantiles(exactMs),

@@ -111,7 +111,12 @@ export function loadFiles(cat: Catalog, files: readonly string[], options: LoadO
   db.pragma(`cache_size = -${DEFAULTS.cacheKiB}`);
   const before = counts(cat);
   const writer = new CatalogWriter(cat);
-  writer.begin();
+  try {
+    writer.begin();
+  } catch (e) {
+    if ((e as { code?: string }).code === "SQLITE_BUSY") throw new TiepointError("catalog/busy", "another load is writing this catalog; run this one when it has finished", { file: cat.path });
+    throw e;
+  }
   const reports: FileReport[] = [];
   let ctx: LoadContext | undefined;
   try {

@@ -51,6 +51,18 @@ export interface AttributeInfo {
   readonly num: number | null;
 }
 
+/** Use of one predicate with literal values (`Catalog.attributeSummary`). */
+export interface AttributeSummary {
+  /** Predicate num. */
+  readonly num: number;
+  /** Literal values stored. */
+  readonly values: number;
+  /** Values read as numbers. */
+  readonly numeric: number;
+  /** Numeric values written as a year or ISO date. */
+  readonly dateLike: number;
+}
+
 /** One relation edge seen from an entity. */
 export interface NeighbourInfo {
   readonly relation: string;
@@ -426,6 +438,27 @@ export class Catalog {
       this.stmt("SELECT 1 FROM edge WHERE src = ? AND rel = ? LIMIT 1").get(num, rel) !== undefined ||
       this.stmt("SELECT 1 FROM edge WHERE dst = ? AND rel = ? LIMIT 1").get(num, rel) !== undefined
     );
+  }
+
+  /** Units of attribute predicates (JSONL `"unit"`), by predicate id. */
+  predicateUnits(): Map<string, string> {
+    const rows = this.stmt("SELECT key, value FROM meta WHERE key LIKE 'unit:%' ORDER BY key").all() as { key: string; value: string }[];
+    return new Map(rows.map((r) => [r.key.slice(5), r.value]));
+  }
+
+  /** Per predicate used with literals: how many values, how many read as numbers, and how many of those look like years or dates. */
+  attributeSummary(): AttributeSummary[] {
+    return this.stmt(
+      "SELECT predicate AS num, count(*) AS values_, count(num) AS numeric, sum(CASE WHEN num IS NOT NULL AND (datatype LIKE '%date%' OR datatype LIKE '%year%' OR value GLOB '[0-9][0-9][0-9][0-9]' OR value GLOB '[0-9][0-9][0-9][0-9]-[0-9][0-9]*') THEN 1 ELSE 0 END) AS dateLike FROM attribute GROUP BY predicate ORDER BY predicate",
+    ).all().map((r) => {
+      const x = r as { num: number; values_: number; numeric: number; dateLike: number };
+      return { num: x.num, values: x.values_, numeric: x.numeric, dateLike: x.dateLike };
+    });
+  }
+
+  /** The numeric values (see `AttributeInfo.num`) of one entity's attribute, smallest first. */
+  attributeNumbers(entity: number, predicate: number): number[] {
+    return (this.stmt("SELECT num FROM attribute WHERE entity = ? AND predicate = ? AND num IS NOT NULL ORDER BY num").all(entity, predicate) as { num: number }[]).map((r) => r.num);
   }
 
   /** Counts for `stats`. */

@@ -91,6 +91,7 @@ export class CatalogWriter {
   private resetState(): void {
     this.entityNums.clear();
     this.predNums.clear();
+    this.lastId = undefined;
     this.edgeBuf.length = 0;
     this.flags = new Uint8Array(1024);
     this.maxNumBefore = (this.db.prepare("SELECT max(num) AS m FROM entity").get() as { m: number | null }).m ?? 0;
@@ -102,6 +103,7 @@ export class CatalogWriter {
   /** Empties every data table (for `--replace`), inside the open transaction. */
   clear(): void {
     for (const t of ["entity", "predicate", "alias", "predicate_alias", "entity_type", "subclass", "edge", "attribute"]) this.db.exec(`DELETE FROM ${t}`);
+    this.db.exec("DELETE FROM meta WHERE key LIKE 'unit:%'");
     this.resetState();
   }
 
@@ -171,13 +173,24 @@ export class CatalogWriter {
 
   /** The num of entity `id`, creating it when new. */
   entity(id: string): number {
+    // consecutive statements usually share their subject: a one-entry cache before the map
+    if (id === this.lastId) return this.lastNum;
     let n = this.entityNums.get(id);
-    if (n !== undefined) return n;
+    if (n !== undefined) {
+      this.lastId = id;
+      this.lastNum = n;
+      return n;
+    }
     const r = this.maxNumBefore > 0 ? (this.s.findEntity!.get(id) as { num: number } | undefined) : undefined;
     n = r ? r.num : Number(this.s.insEntity!.run(id).lastInsertRowid);
     this.entityNums.set(id, n);
+    this.lastId = id;
+    this.lastNum = n;
     return n;
   }
+
+  private lastId: string | undefined;
+  private lastNum = 0;
 
   /** The num of predicate `id`, creating it when new. */
   predicate(id: string): number {
@@ -272,6 +285,15 @@ export class CatalogWriter {
     const cur = this.s.getPredLabel!.get(n) as { label: string | null };
     if (cur.label === null) this.s.setPredLabel!.run(text, n);
     else if (cur.label !== text) this.s.insPredAlias!.run(n, text, normalize(text), stemKey(text));
+  }
+
+  /**
+   * An attribute's unit (JSONL `"unit"`), kept in the meta table under `unit:` + the
+   * predicate id (no schema change; read back by `Catalog.predicateUnits`). The last one wins.
+   */
+  predicateUnit(id: string, unit: string): void {
+    this.predicate(id);
+    this.db.prepare("INSERT OR REPLACE INTO meta(key, value) VALUES (?, ?)").run(`unit:${id}`, unit);
   }
 
   /** A relation's alias phrasing. */

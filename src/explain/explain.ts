@@ -39,9 +39,13 @@ export interface ExplainOptions<A extends ExplainAnalysis = ExplainAnalysis> {
   readonly hubExponent?: number;
   /** Relation weights of the walk. @default `ranked.relationWeights` when present, else 1 */
   readonly relationWeights?: Float64Array;
+  /** Path search options (paths.ts, evidence-graph.ts). */
   readonly paths?: PathOptions;
+  /** Verdict thresholds (verdict.ts). */
   readonly verdict?: VerdictOptions;
+  /** Suggested-clue options (suggest.ts). */
   readonly suggest?: SuggestOptions;
+  /** Why-not options (why-not.ts). */
   readonly whyNotOptions?: WhyNotOptions;
   /** Re-ranks `analysis` without the clues `dropClues`; enables ablation and why-not score parts. */
   readonly rerank?: (analysis: A, dropClues: readonly number[]) => ExplainRanked;

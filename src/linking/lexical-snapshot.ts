@@ -38,6 +38,20 @@ export function fnv1a(s: string): number {
   return (h | 1) >>> 0; // unsigned, never 0 (0 marks an empty slot)
 }
 
+/** Index of `x` in a sorted (UTF-16 order) array, or -1: binary search, so loading needs no map. */
+function sortedIndex(list: readonly string[], x: string): number {
+  let lo = 0;
+  let hi = list.length - 1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1;
+    const v = list[mid]!;
+    if (v === x) return mid;
+    if (v < x) lo = mid + 1;
+    else hi = mid - 1;
+  }
+  return -1;
+}
+
 /** Open-addressing hash set of 32-bit hashes (linear probing). */
 class HashSet32 {
   readonly table: Uint32Array;
@@ -95,7 +109,6 @@ export class LexicalSnapshot {
   readonly degree: Int32Array;
   /** Alias token vocabulary, sorted. */
   readonly vocab: readonly string[];
-  private readonly vocabIds: Map<string, number>;
   /** CSR postings: entities whose label/alias contains vocab[i] are `postings[offsets[i]..offsets[i+1])`. */
   readonly offsets: Int32Array;
   readonly postings: Int32Array;
@@ -103,7 +116,6 @@ export class LexicalSnapshot {
   /** Longest alias in tokens. */
   readonly maxAliasTokens: number;
   /** Context terms (stems), sorted, and their document frequencies. */
-  private readonly termDf: Map<string, number>;
   readonly terms: readonly string[];
   readonly df: Int32Array;
   /** Average context-document length in terms. */
@@ -118,14 +130,12 @@ export class LexicalSnapshot {
     this.entityCount = p.entityCount;
     this.degree = p.degree;
     this.vocab = p.vocab;
-    this.vocabIds = new Map(p.vocab.map((t, i) => [t, i]));
     this.offsets = p.offsets;
     this.postings = p.postings;
     this.keys = new HashSet32(p.keys);
     this.maxAliasTokens = p.maxAliasTokens;
     this.terms = p.terms;
     this.df = p.df;
-    this.termDf = new Map(p.terms.map((t, i) => [t, p.df[i]!]));
     this.avgDocLength = p.avgDocLength;
   }
 
@@ -141,7 +151,7 @@ export class LexicalSnapshot {
 
   /** Id of an alias token in the vocabulary, or -1. */
   tokenId(token: string): number {
-    return this.vocabIds.get(token) ?? -1;
+    return sortedIndex(this.vocab, token);
   }
 
   /** Entities whose label or alias contains alias token id `t` (sorted nums). */
@@ -151,7 +161,8 @@ export class LexicalSnapshot {
 
   /** Document frequency of a context term (stem), 0 when unseen. */
   documentFrequency(term: string): number {
-    return this.termDf.get(term) ?? 0;
+    const i = sortedIndex(this.terms, term);
+    return i < 0 ? 0 : this.df[i]!;
   }
 
   /** Builds the snapshot from the catalog's tables (one pass over edges, aliases, entities). */

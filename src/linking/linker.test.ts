@@ -88,6 +88,10 @@ describe("linkQuestion on the fixture catalog", () => {
     const r = link("Where is Zzyzx?");
     expect(r.mentions).toEqual([]);
     expect(r.unlinked).toEqual([{ text: "Zzyzx", start: 9, end: 14, suggestions: [] }]);
+    // a name found inside a longer run leaves the rest of the run unlinked
+    const r3 = link("Where is Tidewater Harbour?");
+    expect(r3.mentions.map((m) => [m.text, m.entity.id])).toEqual([["Tidewater", "o:lab1"]]);
+    expect(r3.unlinked.map((u) => u.text)).toEqual(["Harbour"]);
     // nothing name-like links: the content words still get the nearest catalog names
     const r2 = link("where is the glass blower from the valley");
     expect(r2.mentions).toEqual([]);
@@ -120,6 +124,8 @@ describe("linkQuestion on arbitrary text (properties)", () => {
       expect(m.confidence).toBeLessThanOrEqual(1);
     }
     for (const u of r.unlinked) expect(s.slice(u.start, u.end)).toBe(u.text);
+    // mentions are in text order and never overlap
+    for (let k = 1; k < r.mentions.length; k++) expect(r.mentions[k]!.start).toBeGreaterThanOrEqual(r.mentions[k - 1]!.end);
   };
 
   it("never throws on any UTF-16 string and offsets slice back", () => {

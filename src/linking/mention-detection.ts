@@ -8,7 +8,8 @@
  * distance (fuzzy-index.ts), candidates gathered from the alias-token postings, and a span
  * similarity = Dice overlap of the span's and the alias's token sets where tokens match
  * exactly or with Jaro–Winkler ≥ `tokenMatch` (so word order does not matter).
- * Rules: a span may not start or end with a stop word, and a span that is only stop words or
+ * Rules: a span may not end with a stop word, may start with one only when it is exactly an
+ * alias ("the Dawn"), and a span that is only stop words or
  * exactly a type or relation phrase of the catalog never becomes a mention.
  */
 import type { AliasHit } from "../catalog/index.js";
@@ -114,10 +115,12 @@ export function detectMentions(
   // 1. leftmost-longest exact (normalised) or stemmed match
   let i = 0;
   while (i < n) {
-    if (covered[i] || isStopWord(toks[i]!.norm)) {
+    if (covered[i]) {
       i++;
       continue;
     }
+    // a span may start with a stop word only as an exact alias ("the Dawn", "The Rastou record")
+    const leadingStop = isStopWord(toks[i]!.norm);
     let found: DetectedSpan | undefined;
     let norm = "";
     let stem = "";
@@ -131,13 +134,13 @@ export function detectMentions(
     }
     for (let k = keys.length - 1; k >= 0 && !found; k--) {
       const [kn, ks, len] = keys[k]!;
-      if (isStopWord(toks[i + len - 1]!.norm)) continue;
+      if (isStopWord(toks[i + len - 1]!.norm) || (leadingStop && len < 2)) continue;
       if (lex.isVocabularyPhrase(kn, ks)) continue;
       if (lex.snapshot.mayBeKey(kn)) {
         const hits = lex.byNorm(kn);
         if (hits.length > 0) found = { first: i, last: i + len, match: "exact", candidates: hitsToCandidates(hits, 1) };
       }
-      if (!found && lex.snapshot.mayBeKey(ks)) {
+      if (!found && !leadingStop && lex.snapshot.mayBeKey(ks)) {
         const hits = lex.byStem(ks);
         if (hits.length > 0) found = { first: i, last: i + len, match: "stem", candidates: hitsToCandidates(hits, o.stemSimilarity) };
       }
@@ -155,6 +158,25 @@ export function detectMentions(
   const endsAt = new Map<number, DetectedSpan>(spans.map((sp) => [sp.last, sp]));
   const startsAt = new Map<number, DetectedSpan>(spans.map((sp) => [sp.first, sp]));
   const vocabularyWord = (k: number) => lex.isVocabularyPhrase(toks[k]!.norm, toks[k]!.stem);
+  /** Fuzzy-matches tokens [a, b); what the found name leaves on either side is tried again. */
+  const piece = (a: number, b: number, depth: number): void => {
+    let hasName = false;
+    for (let k = a; k < b && !hasName; k++) hasName = !vocabularyWord(k);
+    if (!hasName) return;
+    const result = fuzzySpan(toks.slice(a, b), lex, o);
+    if (result.candidates.length === 0) {
+      unmatched.push({ first: a, last: b, suggestions: result.suggestions });
+      return;
+    }
+    const first = a + result.first;
+    const last = a + result.last;
+    spans.push({ first, last, match: "fuzzy", candidates: result.candidates });
+    for (let k = first; k < last; k++) covered[k] = true;
+    if (depth < 3) {
+      if (first > a) piece(a, first, depth + 1);
+      if (last < b) piece(last, b, depth + 1);
+    }
+  };
   i = 0;
   while (i < n) {
     if (!free(i) || (vocabularyWord(i) && !toks[i]!.marked)) {
@@ -175,29 +197,32 @@ export function detectMentions(
     const afterSpan = startsAt.get(j);
     const from = beforeSpan ? beforeSpan.first : a;
     const to = afterSpan ? afterSpan.last : j;
-    let result = fuzzySpan(toks.slice(from, to), lex, o);
-    let base = from;
-    const reachesRun = result.candidates.length > 0 && base + result.last > a && base + result.first < j;
-    const spansExact = base + result.first < a || base + result.last > j;
-    if ((from !== a || to !== j) && !(reachesRun && spansExact && result.candidates[0]!.similarity >= o.mergeSimilarity)) {
-      result = fuzzySpan(toks.slice(a, j), lex, o);
-      base = a;
-    } else if (from !== a || to !== j) {
-      // the merged name replaces the exact spans it absorbed
-      for (const sp of [beforeSpan, afterSpan]) {
-        if (sp && sp.first >= base + result.first && sp.last <= base + result.last) {
-          spans.splice(spans.indexOf(sp), 1);
-          endsAt.delete(sp.last);
-          startsAt.delete(sp.first);
+    if (from !== a || to !== j) {
+      const merged = fuzzySpan(toks.slice(from, to), lex, o);
+      let first = from + merged.first;
+      let last = from + merged.last;
+      const reachesRun = merged.candidates.length > 0 && last > a && first < j;
+      const spansExact = first < a || last > j;
+      if (reachesRun && spansExact && merged.candidates[0]!.similarity >= o.mergeSimilarity) {
+        // the merged name replaces the exact spans it touches (and grows to cover them)
+        for (const sp of [beforeSpan, afterSpan]) {
+          if (sp && sp.first < last && first < sp.last) {
+            first = Math.min(first, sp.first);
+            last = Math.max(last, sp.last);
+            spans.splice(spans.indexOf(sp), 1);
+            endsAt.delete(sp.last);
+            startsAt.delete(sp.first);
+          }
         }
+        spans.push({ first, last, match: "fuzzy", candidates: merged.candidates });
+        for (let k = first; k < last; k++) covered[k] = true;
+        if (first > a) piece(a, first, 0);
+        if (last < j) piece(last, j, 0);
+        i = Math.max(i + 1, j);
+        continue;
       }
     }
-    if (result.candidates.length > 0) {
-      spans.push({ first: base + result.first, last: base + result.last, match: "fuzzy", candidates: result.candidates });
-      for (let k = base + result.first; k < base + result.last; k++) covered[k] = true;
-    } else {
-      unmatched.push({ first: a, last: j, suggestions: result.suggestions });
-    }
+    piece(a, j, 0);
     i = Math.max(i + 1, j);
   }
   spans.sort((a, b) => a.first - b.first);

@@ -157,7 +157,8 @@ export class Session {
 
   /**
    * The answers (with paths) and the verdict of a ranking: the one call site where the
-   * explanation stage plugs in. Until then: no paths, {@link basicVerdict}.
+   * explanation stage plugs in (explain(): paths, coverage, verdict, ablation through
+   * re-ranking, why-not, suggestions). With no clue or no candidate: no paths, {@link basicVerdict}.
    */
   answersOf(
     analysis: Analysis,

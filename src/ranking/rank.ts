@@ -133,9 +133,11 @@ export function clueSeeds(analysis: Analysis, clue: Clue, index: RelationIndex, 
   const spreadBelow = options.spreadBelow ?? DEFAULTS.spreadBelow;
   const maxAlt = options.maxAlternatives ?? DEFAULTS.maxAlternatives;
   const inIndex = (n: number) => n >= 0 && n < index.nodeCount;
-  const seeds: Seed[] = inIndex(clue.node) ? [{ node: clue.node, weight: Math.max(clue.weight, 1e-3) }] : [];
+  // the link confidence decides the spread (the clue weight may also carry other factors)
   const mention = analysis.mentions[clue.mention];
-  if (mention && clue.weight < spreadBelow) {
+  const confidence = mention?.confidence ?? clue.weight;
+  const seeds: Seed[] = inIndex(clue.node) ? [{ node: clue.node, weight: Math.max(confidence, 1e-3) }] : [];
+  if (mention && confidence < spreadBelow) {
     for (const alt of mention.alternatives.slice(0, maxAlt)) {
       if (alt.num !== clue.node && inIndex(alt.num) && alt.confidence > 0) seeds.push({ node: alt.num, weight: alt.confidence });
     }

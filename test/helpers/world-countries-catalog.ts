@@ -19,8 +19,6 @@ const require = createRequire(import.meta.url);
 /** All records, by cca3. */
 export const countries: readonly Country[] = (require("world-countries") as Country[]).slice().sort((a, b) => (a.cca3 < b.cca3 ? -1 : 1));
 
-
-
 /** The catalog as JSONL lines. */
 export function catalogLines(): string[] {
   const lines: object[] = [
@@ -49,7 +47,11 @@ export function catalogLines(): string[] {
   return lines.map((l) => JSON.stringify(l));
 }
 
-/** Deterministic choice of `n` items (Park–Miller minimal standard generator, 1988). */
+/**
+ * Deterministic choice of `n` items: a Fisher–Yates shuffle driven by the Lehmer generator
+ * x ← 48271·x mod (2³¹ − 1) (Park & Miller 1988, multiplier as revised by Park, Miller &
+ * Stockmeyer 1993).
+ */
 export function choose<T>(items: readonly T[], n: number, seed = 20261202): T[] {
   const a = items.slice();
   let s = seed;

@@ -95,8 +95,9 @@ function record(ctx: LoadContext, file: string, line: number, o: Obj): void {
   const aliases = strList(o, "aliases");
   const description = str(o, "description", false);
   if (kind === "relation" || kind === "attribute") {
-    str(o, "unit", false); // accepted and checked; not stored yet
+    const unit = str(o, "unit", false);
     w.predicate(id);
+    if (kind === "attribute" && unit !== undefined && unit.trim() !== "") w.predicateUnit(id, unit.trim());
     if (l !== undefined) w.predicateLabel(id, l);
     for (const a of aliases) w.predicateAlias(id, a);
     return;

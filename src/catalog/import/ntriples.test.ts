@@ -125,6 +125,27 @@ describe("W3C RDF 1.1 N-Triples recommendation examples", () => {
     expect(e.aliases).toEqual(["Canal", "Kanal", "Strait"]);
   });
 
+  it("a property described with rdf:type, rdfs:domain and rdfs:range is still not left behind as an entity", () => {
+    const cat = (open = load(
+      [
+        "<http://example.org/moors> <http://www.w3.org/1999/02/22-rdf-syntax-ns#type> <http://www.w3.org/1999/02/22-rdf-syntax-ns#Property> .",
+        "<http://example.org/moors> <http://www.w3.org/2000/01/rdf-schema#domain> <http://example.org/Boat> .",
+        "<http://example.org/moors> <http://www.w3.org/2000/01/rdf-schema#range> <http://example.org/Quay> .",
+        '<http://example.org/moors> <http://www.w3.org/2000/01/rdf-schema#label> "moors at" .',
+        '<http://example.org/Quay> <http://www.w3.org/2000/01/rdf-schema#label> "quay" .',
+        "<http://example.org/a> <http://example.org/moors> <http://example.org/b> .",
+        "",
+      ].join("\n"),
+    ));
+    expect(cat.numOf("http://example.org/moors")).toBeUndefined();
+    expect(cat.numOf("http://www.w3.org/1999/02/22-rdf-syntax-ns#Property")).toBeUndefined();
+    expect(cat.predicates().find((p) => p.id === "http://example.org/moors")!.label).toBe("moors at");
+    // the labelled range class stays (it is a named thing); the unlabelled domain class was only mentioned by the property
+    expect(cat.numOf("http://example.org/Quay")).toBeDefined();
+    expect(cat.numOf("http://example.org/Boat")).toBeUndefined();
+    expect(cat.counts().edges).toBe(1);
+  });
+
   it("types, subclasses, descriptions and predicate labels given before and after use", () => {
     const cat = (open = load(
       [

@@ -54,7 +54,7 @@ export function progressOf(p: SessionProgress): OpenProgress {
     index: "relation index",
     linker: "building the name index",
     model: "reading types and relations",
-    ready: "ready",
+    ready: "starting the screen",
   };
   const ix = p.index;
   if (ix) {

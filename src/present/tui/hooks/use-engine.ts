@@ -12,14 +12,15 @@ export interface EngineEvents {
   readonly failed: (message: string) => void;
 }
 
-/** The engine once open (a ref, so replies never re-render by themselves). */
+/** The engine once open (a ref, so replies never re-render by themselves). Opens once per mount. */
 export function useEngine(open: EngineOpener, on: EngineEvents): { readonly current: TuiEngine | undefined } {
   const engine = useRef<TuiEngine | undefined>(undefined);
   const cbs = useRef(on);
   cbs.current = on;
+  const opener = useRef(open);
   useEffect(() => {
     let alive = true;
-    open((p) => alive && cbs.current.progress(p)).then(
+    opener.current((p) => alive && cbs.current.progress(p)).then(
       (e) => {
         if (!alive) {
           e.close();
@@ -35,6 +36,7 @@ export function useEngine(open: EngineOpener, on: EngineEvents): { readonly curr
       engine.current?.close();
       engine.current = undefined;
     };
-  }, [open]);
+    // opened once per mount, whatever the identity of later `open` props
+  }, []);
   return engine;
 }

@@ -1,0 +1,590 @@
+/**
+ * Conditions in a question: comparisons on literal attributes, superlatives and ordinals,
+ * negation and exclusion, and counting.
+ *
+ * Method: a rule-based shallow parse (cue phrases around the quantities found by
+ * quantity.ts), the way comparative and superlative constructions are read in rule-based
+ * question answering over databases (Androutsopoulos, Ritchie & Thanisch 1995, "Natural
+ * Language Interfaces to Databases — An Introduction", Natural Language Engineering 1(1),
+ * §4 on comparatives, superlatives, negation and counting). The cue phrases are general
+ * English (common practice), never catalog names:
+ *
+ * - comparison: before/after/since/until/in/during a year, date or decade; more than, over,
+ *   above, at least, at most, less/fewer than, under, below, "X or more", an adjective's
+ *   comparative ("longer than"), between X and Y, from X to Y;
+ * - superlative: an adjective's superlative (largest, oldest, …), "most"/"least"/"fewest"
+ *   + the attribute's words, first/last; an ordinal before it ("second largest") gives the
+ *   position;
+ * - exclusion: "not", "other than", "except (for)", "apart from", "aside from",
+ *   "excluding", "besides", "but not" before a linked mention (that mention stops being a
+ *   clue and becomes an exclusion); "not" before a comparison inverts the comparison;
+ * - count: "how many", "number of".
+ *
+ * The attribute is found the way relation cues are matched to relations (relation-cues.ts):
+ * Porter-stem containment (Porter 1980) of the attribute's label, aliases and unit among
+ * the question's free words (not in a linked mention), an exact stem counting 1 and a
+ * shared prefix of ≥ 4 letters `partialCredit`; the unit written after the number adds
+ * `unitBonus`. An adjective of dimension ("larger", "deepest") adds its general nouns
+ * (size/area, depth, …) as weaker hints; temporal words (before, oldest, first, …) and
+ * year/date quantities prefer attributes whose values are years or dates. Every attribute
+ * scoring above `minScore` is kept, best first, as `choices`: the ranking stage uses the
+ * first one the candidates actually carry. No match leaves `choices` empty and the ranking
+ * says so in a note.
+ */
+import type { Catalog } from "../catalog/index.js";
+import { stemToken, tokens } from "../catalog/index.js";
+import type { Analysis, AnswerType } from "./analyze.js";
+import type { QuestionModel } from "./question-model.js";
+import { findQuantities, type Quantity } from "./quantity.js";
+import { isFunctionWord, words, type Word } from "./words.js";
+
+/** Options of {@link detectConditions}; all optional. */
+export interface ConditionOptions {
+  /** Credit of a prefix (partial) stem match. @default 0.7 */
+  readonly partialCredit?: number;
+  /** Shortest shared prefix of a partial match. @default 4 */
+  readonly prefixMin?: number;
+  /** Added when the number's written unit matches the attribute's unit. @default 0.5 */
+  readonly unitBonus?: number;
+  /** Score of a hint noun of a dimension adjective ("larger" → area, size). @default 0.4 */
+  readonly hintScore?: number;
+  /** Added to attributes with year/date values when the condition is temporal. @default 0.3 */
+  readonly temporalBonus?: number;
+  /** Smallest score that makes an attribute a choice. @default 0.3 */
+  readonly minScore?: number;
+  /** Words allowed between a negation cue and the mention it excludes. @default 4 */
+  readonly negationWindow?: number;
+}
+
+/** Defaults of {@link ConditionOptions}. */
+export const DEFAULTS = { partialCredit: 0.7, prefixMin: 4, unitBonus: 0.5, hintScore: 0.4, temporalBonus: 0.3, minScore: 0.3, negationWindow: 4 } as const;
+
+/** An attribute predicate as condition analysis sees it. */
+export interface ModelAttribute {
+  /** Predicate num. */
+  readonly num: number;
+  readonly id: string;
+  readonly label: string;
+  /** The declared unit, if any. */
+  readonly unit?: string;
+  /** Stems of the label and each alias. */
+  readonly surfaces: readonly (readonly string[])[];
+  /** Stems of the unit. */
+  readonly unitStems: readonly string[];
+  /** Most numeric values are years or dates. */
+  readonly temporal: boolean;
+}
+
+/** The catalog's attribute vocabulary (attributes with numeric values), built once per session. */
+export interface AttributeModel {
+  readonly attributes: readonly ModelAttribute[];
+}
+
+/** The chosen attribute of a condition (JSON-shaped). */
+export interface AttributeRef {
+  readonly num: number;
+  readonly id: string;
+  readonly label: string;
+  readonly unit?: string;
+}
+
+/** Fields every condition has. */
+interface ConditionBase {
+  /** The question words that expressed the condition. */
+  readonly words: string;
+  /** UTF-16 offsets of those words. */
+  readonly start: number;
+  readonly end: number;
+}
+
+/** A comparison operator as shown to the user. */
+export type ComparisonOperator = "<" | "<=" | ">" | ">=" | "between" | "in" | "not in" | "not between";
+
+/** A comparison on a literal attribute: keep candidates whose value lies in the range. */
+export interface ComparisonCondition extends ConditionBase {
+  readonly kind: "comparison";
+  readonly operator: ComparisonOperator;
+  /** The quantities as written. */
+  readonly values: readonly string[];
+  /** Range on the catalog's numeric scale: `min` (inclusive unless `minStrict`) and/or `max` (inclusive unless `maxStrict`). */
+  readonly min?: number;
+  readonly minStrict?: boolean;
+  readonly max?: number;
+  readonly maxStrict?: boolean;
+  /** True: the range is negated ("not before 1980"). */
+  readonly negated: boolean;
+  /** Attributes that fit the words, best first (the ranking uses the first the candidates carry). */
+  readonly choices: readonly AttributeRef[];
+}
+
+/** A superlative or ordinal: order the candidates that fit the other clues by an attribute. */
+export interface SuperlativeCondition extends ConditionBase {
+  readonly kind: "superlative";
+  /** "max": largest first; "min": smallest first. */
+  readonly order: "max" | "min";
+  /** 1-based position asked for ("second largest": 2). */
+  readonly position: number;
+  /** True when the word is temporal (oldest, first, newest …): on a non-temporal attribute (an age) the order flips. */
+  readonly temporal: boolean;
+  readonly choices: readonly AttributeRef[];
+}
+
+/** An exclusion: the mentioned entity (and, depending on `mode`, the entities linked to it) is not an answer. */
+export interface ExclusionCondition extends ConditionBase {
+  readonly kind: "exclusion";
+  /** Entity num, id and label of the excluded mention. */
+  readonly node: number;
+  readonly id: string;
+  readonly label: string;
+  /** Index into `Analysis.mentions`. */
+  readonly mention: number;
+  /** "other": "other than X" (X itself, and its linked entities when X is not of the answer type); "not": X and every entity linked to it. */
+  readonly mode: "other" | "not";
+  /** Relation nums cued between the cue and the mention ("not bordering X"): only links of these relations count; empty: any. */
+  readonly relations: readonly number[];
+}
+
+/** A count question: the answer is the number of entities that fit. */
+export interface CountCondition extends ConditionBase {
+  readonly kind: "count";
+}
+
+/** One recognised condition. */
+export type Condition = ComparisonCondition | SuperlativeCondition | ExclusionCondition | CountCondition;
+
+/** The result of {@link detectConditions}. */
+export interface ConditionAnalysis {
+  /** The analysis with excluded mentions removed from the clues, condition words removed from the relation cues, and the answer type of a "how many X" question. */
+  readonly analysis: Analysis;
+  readonly conditions: readonly Condition[];
+}
+
+function surfaceStems(text: string): string[] {
+  const all = tokens(text);
+  const content = all.filter((x) => !isFunctionWord(x));
+  return (content.length > 0 ? content : all).map(stemToken);
+}
+
+/** Builds the attribute vocabulary: every predicate with numeric literal values, its label, aliases and unit. */
+export function buildAttributeModel(cat: Catalog): AttributeModel {
+  const summary = new Map(cat.attributeSummary().map((s) => [s.num, s]));
+  const units = cat.predicateUnits();
+  const attributes: ModelAttribute[] = [];
+  for (const p of cat.predicates()) {
+    const s = summary.get(p.num);
+    if (!s || s.numeric === 0) continue;
+    const unit = units.get(p.id);
+    const surfaces: string[][] = [];
+    for (const t of [p.label, ...p.aliases]) {
+      const st = surfaceStems(t);
+      if (st.length > 0 && !surfaces.some((o) => o.join(" ") === st.join(" "))) surfaces.push(st);
+    }
+    const unitStems = unit !== undefined ? surfaceStems(unit) : [];
+    const temporal = s.dateLike * 2 > s.numeric || (unit !== undefined && /^(year|years|date|yr)$/i.test(unit.trim()));
+    attributes.push({ num: p.num, id: p.id, label: p.label, ...(unit !== undefined ? { unit } : {}), surfaces, unitStems, temporal });
+  }
+  return { attributes };
+}
+
+/** Adjectives of dimension with their comparative and superlative forms and the general nouns they hint at (common practice, general English). */
+const DIMENSIONS: readonly { readonly up: readonly string[]; readonly down: readonly string[]; readonly hints: readonly string[] }[] = [
+  { up: ["large", "larger", "largest", "big", "bigger", "biggest", "great", "greater", "greatest", "huge", "hugest"], down: ["small", "smaller", "smallest", "little", "tiny", "tiniest"], hints: ["size", "area", "surface", "extent", "volume", "capacity", "tonnage", "population"] },
+  { up: ["long", "longer", "longest"], down: ["short", "shorter", "shortest"], hints: ["length", "duration"] },
+  { up: ["deep", "deeper", "deepest"], down: ["shallow", "shallower", "shallowest"], hints: ["depth"] },
+  { up: ["tall", "taller", "tallest", "high", "higher", "highest"], down: ["low", "lower", "lowest"], hints: ["height", "altitude", "elevation"] },
+  { up: ["heavy", "heavier", "heaviest"], down: ["light", "lighter", "lightest"], hints: ["weight", "mass", "tonnage"] },
+  { up: ["wide", "wider", "widest", "broad", "broader", "broadest"], down: ["narrow", "narrower", "narrowest"], hints: ["width", "breadth"] },
+  { up: ["expensive", "costlier", "costliest", "rich", "richer", "richest"], down: ["cheap", "cheaper", "cheapest", "poor", "poorer", "poorest"], hints: ["cost", "price", "budget", "value"] },
+  { up: ["populous", "crowded"], down: [], hints: ["population", "inhabitants"] },
+];
+/** Temporal adjectives: "up" = later (larger year), "down" = earlier. */
+const TEMPORAL = { up: ["new", "newer", "newest", "late", "later", "latest", "recent", "young", "younger", "youngest", "last"], down: ["old", "older", "oldest", "early", "earlier", "earliest", "first"] } as const;
+const SUPERLATIVE_FORM = /(est|most)$/;
+const ORDINALS: Readonly<Record<string, number>> = { second: 2, third: 3, fourth: 4, fifth: 5, sixth: 6, seventh: 7, eighth: 8, ninth: 9, tenth: 10, "2nd": 2, "3rd": 3, "4th": 4, "5th": 5, "6th": 6, "7th": 7, "8th": 8, "9th": 9, "10th": 10 };
+
+/** Operator phrases right before a quantity (normalised words, longest first). */
+const BEFORE_QUANTITY: readonly [string, "before" | "after" | "since" | "until" | "in" | ">" | "<" | ">=" | "<=" | "="][] = [
+  ["no more than", "<="], ["not more than", "<="], ["no less than", ">="], ["not less than", ">="], ["no fewer than", ">="], ["a maximum of", "<="], ["a minimum of", ">="],
+  ["more than", ">"], ["greater than", ">"], ["in excess of", ">"], ["less than", "<"], ["fewer than", "<"],
+  ["at least", ">="], ["at most", "<="], ["up to", "<="], ["prior to", "before"], ["earlier than", "before"], ["later than", "after"], ["as of", "since"],
+  ["before", "before"], ["after", "after"], ["since", "since"], ["until", "until"], ["till", "until"], ["through", "until"],
+  ["over", ">"], ["above", ">"], ["exceeding", ">"], ["under", "<"], ["below", "<"], ["beyond", ">"],
+  ["in", "in"], ["during", "in"], ["of", "="], ["exactly", "="],
+];
+const AFTER_QUANTITY: readonly [string, ">=" | "<="][] = [
+  ["or more", ">="], ["or above", ">="], ["and above", ">="], ["or over", ">="], ["or later", ">="], ["and later", ">="], ["or after", ">="],
+  ["or less", "<="], ["or fewer", "<="], ["or below", "<="], ["and below", "<="], ["or under", "<="], ["or earlier", "<="], ["or before", "<="],
+];
+/** Negation and exclusion cues (normalised words). */
+const EXCLUDE_CUES: readonly [string, "other" | "not"][] = [
+  ["other than", "other"], ["except for", "other"], ["except", "other"], ["apart from", "other"], ["aside from", "other"], ["excluding", "other"], ["besides", "other"], ["not including", "other"],
+  ["but not", "not"], ["not", "not"], ["never", "not"], ["isnt", "not"], ["arent", "not"], ["wasnt", "not"], ["werent", "not"], ["doesnt", "not"], ["dont", "not"], ["didnt", "not"],
+];
+
+/** Matches a phrase (space-separated normalised words) at word index i; returns the words it spans or 0. */
+function phraseAt(ws: readonly Word[], i: number, phrase: string): number {
+  const parts = phrase.split(" ");
+  for (let k = 0; k < parts.length; k++) if (ws[i + k]?.norm !== parts[k]) return 0;
+  return parts.length;
+}
+
+/** Detects the conditions of an analysed question. */
+export function detectConditions(analysis: Analysis, model: QuestionModel, attributes: AttributeModel, options: ConditionOptions = {}): ConditionAnalysis {
+  const o: Required<ConditionOptions> = { ...DEFAULTS, ...options };
+  const question = analysis.question;
+  const ws = words(question);
+  const inMention = ws.map((w) => analysis.mentions.some((m) => w.start < m.end && w.end > m.start));
+  const used = new Set<number>(); // word indexes consumed by conditions
+  const conditions: Condition[] = [];
+  const notes: string[] = [];
+  let answerTypes: readonly AnswerType[] = analysis.answerTypes;
+
+  // --- count ---------------------------------------------------------------------------
+  for (let i = 0; i < ws.length; i++) {
+    if (inMention[i]) continue;
+    const n = phraseAt(ws, i, "how many") || phraseAt(ws, i, "number of");
+    if (n === 0) continue;
+    for (let k = 0; k < n; k++) used.add(i + k);
+    conditions.push({ kind: "count", words: question.slice(ws[i]!.start, ws[i + n - 1]!.end), start: ws[i]!.start, end: ws[i + n - 1]!.end });
+    if (answerTypes.length === 0) {
+      // "how many research vessels …": the longest type key among the next words
+      for (let len = Math.min(model.maxTypeWords, 3); len >= 1 && answerTypes.length === 0; len--) {
+        for (let s = i + n; s <= i + n + 2 - len + 1 && s + len <= ws.length; s++) {
+          if (ws.slice(s, s + len).some((_, k) => inMention[s + k])) continue;
+          const key = ws.slice(s, s + len).map((w) => w.stem).join(" ");
+          const nums = model.typesByKey.get(key);
+          if (nums && nums.length > 0) {
+            answerTypes = nums.map((t) => ({ num: t, id: model.typeByNum.get(t)!.id, label: model.typeByNum.get(t)!.label }));
+            for (let k = 0; k < len; k++) used.add(s + k);
+            break;
+          }
+        }
+      }
+    }
+    break;
+  }
+
+  // --- comparisons around quantities ---------------------------------------------------
+  const quantities = findQuantities(question).filter((q) => !analysis.mentions.some((m) => q.start < m.end && q.end > m.start));
+  const wordAt = (offset: number) => ws.findIndex((w) => w.start <= offset && offset < w.end);
+  const negationBefore = (i: number): number => {
+    // "not" right before an operator phrase: returns the negation word index or -1
+    for (let j = i - 1; j >= Math.max(0, i - 2); j--) if (ws[j]!.norm === "not" || ws[j]!.norm === "never") return j;
+    return -1;
+  };
+  for (let qi = 0; qi < quantities.length; qi++) {
+    const q = quantities[qi]!;
+    const qw = wordAt(q.start);
+    if (qw < 0) continue;
+    const qEnd = ws.findIndex((w) => w.start >= q.end);
+    const afterQ = qEnd < 0 ? ws.length : qEnd;
+    // between X and Y / from X to Y
+    const next = quantities[qi + 1];
+    const bw = qw - 1;
+    if (next && bw >= 0 && (ws[bw]!.norm === "between" || ws[bw]!.norm === "from")) {
+      const link = ws[afterQ]?.norm;
+      const nw = wordAt(next.start);
+      if (((ws[bw]!.norm === "between" && link === "and") || (ws[bw]!.norm === "from" && (link === "to" || link === "until"))) && nw === afterQ + 1) {
+        const neg = negationBefore(bw);
+        const span = [bw, ...range(qw, nw + 1)];
+        const nEnd = ws.findIndex((w) => w.start >= next.end);
+        const lastWord = (nEnd < 0 ? ws.length : nEnd) - 1;
+        for (let k = bw; k <= lastWord; k++) used.add(k);
+        if (neg >= 0) used.add(neg);
+        const from = neg >= 0 ? neg : bw;
+        const lo = Math.min(q.lo, next.lo);
+        const hiQ = q.lo <= next.lo ? next : q;
+        conditions.push(comparison(question, ws, from, lastWord, "between", [q.text, next.text], { min: lo, max: hiQ.hi, maxStrict: hiQ.hi > hiQ.lo }, neg >= 0, chooseAttributes(ws, inMention, used, span, [q, next], attributes, o, temporalQuantity(q))));
+        qi++;
+        continue;
+      }
+    }
+    // operator before the quantity
+    let op: string | undefined;
+    let opStart = qw;
+    for (const [phrase, kind] of BEFORE_QUANTITY) {
+      const len = phrase.split(" ").length;
+      const at = qw - len;
+      if (at >= 0 && phraseAt(ws, at, phrase) === len) {
+        op = kind;
+        opStart = at;
+        break;
+      }
+      // skip an article: "of a 1,000", "over the 1970s" is read by the decade parser already
+    }
+    // a comparative adjective: "longer than 60", "older than 1980"
+    let dimension: (typeof DIMENSIONS)[number] | undefined;
+    if (op === undefined && qw >= 2 && ws[qw - 1]!.norm === "than") {
+      const adj = ws[qw - 2]!.norm;
+      const temporal = TEMPORAL.up.includes(adj as never) ? "after" : TEMPORAL.down.includes(adj as never) ? "before" : undefined;
+      const dim = DIMENSIONS.find((d) => d.up.includes(adj) || d.down.includes(adj));
+      if (temporal && temporalQuantity(q)) op = temporal;
+      else if (dim) {
+        op = dim.up.includes(adj) ? ">" : "<";
+        dimension = dim;
+      } else if (/er$/.test(adj)) op = ">";
+      if (op !== undefined) opStart = qw - 2;
+    }
+    // trailing "or more", "or earlier"
+    let lastWord = afterQ - 1;
+    if (op === undefined || op === "=" || op === "in") {
+      for (const [phrase, kind] of AFTER_QUANTITY) {
+        const len = phraseAt(ws, afterQ, phrase);
+        if (len > 0) {
+          op = kind;
+          lastWord = afterQ + len - 1;
+          break;
+        }
+      }
+    }
+    if (op === undefined) continue;
+    if ((op === "in" || op === "=") && q.kind === "number" && op === "in") continue; // "in 3 places" is no comparison
+    if (op === "=" && q.kind === "number" && q.unit === undefined && !attributeWordNear(ws, inMention, opStart, attributes, o)) continue;
+    const neg = negationBefore(opStart);
+    const from = neg >= 0 ? neg : opStart;
+    for (let k = from; k <= lastWord; k++) used.add(k);
+    const r = rangeOf(op, q);
+    const temporalCond = temporalQuantity(q) || ["before", "after", "since", "until"].includes(op);
+    const display = displayOperator(op);
+    const choices = chooseAttributes(ws, inMention, used, range(opStart, lastWord + 1), [q], attributes, o, temporalCond, dimension);
+    conditions.push(comparison(question, ws, from, lastWord, display, [q.text], r, neg >= 0, choices));
+  }
+
+  // --- superlatives and ordinals -------------------------------------------------------
+  for (let i = 0; i < ws.length; i++) {
+    if (inMention[i] || used.has(i)) continue;
+    const n = ws[i]!.norm;
+    let order: "max" | "min" | undefined;
+    let temporal = false;
+    let dimension: (typeof DIMENSIONS)[number] | undefined;
+    let span = 1;
+    if (n === "most" || n === "least" || n === "fewest") {
+      // "most recent" is temporal; "most populous"/"most staff" name the attribute by the next words
+      const nx = ws[i + 1]?.norm;
+      if (nx === "recent") {
+        order = "max";
+        temporal = true;
+        span = 2;
+      } else order = n === "most" ? "max" : "min";
+    } else if (TEMPORAL.up.includes(n as never) && (SUPERLATIVE_FORM.test(n) || n === "last")) {
+      order = "max";
+      temporal = true;
+    } else if (TEMPORAL.down.includes(n as never) && (SUPERLATIVE_FORM.test(n) || n === "first")) {
+      order = "min";
+      temporal = true;
+    } else {
+      const dim = DIMENSIONS.find((d) => (d.up.includes(n) || d.down.includes(n)) && SUPERLATIVE_FORM.test(n));
+      if (dim) {
+        order = dim.up.includes(n) ? "max" : "min";
+        dimension = dim;
+      }
+    }
+    if (order === undefined) continue;
+    let from = i;
+    let position = 1;
+    const prev = ws[i - 1]?.norm;
+    if (prev !== undefined && ORDINALS[prev] !== undefined && !inMention[i - 1]) {
+      position = ORDINALS[prev]!;
+      from = i - 1;
+    }
+    for (let k = from; k < i + span; k++) used.add(k);
+    const choices = chooseAttributes(ws, inMention, used, range(from, i + span), [], attributes, o, temporal, dimension);
+    conditions.push({ kind: "superlative", order, position, temporal, choices, words: question.slice(ws[from]!.start, ws[i + span - 1]!.end), start: ws[from]!.start, end: ws[i + span - 1]!.end });
+  }
+  // a bare ordinal before a type noun ("the second vessel …") is left alone: without a superlative it names no attribute
+
+  // --- exclusions ----------------------------------------------------------------------
+  const excluded = new Set<number>(); // mention indexes
+  for (let i = 0; i < ws.length; i++) {
+    if (inMention[i] || used.has(i)) continue;
+    for (const [phrase, mode] of EXCLUDE_CUES) {
+      const len = phraseAt(ws, i, phrase);
+      if (len === 0) continue;
+      const cueEnd = ws[i + len - 1]!.end;
+      // the first clue mention after the cue, within the window, with no comma between
+      let best = -1;
+      analysis.mentions.forEach((m, mi) => {
+        if (m.start < cueEnd || excluded.has(mi) || !analysis.clues.some((c) => c.mention === mi)) return;
+        if (best < 0 || m.start < analysis.mentions[best]!.start) best = mi;
+      });
+      if (best >= 0) {
+        const m = analysis.mentions[best]!;
+        const gap = question.slice(cueEnd, m.start);
+        const between = words(gap);
+        if (!/[,;:]/.test(gap) && between.length <= o.negationWindow) {
+          const relations = analysis.relationCues.filter((c) => c.start >= cueEnd && c.start < m.start).map((c) => c.relation);
+          excluded.add(best);
+          for (let k = i; k < i + len; k++) used.add(k);
+          conditions.push({ kind: "exclusion", node: m.num, id: m.entity.id, label: m.entity.label, mention: best, mode, relations, words: question.slice(ws[i]!.start, m.end), start: ws[i]!.start, end: m.end });
+        }
+      }
+      break;
+    }
+  }
+
+  for (const c of conditions) {
+    if ((c.kind === "comparison" || c.kind === "superlative") && c.choices.length === 0) {
+      notes.push(`"${c.words}": no attribute of the catalog matches these words, so the condition is not applied`);
+    }
+  }
+  if (conditions.length === 0) return { analysis, conditions };
+
+  // condition words are no relation cues; excluded mentions are no clues
+  const usedText = new Set([...used].map((k) => ws[k]!.text));
+  const relationCues = analysis.relationCues.filter((c) => !c.words.every((w) => usedText.has(w)));
+  const clues = analysis.clues.filter((c) => !excluded.has(c.mention));
+  const baseNotes = answerTypes !== analysis.answerTypes ? analysis.notes.filter((n) => !/^no question word/.test(n)) : analysis.notes;
+  for (const c of conditions) if (c.kind === "exclusion") notes.push(`"${c.words}": ${c.label} is excluded, not used as a clue`);
+  return { analysis: { ...analysis, answerTypes, relationCues, clues, notes: [...baseNotes, ...notes] }, conditions };
+}
+
+function range(a: number, b: number): number[] {
+  const out: number[] = [];
+  for (let i = a; i < b; i++) out.push(i);
+  return out;
+}
+
+function temporalQuantity(q: Quantity): boolean {
+  return q.kind !== "number";
+}
+
+function displayOperator(op: string): ComparisonOperator {
+  switch (op) {
+    case "before":
+    case "<":
+      return "<";
+    case "after":
+    case ">":
+      return ">";
+    case "since":
+    case ">=":
+      return ">=";
+    case "until":
+    case "<=":
+      return "<=";
+    default:
+      return "in";
+  }
+}
+
+/** The value range of an operator applied to a quantity's interval [lo, hi). */
+function rangeOf(op: string, q: Quantity): { min?: number; minStrict?: boolean; max?: number; maxStrict?: boolean } {
+  const point = q.hi === q.lo;
+  switch (op) {
+    case "before": // before 1980: earlier than its start
+      return { max: q.lo, maxStrict: true };
+    case "after": // after 1980: from its end on
+      return point ? { min: q.lo, minStrict: true } : { min: q.hi };
+    case "since":
+      return { min: q.lo };
+    case "until":
+      return point ? { max: q.lo } : { max: q.hi, maxStrict: true };
+    case ">":
+      return point ? { min: q.lo, minStrict: true } : { min: q.hi };
+    case "<":
+      return { max: q.lo, maxStrict: true };
+    case ">=":
+      return { min: q.lo };
+    case "<=":
+      return point ? { max: q.lo } : { max: q.hi, maxStrict: true };
+    default: // "in", "=": within the interval (a point: equal)
+      return point ? { min: q.lo, max: q.lo } : { min: q.lo, max: q.hi, maxStrict: true };
+  }
+}
+
+function comparison(
+  question: string,
+  ws: readonly Word[],
+  from: number,
+  to: number,
+  operator: ComparisonOperator,
+  values: readonly string[],
+  r: { min?: number; minStrict?: boolean; max?: number; maxStrict?: boolean },
+  negated: boolean,
+  choices: readonly AttributeRef[],
+): ComparisonCondition {
+  const op: ComparisonOperator = negated ? (operator === "between" ? "not between" : operator === "<" ? ">=" : operator === "<=" ? ">" : operator === ">" ? "<=" : operator === ">=" ? "<" : "not in") : operator;
+  return { kind: "comparison", operator: op, values, ...r, negated, choices, words: question.slice(ws[from]!.start, ws[to]!.end), start: ws[from]!.start, end: ws[to]!.end };
+}
+
+function credit(a: string, b: string, o: Required<ConditionOptions>): number {
+  if (a === b) return 1;
+  const short = a.length <= b.length ? a : b;
+  const long = a.length <= b.length ? b : a;
+  return short.length >= o.prefixMin && long.startsWith(short) ? o.partialCredit : 0;
+}
+
+/** True when some free word near `at` matches an attribute surface (so "of 62" is a comparison only with an attribute word). */
+function attributeWordNear(ws: readonly Word[], inMention: readonly boolean[], at: number, attributes: AttributeModel, o: Required<ConditionOptions>): boolean {
+  for (let k = Math.max(0, at - 3); k < at; k++) {
+    if (inMention[k] || isFunctionWord(ws[k]!.norm)) continue;
+    if (attributes.attributes.some((a) => a.surfaces.some((s) => s.some((x) => credit(x, ws[k]!.stem, o) > 0)))) return true;
+  }
+  return false;
+}
+
+/**
+ * Scores every attribute against the question's free words (nearer words first on ties),
+ * the written units and the dimension hints; returns those above `minScore`, best first.
+ */
+function chooseAttributes(
+  ws: readonly Word[],
+  inMention: readonly boolean[],
+  used: ReadonlySet<number>,
+  span: readonly number[],
+  quantities: readonly Quantity[],
+  attributes: AttributeModel,
+  o: Required<ConditionOptions>,
+  temporal: boolean,
+  dimension?: (typeof DIMENSIONS)[number],
+): AttributeRef[] {
+  const centre = span.length > 0 ? span[0]! : 0;
+  const free: number[] = [];
+  ws.forEach((w, k) => {
+    if (inMention[k] || isFunctionWord(w.norm)) return;
+    if (used.has(k) && !span.includes(k)) return;
+    free.push(k);
+  });
+  const unitStems = quantities.flatMap((q) => (q.unit !== undefined ? surfaceStems(q.unit) : []));
+  const hints = (dimension?.hints ?? []).map(stemToken);
+  const scored: { a: ModelAttribute; score: number; dist: number }[] = [];
+  for (const a of attributes.attributes) {
+    let best = 0;
+    let dist = Infinity;
+    for (const surface of a.surfaces) {
+      let sum = 0;
+      let d = Infinity;
+      for (const s of surface) {
+        let c = 0;
+        let cd = Infinity;
+        for (const k of free) {
+          const x = credit(s, ws[k]!.stem, o);
+          const kd = Math.abs(k - centre);
+          if (x > c || (x === c && x > 0 && kd < cd)) {
+            c = x;
+            cd = kd;
+          }
+        }
+        sum += c;
+        if (c > 0) d = Math.min(d, cd);
+      }
+      const sc = surface.length > 0 ? sum / surface.length : 0;
+      if (sc > best || (sc === best && d < dist)) {
+        best = sc;
+        dist = d;
+      }
+    }
+    if (unitStems.length > 0 && a.unitStems.length > 0 && a.unitStems.every((u) => unitStems.some((x) => credit(u, x, o) > 0))) best += o.unitBonus;
+    // a unit word written in the question without a number ("most inhabitants") matches like a label word
+    if (best === 0 && a.unitStems.length > 0 && a.unitStems.every((u) => free.some((k) => credit(u, ws[k]!.stem, o) === 1))) best = 0.6;
+    if (hints.length > 0) {
+      const h = hints.findIndex((x) => a.surfaces.some((s) => s.includes(x)) || a.id.toLowerCase() === x);
+      if (h >= 0) best = Math.max(best, o.hintScore - 0.01 * h);
+    }
+    if (temporal && a.temporal) best += o.temporalBonus;
+    if (!temporal && a.temporal && quantities.length > 0 && best > 0) best -= o.temporalBonus;
+    if (best >= o.minScore) scored.push({ a, score: best, dist });
+  }
+  scored.sort((x, y) => y.score - x.score || x.dist - y.dist || (x.a.id < y.a.id ? -1 : x.a.id > y.a.id ? 1 : 0));
+  return scored.map(({ a }) => ({ num: a.num, id: a.id, label: a.label, ...(a.unit !== undefined ? { unit: a.unit } : {}) }));
+}

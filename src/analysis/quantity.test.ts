@@ -1,0 +1,87 @@
+/**
+ * Number and date parsing against worked examples.
+ * Dates: ISO 8601:2004 "Data elements and interchange formats", §5.2.1.1 (complete calendar
+ * date, extended format YYYY-MM-DD, e.g. 1985-04-12) and §5.2.1.2 (reduced precision: a
+ * specific month YYYY-MM, a specific year YYYY). Day counts from the Gregorian calendar
+ * (leap year rule: divisible by 4, except centuries not divisible by 400 — 2000 leap, 1900 not).
+ */
+import { describe, expect, it } from "vitest";
+import { findQuantities, parseIsoDate, parseNumber, yearFraction } from "./quantity.js";
+
+describe("parseNumber", () => {
+  it("refuses text that is not a number", () => {
+    expect(parseNumber("")).toBeNull();
+    expect(parseNumber("12,34")).toBeNull(); // a comma must separate groups of three (common practice, en-GB/en-US)
+    expect(parseNumber("1,2345")).toBeNull();
+    expect(parseNumber("abc")).toBeNull();
+  });
+  it("reads thousands separators and decimals", () => {
+    expect(parseNumber("500,000")).toBe(500000);
+    expect(parseNumber("1,234,567.5")).toBe(1234567.5);
+    expect(parseNumber("12 500")).toBe(12500); // SI brochure §5.4.4: digits grouped in threes by a space
+    expect(parseNumber("3.25")).toBe(3.25);
+    expect(parseNumber("-40")).toBe(-40);
+  });
+});
+
+describe("parseIsoDate (ISO 8601:2004 §5.2.1)", () => {
+  it("refuses invalid calendar dates", () => {
+    expect(parseIsoDate("1985-13-01")).toBeNull(); // month 13
+    expect(parseIsoDate("1985-00")).toBeNull();
+    expect(parseIsoDate("1900-02-29")).toBeNull(); // 1900 is not a Gregorian leap year
+    expect(parseIsoDate("1985-4-12")).toBeNull(); // the extended format has two-digit months
+  });
+  it("reads the standard's worked example 1985-04-12 as one day", () => {
+    // 1985 has 365 days; 12 April is day 102, so 101 days have elapsed (hand-computed: 31+28+31+11)
+    const d = parseIsoDate("1985-04-12")!;
+    expect(d.kind).toBe("date");
+    expect(d.lo).toBeCloseTo(1985 + 101 / 365, 9);
+    expect(d.hi).toBeCloseTo(1985 + 102 / 365, 9);
+  });
+  it("reads reduced precision: a month (1985-04) and a year (1985)", () => {
+    const m = parseIsoDate("1985-04")!; // April 1985: days 91..120 elapsed (hand-computed: 31+28+31 = 90)
+    expect(m.lo).toBeCloseTo(1985 + 90 / 365, 9);
+    expect(m.hi).toBeCloseTo(1985 + 120 / 365, 9);
+    expect(parseIsoDate("1985")).toEqual({ lo: 1985, hi: 1986, kind: "year" });
+  });
+  it("handles leap days and the last day of a year", () => {
+    const leap = parseIsoDate("2000-02-29")!; // 2000 is a leap year (366 days); 59 days elapsed
+    expect(leap.lo).toBeCloseTo(2000 + 59 / 366, 9);
+    const last = parseIsoDate("2021-12-31")!;
+    expect(last.lo).toBeCloseTo(2021 + 364 / 365, 9);
+    expect(last.hi).toBe(2022);
+  });
+  it("matches the catalog's own scale (yearFraction)", () => {
+    expect(yearFraction(1985, 4, 12)).toBeCloseTo(parseIsoDate("1985-04-12")!.lo, 12);
+    expect(yearFraction(1985)).toBe(1985);
+  });
+});
+
+describe("findQuantities", () => {
+  it("finds nothing in text without numbers", () => {
+    expect(findQuantities("Which vessel is the largest?")).toEqual([]);
+  });
+  it("reads a year as the whole year, a plain number as a point", () => {
+    const [y] = findQuantities("built before 1980?");
+    expect(y).toMatchObject({ kind: "year", lo: 1980, hi: 1981, text: "1980" });
+    const [n] = findQuantities("more than 500,000 km² of land");
+    expect(n).toMatchObject({ kind: "number", lo: 500000, hi: 500000, unit: "km²" });
+    expect("more than 500,000 km² of land".slice(n!.start, n!.end)).toBe("500,000 km²");
+  });
+  it("reads decades and their parts (common usage: early 0–3, mid 3–6, late 7–9)", () => {
+    expect(findQuantities("in the 1970s")[0]).toMatchObject({ kind: "decade", lo: 1970, hi: 1980 });
+    expect(findQuantities("in the mid-1990s")[0]).toMatchObject({ kind: "decade", lo: 1993, hi: 1997 });
+    expect(findQuantities("during the late 1960s")[0]).toMatchObject({ kind: "decade", lo: 1967, hi: 1970 });
+  });
+  it("reads ISO dates inside a sentence and multipliers", () => {
+    const [d] = findQuantities("started after 2008-06-30, please");
+    expect(d!.kind).toBe("date");
+    expect(d!.lo).toBeCloseTo(2008 + 181 / 366, 9); // 2008 leap: 31+29+31+30+31+29 = 181 days elapsed (hand-computed)
+    expect(findQuantities("over 2.5 million people")[0]).toMatchObject({ kind: "number", lo: 2500000, unit: "people" });
+  });
+  it("reads both ends of a range", () => {
+    const qs = findQuantities("between 40 and 70 metres");
+    expect(qs.map((q) => q.lo)).toEqual([40, 70]);
+    expect(qs[1]!.unit).toBe("metres");
+  });
+});
