@@ -88,6 +88,11 @@ export interface AttributeRef {
   readonly unit?: string;
 }
 
+/** An attribute that fits a condition's words, with its match score. */
+export interface AttributeChoice extends AttributeRef {
+  readonly score: number;
+}
+
 /** Fields every condition has. */
 interface ConditionBase {
   /** The question words that expressed the condition. */
@@ -114,7 +119,7 @@ export interface ComparisonCondition extends ConditionBase {
   /** True: the range is negated ("not before 1980"). */
   readonly negated: boolean;
   /** Attributes that fit the words, best first (the ranking uses the first the candidates carry). */
-  readonly choices: readonly AttributeRef[];
+  readonly choices: readonly AttributeChoice[];
 }
 
 /** A superlative or ordinal: order the candidates that fit the other clues by an attribute. */
@@ -126,7 +131,7 @@ export interface SuperlativeCondition extends ConditionBase {
   readonly position: number;
   /** True when the word is temporal (oldest, first, newest …): on a non-temporal attribute (an age) the order flips. */
   readonly temporal: boolean;
-  readonly choices: readonly AttributeRef[];
+  readonly choices: readonly AttributeChoice[];
 }
 
 /** An exclusion: the mentioned entity (and, depending on `mode`, the entities linked to it) is not an answer. */
@@ -501,7 +506,7 @@ function comparison(
   values: readonly string[],
   r: { min?: number; minStrict?: boolean; max?: number; maxStrict?: boolean },
   negated: boolean,
-  choices: readonly AttributeRef[],
+  choices: readonly AttributeChoice[],
 ): ComparisonCondition {
   const op: ComparisonOperator = negated ? (operator === "between" ? "not between" : operator === "<" ? ">=" : operator === "<=" ? ">" : operator === ">" ? "<=" : operator === ">=" ? "<" : "not in") : operator;
   return { kind: "comparison", operator: op, values, ...r, negated, choices, words: question.slice(ws[from]!.start, ws[to]!.end), start: ws[from]!.start, end: ws[to]!.end };
@@ -537,7 +542,7 @@ function chooseAttributes(
   o: Required<ConditionOptions>,
   temporal: boolean,
   dimension?: (typeof DIMENSIONS)[number],
-): AttributeRef[] {
+): AttributeChoice[] {
   const centre = span.length > 0 ? span[0]! : 0;
   const free: number[] = [];
   ws.forEach((w, k) => {
@@ -586,5 +591,5 @@ function chooseAttributes(
     if (best >= o.minScore) scored.push({ a, score: best, dist });
   }
   scored.sort((x, y) => y.score - x.score || x.dist - y.dist || (x.a.id < y.a.id ? -1 : x.a.id > y.a.id ? 1 : 0));
-  return scored.map(({ a }) => ({ num: a.num, id: a.id, label: a.label, ...(a.unit !== undefined ? { unit: a.unit } : {}) }));
+  return scored.map(({ a, score }) => ({ num: a.num, id: a.id, label: a.label, ...(a.unit !== undefined ? { unit: a.unit } : {}), score }));
 }
