@@ -11,3 +11,20 @@ export { relationCues, expectedInverse, DEFAULTS as RELATION_CUE_DEFAULTS } from
 export type { RelationCue, RelationCueOptions } from "./relation-cues.js";
 export { words, FUNCTION_WORDS, isFunctionWord } from "./words.js";
 export type { Word } from "./words.js";
+export { findQuantities, parseNumber, parseIsoDate, yearFraction, DEFAULTS as QUANTITY_DEFAULTS } from "./quantity.js";
+export type { Quantity, QuantityKind, QuantityOptions } from "./quantity.js";
+export { detectConditions, buildAttributeModel, DEFAULTS as CONDITION_DEFAULTS } from "./conditions.js";
+export type {
+  Condition,
+  ComparisonCondition,
+  ComparisonOperator,
+  SuperlativeCondition,
+  ExclusionCondition,
+  CountCondition,
+  ConditionAnalysis,
+  ConditionOptions,
+  AttributeModel,
+  ModelAttribute,
+  AttributeRef,
+  AttributeChoice,
+} from "./conditions.js";

@@ -5,7 +5,7 @@
  * in-memory cache so a large load does not look each id up twice.
  */
 import type Database from "better-sqlite3";
-import { normalize, stemKey } from "./normalize.js";
+import { normalize, stemToken } from "./normalize.js";
 import type { Catalog } from "./store.js";
 
 /** Parses a literal as a number for attribute comparisons: plain numbers, years and ISO dates. */
@@ -24,6 +24,12 @@ export function literalNumber(value: string, datatype: string | null): number | 
     return y + (Date.UTC(y, m - 1, d) - start) / (end - start);
   }
   return null;
+}
+
+/** The normalised and stemmed forms of an alias, normalising once (same result as `normalize` + `stemKey`). */
+function forms(text: string): [string, string] {
+  const norm = normalize(text);
+  return [norm, norm === "" ? "" : norm.split(" ").map(stemToken).join(" ")];
 }
 
 /** Edges per multi-row INSERT (SQLite allows 32766 bound parameters; 3 per edge). */
@@ -208,7 +214,7 @@ export class CatalogWriter {
     const f = this.flag(n);
     if ((f & HAS_LABEL) === 0) {
       this.s.setLabel!.run(text, n);
-      this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 0);
+      this.s.insAlias!.run(n, text, ...forms(text), 0);
       this.flags[n] = f | HAS_LABEL;
       return;
     }
@@ -216,10 +222,10 @@ export class CatalogWriter {
     if (preferred) {
       if (cur !== text) this.s.demoteLabel!.run(n);
       this.s.setLabel!.run(text, n);
-      this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 0);
+      this.s.insAlias!.run(n, text, ...forms(text), 0);
       this.s.promoteAlias!.run(n, text);
     } else if (cur !== text) {
-      this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 1);
+      this.s.insAlias!.run(n, text, ...forms(text), 1);
     }
   }
 
@@ -231,7 +237,7 @@ export class CatalogWriter {
   /** Adds an alias. */
   alias(id: string, text: string): void {
     const n = this.entity(id);
-    this.s.insAlias!.run(n, text, normalize(text), stemKey(text), 1);
+    this.s.insAlias!.run(n, text, ...forms(text), 1);
   }
 
   /** Sets the description (the first one wins; later ones are appended after a blank line). */
@@ -284,7 +290,7 @@ export class CatalogWriter {
     const n = this.predicate(id);
     const cur = this.s.getPredLabel!.get(n) as { label: string | null };
     if (cur.label === null) this.s.setPredLabel!.run(text, n);
-    else if (cur.label !== text) this.s.insPredAlias!.run(n, text, normalize(text), stemKey(text));
+    else if (cur.label !== text) this.s.insPredAlias!.run(n, text, ...forms(text));
   }
 
   /**
@@ -298,7 +304,7 @@ export class CatalogWriter {
 
   /** A relation's alias phrasing. */
   predicateAlias(id: string, text: string): void {
-    this.s.insPredAlias!.run(this.predicate(id), text, normalize(text), stemKey(text));
+    this.s.insPredAlias!.run(this.predicate(id), text, ...forms(text));
   }
 
   /** The catalog written to. */

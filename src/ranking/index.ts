@@ -21,3 +21,5 @@ export { combineClueScores, DEFAULTS as COMBINE_DEFAULTS } from "./combine.js";
 export type { Combined, CombineOptions } from "./combine.js";
 export { cueReach, MAX_CUES, DEFAULTS as CUE_PATH_DEFAULTS } from "./cue-paths.js";
 export type { CuePathOptions } from "./cue-paths.js";
+export { applyConditions, satisfies, DEFAULTS as CONDITIONS_DEFAULTS } from "./conditions.js";
+export type { ApplyConditionsOptions, AttributeLookup, ConditionCheck, AppliedCondition, ConditionOutcome } from "./conditions.js";

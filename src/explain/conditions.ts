@@ -1,0 +1,164 @@
+/**
+ * Conditions in the explanation: each recognised condition as a JSON-shaped record, each
+ * answer's condition steps (the attribute value that satisfied or failed the condition), the
+ * count of a "how many" question, and the verdict of an ordering or a count.
+ *
+ * Method: the explanation is the evaluation trace of the selection/ordering/counting
+ * (ranking/conditions.ts): per answer and condition the value read, the comparison made and
+ * its outcome — a "why" explanation of a query answer in the sense of Buneman, Khanna &
+ * Tan 2001, "Why and Where: A Characterization of Data Provenance" (ICDT), restricted to the
+ * attribute facts that decided it.
+ *
+ * Verdict: a superlative's first answer is `unique` when no other fit candidate shares its
+ * value, `tied` (with those) when some do; a count is `unique` (the number is the answer)
+ * unless nothing was counted (`none`). Filters keep the explain stage's own verdict,
+ * computed on the filtered candidates.
+ */
+import type { Catalog } from "../catalog/index.js";
+import type { Condition } from "../analysis/index.js";
+import type { ConditionCheck, ConditionOutcome } from "../ranking/index.js";
+import type { EntityRef, Verdict } from "../model/index.js";
+
+/** One recognised condition in `ask --json` (`conditions`, additive). */
+export interface ConditionDoc {
+  readonly kind: "comparison" | "superlative" | "exclusion" | "count";
+  /** The question words that expressed it. */
+  readonly words: string;
+  readonly start: number;
+  readonly end: number;
+  /** The attribute used (comparisons, superlatives); null when none was found. */
+  readonly attribute?: { readonly id: string; readonly label: string; readonly unit?: string } | null;
+  /** Comparisons: operator and the values as written. */
+  readonly operator?: string;
+  readonly values?: readonly string[];
+  /** Comparisons: the range on the catalog's numeric scale. */
+  readonly range?: { readonly min?: number; readonly minStrict?: boolean; readonly max?: number; readonly maxStrict?: boolean; readonly negated: boolean };
+  /** Superlatives: direction and 1-based position. */
+  readonly order?: "max" | "min";
+  readonly position?: number;
+  /** Exclusions: the excluded entity and how far the exclusion reaches. */
+  readonly entity?: EntityRef;
+  readonly mode?: "other" | "not";
+  /** False when the condition could not be applied (no attribute). */
+  readonly applied: boolean;
+  /** Candidates before and after it. */
+  readonly before?: number;
+  readonly after?: number;
+}
+
+/** One condition step of an answer (`answers[i].values`, additive). */
+export interface ConditionStepDoc {
+  /** Index into `conditions`. */
+  readonly condition: number;
+  /** Attribute id and label (comparisons, superlatives). */
+  readonly attribute?: string;
+  readonly label?: string;
+  /** The values read (catalog numeric scale) and as text. */
+  readonly values: readonly number[];
+  readonly text: string;
+  readonly satisfied: boolean;
+  /** Superlatives: the answer's place in the ordering. */
+  readonly place?: number;
+}
+
+/** The answer of a count question (`count`, additive). */
+export interface CountDoc {
+  readonly value: number;
+  /** Ids of the entities counted. */
+  readonly entities: readonly string[];
+}
+
+/** A value on the catalog's scale as text: dates back as ISO 8601, other numbers with thousands separators. */
+export function formatValue(v: number, temporal: boolean): string {
+  if (temporal && !Number.isInteger(v)) {
+    const y = Math.floor(v);
+    const start = Date.UTC(y, 0, 1);
+    const end = Date.UTC(y + 1, 0, 1);
+    const d = new Date(Math.round((start + (v - y) * (end - start)) / 86400000) * 86400000);
+    return d.toISOString().slice(0, 10);
+  }
+  if (temporal) return String(v);
+  return Math.abs(v) >= 10000 ? v.toLocaleString("en-US", { maximumFractionDigits: 6 }) : String(v);
+}
+
+function isTemporalUnit(unit: string | undefined): boolean {
+  return unit !== undefined && /year|date/i.test(unit);
+}
+
+/** The `conditions` records of one question. */
+export function conditionDocs(conditions: readonly Condition[], outcome: ConditionOutcome | undefined): ConditionDoc[] {
+  return conditions.map((c) => {
+    const a = outcome?.applied.find((x) => x.condition === c);
+    const base = { words: c.words, start: c.start, end: c.end };
+    const counts = a ? { before: a.before, after: a.after } : {};
+    const attribute = a?.attribute ? { id: a.attribute.id, label: a.attribute.label, ...(a.attribute.unit !== undefined ? { unit: a.attribute.unit } : {}) } : null;
+    switch (c.kind) {
+      case "comparison":
+        return {
+          kind: c.kind,
+          ...base,
+          attribute,
+          operator: c.operator,
+          values: c.values,
+          range: { ...(c.min !== undefined ? { min: c.min } : {}), ...(c.minStrict ? { minStrict: true } : {}), ...(c.max !== undefined ? { max: c.max } : {}), ...(c.maxStrict ? { maxStrict: true } : {}), negated: c.negated },
+          applied: attribute !== null,
+          ...counts,
+        };
+      case "superlative":
+        return { kind: c.kind, ...base, attribute, order: c.order, position: c.position, applied: attribute !== null, ...counts };
+      case "exclusion":
+        return { kind: c.kind, ...base, entity: { id: c.id, label: c.label }, mode: c.mode, applied: true, ...counts };
+      default:
+        return { kind: c.kind, ...base, applied: true, ...counts };
+    }
+  });
+}
+
+/** The condition steps of one answer: for every condition, the value read and whether it satisfied it. */
+export function conditionSteps(node: number, conditions: readonly Condition[], outcome: ConditionOutcome, catalog: Catalog): ConditionStepDoc[] {
+  const checks: readonly ConditionCheck[] = outcome.checks.get(node) ?? [];
+  return checks.map((ch) => {
+    const c = conditions[ch.condition]!;
+    const a = outcome.applied.find((x) => x.condition === c)?.attribute ?? null;
+    const temporal = isTemporalUnit(a?.unit);
+    const shown = ch.values.map((v) => formatValue(v, temporal)).join(", ");
+    const unit = a?.unit !== undefined && !temporal ? ` ${a.unit}` : "";
+    let text: string;
+    if (c.kind === "comparison") {
+      text = ch.values.length === 0 ? `${a?.label ?? "attribute"}: no value, so not ${c.operator} ${c.values.join(" and ")}` : `${a?.label}: ${shown}${unit} ${ch.satisfied ? "satisfies" : "fails"} ${c.operator} ${c.values.join(" and ")}`;
+    } else if (c.kind === "superlative") {
+      text = ch.values.length === 0 ? `${a?.label ?? "attribute"}: no value, so not ordered` : `${a?.label}: ${shown}${unit}, place ${ch.place} by ${c.order === "max" ? "largest" : "smallest"} first`;
+    } else if (c.kind === "exclusion") {
+      text = ch.satisfied ? `not ${c.label} and not linked to it` : `excluded: ${ch.excludedBy === node ? "is" : "is linked to"} ${c.label}`;
+    } else text = "counted";
+    return {
+      condition: ch.condition,
+      ...(a ? { attribute: a.id, label: a.label } : {}),
+      values: ch.values,
+      text,
+      satisfied: ch.satisfied,
+      ...(ch.place !== undefined ? { place: ch.place } : {}),
+    };
+  });
+}
+
+/** The count of a count question. */
+export function countDoc(outcome: ConditionOutcome, catalog: Catalog): CountDoc | undefined {
+  if (!outcome.count) return undefined;
+  return { value: outcome.count.value, entities: outcome.count.entities.map((n) => catalog.ref(n).id) };
+}
+
+/** The verdict of an ordering or a count (undefined: keep the explain stage's verdict). */
+export function conditionVerdict(conditions: readonly Condition[], outcome: ConditionOutcome, firstAnswer: number | undefined, catalog: Catalog): Verdict | undefined {
+  if (outcome.count) {
+    if (outcome.count.value === 0) return { status: "none", margin: 0, tiedWith: [], reason: "nothing fits every clue and condition: the count is 0" };
+    return { status: "unique", margin: 1, tiedWith: [], reason: `the count is ${outcome.count.value}` };
+  }
+  const sup = conditions.findIndex((c, i) => c.kind === "superlative" && outcome.applied.some((a) => a.condition === c && a.attribute !== null) && i >= 0);
+  if (sup < 0 || firstAnswer === undefined || outcome.tiedWith === undefined) return undefined;
+  const label = outcome.applied.find((a) => a.condition === conditions[sup])?.attribute?.label ?? "the attribute";
+  if (outcome.tiedWith.length > 0) {
+    return { status: "tied", margin: 0, tiedWith: outcome.tiedWith.map((n) => catalog.ref(n).id), reason: `${outcome.tiedWith.length + 1} candidates share the same ${label}` };
+  }
+  return { status: "unique", margin: 1, tiedWith: [], reason: `the only candidate at that place by ${label}` };
+}

@@ -1,0 +1,304 @@
+/**
+ * Applying a question's conditions to its ranked candidates: comparisons and exclusions as
+ * filters (the reason kept per candidate), superlatives and ordinals as an ordering of the
+ * candidates that fit the other clues, and a count of those candidates.
+ *
+ * Method: selection, ordering and counting over the candidate set, the relational-algebra
+ * reading of comparative, superlative and "how many" questions (selection σ, ORDER BY …
+ * LIMIT/OFFSET, COUNT; Codd 1970, "A Relational Model of Data for Large Shared Data Banks",
+ * CACM 13(6); the SQL forms as in ISO/IEC 9075). The candidate set comes from the walk, so
+ * "the candidates that fit the other clues" has to be decided from the graph: the fit set is
+ * the candidates that every clue reaches (full coverage), with the fewest unused cue words,
+ * at each clue's smallest hop distance among them (breadth-first search up to `maxHops`).
+ * "Which country in R has the largest area" then compares the countries one hop from R, not
+ * the ones reached through a neighbour. A question with no clue left (all of its mentions
+ * excluded, or none linked) but an expected answer type takes every entity of that type as
+ * candidates, all equally fit.
+ *
+ * An attribute is chosen per condition from its `choices` (best word match first): the best
+ * score among those some fit candidate carries, ties going to the attribute most fit
+ * candidates carry, then by id. A multi-valued attribute passes a comparison when some value
+ * does; a superlative uses the largest (for "max") or smallest value. Candidates without the
+ * attribute fail comparisons and come last in an ordering. Ties of value keep the ranking's
+ * order (score, then node).
+ */
+import type { AttributeChoice, Analysis, Condition, ComparisonCondition, SuperlativeCondition } from "../analysis/index.js";
+import type { Ranked, RankedCandidate } from "./rank.js";
+import type { RelationIndex } from "./relation-index.js";
+
+/** Options of {@link applyConditions}; all optional. */
+export interface ApplyConditionsOptions {
+  /** Hop limit of the fit-set distance search. @default 3 */
+  readonly maxHops?: number;
+  /** Node visits per clue of that search. @default 200000 */
+  readonly maxVisits?: number;
+}
+
+/** Defaults of {@link ApplyConditionsOptions}. */
+export const DEFAULTS = { maxHops: 3, maxVisits: 200000 } as const;
+
+/** Reads numeric attribute values (the catalog's `attributeNumbers`). */
+export interface AttributeLookup {
+  /** Numeric values of `predicate` on `entity`, smallest first. */
+  numbers(entity: number, predicate: number): readonly number[];
+}
+
+/** How one condition went for one candidate. */
+export interface ConditionCheck {
+  /** Index into the conditions. */
+  readonly condition: number;
+  /** Attribute predicate num used (comparisons, superlatives). */
+  readonly attribute?: number;
+  /** The values read (empty: the candidate has none). */
+  readonly values: readonly number[];
+  /** True when the candidate satisfies the condition (superlatives: true at the asked position). */
+  readonly satisfied: boolean;
+  /** For superlatives: the candidate's 1-based place in the ordering. */
+  readonly place?: number;
+  /** For exclusions: the excluded entity it is, or is linked to. */
+  readonly excludedBy?: number;
+}
+
+/** A condition after the attribute was chosen. */
+export interface AppliedCondition {
+  readonly condition: Condition;
+  /** The attribute used (null: none of the choices is carried by any candidate, or there were none). */
+  readonly attribute: AttributeChoice | null;
+  /** Candidates before and after this condition (filters) or ordered (superlatives). */
+  readonly before: number;
+  readonly after: number;
+}
+
+/** The outcome of {@link applyConditions}. */
+export interface ConditionOutcome {
+  /** The ranking with the conditions applied (candidates filtered and ordered, notes added). */
+  readonly ranked: Ranked;
+  readonly applied: readonly AppliedCondition[];
+  /** Per candidate node: how each condition went (also for the candidates removed). */
+  readonly checks: ReadonlyMap<number, readonly ConditionCheck[]>;
+  /** The fit set after the filters (nodes, in answer order). */
+  readonly fit: readonly number[];
+  /** A count question: the number and the entities counted (answer order). */
+  readonly count?: { readonly value: number; readonly entities: readonly number[] };
+  /** A superlative: the candidates sharing the asked value with the first answer (ties), besides it. */
+  readonly tiedWith?: readonly number[];
+  /** Candidates removed by a filter, with the first failed condition. */
+  readonly removed: readonly { readonly node: number; readonly condition: number }[];
+}
+
+/** True when the value lies in the comparison's range (negated: outside it). */
+export function satisfies(c: ComparisonCondition, v: number): boolean {
+  const inRange =
+    (c.min === undefined || (c.minStrict ? v > c.min : v >= c.min)) && (c.max === undefined || (c.maxStrict ? v < c.max : v <= c.max));
+  return c.negated ? !inRange : inRange;
+}
+
+/** Hop distances from `start` (both directions), up to `maxHops`, at most `maxVisits` nodes. */
+function hopDistances(index: RelationIndex, start: number, maxHops: number, maxVisits: number): Map<number, number> {
+  const dist = new Map<number, number>([[start, 0]]);
+  let frontier = [start];
+  for (let d = 1; d <= maxHops && frontier.length > 0 && dist.size < maxVisits; d++) {
+    const next: number[] = [];
+    for (const u of frontier) {
+      index.forEach(u, (v) => {
+        if (!dist.has(v) && dist.size < maxVisits) {
+          dist.set(v, d);
+          next.push(v);
+        }
+      });
+    }
+    frontier = next;
+  }
+  return dist;
+}
+
+/** Applies the conditions to a ranking. */
+export function applyConditions(
+  analysis: Analysis,
+  ranked: Ranked,
+  conditions: readonly Condition[],
+  index: RelationIndex,
+  lookup: AttributeLookup,
+  options: ApplyConditionsOptions = {},
+): ConditionOutcome {
+  const maxHops = options.maxHops ?? DEFAULTS.maxHops;
+  const maxVisits = options.maxVisits ?? DEFAULTS.maxVisits;
+  const notes: string[] = [];
+  const typeSet = new Set(analysis.answerTypes.map((t) => t.num));
+
+  // candidates: the ranking's, or (no clue left) every entity of the expected type
+  let cands: RankedCandidate[] = [...ranked.candidates];
+  let fit: Set<number>;
+  if (ranked.clues.length === 0 && typeSet.size > 0) {
+    cands = [];
+    for (let v = 0; v < index.nodeCount; v++) if (!typeSet.has(v) && index.isA(v, typeSet)) cands.push({ node: v, score: 1, perClue: [], covered: 0 });
+    fit = new Set(cands.map((c) => c.node));
+    if (cands.length > 0) notes.push(`no clue entity: every ${analysis.answerTypes.map((t) => t.label).join(" or ")} of the catalog is a candidate (${cands.length})`);
+  } else {
+    fit = fitSet(ranked, index, maxHops, maxVisits);
+  }
+
+  const checks = new Map<number, ConditionCheck[]>();
+  const addCheck = (node: number, c: ConditionCheck) => {
+    const list = checks.get(node) ?? [];
+    list.push(c);
+    checks.set(node, list);
+  };
+  const applied: AppliedCondition[] = [];
+  const removed: { node: number; condition: number }[] = [];
+  const valuesCache = new Map<string, readonly number[]>();
+  const values = (node: number, attr: number) => {
+    const key = `${node}:${attr}`;
+    let v = valuesCache.get(key);
+    if (!v) {
+      v = lookup.numbers(node, attr);
+      valuesCache.set(key, v);
+    }
+    return v;
+  };
+  const pick = (choices: readonly AttributeChoice[]): AttributeChoice | null => {
+    const pool = cands.filter((c) => fit.has(c.node));
+    const scope = pool.length > 0 ? pool : cands;
+    let best: AttributeChoice | null = null;
+    let bestCarry = 0;
+    for (const a of choices) {
+      const carry = scope.filter((c) => values(c.node, a.num).length > 0).length;
+      if (carry === 0) continue;
+      if (best === null || a.score > best.score + 1e-9 || (Math.abs(a.score - best.score) <= 1e-9 && carry > bestCarry)) {
+        best = a;
+        bestCarry = carry;
+      }
+    }
+    return best;
+  };
+
+  // filters first: exclusions and comparisons
+  conditions.forEach((c, ci) => {
+    if (c.kind === "exclusion") {
+      const before = cands.length;
+      const linked = new Set<number>([c.node]);
+      const selfOnly = c.mode === "other" && typeSet.size > 0 && index.isA(c.node, typeSet);
+      if (!selfOnly && c.node >= 0 && c.node < index.nodeCount) {
+        const rels = new Set(c.relations);
+        index.forEach(c.node, (v, rel) => {
+          if (rels.size === 0 || rels.has(rel)) linked.add(v);
+        });
+      }
+      cands = cands.filter((x) => {
+        const out = linked.has(x.node);
+        addCheck(x.node, { condition: ci, values: [], satisfied: !out, ...(out ? { excludedBy: c.node } : {}) });
+        if (out) removed.push({ node: x.node, condition: ci });
+        return !out;
+      });
+      applied.push({ condition: c, attribute: null, before, after: cands.length });
+      notes.push(`${c.words}: ${before - cands.length} candidate${before - cands.length === 1 ? "" : "s"} excluded (${selfOnly ? `${c.label} itself` : `${c.label} and what is linked to it${c.relations.length > 0 ? " by the cued relation" : ""}`})`);
+    } else if (c.kind === "comparison") {
+      const attr = pick(c.choices);
+      const before = cands.length;
+      if (attr === null) {
+        applied.push({ condition: c, attribute: null, before, after: before });
+        if (c.choices.length > 0) notes.push(`"${c.words}": no candidate has ${c.choices.map((a) => a.label).join(" or ")}, so the condition is not applied`);
+        return;
+      }
+      cands = cands.filter((x) => {
+        const vs = values(x.node, attr.num);
+        const ok = vs.some((v) => satisfies(c, v));
+        addCheck(x.node, { condition: ci, attribute: attr.num, values: vs, satisfied: ok });
+        if (!ok) removed.push({ node: x.node, condition: ci });
+        return ok;
+      });
+      applied.push({ condition: c, attribute: attr, before, after: cands.length });
+      notes.push(`${attr.label} ${c.operator} ${c.values.join(" and ")}: ${cands.length} of ${before} candidates kept`);
+    }
+  });
+  const kept = new Set(cands.map((c) => c.node));
+  const fitOrder = () => cands.filter((c) => fit.has(c.node));
+
+  // orderings: superlatives among the fit candidates
+  let tiedWith: number[] | undefined;
+  conditions.forEach((c, ci) => {
+    if (c.kind !== "superlative") return;
+    const attr = pick(c.choices);
+    const before = cands.length;
+    if (attr === null) {
+      applied.push({ condition: c, attribute: null, before, after: before });
+      if (c.choices.length > 0) notes.push(`"${c.words}": no candidate has ${c.choices.map((a) => a.label).join(" or ")}, so the ordering is not applied`);
+      return;
+    }
+    const order = orderOf(c, attr);
+    const inFit = fitOrder();
+    const rest = cands.filter((x) => !fit.has(x.node));
+    const key = (node: number) => {
+      const vs = values(node, attr.num);
+      return vs.length === 0 ? null : order === "max" ? vs[vs.length - 1]! : vs[0]!;
+    };
+    const withValue = inFit.filter((x) => key(x.node) !== null);
+    const without = inFit.filter((x) => key(x.node) === null);
+    // stable sort keeps the ranking order among equal values
+    withValue.sort((a, b) => (order === "max" ? key(b.node)! - key(a.node)! : key(a.node)! - key(b.node)!));
+    const pos = Math.min(c.position, withValue.length) - 1;
+    const ordered = pos > 0 ? [withValue[pos]!, ...withValue.slice(0, pos), ...withValue.slice(pos + 1)] : withValue;
+    ordered.forEach((x) => {
+      const place = withValue.indexOf(x) + 1;
+      addCheck(x.node, { condition: ci, attribute: attr.num, values: values(x.node, attr.num), satisfied: place === c.position, place });
+    });
+    for (const x of without) addCheck(x.node, { condition: ci, attribute: attr.num, values: [], satisfied: false });
+    if (ordered.length > 0) {
+      const top = key(ordered[0]!.node)!;
+      tiedWith = ordered.slice(1).filter((x) => key(x.node) === top).map((x) => x.node);
+    }
+    cands = [...ordered, ...without, ...rest];
+    applied.push({ condition: c, attribute: attr, before, after: cands.length });
+    notes.push(`ordered by ${attr.label} (${order === "max" ? "largest" : "smallest"} first${c.position > 1 ? `, place ${c.position} asked` : ""}) among ${withValue.length} candidate${withValue.length === 1 ? "" : "s"} that fit the clues and have it`);
+  });
+
+  const fitNow = fitOrder().map((c) => c.node).filter((n) => kept.has(n));
+  const countCond = conditions.find((c) => c.kind === "count");
+  let count: ConditionOutcome["count"];
+  if (countCond) {
+    // the counted entities first
+    const set = new Set(fitNow);
+    cands = [...cands.filter((c) => set.has(c.node)), ...cands.filter((c) => !set.has(c.node))];
+    count = { value: fitNow.length, entities: fitNow };
+    applied.push({ condition: countCond, attribute: null, before: cands.length, after: fitNow.length });
+    notes.push(`counted ${fitNow.length} entit${fitNow.length === 1 ? "y" : "ies"} that fit every clue and condition`);
+  }
+  if (cands.length === 0 && ranked.candidates.length > 0) notes.push("no candidate satisfies the conditions");
+  return {
+    ranked: { ...ranked, candidates: cands, notes: [...ranked.notes, ...notes] },
+    applied,
+    checks,
+    fit: fitNow,
+    ...(count ? { count } : {}),
+    ...(tiedWith !== undefined ? { tiedWith } : {}),
+    removed,
+  };
+}
+
+/** The direction of a superlative on the chosen attribute: a temporal word on a non-temporal attribute ("oldest" on an age) flips. */
+function orderOf(c: SuperlativeCondition, attr: AttributeChoice): "max" | "min" {
+  const temporalAttr = attr.unit !== undefined ? /year|date/i.test(attr.unit) : true;
+  if (c.temporal && !temporalAttr) return c.order === "max" ? "min" : "max";
+  return c.order;
+}
+
+/**
+ * The candidates that fit the other clues: full clue coverage, fewest unused cue words, and
+ * at every clue's smallest hop distance among those.
+ */
+function fitSet(ranked: Ranked, index: RelationIndex, maxHops: number, maxVisits: number): Set<number> {
+  if (ranked.candidates.length === 0) return new Set();
+  const maxCovered = Math.max(...ranked.candidates.map((c) => c.covered));
+  let pool = ranked.candidates.filter((c) => c.covered === maxCovered);
+  const minMiss = Math.min(...pool.map((c) => c.cueMissing ?? 0));
+  pool = pool.filter((c) => (c.cueMissing ?? 0) <= minMiss + 1e-9);
+  for (const clue of ranked.clues) {
+    if (clue.node < 0 || clue.node >= index.nodeCount) continue;
+    const dist = hopDistances(index, clue.node, maxHops, maxVisits);
+    const d = (n: number) => dist.get(n) ?? Infinity;
+    const min = Math.min(...pool.map((c) => d(c.node)));
+    if (min === Infinity) continue;
+    pool = pool.filter((c) => d(c.node) === min);
+  }
+  return new Set(pool.map((c) => c.node));
+}
