@@ -60,7 +60,12 @@ describe("reading while a load writes", () => {
       seen.add(snapshot());
       reads++;
       if (reads % 5 === 1) {
-        const r = spawnSync(process.execPath, [MAIN, "show", "s:1", "--db", db], { encoding: "utf8" });
+        let r = spawnSync(process.execPath, [MAIN, "show", "s:1", "--db", db], { encoding: "utf8" });
+        // a half-written dist/ (another build at the same moment) fails at module load: retry that only
+        for (let k = 0; k < 5 && /SyntaxError: The requested module|ERR_MODULE_NOT_FOUND/.test(r.stderr); k++) {
+          await new Promise((ok) => setTimeout(ok, 1000));
+          r = spawnSync(process.execPath, [MAIN, "show", "s:1", "--db", db], { encoding: "utf8" });
+        }
         expect(r.status, r.stderr).toBe(0);
         expect(r.stdout).toContain("Seed 1  [s:1]");
         shows++;

@@ -26,7 +26,22 @@ let big = "";
  * (when `walBytes` is given) once the write-ahead log has grown to that size, i.e. while
  * SQLite is writing pages of the uncommitted transaction.
  */
-function killWhen(db: string, when: { ms: number; walBytes?: number }, extra: string[] = []): Promise<{ signal: NodeJS.Signals | null; code: number | null; stderr: string; walAtKill: number }> {
+/** A half-written dist/ (another build running at the same moment) fails at module load. */
+const BUILD_IN_FLUX = /SyntaxError: The requested module|ERR_MODULE_NOT_FOUND|Cannot find module/;
+
+async function killWhen(db: string, when: { ms: number; walBytes?: number }, extra: string[] = []): Promise<{ signal: NodeJS.Signals | null; code: number | null; stderr: string; walAtKill: number }> {
+  for (let attempt = 0; ; attempt++) {
+    const r = await killOnce(db, when, extra);
+    // only a module-load failure of the build itself is retried
+    if (attempt < 5 && r.signal === null && BUILD_IN_FLUX.test(r.stderr)) {
+      await new Promise((ok) => setTimeout(ok, 2000));
+      continue;
+    }
+    return r;
+  }
+}
+
+function killOnce(db: string, when: { ms: number; walBytes?: number }, extra: string[]): Promise<{ signal: NodeJS.Signals | null; code: number | null; stderr: string; walAtKill: number }> {
   return new Promise((done) => {
     const child = spawn(process.execPath, [MAIN, "load", big, "--db", db, ...extra], { cwd: dir });
     let stderr = "";

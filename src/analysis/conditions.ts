@@ -91,6 +91,8 @@ export interface AttributeRef {
 /** An attribute that fits a condition's words, with its match score. */
 export interface AttributeChoice extends AttributeRef {
   readonly score: number;
+  /** Indexes (into the question's words) of the words that matched. */
+  readonly wordIndexes: readonly number[];
 }
 
 /** Fields every condition has. */
@@ -238,7 +240,14 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   const o: Required<ConditionOptions> = { ...DEFAULTS, ...options };
   const question = analysis.question;
   const ws = words(question);
-  const inMention = ws.map((w) => analysis.mentions.some((m) => w.start < m.end && w.end > m.start));
+  // a mention that is only a number inside a quantity ("20" of "20,000") is the quantity, not a name
+  const allQuantities = findQuantities(question);
+  const numeric = new Set<number>();
+  analysis.mentions.forEach((m, mi) => {
+    if (/^[\d.,\s]+$/.test(m.text) && allQuantities.some((q) => q.start <= m.start && m.end <= q.end)) numeric.add(mi);
+  });
+  const names = analysis.mentions.filter((_, mi) => !numeric.has(mi));
+  const inMention = ws.map((w) => names.some((m) => w.start < m.end && w.end > m.start));
   const used = new Set<number>(); // word indexes consumed by conditions
   const conditions: Condition[] = [];
   const notes: string[] = [];
@@ -270,7 +279,7 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   }
 
   // --- comparisons around quantities ---------------------------------------------------
-  const quantities = findQuantities(question).filter((q) => !analysis.mentions.some((m) => q.start < m.end && q.end > m.start));
+  const quantities = allQuantities.filter((q) => !names.some((m) => q.start < m.end && q.end > m.start));
   const wordAt = (offset: number) => ws.findIndex((w) => w.start <= offset && offset < w.end);
   const negationBefore = (i: number): number => {
     // "not" right before an operator phrase: returns the negation word index or -1
@@ -409,7 +418,7 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
       // the first clue mention after the cue, within the window, with no comma between
       let best = -1;
       analysis.mentions.forEach((m, mi) => {
-        if (m.start < cueEnd || excluded.has(mi) || !analysis.clues.some((c) => c.mention === mi)) return;
+        if (m.start < cueEnd || excluded.has(mi) || numeric.has(mi) || !analysis.clues.some((c) => c.mention === mi)) return;
         if (best < 0 || m.start < analysis.mentions[best]!.start) best = mi;
       });
       if (best >= 0) {
@@ -428,6 +437,9 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   }
 
   for (const c of conditions) {
+    if ((c.kind === "comparison" || c.kind === "superlative") && c.choices.length > 0) for (const k of c.choices[0]!.wordIndexes) used.add(k);
+  }
+  for (const c of conditions) {
     if ((c.kind === "comparison" || c.kind === "superlative") && c.choices.length === 0) {
       notes.push(`"${c.words}": no attribute of the catalog matches these words, so the condition is not applied`);
     }
@@ -437,8 +449,19 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   // condition words are no relation cues; excluded mentions are no clues
   const usedText = new Set([...used].map((k) => ws[k]!.text));
   const relationCues = analysis.relationCues.filter((c) => !c.words.every((w) => usedText.has(w)));
-  const clues = analysis.clues.filter((c) => !excluded.has(c.mention));
-  const baseNotes = answerTypes !== analysis.answerTypes ? analysis.notes.filter((n) => !/^no question word/.test(n)) : analysis.notes;
+  const clues = analysis.clues.filter((c) => !excluded.has(c.mention) && !numeric.has(c.mention));
+  for (const mi of numeric) notes.push(`"${analysis.mentions[mi]!.text}" is read as part of a number, not as ${analysis.mentions[mi]!.entity.label}`);
+  // notes about words the conditions explain ("1980" matched no entity) are dropped
+  const usedSpans = [...used].map((k) => ws[k]!);
+  const explained = (text: string) =>
+    words(text).every((x) => usedSpans.some((w) => w.text === x.text) || quantities.some((q) => question.slice(q.start, q.end).includes(x.text)));
+  const baseNotes = analysis.notes.filter((n) => {
+    if (answerTypes !== analysis.answerTypes && /^no question word/.test(n)) return false;
+    const m = /^"([^"]+)" matched no catalog entity/.exec(n);
+    if (m && explained(m[1]!)) return false;
+    if (/^no clue entity linked/.test(n) && answerTypes.length > 0) return false;
+    return true;
+  });
   for (const c of conditions) if (c.kind === "exclusion") notes.push(`"${c.words}": ${c.label} is excluded, not used as a clue`);
   return { analysis: { ...analysis, answerTypes, relationCues, clues, notes: [...baseNotes, ...notes] }, conditions };
 }
@@ -552,44 +575,55 @@ function chooseAttributes(
   });
   const unitStems = quantities.flatMap((q) => (q.unit !== undefined ? surfaceStems(q.unit) : []));
   const hints = (dimension?.hints ?? []).map(stemToken);
-  const scored: { a: ModelAttribute; score: number; dist: number }[] = [];
+  const scored: { a: ModelAttribute; score: number; dist: number; at: number[] }[] = [];
   for (const a of attributes.attributes) {
     let best = 0;
     let dist = Infinity;
+    let at: number[] = [];
     for (const surface of a.surfaces) {
       let sum = 0;
       let d = Infinity;
+      const hit: number[] = [];
       for (const s of surface) {
         let c = 0;
         let cd = Infinity;
+        let ck = -1;
         for (const k of free) {
           const x = credit(s, ws[k]!.stem, o);
           const kd = Math.abs(k - centre);
           if (x > c || (x === c && x > 0 && kd < cd)) {
             c = x;
             cd = kd;
+            ck = k;
           }
         }
         sum += c;
-        if (c > 0) d = Math.min(d, cd);
+        if (c > 0) {
+          d = Math.min(d, cd);
+          hit.push(ck);
+        }
       }
       const sc = surface.length > 0 ? sum / surface.length : 0;
       if (sc > best || (sc === best && d < dist)) {
         best = sc;
         dist = d;
+        at = hit;
       }
     }
     if (unitStems.length > 0 && a.unitStems.length > 0 && a.unitStems.every((u) => unitStems.some((x) => credit(u, x, o) > 0))) best += o.unitBonus;
     // a unit word written in the question without a number ("most inhabitants") matches like a label word
-    if (best === 0 && a.unitStems.length > 0 && a.unitStems.every((u) => free.some((k) => credit(u, ws[k]!.stem, o) === 1))) best = 0.6;
+    if (best === 0 && a.unitStems.length > 0 && a.unitStems.every((u) => free.some((k) => credit(u, ws[k]!.stem, o) === 1))) {
+      best = 0.6;
+      at = free.filter((k) => a.unitStems.some((u) => credit(u, ws[k]!.stem, o) === 1));
+    }
     if (hints.length > 0) {
       const h = hints.findIndex((x) => a.surfaces.some((s) => s.includes(x)) || a.id.toLowerCase() === x);
       if (h >= 0) best = Math.max(best, o.hintScore - 0.01 * h);
     }
     if (temporal && a.temporal) best += o.temporalBonus;
     if (!temporal && a.temporal && quantities.length > 0 && best > 0) best -= o.temporalBonus;
-    if (best >= o.minScore) scored.push({ a, score: best, dist });
+    if (best >= o.minScore) scored.push({ a, score: best, dist, at });
   }
   scored.sort((x, y) => y.score - x.score || x.dist - y.dist || (x.a.id < y.a.id ? -1 : x.a.id > y.a.id ? 1 : 0));
-  return scored.map(({ a, score }) => ({ num: a.num, id: a.id, label: a.label, ...(a.unit !== undefined ? { unit: a.unit } : {}), score }));
+  return scored.map(({ a, score, at }) => ({ num: a.num, id: a.id, label: a.label, ...(a.unit !== undefined ? { unit: a.unit } : {}), score, wordIndexes: at }));
 }

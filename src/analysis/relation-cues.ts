@@ -31,6 +31,14 @@ export interface RelationCueOptions {
 /** Defaults of {@link RelationCueOptions}. */
 export const DEFAULTS = { boost: 4, minScore: 0.5, partialCredit: 0.7, prefixMin: 4 } as const;
 
+/** One place a cued relation stands in the question. */
+export interface CueOccurrence {
+  /** UTF-16 offset of the word. */
+  readonly start: number;
+  /** The voice flip at this place (see {@link RelationCue.flip}). */
+  readonly flip: boolean;
+}
+
 /** One relation cued by the question. */
 export interface RelationCue {
   /** Predicate num. */
@@ -50,6 +58,13 @@ export interface RelationCue {
    * "manufactured by" (a passive label) is no flip; "which company made …" (active) is.
    */
   readonly flip: boolean;
+  /**
+   * UTF-16 offsets of every place the cue stands in the question, in order: the first matched
+   * word and each later content word with the same stem ("cites a document that cites …"
+   * names the relation twice, one hop each), each with its own voice.
+   * @default [{ start, flip }]
+   */
+  readonly occurrences?: readonly CueOccurrence[];
 }
 
 /**
@@ -106,6 +121,11 @@ export function relationCues(ws: readonly Word[], content: readonly number[], mo
       const questionPassive = ws[last + 1]?.norm === "by";
       const labelTokens = tokens(r.label);
       const labelPassive = labelTokens[labelTokens.length - 1] === "by";
+      // repeated occurrences: later content words with the first matched word's stem
+      const occurrences: CueOccurrence[] = [{ start: ws[first]!.start, flip: questionPassive !== labelPassive }];
+      for (const k of content) {
+        if (k > last && ws[k]!.stem === ws[first]!.stem) occurrences.push({ start: ws[k]!.start, flip: (ws[k + 1]?.norm === "by") !== labelPassive });
+      }
       cues.push({
         relation: r.num,
         id: r.id,
@@ -115,6 +135,7 @@ export function relationCues(ws: readonly Word[], content: readonly number[], mo
         words: bestWords.map((k) => ws[k]!.text),
         start: ws[first]!.start,
         flip: questionPassive !== labelPassive,
+        occurrences,
       });
     }
   }

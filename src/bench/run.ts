@@ -13,6 +13,8 @@
  *
  * Writes bench-results/bench-SIZES-TIME.json and .md, and bench-results/latest.md.
  * Options: --size S|M|L (repeatable or comma-separated), --questions N (default 200),
+ * --phases generate,load,index,ready,ask,ppr (a subset, in that order; default all; the
+ * later phases reuse the catalog the earlier ones left in the work folder),
  * --work DIR (generated catalogs; default $TMPDIR/tiepoint-bench), --out DIR.
  */
 import { spawnSync } from "node:child_process";
@@ -48,6 +50,7 @@ function args(argv: readonly string[]) {
   let work = join(tmpdir(), "tiepoint-bench");
   let out = join(ROOT, "bench-results");
   let phase: string | undefined;
+  let phases = ["generate", "load", "index", "ready", "ask", "ppr"];
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     const next = () => argv[++i] ?? usage(`${a} needs a value`);
@@ -62,9 +65,13 @@ function args(argv: readonly string[]) {
     } else if (a === "--work") work = resolve(next());
     else if (a === "--out") out = resolve(next());
     else if (a === "--phase") phase = next();
+    else if (a === "--phases") {
+      phases = next().split(",").map((x) => x.trim());
+      for (const x of phases) if (!["generate", "load", "index", "ready", "ask", "ppr"].includes(x)) usage(`unknown phase "${x}" (generate, load, index, ready, ask, ppr)`);
+    }
     else usage(`unknown option ${a}`);
   }
-  return { sizes: sizes.length > 0 ? sizes : (["S", "M"] as SizeName[]), questions, work, out, phase };
+  return { sizes: sizes.length > 0 ? sizes : (["S", "M"] as SizeName[]), questions, work, out, phase, phases };
 }
 
 /** Runs one phase in a child process; returns its JSON record. */
@@ -126,15 +133,16 @@ function main(): void {
     const s = SIZES[size];
     process.stderr.write(`bench ${size}: ${s.entities} entities, ${s.edges} edges (work folder ${work})\n`);
     const r: SizeResult = { size, entities: s.entities, edges: s.edges, phases: {} };
-    for (const phase of ["generate", "load", "index", "ask", "ppr"]) {
+    for (const phase of ["generate", "load", "index", "ready", "ask", "ppr"]) {
+      if (!o.phases.includes(phase)) continue;
       process.stderr.write(`bench ${size}: ${phase}…\n`);
+      if (phase === "ready") {
+        r.phases.ready = phaseReady(work, CLI);
+        continue;
+      }
       const t = performance.now();
       r.phases[phase] = child(phase, size, o.work, o.questions);
       process.stderr.write(`bench ${size}: ${phase} done in ${((performance.now() - t) / 1000).toFixed(1)} s\n`);
-      if (phase === "index") {
-        process.stderr.write(`bench ${size}: ready…\n`);
-        r.phases.ready = phaseReady(work, CLI);
-      }
     }
     results.push(r);
   }

@@ -10,7 +10,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { Catalog, loadFiles } from "./index.js";
+import { Catalog, CatalogWriter, loadFiles, normalize, stemKey } from "./index.js";
 import { TiepointError } from "../model/index.js";
 import { readBlocks } from "./import/lines.js";
 
@@ -80,6 +80,26 @@ describe("loadFiles guards", () => {
     expect(() => loadFiles(cat, [good, bad])).toThrow(TiepointError);
     loadFiles(cat, [good]);
     expect(cat.version().generation).toBe(g0 + 2);
+    cat.close();
+  });
+});
+
+describe("CatalogWriter alias forms", () => {
+  it("stores normalize(text) and stemKey(text), the forms linking computes at ask time (fast-check)", () => {
+    const cat = Catalog.open(":memory:", { create: true });
+    const w = new CatalogWriter(cat);
+    w.begin();
+    let k = 0;
+    fc.assert(
+      fc.property(fc.string({ unit: "grapheme", minLength: 1, maxLength: 20 }), (text) => {
+        const id = `e${k++}`;
+        w.label(id, text);
+        const row = cat.db.prepare("SELECT norm, stem FROM alias WHERE entity = ? AND text = ?").get(cat.db.prepare("SELECT num FROM entity WHERE id = ?").pluck().get(id), text) as { norm: string; stem: string };
+        expect(row).toEqual({ norm: normalize(text), stem: stemKey(text) });
+      }),
+      { numRuns: 300, seed: 3 },
+    );
+    w.rollback();
     cat.close();
   });
 });

@@ -5,7 +5,7 @@
  */
 import Database from "better-sqlite3";
 import { randomUUID } from "node:crypto";
-import { accessSync, constants, existsSync, openSync, readSync, closeSync, statSync } from "node:fs";
+import { accessSync, constants, existsSync, openSync, readSync, closeSync, statSync, readFileSync } from "node:fs";
 import { TiepointError } from "../model/index.js";
 import { SCHEMA_SQL, SCHEMA_VERSION } from "./schema.js";
 
@@ -179,6 +179,22 @@ export class Catalog {
     } catch (e) {
       db.close();
       if (e instanceof TiepointError) throw e;
+      // read-only storage (issue 10): SQLite cannot create the WAL index (PATH-shm) beside
+      // the file, so read a private in-memory copy instead (https://www.sqlite.org/wal.html,
+      // "Read-Only Databases"); only when no write-ahead log holds committed pages
+      if (readonly && !memory && (e as { code?: string }).code === "SQLITE_CANTOPEN" && !(existsSync(`${path}-wal`) && statSync(`${path}-wal`).size > 0)) {
+        const copy = readFileSync(path);
+        if (copy[18] === 2 && copy[19] === 2) copy[18] = copy[19] = 1; // WAL → rollback journal in the header of the copy
+        const mem = new Database(copy, { readonly: true });
+        const roCat = new Catalog(mem, path, true);
+        try {
+          roCat.initialise(false);
+        } catch (e2) {
+          mem.close();
+          throw e2 instanceof TiepointError ? e2 : new TiepointError("catalog/open", `cannot open catalog: ${(e2 as Error).message}`, { file: path });
+        }
+        return roCat;
+      }
       const msg = (e as Error).message;
       if (/not a database|file is encrypted|malformed/i.test(msg)) {
         throw new TiepointError("catalog/not-sqlite", "not a tiepoint catalog (not an SQLite database file)", { file: path });

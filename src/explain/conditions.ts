@@ -17,56 +17,7 @@
 import type { Catalog } from "../catalog/index.js";
 import type { Condition } from "../analysis/index.js";
 import type { ConditionCheck, ConditionOutcome } from "../ranking/index.js";
-import type { EntityRef, Verdict } from "../model/index.js";
-
-/** One recognised condition in `ask --json` (`conditions`, additive). */
-export interface ConditionDoc {
-  readonly kind: "comparison" | "superlative" | "exclusion" | "count";
-  /** The question words that expressed it. */
-  readonly words: string;
-  readonly start: number;
-  readonly end: number;
-  /** The attribute used (comparisons, superlatives); null when none was found. */
-  readonly attribute?: { readonly id: string; readonly label: string; readonly unit?: string } | null;
-  /** Comparisons: operator and the values as written. */
-  readonly operator?: string;
-  readonly values?: readonly string[];
-  /** Comparisons: the range on the catalog's numeric scale. */
-  readonly range?: { readonly min?: number; readonly minStrict?: boolean; readonly max?: number; readonly maxStrict?: boolean; readonly negated: boolean };
-  /** Superlatives: direction and 1-based position. */
-  readonly order?: "max" | "min";
-  readonly position?: number;
-  /** Exclusions: the excluded entity and how far the exclusion reaches. */
-  readonly entity?: EntityRef;
-  readonly mode?: "other" | "not";
-  /** False when the condition could not be applied (no attribute). */
-  readonly applied: boolean;
-  /** Candidates before and after it. */
-  readonly before?: number;
-  readonly after?: number;
-}
-
-/** One condition step of an answer (`answers[i].values`, additive). */
-export interface ConditionStepDoc {
-  /** Index into `conditions`. */
-  readonly condition: number;
-  /** Attribute id and label (comparisons, superlatives). */
-  readonly attribute?: string;
-  readonly label?: string;
-  /** The values read (catalog numeric scale) and as text. */
-  readonly values: readonly number[];
-  readonly text: string;
-  readonly satisfied: boolean;
-  /** Superlatives: the answer's place in the ordering. */
-  readonly place?: number;
-}
-
-/** The answer of a count question (`count`, additive). */
-export interface CountDoc {
-  readonly value: number;
-  /** Ids of the entities counted. */
-  readonly entities: readonly string[];
-}
+import type { ConditionDoc, ConditionStepDoc, CountDoc, Verdict } from "../model/index.js";
 
 /** A value on the catalog's scale as text: dates back as ISO 8601, other numbers with thousands separators. */
 export function formatValue(v: number, temporal: boolean): string {
@@ -115,7 +66,7 @@ export function conditionDocs(conditions: readonly Condition[], outcome: Conditi
 }
 
 /** The condition steps of one answer: for every condition, the value read and whether it satisfied it. */
-export function conditionSteps(node: number, conditions: readonly Condition[], outcome: ConditionOutcome, catalog: Catalog): ConditionStepDoc[] {
+export function conditionSteps(node: number, conditions: readonly Condition[], outcome: ConditionOutcome): ConditionStepDoc[] {
   const checks: readonly ConditionCheck[] = outcome.checks.get(node) ?? [];
   return checks.map((ch) => {
     const c = conditions[ch.condition]!;
@@ -150,6 +101,16 @@ export function countDoc(outcome: ConditionOutcome, catalog: Catalog): CountDoc 
 
 /** The verdict of an ordering or a count (undefined: keep the explain stage's verdict). */
 export function conditionVerdict(conditions: readonly Condition[], outcome: ConditionOutcome, firstAnswer: number | undefined, catalog: Catalog): Verdict | undefined {
+  const cands = outcome.ranked.candidates;
+  if (outcome.ranked.clues.length === 0 && !outcome.count && !outcome.tiedWith && outcome.applied.some((a) => a.attribute !== null)) {
+    // no clue: the attribute conditions alone decide; every entity that passes fits equally
+    if (cands.length === 0) return { status: "none", margin: 0, tiedWith: [], reason: "no entity of the expected type satisfies the conditions" };
+    if (cands.length === 1) return { status: "unique", margin: 1, tiedWith: [], reason: "the only entity of the expected type that satisfies the conditions" };
+    return { status: "tied", margin: 0, tiedWith: cands.slice(1).map((c) => catalog.ref(c.node).id), reason: `${cands.length} entities of the expected type satisfy the conditions` };
+  }
+  if (outcome.ranked.clues.length > 0 && outcome.fit.length === 0 && cands.length > 0 && !outcome.count) {
+    return { status: "weak", margin: 0, tiedWith: [], reason: "no candidate that fits every clue satisfies the conditions" };
+  }
   if (outcome.count) {
     if (outcome.count.value === 0) return { status: "none", margin: 0, tiedWith: [], reason: "nothing fits every clue and condition: the count is 0" };
     return { status: "unique", margin: 1, tiedWith: [], reason: `the count is ${outcome.count.value}` };

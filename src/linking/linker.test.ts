@@ -48,6 +48,13 @@ describe("linkQuestion on the fixture catalog", () => {
     expect(m.alternatives).toEqual([]);
   });
 
+  it("never makes a mention of type words, relation phrases or stop words alone", () => {
+    // "researcher", "lab", "vessel", "people" are type labels/aliases; "works in", "captain of" relation phrases
+    for (const q of ["Which researcher works in the lab?", "Who is the captain of which vessel?", "What is it?", "Which People?"]) {
+      expect(link(q).mentions, q).toEqual([]);
+    }
+  });
+
   it("decides a shared name by relation words and by context words", () => {
     // "captain of" is a relation of the fixture; only the ship has such an edge
     const ship = only("Who is the captain of the Aurora?");
@@ -107,6 +114,8 @@ describe("linkQuestion on the fixture catalog", () => {
     expect(link("Where does Ada work?", [{ text: "Ada", entity: "Ada Morrow" }]).mentions[0]!.entity.id).toBe("p:morrow");
     expect(() => link("Who is Ada?", [{ text: "Ada", entity: "p:nobody" }])).toThrow(/no entity has the id or exact label "p:nobody"/);
     expect(() => link("Who is Ada?", [{ text: "Brill", entity: "town:brill" }])).toThrow(/"Brill" does not occur in the question/);
+    expect(() => link("Who sailed the Aurora?", [{ text: "Aurora", entity: "Aurora" }])).toThrow(/names 2 entities \(s:aurora, town:aurora\); pin one by its id/);
+    expect(() => link("Ada Quell", [{ text: "Ada Quell", entity: "p:ada" }, { text: "Quell", entity: "p:ada" }])).toThrow(/overlaps another pin/);
   });
 
   it("is deterministic", () => {
@@ -135,6 +144,12 @@ describe("linkQuestion on arbitrary text (properties)", () => {
   it("handles names mixed with emoji, right-to-left text and control characters", () => {
     const parts = fc.constantFrom("Ada Quell", "Aurora", "Zoë Ñandú", "Brill", "🚢", "👩🏽‍🔬", "שלום", "مرحبا", "\u202e", "\u0000", "\u0007", "\t", "\r\n", "'", "-", "ﬁ", "Ｑｕｅｌｌ", "captain of", "the");
     fc.assert(fc.property(fc.array(parts, { maxLength: 12 }).map((a) => a.join(" ")), check), { numRuns: 300 });
+  });
+
+  it("handles 100 KB of lower-case words that link to nothing", () => {
+    const words = ["zorvath", "quintel", "marbeck", "olund", "trevask", "hyllo", "praxen", "dunmire"];
+    const big = Array.from({ length: 14_000 }, (_, k) => words[(k * 7 + (k >> 3)) % words.length]).join(" ").slice(0, 100_000);
+    check(big);
   });
 
   it("handles a 100 KB question", () => {

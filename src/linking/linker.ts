@@ -113,12 +113,17 @@ export class Linker implements AliasLexicon {
   private readonly phraseTypes = new Map<string, number[]>();
   private readonly phraseRelations = new Map<string, number[]>();
   private readonly supertypes = new Map<number, ReadonlySet<number>>();
+  /** Every word (normalised or stemmed) of some type or relation phrase. */
+  private readonly phraseWords = new Set<string>();
   /** Longest type or relation phrase, in tokens. */
   private readonly maxPhrase: number;
   private fuzzyIndex: FuzzyTokenIndex | undefined;
   private readonly docs = new Bounded<number, ContextDoc>(DEFAULTS.cacheSize);
   private readonly links = new Bounded<number, number[]>(DEFAULTS.cacheSize);
   private readonly typeCache = new Bounded<number, readonly number[]>(DEFAULTS.cacheSize);
+  private readonly refs = new Bounded<number, EntityRef>(DEFAULTS.cacheSize);
+  private readonly aliasHits = new Bounded<string, readonly AliasHit[]>(DEFAULTS.cacheSize);
+  private readonly relationEdges = new Bounded<string, boolean>(DEFAULTS.cacheSize);
 
   private constructor(cat: Catalog, snapshot: LexicalSnapshot) {
     this.catalog = cat;
@@ -130,7 +135,9 @@ export class Linker implements AliasLexicon {
         const list = map.get(key) ?? [];
         if (!list.includes(num)) list.push(num);
         map.set(key, list);
-        maxPhrase = Math.max(maxPhrase, key.split(" ").length);
+        const words = key.split(" ");
+        for (const w of words) this.phraseWords.add(w);
+        maxPhrase = Math.max(maxPhrase, words.length);
       }
     };
     const types = cat.types();
@@ -158,19 +165,27 @@ export class Linker implements AliasLexicon {
     this.maxPhrase = maxPhrase;
   }
 
-  /** Loads what linking needs from `cat` once (the snapshot file is reused while current). */
+  /**
+   * Loads what linking needs from `cat` once (the snapshot file is reused while current). A linker
+   * reflects the catalog as it was when made (it caches lookups): make a new one after a load.
+   */
   static fromCatalog(cat: Catalog, options: LinkerOptions = {}): Linker {
     return new Linker(cat, options.snapshot ?? LexicalSnapshot.forCatalog(cat));
   }
 
   /** @internal */
   byNorm(norm: string): readonly AliasHit[] {
-    return this.catalog.byNorm(norm);
+    return this.aliasHits.get(`n ${norm}`, () => this.catalog.byNorm(norm));
   }
 
   /** @internal */
   byStem(stem: string): readonly AliasHit[] {
-    return this.catalog.byStem(stem);
+    return this.aliasHits.get(`s ${stem}`, () => this.catalog.byStem(stem));
+  }
+
+  /** @internal id and label of an entity (cached). */
+  ref(num: number): EntityRef {
+    return this.refs.get(num, () => this.catalog.ref(num));
   }
 
   /** @internal */
@@ -202,6 +217,7 @@ export class Linker implements AliasLexicon {
       let stem = "";
       for (let len = 1; len <= this.maxPhrase && i + len <= toks.length; len++) {
         const t = toks[i + len - 1]!;
+        if (!this.phraseWords.has(t.norm) && !this.phraseWords.has(t.stem)) break;
         norm = len === 1 ? t.norm : `${norm} ${t.norm}`;
         stem = len === 1 ? t.stem : `${stem} ${t.stem}`;
         for (const k of [norm, stem]) {
@@ -232,7 +248,7 @@ export class Linker implements AliasLexicon {
         addText(label, 1);
         addText(description, NEIGHBOUR_DESCRIPTION_WEIGHT);
       }
-      for (const t of this.typesOf(num)) addText(this.catalog.ref(t).label, 1);
+      for (const t of this.typesOf(num)) addText(this.ref(t).label, 1);
       return { terms, length };
     });
   }
@@ -273,7 +289,7 @@ export class Linker implements AliasLexicon {
     }
     let relOk = 0;
     for (const r of named.relations) {
-      if (this.catalog.hasRelationEdge(c.num, r)) {
+      if (this.relationEdges.get(`${c.num} ${r}`, () => this.catalog.hasRelationEdge(c.num, r))) {
         relOk = 1;
         break;
       }
@@ -334,10 +350,18 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
   const blocked = toks.map(() => false);
   const pinned: { first: number; last: number; num: number }[] = [];
   for (const pin of options.pins ?? []) {
+    const what = `--pin "${pin.text}=${pin.entity}"`;
     const nums = cat.byLabelOrId(pin.entity);
-    if (nums.length === 0) throw new TiepointError("linking/pin", `--pin "${pin.text}=${pin.entity}": no entity has the id or exact label "${pin.entity}"`);
+    if (nums.length === 0) throw new TiepointError("linking/pin", `${what}: no entity has the id or exact label "${pin.entity}"`);
+    if (nums.length > 1) {
+      const ids = nums.slice(0, 5).map((n) => linker.ref(n).id).join(", ");
+      throw new TiepointError("linking/pin", `${what}: the label "${pin.entity}" names ${nums.length} entities (${ids}); pin one by its id`);
+    }
     const range = findTokens(toks, pin.text);
-    if (!range) throw new TiepointError("linking/pin", `--pin "${pin.text}=${pin.entity}": "${pin.text}" does not occur in the question`);
+    if (!range) throw new TiepointError("linking/pin", `${what}: "${pin.text}" does not occur in the question`);
+    for (let k = range[0]; k < range[1]; k++) {
+      if (blocked[k]) throw new TiepointError("linking/pin", `${what}: overlaps another pin`);
+    }
     for (let k = range[0]; k < range[1]; k++) blocked[k] = true;
     pinned.push({ first: range[0], last: range[1], num: nums[0]! });
   }
@@ -366,11 +390,11 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     return { text: question.slice(start, end), start, end };
   };
   for (const p of pinned) {
-    const ref = cat.ref(p.num);
+    const ref = linker.ref(p.num);
     mentions.push({ ...spanText(p.first, p.last), entity: ref, num: p.num, confidence: 1, alternatives: [], pinned: true });
   }
   det.spans.forEach((span, m) => {
-    const withRefs = scored[m]!.map((c) => ({ ...c, ref: cat.ref(c.num) }));
+    const withRefs = scored[m]!.map((c) => ({ ...c, ref: linker.ref(c.num) }));
     withRefs.sort((a, b) => b.confidence - a.confidence || (a.ref.id < b.ref.id ? -1 : a.ref.id > b.ref.id ? 1 : 0));
     const best = withRefs[0];
     if (!best) return;
@@ -400,7 +424,9 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
       if (last && last[1] === i) last[1] = i + 1;
       else runs.push([i, i + 1]);
     }
-    const again = detectMentions(toks, linker, toks.map((t, k) => !runs.some(([a, b]) => k >= a && k < b) || t.norm === ""), true);
+    const outside = toks.map(() => true);
+    for (const [a, b] of runs.slice(0, 8)) for (let k = a; k < b; k++) outside[k] = false;
+    const again = detectMentions(toks, linker, outside, true);
     unlinked = runs.slice(0, 8).map(([a, b]) => {
       const near = [...again.spans.filter((s) => s.first >= a && s.last <= b).flatMap((s) => s.candidates), ...again.unmatched.filter((u) => u.first >= a && u.last <= b).flatMap((u) => u.suggestions)];
       return { ...spanText(a, b), suggestions: near.slice(0, 3).map((s) => cat.ref(s.num)) };

@@ -37,6 +37,8 @@ export const DEFAULTS = {
   minSuggestion: 0.3,
   /** Fuzzy candidates kept per span. */
   maxFuzzyCandidates: 8,
+  /** Word runs tried for fuzzy names per text (questions have a few; keeps long texts fast). */
+  maxFuzzyRuns: 64,
   /** Posting lists longer than this only filter, they never generate candidates. */
   maxGenerator: 5000,
 } as const;
@@ -135,12 +137,14 @@ export function detectMentions(
     for (let k = keys.length - 1; k >= 0 && !found; k--) {
       const [kn, ks, len] = keys[k]!;
       if (isStopWord(toks[i + len - 1]!.norm) || (leadingStop && len < 2)) continue;
-      if (lex.isVocabularyPhrase(kn, ks)) continue;
-      if (lex.snapshot.mayBeKey(kn)) {
+      const normKey = lex.snapshot.mayBeKey(kn);
+      const stemKey = !leadingStop && lex.snapshot.mayBeKey(ks);
+      if ((!normKey && !stemKey) || lex.isVocabularyPhrase(kn, ks)) continue;
+      if (normKey) {
         const hits = lex.byNorm(kn);
         if (hits.length > 0) found = { first: i, last: i + len, match: "exact", candidates: hitsToCandidates(hits, 1) };
       }
-      if (!found && !leadingStop && lex.snapshot.mayBeKey(ks)) {
+      if (!found && stemKey) {
         const hits = lex.byStem(ks);
         if (hits.length > 0) found = { first: i, last: i + len, match: "stem", candidates: hitsToCandidates(hits, o.stemSimilarity) };
       }
@@ -178,7 +182,8 @@ export function detectMentions(
     }
   };
   i = 0;
-  while (i < n) {
+  let runs = 0;
+  while (i < n && runs < o.maxFuzzyRuns) {
     if (!free(i) || (vocabularyWord(i) && !toks[i]!.marked)) {
       i++;
       continue;
@@ -192,6 +197,7 @@ export function detectMentions(
       i = Math.max(i + 1, j);
       continue;
     }
+    runs++;
     // an exact span right before or after the run may be the start or end of the same name
     const beforeSpan = endsAt.get(a);
     const afterSpan = startsAt.get(j);

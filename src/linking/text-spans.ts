@@ -29,6 +29,19 @@ export interface QuestionToken {
 const MARK = /\p{M}/u;
 const UPPER = /\p{Lu}|\p{Lt}/u;
 
+/** Porter stems of recent tokens (words repeat across questions; bounded, cleared when full). */
+const STEMS = new Map<string, string>();
+
+function stemOf(token: string): string {
+  let s = STEMS.get(token);
+  if (s === undefined) {
+    if (STEMS.size >= 50_000) STEMS.clear();
+    s = stemToken(token);
+    STEMS.set(token, s);
+  }
+  return s;
+}
+
 /** Normalised form of one cluster: the catalog's `normalize`, without its trim. */
 function normCluster(cluster: string): string {
   const c = cluster.charCodeAt(0);
@@ -55,7 +68,7 @@ export function questionTokens(question: string): QuestionToken[] {
   let curEnd = -1;
   let marked = false;
   const flush = () => {
-    if (cur !== "") out.push({ norm: cur, stem: stemToken(cur), start: curStart, end: curEnd, marked });
+    if (cur !== "") out.push({ norm: cur, stem: stemOf(cur), start: curStart, end: curEnd, marked });
     cur = "";
     curStart = -1;
     marked = false;

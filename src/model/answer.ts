@@ -50,6 +50,55 @@ export interface AnswerPath {
   readonly steps: readonly PathStep[];
 }
 
+/** One recognised condition in `ask --json` (`conditions`, additive). */
+export interface ConditionDoc {
+  readonly kind: "comparison" | "superlative" | "exclusion" | "count";
+  /** The question words that expressed it. */
+  readonly words: string;
+  readonly start: number;
+  readonly end: number;
+  /** The attribute used (comparisons, superlatives); null when none was found. */
+  readonly attribute?: { readonly id: string; readonly label: string; readonly unit?: string } | null;
+  /** Comparisons: operator and the values as written. */
+  readonly operator?: string;
+  readonly values?: readonly string[];
+  /** Comparisons: the range on the catalog's numeric scale. */
+  readonly range?: { readonly min?: number; readonly minStrict?: boolean; readonly max?: number; readonly maxStrict?: boolean; readonly negated: boolean };
+  /** Superlatives: direction and 1-based position. */
+  readonly order?: "max" | "min";
+  readonly position?: number;
+  /** Exclusions: the excluded entity and how far the exclusion reaches. */
+  readonly entity?: EntityRef;
+  readonly mode?: "other" | "not";
+  /** False when the condition could not be applied (no attribute). */
+  readonly applied: boolean;
+  /** Candidates before and after it. */
+  readonly before?: number;
+  readonly after?: number;
+}
+
+/** One condition step of an answer (`answers[i].values`, additive). */
+export interface ConditionStepDoc {
+  /** Index into `conditions`. */
+  readonly condition: number;
+  /** Attribute id and label (comparisons, superlatives). */
+  readonly attribute?: string;
+  readonly label?: string;
+  /** The values read (catalog numeric scale) and as text. */
+  readonly values: readonly number[];
+  readonly text: string;
+  readonly satisfied: boolean;
+  /** Superlatives: the answer's place in the ordering. */
+  readonly place?: number;
+}
+
+/** The answer of a count question (`count`, additive). */
+export interface CountDoc {
+  readonly value: number;
+  /** Ids of the entities counted. */
+  readonly entities: readonly string[];
+}
+
 /** A ranked answer with its explanation. */
 export interface Answer {
   readonly id: string;
@@ -59,6 +108,8 @@ export interface Answer {
   /** Type ids of the answer. */
   readonly types: readonly string[];
   readonly paths: readonly AnswerPath[];
+  /** Additive: the attribute values the question's conditions used, one step per condition (README "Conditions"). */
+  readonly values?: readonly ConditionStepDoc[];
 }
 
 /** The uniqueness verdict. */
@@ -101,6 +152,10 @@ export interface AskResult {
   readonly disclaimer?: string;
   /** Additive: clues that would single out the best answer (tied or weak verdicts). */
   readonly suggestions?: readonly SuggestionDoc[];
+  /** Additive: the conditions recognised in the question (README "Conditions"). */
+  readonly conditions?: readonly ConditionDoc[];
+  /** Additive: the answer of a count question ("how many …"). */
+  readonly count?: CountDoc;
 }
 
 /** The reminder printed with every answer set. */

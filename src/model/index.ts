@@ -13,5 +13,9 @@ export type {
   CheckItem,
   CheckSummary,
   CheckReport,
+  ConditionDoc,
+  ConditionStepDoc,
+  CountDoc,
 } from "./answer.js";
 export { DISCLAIMER } from "./answer.js";
+export { LIMITS, checkQuestionLength, checkTop } from "./limits.js";

@@ -3,8 +3,8 @@
  * `question<TAB>expected` with expected `id1|id2|…` (entity ids or exact labels). Blank lines
  * and lines starting with `#` are skipped; each question keeps its 1-based line number.
  */
-import { readFileSync } from "node:fs";
-import { TiepointError } from "../model/index.js";
+import { readFileSync, statSync } from "node:fs";
+import { LIMITS, TiepointError, checkQuestionLength } from "../model/index.js";
 
 /** One question of a question file. */
 export interface QuestionItem {
@@ -26,6 +26,8 @@ export function parseQuestionText(text: string, file: string): QuestionItem[] {
     const question = (tab < 0 ? raw : raw.slice(0, tab)).trim();
     const rest = tab < 0 ? "" : raw.slice(tab + 1);
     if (question === "") throw new TiepointError("pipeline/questions", "empty question before the tab", { file, line });
+    checkQuestionLength(question, { file, line });
+    if (items.length >= LIMITS.maxQuestions) throw new TiepointError("pipeline/limit", `more than ${LIMITS.maxQuestions} questions in one file (split it into smaller files)`, { file, line });
     if (rest.includes("\t")) throw new TiepointError("pipeline/questions", "more than two tab-separated fields (expected: question<TAB>id1|id2|…)", { file, line });
     const expected = rest
       .split("|")
@@ -40,8 +42,12 @@ export function parseQuestionText(text: string, file: string): QuestionItem[] {
 export function parseQuestionFile(path: string): QuestionItem[] {
   let text: string;
   try {
+    const size = statSync(path).size;
+    if (size > LIMITS.maxQuestionFileBytes)
+      throw new TiepointError("pipeline/limit", `the question file is ${size} bytes; the limit is ${LIMITS.maxQuestionFileBytes} bytes (split it into smaller files)`, { file: path });
     text = readFileSync(path, "utf8");
   } catch (e) {
+    if (e instanceof TiepointError) throw e;
     const code = (e as { code?: string }).code;
     const why = code === "ENOENT" ? "no such file" : code === "EISDIR" ? "is a directory, not a question file" : `cannot read (${(e as Error).message})`;
     throw new TiepointError("pipeline/questions", why, { file: path });

@@ -6,12 +6,12 @@
  * stage timed. Answers and verdict are made in one place, {@link Session.answersOf}.
  */
 import { Catalog, demoCatalogPath } from "../catalog/index.js";
-import { analyze, buildQuestionModel, type Analysis, type QuestionModel } from "../analysis/index.js";
-import { Linker, linkQuestion, type Pin } from "../linking/index.js";
-import { DISCLAIMER, TiepointError, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
-import { clueSeeds, openIndex, rank, type IndexProgress, type Ranked, type RankOptions, type RelationIndex } from "../ranking/index.js";
+import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, type Analysis, type AttributeModel, type QuestionModel } from "../analysis/index.js";
+import { Linker, linkQuestion, type LinkResult, type Pin } from "../linking/index.js";
+import { DISCLAIMER, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
+import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex } from "../ranking/index.js";
 import { basicVerdict } from "./verdict.js";
-import { explain, type Explanation } from "../explain/index.js";
+import { conditionDocs, conditionSteps, conditionVerdict, countDoc, explain, type Explanation } from "../explain/index.js";
 
 /** A progress event while a session opens. */
 export interface SessionProgress {
@@ -66,6 +66,8 @@ export interface AskOutcome {
   readonly timings: AskTimings;
   /** Paths, coverage, verdict, ablation, suggestions and why-not reports (explain stage). */
   readonly explanation?: Explanation;
+  /** The question's conditions as applied to the ranking (absent when it has none). */
+  readonly conditions?: ConditionOutcome;
 }
 
 /** One loaded catalog, ready for questions. */
@@ -76,6 +78,7 @@ export class Session {
   readonly model: QuestionModel;
   private readonly rankOptions: RankOptions;
   private readonly idCache = new Map<number, { id: string; label: string }>();
+  private attributeModel?: AttributeModel;
 
   private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions) {
     this.catalog = catalog;
@@ -92,6 +95,11 @@ export class Session {
     progress?.({ phase: "catalog" });
     const catalog = Catalog.open(path, { readonly: true });
     try {
+      // one read transaction for the session's life: the index, the linker, the model and
+      // every later catalog read see one committed state, even while a load writes the
+      // catalog (WAL snapshot isolation, https://www.sqlite.org/wal.html; README "Failure modes")
+      catalog.db.exec("BEGIN");
+      catalog.version();
       progress?.({ phase: "index" });
       const index = openIndex(catalog, { onProgress: (e: IndexProgress) => progress?.({ phase: "index", index: e }) });
       progress?.({ phase: "linker" });
@@ -101,6 +109,7 @@ export class Session {
       progress?.({ phase: "ready" });
       return new Session(catalog, index, linker, model, options.rank ?? {});
     } catch (e) {
+      endRead(catalog);
       catalog.close();
       throw e;
     }
@@ -109,18 +118,36 @@ export class Session {
   /** Answers one question. */
   ask(question: string, options: AskOptions = {}): AskOutcome {
     const top = options.top ?? DEFAULTS.top;
-    if (!Number.isInteger(top) || top < 1) throw new TiepointError("pipeline/options", `top must be a positive whole number, got ${String(top)}`);
+    checkTop(top);
     if (question.trim() === "") throw new TiepointError("pipeline/question", "the question is empty");
+    checkQuestionLength(question);
     const t0 = performance.now();
-    const link = linkQuestion(question, this.linker, options.pins !== undefined ? { pins: options.pins } : {});
+    const linked = linkQuestion(question, this.linker, options.pins !== undefined ? { pins: options.pins } : {});
+    const link = capMentions(linked);
+    const limitNotes =
+      link === linked ? [] : [`${linked.mentions.length} names were linked; only the ${LIMITS.maxMentions} most confident are used as clues (limit: README "Failure modes")`];
     const t1 = performance.now();
-    const analysis = analyze(question, link, this.model);
+    // conditions (comparisons, superlatives, exclusions, counts): src/analysis/conditions.ts
+    const cond = detectConditions(analyze(question, link, this.model), this.model, this.attributes());
+    const analysis = cond.analysis;
     const t2 = performance.now();
-    const ranked = rank(analysis, this.index, { ...this.rankOptions, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
+    const lookup = { numbers: (e: number, p: number) => this.catalog.attributeNumbers(e, p) };
+    const withConditions = (r: Ranked) => (cond.conditions.length > 0 ? applyConditions(analysis, r, cond.conditions, this.index, lookup).ranked : r);
+    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
+    const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup) : undefined;
+    const ranked = conditions?.ranked ?? ranked0;
     const t3 = performance.now();
     const whyNot = (options.whyNot ?? []).map((e) => this.resolveEntity(e));
-    const made = this.answersOf(analysis, ranked, top, { dropClues: options.dropClues ?? [], whyNot });
-    const { answers, verdict } = made;
+    const made = this.answersOf(analysis, ranked, top, { dropClues: options.dropClues ?? [], whyNot, ...(conditions ? { rerankWith: withConditions } : {}) });
+    let { answers, verdict } = made;
+    if (conditions) {
+      const nodeOf = new Map(ranked.candidates.slice(0, top).map((c) => [this.ref(c.node).id, c.node]));
+      answers = answers.map((a) => {
+        const node = nodeOf.get(a.id);
+        return node === undefined ? a : { ...a, values: conditionSteps(node, cond.conditions, conditions) };
+      });
+      verdict = conditionVerdict(cond.conditions, conditions, ranked.candidates[0]?.node, this.catalog) ?? verdict;
+    }
     let explanation = made.explanation;
     if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {
       const want = answers[0].id;
@@ -146,13 +173,15 @@ export class Session {
       answerTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
       answers,
       verdict,
-      notes: [...analysis.notes, ...ranked.notes],
+      notes: [...limitNotes, ...analysis.notes, ...ranked.notes],
       disclaimer: DISCLAIMER,
+      ...(conditions ? { conditions: conditionDocs(cond.conditions, conditions) } : {}),
+      ...(conditions?.count ? { count: countDoc(conditions, this.catalog)! } : {}),
       ...(explanation && explanation.suggestions.length > 0
         ? { suggestions: explanation.suggestions.map((sg) => ({ text: sg.text, question: sg.question, triple: sg.triple, rulesOut: sg.rulesOut, ...(sg.verified !== undefined ? { verified: sg.verified } : {}) })) }
         : {}),
     };
-    return { result, analysis, ranked, explanation, timings: { link: t1 - t0, analyze: t2 - t1, rank: t3 - t2, explain: t4 - t3, total: t4 - t0 } };
+    return { result, analysis, ranked, explanation, ...(conditions ? { conditions } : {}), timings: { link: t1 - t0, analyze: t2 - t1, rank: t3 - t2, explain: t4 - t3, total: t4 - t0 } };
   }
 
   /**
@@ -164,7 +193,7 @@ export class Session {
     analysis: Analysis,
     ranked: Ranked,
     top: number,
-    extra: { readonly dropClues?: readonly number[]; readonly whyNot?: readonly number[] } = {},
+    extra: { readonly dropClues?: readonly number[]; readonly whyNot?: readonly number[]; readonly rerankWith?: (r: Ranked) => Ranked } = {},
   ): { answers: Answer[]; verdict: Verdict; explanation?: Explanation } {
     if (ranked.clues.length === 0 || ranked.candidates.length === 0) {
       // nothing to explain: the basic verdict says why
@@ -181,7 +210,10 @@ export class Session {
       top,
       ...(this.rankOptions.alpha !== undefined ? { restart: this.rankOptions.alpha } : {}),
       ...(this.rankOptions.hubExponent !== undefined ? { hubExponent: this.rankOptions.hubExponent } : {}),
-      rerank: (a, drop) => rank(a, this.index, { ...this.rankOptions, dropClues: [...dropped, ...drop.map((i) => kept[i]!)] }),
+      rerank: (a, drop) => {
+        const r = rank(a, this.index, { ...this.rankOptions, dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
+        return extra.rerankWith ? extra.rerankWith(r) : r;
+      },
       whyNot: extra.whyNot ?? [],
       seeds: (clue) => clueSeeds(analysis, analysis.clues.find((c) => c.node === clue.node && c.mention === clue.mention) ?? analysis.clues[0]!, this.index, this.rankOptions),
     });
@@ -205,10 +237,35 @@ export class Session {
     return r;
   }
 
-  /** Closes the catalog. */
+  /** The catalog's attribute vocabulary for conditions (built on first use). */
+  attributes(): AttributeModel {
+    if (!this.attributeModel) this.attributeModel = buildAttributeModel(this.catalog);
+    return this.attributeModel;
+  }
+
+  /** Ends the session's read transaction and closes the catalog. */
   close(): void {
+    endRead(this.catalog);
     this.catalog.close();
   }
+}
+
+/** Ends the session's read transaction (nothing was written in it). */
+function endRead(catalog: Catalog): void {
+  if (catalog.db.open && catalog.db.inTransaction) catalog.db.exec("ROLLBACK");
+}
+
+/**
+ * At most {@link LIMITS}.maxMentions linked mentions go on as clues (README "Failure modes"):
+ * the most confident ones (ties: earlier in the question), back in question order; the
+ * dropped ones are listed as unlinked words.
+ */
+function capMentions(link: LinkResult): LinkResult {
+  if (link.mentions.length <= LIMITS.maxMentions) return link;
+  const order = link.mentions.map((m, i) => i).sort((a, b) => link.mentions[b]!.confidence - link.mentions[a]!.confidence || a - b);
+  const keep = new Set(order.slice(0, LIMITS.maxMentions));
+  const dropped = link.mentions.filter((_, i) => !keep.has(i)).map((m) => ({ text: m.text, start: m.start, end: m.end, suggestions: [] }));
+  return { ...link, mentions: link.mentions.filter((_, i) => keep.has(i)), unlinked: [...link.unlinked, ...dropped].sort((a, b) => a.start - b.start) };
 }
 
 /** Edge count per relation num, from the index (each edge is seen once, from its source). */

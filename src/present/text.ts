@@ -3,7 +3,7 @@
  * their confidence, the expected answer type, the ranked answers with scores and types, the
  * paths when there are any, the verdict, notes and the disclaimer.
  */
-import { DISCLAIMER, type AskResult, type AnswerPath } from "../model/index.js";
+import { DISCLAIMER, type AskResult, type AnswerPath, type ConditionDoc } from "../model/index.js";
 
 /** Extra context for {@link renderAskText}; all optional. */
 export interface AskTextOptions {
@@ -28,6 +28,21 @@ function pathText(p: AnswerPath): string {
   return s;
 }
 
+/** One recognised condition as a line (README "Conditions"). */
+function conditionText(c: ConditionDoc): string {
+  const attr = c.attribute ? `${c.attribute.label}${c.attribute.unit !== undefined ? ` (${c.attribute.unit})` : ""}` : "no matching attribute: not applied";
+  switch (c.kind) {
+    case "comparison":
+      return `${c.attribute ? attr : "(" + attr + ")"} ${c.operator} ${(c.values ?? []).join(" and ")}  ["${c.words}"]`;
+    case "superlative":
+      return `${c.position !== undefined && c.position > 1 ? `place ${c.position} ` : ""}${c.order === "min" ? "smallest" : "largest"} ${c.attribute ? attr : "(" + attr + ")"}  ["${c.words}"]`;
+    case "exclusion":
+      return `not ${c.entity?.label ?? ""} [${c.entity?.id ?? ""}]${c.mode === "not" ? " nor what is linked to it" : ""}  ["${c.words}"]`;
+    default:
+      return `count the answers  ["${c.words}"]`;
+  }
+}
+
 /** Renders an ask result as plain text, ending with the disclaimer. */
 export function renderAskText(r: AskResult, options: AskTextOptions = {}): string {
   const out: string[] = [];
@@ -39,6 +54,8 @@ export function renderAskText(r: AskResult, options: AskTextOptions = {}): strin
   });
   out.push(`expects:  ${r.answerTypes.length > 0 ? r.answerTypes.map((t) => `${t.label} [${t.id}]`).join(" or ") : "any type"}`);
   if (options.relationCues && options.relationCues.length > 0) out.push(`cues:     ${options.relationCues.join(", ")}`);
+  (r.conditions ?? []).forEach((c, i) => out.push(`${i === 0 ? "if:      " : "         "} ${conditionText(c)}`));
+  if (r.count) out.push(`count:    ${r.count.value}`);
   out.push("");
   if (r.answers.length === 0) out.push("answers:  none");
   else {
@@ -49,6 +66,7 @@ export function renderAskText(r: AskResult, options: AskTextOptions = {}): strin
       const types = a.types.length > 0 ? `  (${a.types.join(", ")})` : "";
       out.push(`  ${String(i + 1).padStart(w)}. ${a.label.padEnd(lw)}  ${a.score.toFixed(4)}  [${a.id}]${types}`);
       for (const p of a.paths.slice(0, options.paths ?? ASK_TEXT_DEFAULTS.paths)) out.push(`  ${" ".repeat(w)}    via ${pathText(p)}`);
+      for (const st of a.values ?? []) out.push(`  ${" ".repeat(w)}    ${st.satisfied ? "meets" : "fails"} ${st.text}`);
     });
   }
   const v = r.verdict;

@@ -9,7 +9,8 @@
  * CACM 13(6); the SQL forms as in ISO/IEC 9075). The candidate set comes from the walk, so
  * "the candidates that fit the other clues" has to be decided from the graph: the fit set is
  * the candidates that every clue reaches (full coverage), with the fewest unused cue words,
- * at each clue's smallest hop distance among them (breadth-first search up to `maxHops`).
+ * at each clue's smallest hop distance among them (breadth-first search up to `maxHops`);
+ * at one hop, those linked to the clue by a relation the question's words cue, when there are any.
  * "Which country in R has the largest area" then compares the countries one hop from R, not
  * the ones reached through a neighbour. A question with no clue left (all of its mentions
  * excluded, or none linked) but an expected answer type takes every entity of that type as
@@ -135,7 +136,7 @@ export function applyConditions(
     fit = new Set(cands.map((c) => c.node));
     if (cands.length > 0) notes.push(`no clue entity: every ${analysis.answerTypes.map((t) => t.label).join(" or ")} of the catalog is a candidate (${cands.length})`);
   } else {
-    fit = fitSet(ranked, index, maxHops, maxVisits);
+    fit = fitSet(analysis, ranked, index, maxHops, maxVisits);
   }
 
   const checks = new Map<number, ConditionCheck[]>();
@@ -212,6 +213,12 @@ export function applyConditions(
     }
   });
   const kept = new Set(cands.map((c) => c.node));
+  // after the filters, the candidates that fit every clue come first (each group in ranking order)
+  if (ranked.clues.length > 0) {
+    const first = cands.filter((c) => fit.has(c.node));
+    if (first.length === 0 && cands.length > 0 && applied.length > 0) notes.push("no candidate that fits every clue satisfies the conditions: the answers shown fit only part of the question");
+    cands = [...first, ...cands.filter((c) => !fit.has(c.node))];
+  }
   const fitOrder = () => cands.filter((c) => fit.has(c.node));
 
   // orderings: superlatives among the fit candidates
@@ -286,7 +293,8 @@ function orderOf(c: SuperlativeCondition, attr: AttributeChoice): "max" | "min" 
  * The candidates that fit the other clues: full clue coverage, fewest unused cue words, and
  * at every clue's smallest hop distance among those.
  */
-function fitSet(ranked: Ranked, index: RelationIndex, maxHops: number, maxVisits: number): Set<number> {
+function fitSet(analysis: Analysis, ranked: Ranked, index: RelationIndex, maxHops: number, maxVisits: number): Set<number> {
+  const cued = new Set(analysis.relationCues.map((c) => c.relation));
   if (ranked.candidates.length === 0) return new Set();
   const maxCovered = Math.max(...ranked.candidates.map((c) => c.covered));
   let pool = ranked.candidates.filter((c) => c.covered === maxCovered);
@@ -299,6 +307,15 @@ function fitSet(ranked: Ranked, index: RelationIndex, maxHops: number, maxVisits
     const min = Math.min(...pool.map((c) => d(c.node)));
     if (min === Infinity) continue;
     pool = pool.filter((c) => d(c.node) === min);
+    if (min === 1 && cued.size > 0) {
+      // one hop away: when some candidates are linked to the clue by a relation the question names, only they fit
+      const linked = new Set<number>();
+      index.forEach(clue.node, (v, rel) => {
+        if (cued.has(rel)) linked.add(v);
+      });
+      const named = pool.filter((c) => linked.has(c.node));
+      if (named.length > 0) pool = named;
+    }
   }
   return new Set(pool.map((c) => c.node));
 }

@@ -31,7 +31,8 @@
  * with a note. Ties are broken by entity num (the catalog's insertion order, deterministic)
  * after score.
  */
-import { expectedInverse, type Analysis, type Clue } from "../analysis/index.js";
+import { cueChains, expectedInverse, type Analysis, type Clue, type CueChain, type CueChainOptions } from "../analysis/index.js";
+import { chainReach, type ChainReachOptions } from "./chain-reach.js";
 import { combineClueScores, DEFAULTS as COMBINE_DEFAULTS, type CombineOptions } from "./combine.js";
 import type { Seed, SparseScores } from "./ppr-options.js";
 import { pprFast, type FastOptions } from "./ppr-fast.js";
@@ -80,6 +81,20 @@ export interface RankOptions extends CombineOptions {
   readonly prune?: number;
   /** Clue indexes (into `analysis.clues`) to leave out (ablation). @default none */
   readonly dropClues?: readonly number[];
+  /**
+   * Factor of a candidate that the clue's relation-path pattern (analysis cue-chains.ts)
+   * does not reach, when some candidate is reached by it; combined over the clues as a
+   * weighted geometric mean. 1 disables the check. @default 0.3
+   */
+  readonly chainMiss?: number;
+  /** Factor of a candidate the pattern reaches only with some hop walked the other way. @default 0.6 */
+  readonly chainLoose?: number;
+  /** Longest pattern checked, in hops (longer chains are left to the cue check). @default 3 */
+  readonly chainMaxSteps?: number;
+  /** Options of the pattern attribution (analysis cueChains). */
+  readonly chains?: CueChainOptions;
+  /** Options of the pattern search (chain-reach.ts). */
+  readonly chainReach?: ChainReachOptions;
 }
 
 /** Defaults of {@link RankOptions}. */
@@ -87,6 +102,9 @@ export const DEFAULTS = {
   alpha: 0.5,
   cueMiss: 0.1,
   wrongWay: 0.5,
+  chainMiss: 0.3,
+  chainLoose: 0.6,
+  chainMaxSteps: 3,
   prune: 0.01,
   spreadBelow: 0.6,
   maxAlternatives: 3,
@@ -105,6 +123,8 @@ export interface RankedCandidate {
   readonly covered: number;
   /** Cue words (weighted by match score) that no short path from the clues uses; absent when not checked. */
   readonly cueMissing?: number;
+  /** Factor from the clues' relation-path patterns (1: every checked pattern reaches it); absent when not checked. */
+  readonly chainFit?: number;
 }
 
 /** The ranking of one question. */
@@ -148,7 +168,10 @@ export function clueSeeds(analysis: Analysis, clue: Clue, index: RelationIndex, 
 /** Ranks the candidate answers of an analysed question. */
 export function rank(analysis: Analysis, index: RelationIndex, options: RankOptions = {}): Ranked {
   const drop = new Set(options.dropClues ?? []);
+  const chainsAll = cueChains(analysis, options.chains);
+  if (drop.size > 0) analysis = withoutDroppedCues(analysis, chainsAll, drop);
   const clues = analysis.clues.filter((_, i) => !drop.has(i));
+  const chains = chainsAll.filter((_, i) => !drop.has(i));
   const rho = relationWeightsOf(analysis, index);
   const notes: string[] = [];
   if (clues.length === 0) return { clues, candidates: [], typeFiltered: false, relationWeights: rho, notes };
@@ -228,12 +251,14 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   const weights = clues.map((c) => Math.max(c.weight, 1e-3));
   const cueMiss = options.cueMiss ?? DEFAULTS.cueMiss;
   const cueFit = cueMiss < 1 ? cueFitOf(analysis, clues, index, options, (v) => pool.has(v) || seedNodes.has(v)) : undefined;
+  const chainFit = chainFitOf(chains, clues, weights, index, new Set(eligible), options);
   const candidates: RankedCandidate[] = eligible.map((v) => {
     const row = pool.get(v)!;
     const norm = Array.from(row, (s, c) => (max[c]! > 0 ? s / max[c]! : 0));
     const { score, covered } = combineClueScores(norm, weights, options);
     const missing = cueFit ? cueFit(v) : 0;
-    return { node: v, score: score * Math.pow(cueMiss, missing), perClue: norm, covered, ...(cueFit ? { cueMissing: missing } : {}) };
+    const fit = chainFit ? chainFit(v) : 1;
+    return { node: v, score: score * Math.pow(cueMiss, missing) * fit, perClue: norm, covered, ...(cueFit ? { cueMissing: missing } : {}), ...(chainFit ? { chainFit: fit } : {}) };
   });
   candidates.sort((a, b) => b.covered - a.covered || b.score - a.score || a.node - b.node);
   return { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
@@ -312,5 +337,59 @@ function cueFitOf(analysis: Analysis, clues: readonly Clue[], index: RelationInd
       union |= pick;
     }
     return missingOf(union);
+  };
+}
+
+/**
+ * The analysis without the relation cues whose every place in the question belongs to a
+ * dropped clue (cue-chains.ts attribution): with "X" dropped from "which person wrote R and
+ * leads X?", "leads" no longer steers the walk, the cue check or the patterns.
+ */
+function withoutDroppedCues(analysis: Analysis, chains: readonly CueChain[], drop: ReadonlySet<number>): Analysis {
+  const keep = new Set<number>();
+  const attributed = new Set<number>();
+  chains.forEach((ch, c) => {
+    for (const st of ch.steps) {
+      for (const o of st.options) {
+        attributed.add(o.cue);
+        if (!drop.has(c)) keep.add(o.cue);
+      }
+    }
+  });
+  const relationCues = analysis.relationCues.filter((_, i) => keep.has(i) || !attributed.has(i));
+  return relationCues.length === analysis.relationCues.length ? analysis : { ...analysis, relationCues };
+}
+
+/**
+ * The pattern check of one question: a function giving a candidate's factor from the
+ * clues' relation-path patterns, or undefined when no pattern applies. Per clue with 1 to
+ * `chainMaxSteps` steps: the candidates at the end of the directed pattern get 1, those at
+ * the end of the undirected one `chainLoose`, the rest `chainMiss` — only when some
+ * eligible candidate is at the end of the directed pattern (else the undirected one takes
+ * its place; when neither reaches a candidate the pattern is wrong for this catalog and is
+ * ignored). The clues' factors are combined like their scores (weighted geometric mean).
+ */
+function chainFitOf(chains: readonly CueChain[], clues: readonly Clue[], weights: readonly number[], index: RelationIndex, eligible: ReadonlySet<number>, options: RankOptions): ((v: number) => number) | undefined {
+  const miss = options.chainMiss ?? DEFAULTS.chainMiss;
+  const loose = options.chainLoose ?? DEFAULTS.chainLoose;
+  const maxSteps = options.chainMaxSteps ?? DEFAULTS.chainMaxSteps;
+  if (miss >= 1) return undefined;
+  const hits = (set: Set<number> | null) => set !== null && [...set].some((v) => eligible.has(v));
+  const checks: { exact: Set<number>; loose: Set<number> | null; weight: number }[] = [];
+  chains.forEach((ch, c) => {
+    const clue = clues[c]!;
+    if (ch.steps.length === 0 || ch.steps.length > maxSteps || !(clue.node >= 0 && clue.node < index.nodeCount)) return;
+    const hops = ch.steps.map((st) => st.options);
+    const exact = chainReach(index, clue.node, hops, { ...options.chainReach, directed: true });
+    const undirected = chainReach(index, clue.node, hops, { ...options.chainReach, directed: false });
+    if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]! });
+    else if (hits(undirected)) checks.push({ exact: undirected!, loose: null, weight: weights[c]! });
+  });
+  if (checks.length === 0) return undefined;
+  const total = checks.reduce((a, ch) => a + ch.weight, 0);
+  return (v) => {
+    let log = 0;
+    for (const ch of checks) log += (ch.weight / total) * Math.log(ch.exact.has(v) ? 1 : ch.loose?.has(v) ? loose : miss);
+    return Math.exp(log);
   };
 }

@@ -4,7 +4,7 @@
  */
 import type { Command } from "commander";
 import { parsePin, type Pin } from "../../linking/index.js";
-import { TiepointError } from "../../model/index.js";
+import { TiepointError, checkTop } from "../../model/index.js";
 import { Session } from "../../pipeline/index.js";
 import { askJson, catalogLabels, evidenceDot, renderAskText, renderExplanationText } from "../../present/index.js";
 import { guarded } from "../run.js";
@@ -13,6 +13,7 @@ import { guarded } from "../run.js";
 export function parseTop(value: string | undefined, fallback = 10): number {
   if (value === undefined) return fallback;
   if (!/^\s*\d+\s*$/.test(value) || Number(value) < 1) throw new TiepointError("cli/usage", `--top "${value}": expected a positive whole number, e.g. --top 5`);
+  checkTop(Number(value), "cli/usage", "--top");
   return Number(value);
 }
 

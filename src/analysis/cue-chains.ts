@@ -1,0 +1,98 @@
+/**
+ * Cue chains: which relation cues belong to which clue, and in which order (and direction) a
+ * path from that clue should take them.
+ *
+ * Method: (1) attribution — every place a cued relation stands in the question (a "step",
+ * several cues on the same word being alternatives of one step) is attached to the nearest
+ * clue mention in the string, the attachment-by-proximity rule of English surface parsing
+ * ("right association", Kimball 1973, "Seven principles of surface structure parsing in
+ * natural language", Cognition 2(1)); (2) order — a clue's steps are taken nearest first:
+ * in a right-branching chain of relative clauses and of-phrases ("the X that R1 the Y that
+ * R2 C", "the R1 of the R2 of C") each relation word joins the noun phrase next to it, so
+ * the relation word next to the clue is the first hop out of it and the farthest the last
+ * (Quirk et al. 1985, "A Comprehensive Grammar of the English Language", §17.10 ff.,
+ * relative clauses as postmodifiers); (3) direction — each step's stored direction from
+ * the clue's position (subject left of the verb, SVO, with the voice flip of the cue word;
+ * see {@link expectedInverse}): in a right-branching chain the noun phrase a hop starts
+ * from stands on the same side of the relation word as the clue.
+ *
+ * The chain is a relation-path pattern (a regular path query of fixed length, Mendelzon &
+ * Wood 1995) that the ranking matches against the paths from the clue to each candidate.
+ * Pure string positions: no catalog names or words are involved.
+ */
+import type { Analysis } from "./analyze.js";
+import type { RelationCue } from "./relation-cues.js";
+
+/** Options of {@link cueChains}; all optional. */
+export interface CueChainOptions {
+  /** Cues with a lower match score make no step (weak partial matches would add bogus hops). @default 0.75 */
+  readonly minScore?: number;
+}
+
+/** Defaults of {@link CueChainOptions}. */
+export const DEFAULTS = { minScore: 0.75 } as const;
+
+/** One way to take a chain step: a relation and its stored direction. */
+export interface StepOption {
+  /** Predicate num. */
+  readonly relation: number;
+  /** True: walk against the stored triple (the clue side is its object). */
+  readonly inverse: boolean;
+  /** Index into `Analysis.relationCues`. */
+  readonly cue: number;
+}
+
+/** One hop of a chain: the relation word at `at`, with its possible relations. */
+export interface ChainStep {
+  /** UTF-16 offset of the relation word. */
+  readonly at: number;
+  /** The relations this word cues (alternatives), ordered by cue index. */
+  readonly options: readonly StepOption[];
+}
+
+/** The relation-path pattern implied for one clue. */
+export interface CueChain {
+  /** Index into `Analysis.clues`. */
+  readonly clue: number;
+  /** Hops out of the clue, nearest relation word first (may be empty). */
+  readonly steps: readonly ChainStep[];
+}
+
+/**
+ * The relation-path pattern of each clue (same order as `analysis.clues`). A cue whose
+ * places all lie nearer other clues belongs only to those; the ranking uses that to leave a
+ * dropped clue's cue words out (ablation).
+ */
+export function cueChains(analysis: Pick<Analysis, "mentions" | "clues" | "relationCues">, options: CueChainOptions = {}): CueChain[] {
+  const minScore = options.minScore ?? DEFAULTS.minScore;
+  const spans = analysis.clues.map((c) => {
+    const m = analysis.mentions[c.mention];
+    return { start: m?.start ?? 0, end: m?.end ?? 0 };
+  });
+  const distance = (c: number, at: number) => {
+    const s = spans[c]!;
+    return at >= s.end ? at - s.end : at < s.start ? s.start - at : 0;
+  };
+  // steps per clue, keyed by word offset
+  const perClue = analysis.clues.map(() => new Map<number, StepOption[]>());
+  if (analysis.clues.length === 0) return [];
+  analysis.relationCues.forEach((cue: RelationCue, i) => {
+    if (cue.score < minScore) return;
+    const places = cue.occurrences ?? [{ start: cue.start, flip: cue.flip }];
+    for (const p of places) {
+      let best = 0;
+      for (let c = 1; c < spans.length; c++) if (distance(c, p.start) < distance(best, p.start)) best = c;
+      const clueStart = spans[best]!.start;
+      const inverse = clueStart > p.start !== p.flip;
+      const list = perClue[best]!.get(p.start) ?? [];
+      if (!list.some((o) => o.relation === cue.relation && o.inverse === inverse)) list.push({ relation: cue.relation, inverse, cue: i });
+      perClue[best]!.set(p.start, list);
+    }
+  });
+  return perClue.map((steps, c) => ({
+    clue: c,
+    steps: [...steps.entries()]
+      .sort((a, b) => distance(c, a[0]) - distance(c, b[0]) || a[0] - b[0])
+      .map(([at, opts]) => ({ at, options: [...opts].sort((x, y) => x.cue - y.cue) })),
+  }));
+}
