@@ -19,7 +19,10 @@ interface Gold {
 const questions = readFileSync(new URL("../data/demo-questions.tsv", import.meta.url), "utf8")
   .split("\n")
   .map((l) => l.split("\t")[0]!);
-const gold: Gold[] = readFileSync(new URL("./fixtures/demo-mentions.tsv", import.meta.url), "utf8")
+const goldText = readFileSync(new URL("./fixtures/demo-mentions.tsv", import.meta.url), "utf8");
+/** The question lines the gold file covers (questions added later are not judged until labelled). */
+const covered = Number(/^# lines: 1-(\d+)$/m.exec(goldText)![1]);
+const gold: Gold[] = goldText
   .split("\n")
   .filter((l) => l !== "" && !l.startsWith("#"))
   .map((l) => {
@@ -46,7 +49,8 @@ describe("linking on the demo questions", () => {
     let exactSpans = 0;
     const missed: string[] = [];
     const wrong: string[] = [];
-    for (let i = 0; i < questions.length; i++) {
+    expect(covered).toBeGreaterThanOrEqual(57);
+    for (let i = 0; i < Math.min(covered, questions.length); i++) {
       const q = questions[i]!;
       if (q === "") continue;
       const mine = gold.filter((g) => g.line === i + 1).map((g) => ({ ...g, start: q.indexOf(g.text), end: q.indexOf(g.text) + g.text.length }));
@@ -66,7 +70,7 @@ describe("linking on the demo questions", () => {
     const recall = tp / gold.length;
     const f1 = (2 * precision * recall) / (precision + recall);
     process.stderr.write(
-      `demo mention links: gold ${gold.length}, predicted ${predicted}, correct ${tp} (exact spans ${exactSpans}); ` +
+      `demo mention links (questions 1-${covered}): gold ${gold.length}, predicted ${predicted}, correct ${tp} (exact spans ${exactSpans}); ` +
         `P ${precision.toFixed(3)} R ${recall.toFixed(3)} F1 ${f1.toFixed(3)}\n` +
         (wrong.length ? `  extra/wrong: ${wrong.join("; ")}\n` : "") +
         (missed.length ? `  missed: ${missed.join("; ")}\n` : ""),

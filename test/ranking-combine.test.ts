@@ -181,7 +181,9 @@ describe("rank", () => {
     const q = analysisOf([[1, 1]], { cues: [[1, "led"], [2, "supervised"]] });
     const without = rank(q, chain, { cueMiss: 1 });
     expect(without.candidates[0]!.node).toBe(2); // the walk alone favours the nearer node
-    const r = rank(q, chain);
+    // the fixture puts both cue words at offset 0 (one word for the relation-path pattern),
+    // so the pattern check is switched off here: this test is about the cue check alone
+    const r = rank(q, chain, { chainMiss: 1 });
     expect(r.candidates[0]!.node).toBe(3);
     expect(r.candidates.find((c) => c.node === 2)!.cueMissing).toBe(1);
     expect(r.candidates.find((c) => c.node === 4)!.cueMissing).toBe(2);

@@ -15,6 +15,7 @@ import { detectAnswerType, type AnswerTypeOptions, type AnswerTypeSource } from 
 import type { QuestionModel } from "./question-model.js";
 import { relationCues, type RelationCue, type RelationCueOptions } from "./relation-cues.js";
 import { isFunctionWord, words } from "./words.js";
+import { findTypeWords, type TypeWord } from "./cue-chains.js";
 
 /** A linked entity that seeds one personalized PageRank. */
 export interface Clue {
@@ -48,6 +49,8 @@ export interface Analysis {
   readonly clues: readonly Clue[];
   /** Notes for the user (unlinked words, type words, missing type filter, …). */
   readonly notes: readonly string[];
+  /** Type nouns outside the clues and the answer-type phrase ("a *document* that …"; cue-chains.ts). @default none */
+  readonly typeWords?: readonly TypeWord[];
 }
 
 /** Options of {@link analyze}; all optional. */
@@ -102,6 +105,7 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
     if (!inClue[i] && !used.has(i) && !isFunctionWord(w.norm)) content.push(i);
   });
   const cues = relationCues(ws, content, model, options.relationCues);
+  const typeWords = findTypeWords(ws, ws.map((_, i) => inClue[i]! || used.has(i)), model);
 
   const modifierWeight = options.modifierWeight ?? DEFAULTS.modifierWeight;
   const clues: Clue[] = [];
@@ -118,5 +122,5 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
     const mt = model.typeByNum.get(t)!;
     return { num: t, id: mt.id, label: mt.label };
   });
-  return { question, mentions: link.mentions, answerTypes, answerTypeSource: at.source, relationCues: cues, clues, notes };
+  return { question, mentions: link.mentions, answerTypes, answerTypeSource: at.source, relationCues: cues, clues, notes, typeWords };
 }

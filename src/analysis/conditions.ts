@@ -260,9 +260,10 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
     if (n === 0) continue;
     for (let k = 0; k < n; k++) used.add(i + k);
     conditions.push({ kind: "count", words: question.slice(ws[i]!.start, ws[i + n - 1]!.end), start: ws[i]!.start, end: ws[i + n - 1]!.end });
-    if (answerTypes.length === 0) {
-      // "how many research vessels …": the longest type key among the next words
-      for (let len = Math.min(model.maxTypeWords, 3); len >= 1 && answerTypes.length === 0; len--) {
+    {
+      // "how many research vessels …": the longest type key among the next words names the answer type
+      let found = false;
+      for (let len = Math.min(model.maxTypeWords, 3); len >= 1 && !found; len--) {
         for (let s = i + n; s <= i + n + 2 - len + 1 && s + len <= ws.length; s++) {
           if (ws.slice(s, s + len).some((_, k) => inMention[s + k])) continue;
           const key = ws.slice(s, s + len).map((w) => w.stem).join(" ");
@@ -270,6 +271,7 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
           if (nums && nums.length > 0) {
             answerTypes = nums.map((t) => ({ num: t, id: model.typeByNum.get(t)!.id, label: model.typeByNum.get(t)!.label }));
             for (let k = 0; k < len; k++) used.add(s + k);
+            found = true;
             break;
           }
         }
@@ -610,9 +612,12 @@ function chooseAttributes(
         at = hit;
       }
     }
-    if (unitStems.length > 0 && a.unitStems.length > 0 && a.unitStems.every((u) => unitStems.some((x) => credit(u, x, o) > 0))) best += o.unitBonus;
+    const hinted = hints.some((x) => a.surfaces.some((sf) => sf.includes(x)) || a.id.toLowerCase() === x);
+    // a unit alone does not pick an attribute against the adjective ("wider than 10 metres" is no length)
+    const unitOk = dimension === undefined || best > 0 || hinted;
+    if (unitOk && unitStems.length > 0 && a.unitStems.length > 0 && a.unitStems.every((u) => unitStems.some((x) => credit(u, x, o) > 0))) best += o.unitBonus;
     // a unit word written in the question without a number ("most inhabitants") matches like a label word
-    if (best === 0 && a.unitStems.length > 0 && a.unitStems.every((u) => free.some((k) => credit(u, ws[k]!.stem, o) === 1))) {
+    if (best === 0 && quantities.length === 0 && a.unitStems.length > 0 && a.unitStems.every((u) => free.some((k) => credit(u, ws[k]!.stem, o) === 1))) {
       best = 0.6;
       at = free.filter((k) => a.unitStems.some((u) => credit(u, ws[k]!.stem, o) === 1));
     }

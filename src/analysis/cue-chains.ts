@@ -6,7 +6,8 @@
  * several cues on the same word being alternatives of one step) is attached to the nearest
  * clue mention in the string, the attachment-by-proximity rule of English surface parsing
  * ("right association", Kimball 1973, "Seven principles of surface structure parsing in
- * natural language", Cognition 2(1)); (2) order — a clue's steps are taken nearest first:
+ * natural language", Cognition 2(1)), not across a coordination ("wrote R *and* leads P":
+ * "leads" belongs to P); (2) order — a clue's steps are taken nearest first:
  * in a right-branching chain of relative clauses and of-phrases ("the X that R1 the Y that
  * R2 C", "the R1 of the R2 of C") each relation word joins the noun phrase next to it, so
  * the relation word next to the clue is the first hop out of it and the farthest the last
@@ -18,10 +19,16 @@
  *
  * The chain is a relation-path pattern (a regular path query of fixed length, Mendelzon &
  * Wood 1995) that the ranking matches against the paths from the clue to each candidate.
+ * (4) intermediate types — a type noun standing between two relation words ("the *corer*
+ * aboard", "a *document* that cites") names the node between those hops, so the step
+ * carries that type (the type nouns are found like the answer type: Porter-stem keys of
+ * the catalog's type labels and aliases, {@link findTypeWords}).
  * Pure string positions: no catalog names or words are involved.
  */
 import type { Analysis } from "./analyze.js";
+import type { QuestionModel } from "./question-model.js";
 import type { RelationCue } from "./relation-cues.js";
+import { isFunctionWord, type Word } from "./words.js";
 
 /** Options of {@link cueChains}; all optional. */
 export interface CueChainOptions {
@@ -31,6 +38,9 @@ export interface CueChainOptions {
 
 /** Defaults of {@link CueChainOptions}. */
 export const DEFAULTS = { minScore: 0.75 } as const;
+
+/** Coordinating conjunctions and list punctuation (common practice: they join clauses of equal rank). */
+const COORDINATION = /\b(?:and|or|but|nor)\b|[,;]/i;
 
 /** One way to take a chain step: a relation and its stored direction. */
 export interface StepOption {
@@ -48,6 +58,17 @@ export interface ChainStep {
   readonly at: number;
   /** The relations this word cues (alternatives), ordered by cue index. */
   readonly options: readonly StepOption[];
+  /** Type nums the node reached by this hop should have (a type noun before the next hop's word); empty: any. */
+  readonly types: readonly number[];
+}
+
+/** A type noun of the question outside the clues and the answer-type phrase. */
+export interface TypeWord {
+  /** UTF-16 offsets of the noun (phrase). */
+  readonly start: number;
+  readonly end: number;
+  /** The types it names. */
+  readonly types: readonly number[];
 }
 
 /** The relation-path pattern implied for one clue. */
@@ -63,15 +84,20 @@ export interface CueChain {
  * places all lie nearer other clues belongs only to those; the ranking uses that to leave a
  * dropped clue's cue words out (ablation).
  */
-export function cueChains(analysis: Pick<Analysis, "mentions" | "clues" | "relationCues">, options: CueChainOptions = {}): CueChain[] {
+export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "clues" | "relationCues" | "typeWords">, options: CueChainOptions = {}): CueChain[] {
   const minScore = options.minScore ?? DEFAULTS.minScore;
   const spans = analysis.clues.map((c) => {
     const m = analysis.mentions[c.mention];
     return { start: m?.start ?? 0, end: m?.end ?? 0 };
   });
+  // characters between the word and the clue; a coordination in between ("R1 C1 and R2 C2")
+  // closes the attachment, so it costs more than any distance within the question
+  const text = analysis.question ?? "";
   const distance = (c: number, at: number) => {
     const s = spans[c]!;
-    return at >= s.end ? at - s.end : at < s.start ? s.start - at : 0;
+    const d = at >= s.end ? at - s.end : at < s.start ? s.start - at : 0;
+    const gap = at >= s.end ? text.slice(s.end, at) : at < s.start ? text.slice(at, s.start) : "";
+    return COORDINATION.test(gap) ? d + 1e6 : d;
   };
   // steps per clue, keyed by word offset
   const perClue = analysis.clues.map(() => new Map<number, StepOption[]>());
@@ -89,10 +115,43 @@ export function cueChains(analysis: Pick<Analysis, "mentions" | "clues" | "relat
       perClue[best]!.set(p.start, list);
     }
   });
-  return perClue.map((steps, c) => ({
-    clue: c,
-    steps: [...steps.entries()]
-      .sort((a, b) => distance(c, a[0]) - distance(c, b[0]) || a[0] - b[0])
-      .map(([at, opts]) => ({ at, options: [...opts].sort((x, y) => x.cue - y.cue) })),
-  }));
+  const typeWords = analysis.typeWords ?? [];
+  return perClue.map((steps, c) => {
+    const ordered = [...steps.entries()].sort((a, b) => distance(c, a[0]) - distance(c, b[0]) || a[0] - b[0]);
+    return {
+      clue: c,
+      steps: ordered.map(([at, opts], i) => {
+        // the node this hop reaches: a type noun strictly between this word and the next hop's
+        const next = ordered[i + 1]?.[0];
+        const lo = next === undefined ? at : Math.min(at, next);
+        const hi = next === undefined ? at : Math.max(at, next);
+        const types = [...new Set(typeWords.filter((t) => t.start > lo && t.start < hi).flatMap((t) => t.types))].sort((a, b) => a - b);
+        return { at, options: [...opts].sort((x, y) => x.cue - y.cue), types };
+      }),
+    };
+  });
+}
+
+/**
+ * The type nouns of a question: longest n-grams of unblocked words whose Porter-stem key is
+ * a type label or alias of the catalog (function words never make a one-word type).
+ * `blocked[i]`: word i is inside a clue mention or the answer-type phrase.
+ */
+export function findTypeWords(ws: readonly Word[], blocked: readonly boolean[], model: QuestionModel): TypeWord[] {
+  const out: TypeWord[] = [];
+  for (let i = 0; i < ws.length; ) {
+    let found = 0;
+    for (let len = Math.min(model.maxTypeWords, ws.length - i); len >= 1 && found === 0; len--) {
+      const idx = Array.from({ length: len }, (_, k) => i + k);
+      if (idx.some((k) => blocked[k])) continue;
+      if (len === 1 && isFunctionWord(ws[i]!.norm)) continue;
+      const types = model.typesByKey.get(idx.map((k) => ws[k]!.stem).join(" "));
+      if (types && types.length > 0) {
+        out.push({ start: ws[i]!.start, end: ws[i + len - 1]!.end, types: [...types].sort((a, b) => a - b) });
+        found = len;
+      }
+    }
+    i += Math.max(found, 1);
+  }
+  return out;
 }

@@ -7,7 +7,8 @@
  * whatever the linker persists), a warm second call, the check's own `summary.seconds`, the
  * quality figures of the generated set, and an HTML report of the same run (`--format html`).
  *
- * Options: --entities N --edges N --questions N --seed N --keep (keep the temp folder).
+ * Options: --entities N --edges N --questions N --seed N --keep (keep the temp folder),
+ * --cold-only (only the cold call: no warm call, no HTML).
  */
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, statSync } from "node:fs";
@@ -68,11 +69,12 @@ try {
   cat.close();
   say(`check, cold`);
   const cold = timedCheck([gen.questions, "--db", db, "--json"]);
-  say(`check, warm (${cold.seconds.toFixed(1)} s cold)`);
-  const warm = timedCheck([gen.questions, "--db", db, "--json"]);
+  const quick = process.argv.includes("--cold-only");
+  say(quick ? `done (${cold.seconds.toFixed(1)} s cold)` : `check, warm (${cold.seconds.toFixed(1)} s cold)`);
+  const warm = quick ? cold : timedCheck([gen.questions, "--db", db, "--json"]);
   const html = join(dir, "report.html");
-  say(`check --format html (${warm.seconds.toFixed(1)} s warm)`);
-  const page = timedCheck([gen.questions, "--db", db, "--format", "html", "--out", html]);
+  if (!quick) say(`check --format html (${warm.seconds.toFixed(1)} s warm)`);
+  const page = quick ? null : timedCheck([gen.questions, "--db", db, "--format", "html", "--out", html]);
   const report = JSON.parse(warm.stdout) as CheckReport;
   const s = report.summary;
   const result = {
@@ -80,11 +82,11 @@ try {
     catalog: { entities: gen.entities, edgeLines: gen.edges, maxDegree: gen.maxDegree, loadSeconds: +load.seconds.toFixed(2) },
     questions: s.questions,
     coldCallSeconds: +cold.seconds.toFixed(2),
-    warmCallSeconds: +warm.seconds.toFixed(2),
+    warmCallSeconds: quick ? null : +warm.seconds.toFixed(2),
     checkSummarySeconds: +s.seconds.toFixed(2),
     millisPerQuestion: +((s.seconds * 1000) / Math.max(1, s.questions)).toFixed(2),
-    htmlCallSeconds: +page.seconds.toFixed(2),
-    htmlMebibytes: +(statSync(html).size / 2 ** 20).toFixed(1),
+    htmlCallSeconds: page ? +page.seconds.toFixed(2) : null,
+    htmlMebibytes: page ? +(statSync(html).size / 2 ** 20).toFixed(1) : null,
     quality: { withExpected: s.withExpected, hits1: +s.hits1.toFixed(3), hits5: +s.hits5.toFixed(3), mrr: +s.mrr.toFixed(3), verdicts: s.verdicts },
     target: DEFAULTS.targetSeconds,
     meetsTarget: cold.seconds <= DEFAULTS.targetSeconds,
@@ -92,7 +94,7 @@ try {
   process.stdout.write(JSON.stringify(result, null, 2) + "\n");
   process.stderr.write(
     `check: ${s.questions} questions on ${gen.entities.toLocaleString("en-US")} entities: cold call ${cold.seconds.toFixed(1)} s, warm ${warm.seconds.toFixed(1)} s ` +
-      `(target ${DEFAULTS.targetSeconds} s: ${result.meetsTarget ? "met" : "NOT met"}); html report ${page.seconds.toFixed(1)} s\n`,
+      `(target ${DEFAULTS.targetSeconds} s: ${result.meetsTarget ? "met" : "NOT met"})${page ? `; html report ${page.seconds.toFixed(1)} s` : ""}\n`,
   );
 } finally {
   if (!process.argv.includes("--keep")) rmSync(dir, { recursive: true, force: true });

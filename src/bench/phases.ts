@@ -23,6 +23,8 @@ import {
   type Seed,
 } from "../ranking/index.js";
 import { IGRAPH_SCRIPT, findIgraph } from "./igraph.js";
+import { powerLawEdges } from "./graph.js";
+import { mulberry32Bench } from "./random.js";
 import { linkQuestion } from "../linking/index.js";
 import { analyze } from "../analysis/index.js";
 
@@ -270,61 +272,119 @@ export function phasePpr(work: string, limit: number, exactLimit: number, igraph
     agreementTop20Cues: quantiles(agreeCue).mean,
     peakMiB: peakMiB(),
   };
-  const ig = findIgraph();
-  if (ig === null) {
-    result.igraph = { skipped: "python3-igraph not installed (apt-get install python3-igraph, or pip install igraph)" };
-  } else {
-    mkdirSync(p.igraph, { recursive: true });
-    const edgesFile = join(p.igraph, "arcs.txt");
-    const weightsFile = join(p.igraph, "weights.f64");
-    const queriesFile = join(p.igraph, "queries.json");
-    const outFile = join(p.igraph, "out.json");
-    const scriptFile = join(p.igraph, "ppr.py");
-    writeFileSync(scriptFile, IGRAPH_SCRIPT);
-    // arcs u → v for every adjacency entry, weight ρ(=1)·deg(v)^(−β) as in transition.ts
-    const weights = new Float64Array(index.edgeCount * 2);
-    let k = 0;
-    writeFileSync(edgesFile, "");
-    const lines: string[] = [];
-    for (let u = 0; u < index.nodeCount; u++) {
-      index.forEach(u, (v) => {
-        lines.push(`${u} ${v}`);
-        weights[k++] = Math.pow(index.degree(v), -beta);
-      });
-      if (lines.length > 200_000) {
-        appendFileSync(edgesFile, lines.join("\n") + "\n");
-        lines.length = 0;
-      }
-    }
-    if (lines.length > 0) appendFileSync(edgesFile, lines.join("\n") + "\n");
-    writeFileSync(weightsFile, new Uint8Array(weights.buffer));
-    const sub = queries.slice(0, igraphLimit);
-    writeFileSync(queriesFile, JSON.stringify({ nodeCount: index.nodeCount, alpha, top: K, queries: sub.map((q) => q.seeds.map((s) => [s.node, s.weight])) }));
-    const r = spawnSync(ig.python, [scriptFile, edgesFile, weightsFile, queriesFile, outFile], { encoding: "utf8", maxBuffer: 1 << 26 });
-    if (r.status !== 0) {
-      result.igraph = { error: (r.stderr ?? "").trim().split("\n").slice(-1)[0] };
-    } else {
-      const out = JSON.parse(readFileSync(outFile, "utf8")) as { version: string; loadSeconds: number; results: { seconds: number; top: [number, number][] }[] };
-      const ag: number[] = [];
-      out.results.forEach((res, i) => {
-        const exact = new Map(res.top);
-        // exact scores outside igraph's top 20 are below its 20th: treat as 0
-        ag.push(agreement(fastTops[i]!, (v) => exact.get(v) ?? 0, res.top, K));
-      });
-      const igMs = quantiles(out.results.map((x) => x.seconds * 1000));
-      const ours = quantiles(fastMs.slice(0, sub.length));
-      result.igraph = {
-        version: out.version,
-        queries: out.results.length,
-        graphLoadSeconds: out.loadSeconds,
-        ms: igMs,
-        agreementTop20: quantiles(ag).mean,
-        speedup: igMs.median / ours.median,
-      };
-    }
-    rmSync(edgesFile, { force: true });
-    rmSync(weightsFile, { force: true });
-  }
+  result.igraph = compareIgraph(index, queries.slice(0, igraphLimit), fastTops, fastMs, alpha, beta, p.igraph);
   session.close();
   return result;
+}
+
+/** python3-igraph's exact PPR on the same graph, weights and seeds; time and top-20 agreement with `fastTops`. */
+function compareIgraph(
+  index: RelationIndex,
+  sub: readonly { seeds: Seed[] }[],
+  fastTops: readonly [number, number][][],
+  fastMs: readonly number[],
+  alpha: number,
+  beta: number,
+  dir: string,
+): Record<string, unknown> {
+  const K = 20;
+  const ig = findIgraph();
+  if (ig === null) return { skipped: "python3-igraph not installed (apt-get install python3-igraph, or pip install igraph)" };
+  mkdirSync(dir, { recursive: true });
+  const edgesFile = join(dir, "arcs.txt");
+  const weightsFile = join(dir, "weights.f64");
+  const queriesFile = join(dir, "queries.json");
+  const outFile = join(dir, "out.json");
+  const scriptFile = join(dir, "ppr.py");
+  writeFileSync(scriptFile, IGRAPH_SCRIPT);
+  // arcs u → v for every adjacency entry, weight ρ(=1)·deg(v)^(−β) as in transition.ts
+  const weights = new Float64Array(index.edgeCount * 2);
+  let k = 0;
+  writeFileSync(edgesFile, "");
+  const lines: string[] = [];
+  for (let u = 0; u < index.nodeCount; u++) {
+    index.forEach(u, (v) => {
+      lines.push(`${u} ${v}`);
+      weights[k++] = Math.pow(index.degree(v), -beta);
+    });
+    if (lines.length > 200_000) {
+      appendFileSync(edgesFile, lines.join("\n") + "\n");
+      lines.length = 0;
+    }
+  }
+  if (lines.length > 0) appendFileSync(edgesFile, lines.join("\n") + "\n");
+  writeFileSync(weightsFile, new Uint8Array(weights.buffer));
+  writeFileSync(queriesFile, JSON.stringify({ nodeCount: index.nodeCount, alpha, top: K, queries: sub.map((q) => q.seeds.map((s) => [s.node, s.weight])) }));
+  const r = spawnSync(ig.python, [scriptFile, edgesFile, weightsFile, queriesFile, outFile], { encoding: "utf8", maxBuffer: 1 << 26 });
+  rmSync(edgesFile, { force: true });
+  rmSync(weightsFile, { force: true });
+  if (r.status !== 0) return { error: (r.stderr ?? "").trim().split("\n").slice(-1)[0] };
+  const out = JSON.parse(readFileSync(outFile, "utf8")) as { version: string; loadSeconds: number; results: { seconds: number; top: [number, number][] }[] };
+  const ag: number[] = [];
+  out.results.forEach((res, i) => {
+    const exact = new Map(res.top);
+    // exact scores outside igraph's top 20 are below its 20th: treat as 0
+    ag.push(agreement(fastTops[i]!, (v) => exact.get(v) ?? 0, res.top, K));
+  });
+  const igMs = quantiles(out.results.map((x) => x.seconds * 1000));
+  const ours = quantiles(fastMs.slice(0, sub.length));
+  return { version: out.version, queries: out.results.length, graphLoadSeconds: out.loadSeconds, ms: igMs, agreementTop20: quantiles(ag).mean, speedup: igMs.median / ours.median };
+}
+
+/**
+ * The same comparison without a catalog: a seeded power-law graph of the size's node and edge
+ * counts (graph.ts), random seeds of degree ≥ 1, pprFast vs pprPower vs igraph.
+ */
+export function phaseGraph(work: string, nodes: number, edges: number, queries: number, exactLimit: number, igraphLimit: number): Record<string, unknown> {
+  const g = powerLawEdges(nodes, edges);
+  const list: [number, number, number][] = [];
+  for (let i = 0; i < g.src.length; i++) list.push([g.src[i]!, g.rel[i]!, g.dst[i]!]);
+  const index = RelationIndex.fromEdges(g.nodeCount, g.relationCount, list);
+  list.length = 0;
+  const alpha = RANK_DEFAULTS.alpha;
+  const beta = TRANSITION_DEFAULTS.hubExponent;
+  const random = mulberry32Bench(17);
+  const qs: { seeds: Seed[] }[] = [];
+  while (qs.length < queries) {
+    const u = 1 + Math.floor(random() * nodes);
+    if (index.degree(u) > 0) qs.push({ seeds: [{ node: u, weight: 1 }] });
+  }
+  const K = 20;
+  const fastMs: number[] = [];
+  const fastCpuMs: number[] = [];
+  const fastTops: [number, number][][] = [];
+  for (let rep = 0; rep < 2; rep++) {
+    for (const q of qs) {
+      const t = performance.now();
+      const c = process.cpuUsage();
+      const f = pprFast(index, q.seeds, { alpha });
+      const dt = performance.now() - t;
+      const dc = cpuMs(c);
+      if (rep === 1) {
+        fastMs.push(dt);
+        fastCpuMs.push(dc);
+        fastTops.push(topK(f.nodes, f.scores, K, new Set(q.seeds.map((s) => s.node))));
+      }
+    }
+  }
+  const nodesAll = Int32Array.from({ length: index.nodeCount }, (_, i) => i);
+  const agree: number[] = [];
+  for (let i = 0; i < Math.min(exactLimit, qs.length); i++) {
+    const q = qs[i]!;
+    const x = pprPower(index, q.seeds, { alpha, tolerance: 1e-10 });
+    agree.push(agreement(fastTops[i]!, (v) => x[v]!, topK(nodesAll, x, K, new Set(q.seeds.map((s) => s.node))), K));
+  }
+  return {
+    alpha,
+    hubExponent: beta,
+    nodes: index.nodeCount,
+    edges: index.edgeCount,
+    queries: qs.length,
+    fastMs: quantiles(fastMs),
+    fastCpuMs: quantiles(fastCpuMs),
+    agreementTop20: quantiles(agree).mean,
+    exactQueries: agree.length,
+    igraph: compareIgraph(index, qs.slice(0, igraphLimit), fastTops, fastMs, alpha, beta, join(work, "igraph-graph")),
+    peakMiB: peakMiB(),
+  };
 }

@@ -13,8 +13,10 @@
  *
  * Writes bench-results/bench-SIZES-TIME.json and .md, and bench-results/latest.md.
  * Options: --size S|M|L (repeatable or comma-separated), --questions N (default 200),
- * --phases generate,load,index,ready,ask,ppr (a subset, in that order; default all; the
- * later phases reuse the catalog the earlier ones left in the work folder),
+ * --phases generate,load,index,ready,ask,ppr,graph (a subset, in that order; default all but
+ * graph; later phases reuse the catalog the earlier ones left in the work folder; `graph`
+ * repeats the PageRank comparison on a seeded power-law graph of the size's node and edge
+ * counts without any catalog, src/bench/graph.ts),
  * --work DIR (generated catalogs; default $TMPDIR/tiepoint-bench), --out DIR.
  */
 import { spawnSync } from "node:child_process";
@@ -22,7 +24,7 @@ import { mkdirSync, writeFileSync } from "node:fs";
 import { cpus, totalmem, tmpdir } from "node:os";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
-import { phaseAsk, phaseGenerate, phaseIndex, phaseLoad, phasePpr, phaseReady } from "./phases.js";
+import { phaseAsk, phaseGenerate, phaseGraph, phaseIndex, phaseLoad, phasePpr, phaseReady } from "./phases.js";
 import { findIgraph } from "./igraph.js";
 import { renderMarkdown, type SizeResult } from "./report.js";
 
@@ -67,7 +69,7 @@ function args(argv: readonly string[]) {
     else if (a === "--phase") phase = next();
     else if (a === "--phases") {
       phases = next().split(",").map((x) => x.trim());
-      for (const x of phases) if (!["generate", "load", "index", "ready", "ask", "ppr"].includes(x)) usage(`unknown phase "${x}" (generate, load, index, ready, ask, ppr)`);
+      for (const x of phases) if (!["generate", "load", "index", "ready", "ask", "ppr", "graph"].includes(x)) usage(`unknown phase "${x}" (generate, load, index, ready, ask, ppr, graph)`);
     }
     else usage(`unknown option ${a}`);
   }
@@ -103,6 +105,8 @@ function runPhase(phase: string, size: SizeName, work: string, questions: number
       return phaseAsk(work, questions);
     case "ppr":
       return phasePpr(work, questions, s.exact, s.igraph);
+    case "graph":
+      return phaseGraph(work, s.entities, s.edges, questions, s.exact, s.igraph);
     default:
       usage(`unknown phase ${phase}`);
   }
@@ -133,7 +137,7 @@ function main(): void {
     const s = SIZES[size];
     process.stderr.write(`bench ${size}: ${s.entities} entities, ${s.edges} edges (work folder ${work})\n`);
     const r: SizeResult = { size, entities: s.entities, edges: s.edges, phases: {} };
-    for (const phase of ["generate", "load", "index", "ready", "ask", "ppr"]) {
+    for (const phase of ["generate", "load", "index", "ready", "ask", "ppr", "graph"]) {
       if (!o.phases.includes(phase)) continue;
       process.stderr.write(`bench ${size}: ${phase}…\n`);
       if (phase === "ready") {

@@ -41,7 +41,8 @@ export function cacheDir(env: NodeJS.ProcessEnv = process.env): string {
 
 function sourceHash(files: readonly string[]): string {
   const h = createHash("sha256");
-  h.update(`tiepoint demo, schema ${SCHEMA_VERSION}\n`);
+  // "units": catalogs built before the importer stored attribute units (meta `unit:…`) are rebuilt
+  h.update(`tiepoint demo, schema ${SCHEMA_VERSION}, units\n`);
   for (const f of files) {
     let bytes: Buffer;
     try {

@@ -10,7 +10,9 @@
  * simplified Lesk (A. Kilgarriff and J. Rosenzweig, "Framework and results for English
  * SENSEVAL", Computers and the Humanities 34, 2000: the sense whose gloss shares most words with
  * the sentence; no overlap or a tie → the more frequent sense). Lesk and tiepoint compare the
- * same stemmed, stop-word-free tokens and see the same descriptions.
+ * same stemmed, stop-word-free tokens and read the same descriptions; Lesk uses a candidate's
+ * own gloss only, as in the original, while tiepoint also uses what its method uses in any
+ * catalog — the edges (WordNet's noun pointers: neighbours' lemmas and glosses) and the degree.
  */
 import { readFileSync } from "node:fs";
 import { join } from "node:path";

@@ -9,11 +9,17 @@
  * the adjacency entries joining two consecutive nodes of the path, the cheapest step under
  * the path cost model is reported.
  *
+ * Bounds: besides `maxHops` and the visited-node budget, a budget of scanned adjacency
+ * entries (`workBudget`), and within each frontier the hubs (degree above `hubLimit`) are
+ * expanded after every other node, so a meeting through small nodes is found before a hub's
+ * long list is read. Parents live in per-graph stamped arrays (scratch.ts), not maps.
+ *
  * [Reference]
  * Pohl, "Bi-directional Search", Machine Intelligence 6, 1971 (the bidirectional scheme);
  * Moore 1959 (breadth-first search).
  */
 import type { PathCostModel } from "./path-cost.js";
+import { scratch } from "./scratch.js";
 import type { WalkGraph } from "./types.js";
 
 /** Options of {@link bidirectionalBfs}; all optional. */
@@ -22,10 +28,14 @@ export interface BfsOptions {
   readonly maxHops?: number;
   /** Most nodes visited by both frontiers together. @default 200000 */
   readonly nodeBudget?: number;
+  /** Most adjacency entries scanned by both frontiers together. @default 1000000 */
+  readonly workBudget?: number;
+  /** Nodes of larger degree are expanded last within their frontier. @default 2000 */
+  readonly hubLimit?: number;
 }
 
 /** The defaults of {@link BfsOptions}. */
-export const DEFAULTS = { maxHops: 6, nodeBudget: 200000 } as const;
+export const DEFAULTS = { maxHops: 6, nodeBudget: 200000, workBudget: 1000000, hubLimit: 2000 } as const;
 
 /** One step of a found path (entity nums). */
 export interface NumStep {
@@ -57,37 +67,57 @@ export function cheapestStep(graph: WalkGraph, cost: PathCostModel, u: number, v
 export function bidirectionalBfs(graph: WalkGraph, cost: PathCostModel, source: number, target: number, options: BfsOptions = {}): NumStep[] | null {
   const maxHops = options.maxHops ?? DEFAULTS.maxHops;
   const budget = options.nodeBudget ?? DEFAULTS.nodeBudget;
+  const workBudget = options.workBudget ?? DEFAULTS.workBudget;
+  const hubLimit = options.hubLimit ?? DEFAULTS.hubLimit;
   if (source === target) return [];
-  const parentF = new Map<number, number>([[source, -1]]);
-  const parentB = new Map<number, number>([[target, -1]]);
+  if (!(source >= 0 && source < graph.nodeCount && target >= 0 && target < graph.nodeCount)) return null;
+  // parent + 1 (0 = a root) in two stamped arrays
+  const parentF = scratch(graph, 3);
+  const parentB = scratch(graph, 4);
+  parentF.set(source, 0);
+  parentB.set(target, 0);
+  let visited = 2;
+  let work = 0;
   let frontF = [source];
   let frontB = [target];
   let depth = 0;
   let meet = -1;
-  while (depth < maxHops && frontF.length > 0 && frontB.length > 0 && parentF.size + parentB.size < budget) {
+  while (depth < maxHops && frontF.length > 0 && frontB.length > 0 && visited < budget && work < workBudget) {
     const forward = frontF.length <= frontB.length;
     const front = forward ? frontF : frontB;
     const mine = forward ? parentF : parentB;
     const other = forward ? parentB : parentF;
     const next: number[] = [];
-    for (const u of front) {
+    const hubs: number[] = [];
+    const expand = (u: number) => {
+      work += graph.degree(u);
       graph.forEach(u, (v) => {
         if (meet >= 0 || mine.has(v)) return;
-        mine.set(v, u);
+        mine.set(v, u + 1);
+        visited++;
         if (other.has(v)) meet = v;
         else next.push(v);
       });
-      if (meet >= 0) break;
+    };
+    for (const u of front) {
+      if (graph.degree(u) > hubLimit) hubs.push(u);
+      else expand(u);
+      if (meet >= 0 || work >= workBudget) break;
+    }
+    for (const u of hubs) {
+      if (meet >= 0 || work >= workBudget) break;
+      expand(u);
     }
     depth++;
     if (meet >= 0) break;
+    if (work >= workBudget) break;
     if (forward) frontF = next;
     else frontB = next;
   }
   if (meet < 0) return null;
   const nodes: number[] = [];
-  for (let x = meet; x !== -1; x = parentF.get(x)!) nodes.unshift(x);
-  for (let x = parentB.get(meet)!; x !== -1; x = parentB.get(x)!) nodes.push(x);
+  for (let x = meet; x !== -1; x = parentF.get(x) - 1) nodes.unshift(x);
+  for (let x = parentB.get(meet) - 1; x !== -1; x = parentB.get(x) - 1) nodes.push(x);
   const steps: NumStep[] = [];
   for (let i = 0; i + 1 < nodes.length; i++) {
     const s = cheapestStep(graph, cost, nodes[i]!, nodes[i + 1]!);

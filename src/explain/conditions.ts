@@ -16,8 +16,10 @@
  */
 import type { Catalog } from "../catalog/index.js";
 import type { Condition } from "../analysis/index.js";
-import type { ConditionCheck, ConditionOutcome } from "../ranking/index.js";
-import type { ConditionDoc, ConditionStepDoc, CountDoc, Verdict } from "../model/index.js";
+import type { ConditionCheck, ConditionOutcome, RelationIndex } from "../ranking/index.js";
+import type { Explanation } from "./explain.js";
+import { suggestClues, type FactLookup } from "./suggest.js";
+import type { Answer, ConditionDoc, ConditionStepDoc, CountDoc, EntityRef, Verdict } from "../model/index.js";
 
 /** A value on the catalog's scale as text: dates back as ISO 8601, other numbers with thousands separators. */
 export function formatValue(v: number, temporal: boolean): string {
@@ -112,8 +114,11 @@ export function conditionVerdict(conditions: readonly Condition[], outcome: Cond
     return { status: "weak", margin: 0, tiedWith: [], reason: "no candidate that fits every clue satisfies the conditions" };
   }
   if (outcome.count) {
-    if (outcome.count.value === 0) return { status: "none", margin: 0, tiedWith: [], reason: "nothing fits every clue and condition: the count is 0" };
-    return { status: "unique", margin: 1, tiedWith: [], reason: `the count is ${outcome.count.value}` };
+    const n = outcome.count.value;
+    if (n === 0) return { status: "none", margin: 0, tiedWith: [], reason: "nothing fits every clue and condition: the count is 0" };
+    if (n === 1) return { status: "unique", margin: 1, tiedWith: [], reason: "the count is 1" };
+    // the counted entities fit equally: the number is the answer, the entities are a tie
+    return { status: "tied", margin: 0, tiedWith: outcome.count.entities.slice(1).map((x) => catalog.ref(x).id), reason: `the count is ${n}: ${n} entities fit equally` };
   }
   const sup = conditions.findIndex((c, i) => c.kind === "superlative" && outcome.applied.some((a) => a.condition === c && a.attribute !== null) && i >= 0);
   if (sup < 0 || firstAnswer === undefined || outcome.tiedWith === undefined) return undefined;
@@ -122,4 +127,54 @@ export function conditionVerdict(conditions: readonly Condition[], outcome: Cond
     return { status: "tied", margin: 0, tiedWith: outcome.tiedWith.map((n) => catalog.ref(n).id), reason: `${outcome.tiedWith.length + 1} candidates share the same ${label}` };
   }
   return { status: "unique", margin: 1, tiedWith: [], reason: `the only candidate at that place by ${label}` };
+}
+
+/** Catalog facts for suggested clues (the explain stage's lookup, read straight from the catalog). */
+class CatalogFacts implements FactLookup {
+  private readonly rels: Map<number, EntityRef & { readonly aliases: readonly string[] }>;
+  constructor(private readonly catalog: Catalog) {
+    this.rels = new Map(catalog.predicates().map((p) => [p.num, { id: p.id, label: p.label, aliases: p.aliases }]));
+  }
+  ref(num: number): EntityRef {
+    return this.catalog.ref(num);
+  }
+  relation(rel: number): EntityRef {
+    return this.rels.get(rel) ?? { id: String(rel), label: String(rel) };
+  }
+  relationAliases(rel: number): readonly string[] {
+    return this.rels.get(rel)?.aliases ?? [];
+  }
+  attributes(num: number): readonly { predicate: string; label: string; value: string }[] {
+    return this.catalog.attributes(num);
+  }
+  labelCount(label: string): number {
+    return this.catalog.byLabelOrId(label).length;
+  }
+}
+
+/**
+ * The explanation of a question whose conditions set its verdict: the explain stage's own
+ * (when there was one) with this verdict, and — for a tie without suggestions — the clues
+ * that would single out the first answer (suggest.ts, over the catalog's facts). A question
+ * without a clue gets an explanation of its own: no paths, no coverage, no ablation.
+ */
+export function conditionExplanation(
+  question: string,
+  answers: readonly Answer[],
+  verdict: Verdict,
+  outcome: ConditionOutcome,
+  index: RelationIndex,
+  catalog: Catalog,
+  base: Explanation | undefined,
+): Explanation {
+  const explanation: Explanation = base
+    ? { ...base, answers, verdict }
+    : { answers, verdict, coverage: { clues: [], rows: [], maxHops: 0 }, ablation: [], suggestions: [], whyNot: [], labels: {} };
+  if (verdict.status !== "tied" || explanation.suggestions.length > 0) return explanation;
+  const first = outcome.ranked.candidates[0]?.node;
+  if (first === undefined) return explanation;
+  const tied = new Set(verdict.tiedWith);
+  const rivals = outcome.ranked.candidates.slice(1).filter((c) => tied.has(catalog.ref(c.node).id)).map((c) => c.node);
+  const exclude = new Set(outcome.ranked.clues.map((c) => c.node));
+  return { ...explanation, suggestions: suggestClues(index, new CatalogFacts(catalog), question, first, rivals, exclude) };
 }

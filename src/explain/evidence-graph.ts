@@ -16,12 +16,22 @@
  * k-shortest-path search to the union of bounded balls around both endpoints is common
  * practice (it is exactly the set of nodes on walks of length ≤ maxHops).
  *
- * Hubs (degree above `hubLimit`) are kept as nodes but not expanded, and each search stops
- * after `nodeBudget` nodes, so the subgraph stays small on a million-entity catalog; paths
- * the subgraph misses are left to the bounded bidirectional search on the full index.
+ * Hubs (degree above `hubLimit`) are kept as nodes but not expanded; each side's search
+ * (one multi-source BFS from all clue seeds, one from all answers) stops after `nodeBudget`
+ * nodes or `workBudget` scanned adjacency entries, and at most `maxNodes` nodes are kept
+ * (fewest hops on the walk first, then lowest num), so the subgraph stays small on a
+ * million-entity catalog; paths the subgraph misses are left to the bounded bidirectional
+ * search on the full index. The searches use per-graph stamped arrays (scratch.ts), not maps.
+ *
+ * {@link evidenceSubgraph} returns the compact form (CSR arrays, searched by dijkstra.ts and
+ * yenOnArcs), optionally with one virtual source node per clue whose arcs to the clue's
+ * seeds cost −ln(seed share); {@link buildEvidenceGraph} the same subgraph as a graphology
+ * graph (for inspection and drawing).
  */
 import { DirectedGraph } from "graphology";
+import type { ArcGraph } from "./dijkstra.js";
 import type { PathCostModel } from "./path-cost.js";
+import { scratch, type Stamped } from "./scratch.js";
 import type { WalkGraph } from "./types.js";
 
 /** Options of {@link buildEvidenceGraph}; all optional. */
@@ -30,12 +40,16 @@ export interface EvidenceOptions {
   readonly maxHops?: number;
   /** Nodes of larger degree are not expanded (the endpoints always are). @default 2000 */
   readonly hubLimit?: number;
-  /** Most nodes one breadth-first search visits. @default 50000 */
+  /** Most nodes one side's breadth-first search visits. @default 50000 */
   readonly nodeBudget?: number;
+  /** Most adjacency entries one side's breadth-first search scans. @default 20000 */
+  readonly workBudget?: number;
+  /** Most nodes kept in the subgraph (besides the clues and answers). @default 1000 */
+  readonly maxNodes?: number;
 }
 
 /** The defaults of {@link EvidenceOptions}. */
-export const DEFAULTS = { maxHops: 4, hubLimit: 2000, nodeBudget: 50000 } as const;
+export const DEFAULTS = { maxHops: 4, hubLimit: 2000, nodeBudget: 50000, workBudget: 20000, maxNodes: 1000 } as const;
 
 /** Attributes of an evidence edge. */
 export interface EvidenceEdge {
@@ -47,29 +61,190 @@ export interface EvidenceEdge {
   readonly inverse: boolean;
 }
 
-/** Hop distances from `start` up to `maxHops`. */
-export function bfsDistances(graph: WalkGraph, start: number, maxHops: number, hubLimit: number, nodeBudget: number): Map<number, number> {
-  const dist = new Map<number, number>([[start, 0]]);
-  let frontier = [start];
-  for (let d = 1; d <= maxHops && frontier.length > 0 && dist.size < nodeBudget; d++) {
-    const next: number[] = [];
-    for (const u of frontier) {
-      if (u !== start && graph.degree(u) > hubLimit) continue;
-      graph.forEach(u, (v) => {
-        if (!dist.has(v) && dist.size < nodeBudget) {
-          dist.set(v, d);
-          next.push(v);
-        }
-      });
-    }
-    frontier = next;
-  }
-  return dist;
+/** A weighted restart node of a clue (paths.ts ClueSeed). */
+export interface EvidenceSeed {
+  readonly node: number;
+  readonly weight: number;
 }
 
 /**
- * Builds the evidence subgraph for `clues` and `answers` (entity nums).
- * Node iteration and edge insertion follow ascending node num, so the graph is deterministic.
+ * The evidence subgraph in compact form: local node ids 0..realCount-1 are entity nums in
+ * ascending order (`nums`), then one virtual source per clue (when built with seeds); at
+ * most one arc per ordered node pair, the cheapest step (virtual arcs: rel −1).
+ */
+export class EvidenceSubgraph implements ArcGraph {
+  readonly size: number;
+  constructor(
+    /** Entity num per real local id. */
+    readonly nums: Int32Array,
+    readonly realCount: number,
+    readonly offsets: Int32Array,
+    readonly heads: Int32Array,
+    readonly tails: Int32Array,
+    readonly costs: Float64Array,
+    readonly rels: Int32Array,
+    readonly inverse: Uint8Array,
+    private readonly localIds: ReadonlyMap<number, number>,
+  ) {
+    this.size = offsets.length - 1;
+  }
+
+  /** Local id of an entity num, or -1 when it is not in the subgraph. */
+  localOf(num: number): number {
+    return this.localIds.get(num) ?? -1;
+  }
+
+  /** Local id of clue `ci`'s virtual source (built with seeds only). */
+  virtualOf(ci: number): number {
+    return this.realCount + ci;
+  }
+
+  /** The arc u → v, or -1. */
+  arc(u: number, v: number): number {
+    for (let e = this.offsets[u]!, end = this.offsets[u + 1]!; e < end; e++) if (this.heads[e] === v) return e;
+    return -1;
+  }
+}
+
+/**
+ * Multi-source hop distances up to `maxHops` into `dist` (a reset stamped array); starts are
+ * always expanded in full (whatever the budgets, so every 1-hop path is kept), hubs (degree >
+ * hubLimit) otherwise not; the budgets bound everything beyond the starts' neighbours. Returns the visited nodes in BFS order.
+ */
+function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubLimit: number, nodeBudget: number, workBudget: number, dist: Stamped): number[] {
+  const seen: number[] = [];
+  for (const s of starts) {
+    if (s < 0 || s >= graph.nodeCount || dist.has(s)) continue;
+    dist.set(s, 0);
+    seen.push(s);
+  }
+  let work = 0;
+  let lo = 0;
+  for (let d = 1; d <= maxHops && seen.length < nodeBudget; d++) {
+    const hi = seen.length;
+    if (lo === hi) break;
+    for (let i = lo; i < hi && (d === 1 || (seen.length < nodeBudget && work < workBudget)); i++) {
+      const u = seen[i]!;
+      const deg = graph.degree(u);
+      if (d > 1 && deg > hubLimit) continue;
+      work += deg;
+      graph.forEach(u, (v) => {
+        if (!dist.has(v) && (d === 1 || seen.length < nodeBudget)) {
+          dist.set(v, d);
+          seen.push(v);
+        }
+      });
+    }
+    lo = hi;
+  }
+  return seen;
+}
+
+/** Hop distances from `start` up to `maxHops` (hubs above `hubLimit` not expanded, at most `nodeBudget` nodes). */
+export function bfsDistances(graph: WalkGraph, start: number, maxHops: number, hubLimit: number, nodeBudget: number): Map<number, number> {
+  const dist = scratch(graph, 0);
+  const seen = ball(graph, [start], maxHops, hubLimit, nodeBudget, Infinity, dist);
+  return new Map(seen.map((x) => [x, dist.get(x)]));
+}
+
+/**
+ * Builds the compact evidence subgraph for the clue seeds `clues` (one list per clue) and
+ * `answers` (entity nums); with `virtual`, one virtual source per clue is appended.
+ * Node order and arc order follow ascending node num, so the result is deterministic.
+ */
+export function evidenceSubgraph(
+  graph: WalkGraph,
+  cost: PathCostModel,
+  clues: readonly (readonly EvidenceSeed[])[],
+  answers: readonly number[],
+  options: EvidenceOptions & { readonly virtual?: boolean } = {},
+): EvidenceSubgraph {
+  const o = { ...DEFAULTS, ...options };
+  if (!Number.isInteger(o.maxHops) || o.maxHops < 1) throw new RangeError(`explain/evidence-graph: maxHops must be a positive integer, got ${o.maxHops}`);
+  const clueNodes = [...new Set(clues.flatMap((c) => c.map((s) => s.node)))];
+  const dc = scratch(graph, 0);
+  const fromClues = ball(graph, clueNodes, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, dc);
+  const da = scratch(graph, 1);
+  ball(graph, answers, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, da);
+  const endpoints = new Set([...clueNodes, ...answers].filter((x) => x >= 0 && x < graph.nodeCount));
+  let inner: number[] = [];
+  for (const x of fromClues) {
+    if (endpoints.has(x)) continue;
+    const a = da.get(x);
+    if (a >= 0 && dc.get(x) + a <= o.maxHops) inner.push(x);
+  }
+  if (inner.length > o.maxNodes) {
+    const hops = (x: number) => dc.get(x) + da.get(x);
+    inner.sort((x, y) => hops(x) - hops(y) || x - y);
+    inner = inner.slice(0, o.maxNodes);
+  }
+  const nodes = [...endpoints, ...inner].sort((a, b) => a - b);
+  const local = scratch(graph, 2);
+  const localIds = new Map<number, number>();
+  nodes.forEach((x, i) => {
+    local.set(x, i);
+    localIds.set(x, i);
+  });
+  const virtualCount = options.virtual ? clues.length : 0;
+  const offsets = new Int32Array(nodes.length + virtualCount + 1);
+  const heads: number[] = [];
+  const costs: number[] = [];
+  const rels: number[] = [];
+  const invs: number[] = [];
+  const hop = cost.hopCost;
+  const acc = new Map<number, number>();
+  nodes.forEach((u, ui) => {
+    offsets[ui] = heads.length;
+    acc.clear();
+    cost.forEachProbability(u, (v, rel, inverse, p) => {
+      const vl = local.get(v);
+      if (vl < 0 || v === u) return;
+      const k = (vl * 1048576 + rel) * 2 + (inverse ? 1 : 0);
+      acc.set(k, (acc.get(k) ?? 0) + p);
+    });
+    const best = new Map<number, { cost: number; rel: number; inverse: boolean }>();
+    for (const [k, p] of acc) {
+      if (!(p > 0)) continue;
+      const inverse = k % 2 === 1;
+      const rest = (k - (inverse ? 1 : 0)) / 2;
+      const rel = rest % 1048576;
+      const vl = (rest - rel) / 1048576;
+      const c = hop - Math.log(p);
+      const b = best.get(vl);
+      if (b === undefined || c < b.cost || (c === b.cost && (rel < b.rel || (rel === b.rel && !inverse && b.inverse)))) best.set(vl, { cost: c, rel, inverse });
+    }
+    for (const vl of [...best.keys()].sort((a, b) => a - b)) {
+      const b = best.get(vl)!;
+      heads.push(vl);
+      costs.push(b.cost);
+      rels.push(b.rel);
+      invs.push(b.inverse ? 1 : 0);
+    }
+  });
+  for (let ci = 0; ci < virtualCount; ci++) {
+    offsets[nodes.length + ci] = heads.length;
+    const seeds = clues[ci]!;
+    const total = seeds.reduce((t, s) => t + Math.max(0, s.weight), 0);
+    const used = new Set<number>();
+    for (const s of seeds) {
+      const vl = localIds.get(s.node);
+      if (!(s.weight > 0) || vl === undefined || used.has(vl)) continue;
+      used.add(vl);
+      heads.push(vl);
+      costs.push(-Math.log(s.weight / total));
+      rels.push(-1);
+      invs.push(0);
+    }
+  }
+  offsets[nodes.length + virtualCount] = heads.length;
+  const tails = new Int32Array(heads.length);
+  for (let u = 0; u + 1 < offsets.length; u++) for (let e = offsets[u]!; e < offsets[u + 1]!; e++) tails[e] = u;
+  return new EvidenceSubgraph(Int32Array.from(nodes), nodes.length, offsets, Int32Array.from(heads), tails, Float64Array.from(costs), Int32Array.from(rels), Uint8Array.from(invs), localIds);
+}
+
+/**
+ * Builds the evidence subgraph for `clues` and `answers` (entity nums) as a graphology graph
+ * (node key = entity num as a string; edge attributes cost, rel, inverse).
  */
 export function buildEvidenceGraph(
   graph: WalkGraph,
@@ -78,44 +253,13 @@ export function buildEvidenceGraph(
   answers: readonly number[],
   options: EvidenceOptions = {},
 ): DirectedGraph<Record<string, never>, EvidenceEdge> {
-  const maxHops = options.maxHops ?? DEFAULTS.maxHops;
-  const hubLimit = options.hubLimit ?? DEFAULTS.hubLimit;
-  const nodeBudget = options.nodeBudget ?? DEFAULTS.nodeBudget;
-  if (!Number.isInteger(maxHops) || maxHops < 1) throw new RangeError(`explain/evidence-graph: maxHops must be a positive integer, got ${maxHops}`);
-  const minDist = (starts: readonly number[]): Map<number, number> => {
-    const best = new Map<number, number>();
-    for (const s of new Set(starts)) {
-      for (const [x, d] of bfsDistances(graph, s, maxHops, hubLimit, nodeBudget)) {
-        const b = best.get(x);
-        if (b === undefined || d < b) best.set(x, d);
-      }
-    }
-    return best;
-  };
-  const fromClues = minDist(clues);
-  const toAnswers = minDist(answers);
-  const keep: number[] = [];
-  for (const [x, dc] of fromClues) {
-    const da = toAnswers.get(x);
-    if (da !== undefined && dc + da <= maxHops) keep.push(x);
-  }
-  for (const x of [...clues, ...answers]) if (!fromClues.has(x) || !toAnswers.has(x)) keep.push(x);
-  const nodes = [...new Set(keep)].sort((a, b) => a - b);
-  const kept = new Set(nodes);
+  const sub = evidenceSubgraph(graph, cost, [clues.map((node) => ({ node, weight: 1 }))], answers, options);
   const g = new DirectedGraph<Record<string, never>, EvidenceEdge>();
-  for (const u of nodes) g.addNode(String(u));
-  for (const u of nodes) {
-    const best = new Map<number, EvidenceEdge>();
-    graph.forEach(u, (v, rel, inverse) => {
-      if (v === u || !kept.has(v)) return;
-      const c = cost.stepCost(u, v, rel, inverse);
-      if (!Number.isFinite(c)) return;
-      const b = best.get(v);
-      if (b === undefined || c < b.cost || (c === b.cost && (rel < b.rel || (rel === b.rel && !inverse && b.inverse)))) {
-        best.set(v, { cost: c, rel, inverse });
-      }
-    });
-    for (const v of [...best.keys()].sort((a, b) => a - b)) g.addEdge(String(u), String(v), best.get(v)!);
+  for (let u = 0; u < sub.realCount; u++) g.addNode(String(sub.nums[u]));
+  for (let u = 0; u < sub.realCount; u++) {
+    for (let e = sub.offsets[u]!; e < sub.offsets[u + 1]!; e++) {
+      g.addEdge(String(sub.nums[u]), String(sub.nums[sub.heads[e]!]), { cost: sub.costs[e]!, rel: sub.rels[e]!, inverse: sub.inverse[e] === 1 });
+    }
   }
   return g;
 }

@@ -263,6 +263,7 @@ export function explain<A extends ExplainAnalysis>(
         ...(reached ? { reached } : {}),
         ...(hops ? { hops } : {}),
         ...(cuedPaths ? { cued: cuedPaths } : {}),
+        ...(c.chainFit !== undefined ? { chainFit: c.chainFit } : {}),
       };
     });
   const topPaths = shown.length > 0 ? pathSet.answers[0] : undefined;

@@ -28,4 +28,4 @@ export { whyNotReasons, DEFAULTS as WHY_NOT_DEFAULTS } from "./why-not.js";
 export type { WhyNot, WhyNotClue, WhyNotOptions } from "./why-not.js";
 export { suggestClues, appendClue, relationPhrase, factPhrase, DEFAULTS as SUGGEST_DEFAULTS } from "./suggest.js";
 export type { SuggestedClue, SuggestOptions, FactTriple, FactLookup } from "./suggest.js";
-export { conditionDocs, conditionSteps, conditionVerdict, countDoc, formatValue } from "./conditions.js";
+export { conditionDocs, conditionExplanation, conditionSteps, conditionVerdict, countDoc, formatValue } from "./conditions.js";

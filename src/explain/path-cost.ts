@@ -46,6 +46,11 @@ export interface PathCostOptions {
 /** The defaults of {@link PathCostOptions}. */
 export const DEFAULTS = { restart: 0.15, hubExponent: 0.5 } as const;
 
+/** A numeric key of (target, relation, direction), exact for node nums < 2^32 and relation nums < 2^20. */
+function entryKey(v: number, rel: number, inverse: boolean): number {
+  return (v * 1048576 + rel) * 2 + (inverse ? 1 : 0);
+}
+
 /** Step and path costs over one graph for one question (caches each visited row). */
 export class PathCostModel {
   /** The graph walked. */
@@ -54,7 +59,7 @@ export class PathCostModel {
   private readonly beta: number;
   private readonly rw: Float64Array | undefined;
   private readonly transition: TransitionLike | undefined;
-  private readonly rows = new Map<number, Map<string, number>>();
+  private readonly rows = new Map<number, Map<number, number>>();
 
   constructor(graph: WalkGraph, options: PathCostOptions = {}) {
     const restart = options.restart ?? DEFAULTS.restart;
@@ -68,36 +73,48 @@ export class PathCostModel {
     this.transition = options.transition;
   }
 
-  private row(u: number): Map<string, number> {
+  /**
+   * Calls `fn` for every adjacency entry of `u` with the walk's probability of taking it
+   * (index order; no caching: the evidence subgraph reads each row once).
+   */
+  forEachProbability(u: number, fn: (v: number, rel: number, inverse: boolean, probability: number) => void): void {
+    if (this.transition) {
+      this.transition.forEachTransition(u, fn);
+      return;
+    }
+    const vs: number[] = [];
+    const rels: number[] = [];
+    const invs: boolean[] = [];
+    const ws: number[] = [];
+    let total = 0;
+    this.graph.forEach(u, (v, rel, inverse) => {
+      const rho = this.rw && rel < this.rw.length ? this.rw[rel]! : 1;
+      const d = this.graph.degree(v);
+      const w = rho * (d > 0 && this.beta > 0 ? Math.pow(d, -this.beta) : 1);
+      vs.push(v);
+      rels.push(rel);
+      invs.push(inverse);
+      ws.push(w);
+      total += w;
+    });
+    for (let i = 0; i < vs.length; i++) fn(vs[i]!, rels[i]!, invs[i]!, total > 0 ? ws[i]! / total : 0);
+  }
+
+  private row(u: number): Map<number, number> {
     let r = this.rows.get(u);
     if (r) return r;
-    r = new Map();
-    const row = r;
-    const add = (v: number, rel: number, inverse: boolean, p: number) => {
-      const k = `${v}:${rel}:${inverse ? 1 : 0}`;
+    const row = new Map<number, number>();
+    this.forEachProbability(u, (v, rel, inverse, p) => {
+      const k = entryKey(v, rel, inverse);
       row.set(k, (row.get(k) ?? 0) + p);
-    };
-    if (this.transition) {
-      this.transition.forEachTransition(u, add);
-    } else {
-      const entries: [number, number, boolean, number][] = [];
-      let total = 0;
-      this.graph.forEach(u, (v, rel, inverse) => {
-        const rho = this.rw && rel < this.rw.length ? this.rw[rel]! : 1;
-        const d = this.graph.degree(v);
-        const w = rho * (d > 0 && this.beta > 0 ? Math.pow(d, -this.beta) : 1);
-        entries.push([v, rel, inverse, w]);
-        total += w;
-      });
-      for (const [v, rel, inverse, w] of entries) add(v, rel, inverse, total > 0 ? w / total : 0);
-    }
+    });
     this.rows.set(u, row);
     return row;
   }
 
   /** The walk probability of the step (without the (1 − α) factor), 0..1. */
   probability(u: number, v: number, rel: number, inverse: boolean): number {
-    return this.row(u).get(`${v}:${rel}:${inverse ? 1 : 0}`) ?? 0;
+    return this.row(u).get(entryKey(v, rel, inverse)) ?? 0;
   }
 
   /** cost(u → v) = −ln((1 − α) · P(u → v)); Infinity for a step the walk never takes. */

@@ -15,16 +15,15 @@
  *
  * [Reference]
  * Dijkstra, "A note on two problems in connexion with graphs", Numerische Mathematik 1, 1959
- * (graphology-shortest-path's implementation); Yen 1971 (yen.ts); Pohl 1971
+ * (dijkstra.ts, on the compact evidence subgraph); Yen 1971 (yen.ts, yenOnArcs); Pohl 1971
  * (bidirectional-bfs.ts).
  */
-import dijkstra from "graphology-shortest-path/dijkstra.js";
-import type { DirectedGraph } from "graphology";
 import { bidirectionalBfs, type NumStep } from "./bidirectional-bfs.js";
-import { buildEvidenceGraph, type EvidenceEdge } from "./evidence-graph.js";
+import { arcsTo, dijkstra, type ShortestPathTree } from "./dijkstra.js";
+import { evidenceSubgraph, type EvidenceSubgraph } from "./evidence-graph.js";
 import type { PathCostModel } from "./path-cost.js";
 import type { WalkGraph } from "./types.js";
-import { yenKShortestPaths } from "./yen.js";
+import { yenOnArcs } from "./yen.js";
 
 /** Options of {@link findPaths}; all optional. */
 export interface PathOptions {
@@ -42,10 +41,27 @@ export interface PathOptions {
   readonly hubLimit?: number;
   /** Node budget of each breadth-first search. @default 50000 */
   readonly nodeBudget?: number;
+  /** Adjacency entries each side of the evidence search may scan. @default 20000 */
+  readonly workBudget?: number;
+  /** Most nodes of the evidence subgraph besides clues and answers. @default 1000 */
+  readonly maxNodes?: number;
+  /** Adjacency entries one fallback search (full index) may scan. @default 100000 */
+  readonly fallbackWork?: number;
 }
 
 /** The defaults of {@link PathOptions}. */
-export const DEFAULTS = { alternatives: 2, alternativeSlack: 2, alternativesFor: 3, evidenceHops: 4, maxHops: 6, hubLimit: 2000, nodeBudget: 50000 } as const;
+export const DEFAULTS = {
+  alternatives: 2,
+  alternativeSlack: 2,
+  alternativesFor: 3,
+  evidenceHops: 4,
+  maxHops: 6,
+  hubLimit: 2000,
+  nodeBudget: 50000,
+  workBudget: 20000,
+  maxNodes: 1000,
+  fallbackWork: 100000,
+} as const;
 
 /** A restart node of a clue and its weight (shares are normalised per clue). */
 export interface ClueSeed {
@@ -73,26 +89,15 @@ export interface AnswerPaths {
   readonly byClue: readonly (readonly NumPath[])[];
 }
 
+const sum = (steps: readonly NumStep[]): number => steps.reduce((s, x) => s + x.cost, 0);
+
 /** All paths of one question plus the evidence subgraph they were searched on. */
 export interface PathSet {
   readonly answers: readonly AnswerPaths[];
-  readonly evidence: DirectedGraph<Record<string, never>, EvidenceEdge>;
+  /** The compact evidence subgraph (with one virtual source per clue). */
+  readonly evidence: EvidenceSubgraph;
   readonly maxHops: number;
 }
-
-function stepsOf(g: DirectedGraph<Record<string, never>, EvidenceEdge>, nodes: readonly string[]): NumStep[] {
-  const steps: NumStep[] = [];
-  for (let i = 0; i + 1 < nodes.length; i++) {
-    const e = g.edge(nodes[i]!, nodes[i + 1]!)!;
-    const a = g.getEdgeAttributes(e);
-    steps.push({ from: Number(nodes[i]), to: Number(nodes[i + 1]), rel: a.rel, inverse: a.inverse, cost: a.cost });
-  }
-  return steps;
-}
-
-const sum = (steps: readonly NumStep[]): number => steps.reduce((s, x) => s + x.cost, 0);
-
-const VIRTUAL = "clue#";
 
 /**
  * Finds the paths from each clue (a list of seeds per clue, in clue order; a single seed
@@ -100,43 +105,55 @@ const VIRTUAL = "clue#";
  */
 export function findPaths(graph: WalkGraph, cost: PathCostModel, clues: readonly (readonly ClueSeed[])[], answers: readonly number[], options: PathOptions = {}): PathSet {
   const o = { ...DEFAULTS, ...options };
-  const allSeeds = [...new Set(clues.flatMap((c) => c.map((s) => s.node)))];
-  const evidence = buildEvidenceGraph(graph, cost, allSeeds, answers, { maxHops: o.evidenceHops, hubLimit: o.hubLimit, nodeBudget: o.nodeBudget });
-  clues.forEach((seeds, ci) => {
-    const v = `${VIRTUAL}${ci}`;
-    evidence.addNode(v);
-    const total = seeds.reduce((t, s) => t + Math.max(0, s.weight), 0);
-    for (const s of seeds) {
-      if (!(s.weight > 0) || !evidence.hasNode(String(s.node)) || evidence.hasEdge(v, String(s.node))) continue;
-      evidence.addEdge(v, String(s.node), { cost: -Math.log(s.weight / total), rel: -1, inverse: false });
-    }
+  const ev = evidenceSubgraph(graph, cost, clues, answers, {
+    maxHops: o.evidenceHops,
+    hubLimit: o.hubLimit,
+    nodeBudget: o.nodeBudget,
+    workBudget: o.workBudget,
+    maxNodes: o.maxNodes,
+    virtual: true,
   });
-  const offset = (ci: number, start: number): number => {
-    const e = evidence.edge(`${VIRTUAL}${ci}`, String(start));
-    return e === undefined ? 0 : evidence.getEdgeAttribute(e, "cost");
+  const keyOf = (u: number): string => (u < ev.realCount ? String(ev.nums[u]) : `clue#${u - ev.realCount}`);
+  const trees: (ShortestPathTree | undefined)[] = [];
+  const treeOf = (ci: number): ShortestPathTree => (trees[ci] ??= dijkstra(ev, ev.virtualOf(ci)));
+  const toPath = (ci: number, a: number, arcs: readonly number[]): NumPath | undefined => {
+    if (arcs.length < 2) return undefined;
+    const start = ev.nums[ev.heads[arcs[0]!]!]!;
+    const offset = ev.costs[arcs[0]!]!;
+    const steps: NumStep[] = arcs.slice(1).map((e) => ({
+      from: ev.nums[ev.tails[e]!]!,
+      to: ev.nums[ev.heads[e]!]!,
+      rel: ev.rels[e]!,
+      inverse: ev.inverse[e] === 1,
+      cost: ev.costs[e]!,
+    }));
+    return { clue: ci, start, answer: a, steps, cost: sum(steps) + offset, via: "evidence" };
   };
-  const single = clues.map((_, ci) => dijkstra.singleSource(evidence, `${VIRTUAL}${ci}`, "cost") as Record<string, string[]>);
   const out: AnswerPaths[] = answers.map((a, ai) => {
+    const target = ev.localOf(a);
     const byClue = clues.map((seeds, ci): NumPath[] => {
       if (seeds.some((s) => s.node === a)) return [];
       const paths: NumPath[] = [];
-      const add = (nodes: readonly string[]) => {
-        const start = Number(nodes[1]);
-        const steps = stepsOf(evidence, nodes.slice(1));
-        if (steps.length > 0) paths.push({ clue: ci, start, answer: a, steps, cost: sum(steps) + offset(ci, start), via: "evidence" });
-      };
-      if (ai < o.alternativesFor && o.alternatives > 0) {
-        for (const p of yenKShortestPaths(evidence, `${VIRTUAL}${ci}`, String(a), { k: o.alternatives + 1 })) add(p.nodes);
-      } else {
-        const nodes = single[ci]![String(a)];
-        if (nodes) add(nodes);
+      if (target >= 0) {
+        if (ai < o.alternativesFor && o.alternatives > 0) {
+          for (const p of yenOnArcs(ev, ev.virtualOf(ci), target, o.alternatives + 1, keyOf)) {
+            const np = toPath(ci, a, p.arcs);
+            if (np) paths.push(np);
+          }
+        } else {
+          const arcs = arcsTo(ev, treeOf(ci), ev.virtualOf(ci), target);
+          const np = arcs ? toPath(ci, a, arcs) : undefined;
+          if (np) paths.push(np);
+        }
       }
       if (paths.length === 0) {
         let best: NumPath | undefined;
         for (const s of seeds) {
-          const steps = bidirectionalBfs(graph, cost, s.node, a, { maxHops: o.maxHops, nodeBudget: o.nodeBudget * 4 });
+          const steps = bidirectionalBfs(graph, cost, s.node, a, { maxHops: o.maxHops, nodeBudget: o.nodeBudget * 4, workBudget: o.fallbackWork, hubLimit: o.hubLimit });
           if (!steps || steps.length === 0) continue;
-          const c = sum(steps) + offset(ci, s.node);
+          const vl = ev.localOf(s.node);
+          const e = vl >= 0 ? ev.arc(ev.virtualOf(ci), vl) : -1;
+          const c = sum(steps) + (e >= 0 ? ev.costs[e]! : 0);
           if (!best || c < best.cost) best = { clue: ci, start: s.node, answer: a, steps, cost: c, via: "fallback" };
         }
         if (best) paths.push(best);
@@ -146,6 +163,5 @@ export function findPaths(graph: WalkGraph, cost: PathCostModel, clues: readonly
     });
     return { answer: a, byClue };
   });
-  for (let ci = 0; ci < clues.length; ci++) evidence.dropNode(`${VIRTUAL}${ci}`);
-  return { answers: out, evidence, maxHops: o.maxHops };
+  return { answers: out, evidence: ev, maxHops: o.maxHops };
 }

@@ -36,6 +36,8 @@ export interface ExplainCandidate {
   readonly perClue: readonly number[];
   /** Clues with a non-negligible score part. */
   readonly covered: number;
+  /** The ranking's relation-path pattern factor (1: on every clue's pattern), when checked. */
+  readonly chainFit?: number;
 }
 
 /** Ranking's output (`Ranked`): clues and candidates, best first. */

@@ -16,7 +16,9 @@
  * - `weak`   — a best answer exists but some clue does not reach it within N hops, or
  *              another candidate's evidence dominates it (every clue reaches the other in
  *              no more hops, and some clue in fewer along relations the question names:
- *              the path evidence disagrees with the score), or its relative lead over the
+ *              the path evidence disagrees with the score — unless the other fits the
+ *              relation-path pattern of the question's wording less well, ranking
+ *              `chainFit`), or its relative lead over the
  *              runner-up is below `weakMargin`.
  * - `unique` — otherwise: one answer clearly ahead and supported by every clue.
  *
@@ -59,6 +61,8 @@ export interface VerdictCandidate {
   readonly hops?: readonly (number | null)[];
   /** Per clue: true when the best path walks only relations cued by the question, when computed. */
   readonly cued?: readonly boolean[];
+  /** The ranking's relation-path pattern factor (1: the path the question's wording implies reaches it), when known. */
+  readonly chainFit?: number;
 }
 
 /** What the verdict is decided from. */
@@ -106,7 +110,8 @@ export function decideVerdict(input: VerdictInput, options: VerdictOptions = {})
     const ratio = c.score / s1;
     const close = ratio >= o.tieRatio && sameCoverage(c) && !cueBehind(c);
     const equivalent = input.equivalent !== null && input.equivalent.has(c.node) && ratio >= o.equivalentFloor;
-    if (close || equivalent) tied.push(c);
+    // a candidate off the question's relation-path pattern (ranking chainFit) does not fit as well
+    if ((close || equivalent) && (c.chainFit ?? 1) >= (top.chainFit ?? 1)) tied.push(c);
   }
   const tiedWith = tied.map((c) => c.id);
   const missing = input.clues.filter((_, i) => !reachedTop[i]);
@@ -119,6 +124,8 @@ export function decideVerdict(input: VerdictInput, options: VerdictOptions = {})
     for (const c of input.candidates.slice(1)) {
       const h = c.hops;
       if (h === undefined || h.length !== topHops.length) continue;
+      // a shorter path off the relation-path pattern the question implies is no better evidence
+      if ((c.chainFit ?? 1) < (top.chainFit ?? 1)) continue;
       const noWorse = h.every((x, i) => x !== null && (topHops[i] === null || x <= topHops[i]!));
       const better = h.findIndex((x, i) => x !== null && topHops[i] !== null && x < topHops[i]! && c.cued?.[i] === true);
       if (noWorse && better >= 0) {

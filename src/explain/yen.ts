@@ -17,9 +17,13 @@
  * weight getter; a spur path whose cost comes out infinite is discarded. Ties between
  * candidates of equal cost are broken by the node sequence (lexicographic), so the output is
  * deterministic.
+ *
+ * `yenOnArcs` is the same algorithm on a compact CSR graph (the evidence subgraph of one
+ * question), with the spur searches done by dijkstra.ts; the query path uses it.
  */
 import type { DirectedGraph } from "graphology";
 import dijkstra from "graphology-shortest-path/dijkstra.js";
+import { arcsTo, dijkstra as arcDijkstra, type ArcGraph } from "./dijkstra.js";
 
 /** Options of {@link yenKShortestPaths}; all optional. */
 export interface YenOptions {
@@ -119,6 +123,75 @@ export function yenKShortestPaths(graph: DirectedGraph, source: string, target: 
     blockedNodes.clear();
     if (candidates.length === 0) break;
     candidates.sort(compareCandidates);
+    accepted.push(candidates.shift()!);
+  }
+  return accepted;
+}
+
+/** A path of an {@link ArcGraph}: its nodes, its arcs and their total cost. */
+export interface ArcPath {
+  readonly nodes: readonly number[];
+  readonly arcs: readonly number[];
+  readonly cost: number;
+}
+
+/**
+ * Yen's algorithm (as above) on a compact CSR graph with this file's own Dijkstra
+ * (dijkstra.ts) for the spur searches; blocked nodes and arcs are skipped by the search.
+ * Candidates of equal cost are ordered by `keyOf` of their nodes (lexicographic), then by
+ * length. Returns up to `k` loopless paths `source → target`, cheapest first.
+ */
+export function yenOnArcs(g: ArcGraph, source: number, target: number, k: number, keyOf: (u: number) => string): ArcPath[] {
+  if (!Number.isInteger(k) || k < 1) throw new RangeError(`explain/yen: k must be a positive integer, got ${k}`);
+  if (source === target) return [{ nodes: [source], arcs: [], cost: 0 }];
+  const blockedNode = new Uint32Array(g.size);
+  let stamp = 1;
+  const toPath = (from: number, arcs: readonly number[]): ArcPath => {
+    const nodes = [from];
+    let cost = 0;
+    for (const e of arcs) {
+      nodes.push(g.heads[e]!);
+      cost += g.costs[e]!;
+    }
+    return { nodes, arcs, cost };
+  };
+  const firstArcs = arcsTo(g, arcDijkstra(g, source, { target }), source, target);
+  if (firstArcs === null) return [];
+  const accepted: ArcPath[] = [toPath(source, firstArcs)];
+  const candidates: ArcPath[] = [];
+  const seen = new Set<string>([accepted[0]!.nodes.join(",")]);
+  const compare = (a: ArcPath, b: ArcPath): number => {
+    if (a.cost !== b.cost) return a.cost - b.cost;
+    const n = Math.min(a.nodes.length, b.nodes.length);
+    for (let i = 0; i < n; i++) {
+      if (a.nodes[i] !== b.nodes[i]) return keyOf(a.nodes[i]!) < keyOf(b.nodes[i]!) ? -1 : 1;
+    }
+    return a.nodes.length - b.nodes.length;
+  };
+  while (accepted.length < k) {
+    const prev = accepted[accepted.length - 1]!;
+    for (let i = 0; i + 1 < prev.nodes.length; i++) {
+      const spur = prev.nodes[i]!;
+      const blockedArcs = new Set<number>();
+      for (const p of accepted) {
+        if (p.nodes.length > i + 1 && prev.nodes.slice(0, i + 1).every((n, j) => p.nodes[j] === n)) blockedArcs.add(p.arcs[i]!);
+      }
+      stamp++;
+      for (let j = 0; j < i; j++) blockedNode[prev.nodes[j]!] = stamp;
+      const spurArcs = arcsTo(g, arcDijkstra(g, spur, { target, blockedNode, blockStamp: stamp, blockedArcs }), spur, target);
+      if (spurArcs === null) continue;
+      const rootArcs = prev.arcs.slice(0, i);
+      let rootCost = 0;
+      for (const e of rootArcs) rootCost += g.costs[e]!;
+      const spurPath = toPath(spur, spurArcs);
+      const nodes = [...prev.nodes.slice(0, i), ...spurPath.nodes];
+      const key = nodes.join(",");
+      if (seen.has(key)) continue;
+      seen.add(key);
+      candidates.push({ nodes, arcs: [...rootArcs, ...spurArcs], cost: rootCost + spurPath.cost });
+    }
+    if (candidates.length === 0) break;
+    candidates.sort(compare);
     accepted.push(candidates.shift()!);
   }
   return accepted;

@@ -8,7 +8,8 @@
  * distance (fuzzy-index.ts), candidates gathered from the alias-token postings, and a span
  * similarity = Dice overlap of the span's and the alias's token sets where tokens match
  * exactly or with Jaro–Winkler ≥ `tokenMatch` (so word order does not matter).
- * Rules: a span may not end with a stop word, may start with one only when it is exactly an
+ * Rules: a fuzzy span needs a word with a letter that is not a type or relation word (numbers
+ * alone never become fuzzy names); a span may not end with a stop word, may start with one only when it is exactly an
  * alias ("the Dawn"), and a span that is only stop words or
  * exactly a type or relation phrase of the catalog never becomes a mention.
  */
@@ -162,10 +163,12 @@ export function detectMentions(
   const endsAt = new Map<number, DetectedSpan>(spans.map((sp) => [sp.last, sp]));
   const startsAt = new Map<number, DetectedSpan>(spans.map((sp) => [sp.first, sp]));
   const vocabularyWord = (k: number) => lex.isVocabularyPhrase(toks[k]!.norm, toks[k]!.stem);
+  // a fuzzy name needs a word with a letter that is not a type or relation word ("20,000" is not one)
+  const nameWord = (k: number) => /\p{L}/u.test(toks[k]!.norm) && !vocabularyWord(k);
   /** Fuzzy-matches tokens [a, b); what the found name leaves on either side is tried again. */
   const piece = (a: number, b: number, depth: number): void => {
     let hasName = false;
-    for (let k = a; k < b && !hasName; k++) hasName = !vocabularyWord(k);
+    for (let k = a; k < b && !hasName; k++) hasName = nameWord(k);
     if (!hasName) return;
     const result = fuzzySpan(toks.slice(a, b), lex, o);
     if (result.candidates.length === 0) {
@@ -192,7 +195,7 @@ export function detectMentions(
     while (j < n && j - i < o.maxTokens && free(j) && (!vocabularyWord(j) || toks[j]!.marked)) j++;
     const a = i;
     let hasName = false;
-    for (let k = a; k < j && !hasName; k++) hasName = !vocabularyWord(k);
+    for (let k = a; k < j && !hasName; k++) hasName = nameWord(k);
     if (!hasName) {
       i = Math.max(i + 1, j);
       continue;

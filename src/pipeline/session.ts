@@ -11,7 +11,7 @@ import { Linker, linkQuestion, type LinkResult, type Pin } from "../linking/inde
 import { DISCLAIMER, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex } from "../ranking/index.js";
 import { basicVerdict } from "./verdict.js";
-import { conditionDocs, conditionSteps, conditionVerdict, countDoc, explain, type Explanation } from "../explain/index.js";
+import { conditionDocs, conditionExplanation, conditionSteps, conditionVerdict, countDoc, explain, type Explanation } from "../explain/index.js";
 
 /** A progress event while a session opens. */
 export interface SessionProgress {
@@ -146,7 +146,11 @@ export class Session {
         const node = nodeOf.get(a.id);
         return node === undefined ? a : { ...a, values: conditionSteps(node, cond.conditions, conditions) };
       });
-      verdict = conditionVerdict(cond.conditions, conditions, ranked.candidates[0]?.node, this.catalog) ?? verdict;
+      const decided = conditionVerdict(cond.conditions, conditions, ranked.candidates[0]?.node, this.catalog);
+      if (decided) {
+        verdict = decided;
+        made.explanation = conditionExplanation(question, answers, verdict, conditions, this.index, this.catalog, made.explanation);
+      }
     }
     let explanation = made.explanation;
     if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {

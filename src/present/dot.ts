@@ -181,7 +181,6 @@ function escString(s: string): string {
 
 /** Control characters and line breaks become spaces. */
 function oneLine(s: string): string {
-  // eslint-disable-next-line no-control-regex
   return s.replace(/[\u0000-\u001f\u007f\u2028\u2029]+/g, " ").trim();
 }
 

@@ -14,7 +14,6 @@ import { rate, REPORT_DEFAULTS, timing, type ReportOptions } from "./report-text
 export function mdText(s: string): string {
   return (
     s
-      // eslint-disable-next-line no-control-regex
       .replace(/[\r\n\t\u0000-\u001f\u2028\u2029]+/g, " ")
       .replace(/&/g, "&amp;")
       .replace(/</g, "&lt;")

@@ -37,7 +37,6 @@ export const TSV_COLUMNS = [
 
 /** A text cell: one line, no tabs, no formula start. */
 export function tsvText(s: string): string {
-  // eslint-disable-next-line no-control-regex
   const flat = s.replace(/[\t\r\n\u0000-\u001f\u2028\u2029]+/g, " ");
   return /^[=+\-@]/.test(flat) ? `'${flat}` : flat;
 }

@@ -5,7 +5,8 @@
  * R1/R2/…/Rk (Mendelzon & Wood 1995, "Finding regular simple paths in graph databases",
  * SIAM J. Comput. 24(6)): the frontier after hop i is every node reached from the previous
  * frontier through one of step i's relations in its stored direction (or in either
- * direction when `directed` is false). The search stops after `maxVisits` adjacency entries
+ * direction when `directed` is false), optionally restricted by a per-hop node test (the
+ * type a noun of the question gives the node in between). The search stops after `maxVisits` adjacency entries
  * and then returns null, so the caller does not penalise nodes it never looked at.
  */
 import type { RelationIndex } from "./relation-index.js";
@@ -16,6 +17,8 @@ export interface ChainReachOptions {
   readonly directed?: boolean;
   /** Budget of adjacency entries scanned. @default 200000 */
   readonly maxVisits?: number;
+  /** Only nodes passing this test stay in the frontier after hop `hop` (0-based), e.g. an intermediate type. @default all */
+  readonly keep?: (hop: number, node: number) => boolean;
 }
 
 /** Defaults of {@link ChainReachOptions}. */
@@ -31,7 +34,9 @@ export function chainReach(index: RelationIndex, source: number, hops: readonly 
   if (!(source >= 0 && source < index.nodeCount)) throw new RangeError(`ranking/chain-reach: source ${source} is not a node`);
   let frontier = new Set<number>([source]);
   let visits = 0;
-  for (const hop of hops) {
+  const keep = options.keep;
+  for (let h = 0; h < hops.length; h++) {
+    const hop = hops[h]!;
     const allowed = new Map<number, number>(); // relation → bit 1: forwards, bit 2: against
     for (const o of hop) allowed.set(o.relation, (allowed.get(o.relation) ?? 0) | (directed ? (o.inverse ? 2 : 1) : 3));
     const next = new Set<number>();
@@ -40,7 +45,7 @@ export function chainReach(index: RelationIndex, source: number, hops: readonly 
       if (visits > maxVisits) return null;
       index.forEach(u, (v, rel, inverse) => {
         const a = allowed.get(rel);
-        if (a !== undefined && a & (inverse ? 2 : 1)) next.add(v);
+        if (a !== undefined && a & (inverse ? 2 : 1) && (keep === undefined || keep(h, v))) next.add(v);
       });
     }
     frontier = next;

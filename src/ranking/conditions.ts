@@ -130,7 +130,8 @@ export function applyConditions(
   // candidates: the ranking's, or (no clue left) every entity of the expected type
   let cands: RankedCandidate[] = [...ranked.candidates];
   let fit: Set<number>;
-  if (ranked.clues.length === 0 && typeSet.size > 0) {
+  const usable = conditions.some((c) => c.kind === "count" || c.kind === "exclusion" || c.choices.length > 0);
+  if (ranked.clues.length === 0 && typeSet.size > 0 && usable) {
     cands = [];
     for (let v = 0; v < index.nodeCount; v++) if (!typeSet.has(v) && index.isA(v, typeSet)) cands.push({ node: v, score: 1, perClue: [], covered: 0 });
     fit = new Set(cands.map((c) => c.node));

@@ -21,5 +21,7 @@ export { combineClueScores, DEFAULTS as COMBINE_DEFAULTS } from "./combine.js";
 export type { Combined, CombineOptions } from "./combine.js";
 export { cueReach, MAX_CUES, DEFAULTS as CUE_PATH_DEFAULTS } from "./cue-paths.js";
 export type { CuePathOptions } from "./cue-paths.js";
+export { chainReach, DEFAULTS as CHAIN_REACH_DEFAULTS } from "./chain-reach.js";
+export type { ChainHop, ChainReachOptions } from "./chain-reach.js";
 export { applyConditions, satisfies, DEFAULTS as CONDITIONS_DEFAULTS } from "./conditions.js";
 export type { ApplyConditionsOptions, AttributeLookup, ConditionCheck, AppliedCondition, ConditionOutcome } from "./conditions.js";

@@ -84,7 +84,7 @@ export interface RankOptions extends CombineOptions {
   /**
    * Factor of a candidate that the clue's relation-path pattern (analysis cue-chains.ts)
    * does not reach, when some candidate is reached by it; combined over the clues as a
-   * weighted geometric mean. 1 disables the check. @default 0.3
+   * weighted geometric mean. 1 disables the check. @default 0.05 — about the ratio of a one-hop to a two-hop neighbour's normalised walk score, so a candidate off the pattern falls behind one on it unless it is far closer
    */
   readonly chainMiss?: number;
   /** Factor of a candidate the pattern reaches only with some hop walked the other way. @default 0.6 */
@@ -102,7 +102,7 @@ export const DEFAULTS = {
   alpha: 0.5,
   cueMiss: 0.1,
   wrongWay: 0.5,
-  chainMiss: 0.3,
+  chainMiss: 0.05,
   chainLoose: 0.6,
   chainMaxSteps: 3,
   prune: 0.01,
@@ -367,7 +367,8 @@ function withoutDroppedCues(analysis: Analysis, chains: readonly CueChain[], dro
  * the end of the undirected one `chainLoose`, the rest `chainMiss` — only when some
  * eligible candidate is at the end of the directed pattern (else the undirected one takes
  * its place; when neither reaches a candidate the pattern is wrong for this catalog and is
- * ignored). The clues' factors are combined like their scores (weighted geometric mean).
+ * ignored). When a type noun names an intermediate node, the typed directed pattern comes
+ * first and the untyped directed one counts as loose. The clues' factors are combined like their scores (weighted geometric mean).
  */
 function chainFitOf(chains: readonly CueChain[], clues: readonly Clue[], weights: readonly number[], index: RelationIndex, eligible: ReadonlySet<number>, options: RankOptions): ((v: number) => number) | undefined {
   const miss = options.chainMiss ?? DEFAULTS.chainMiss;
@@ -380,9 +381,16 @@ function chainFitOf(chains: readonly CueChain[], clues: readonly Clue[], weights
     const clue = clues[c]!;
     if (ch.steps.length === 0 || ch.steps.length > maxSteps || !(clue.node >= 0 && clue.node < index.nodeCount)) return;
     const hops = ch.steps.map((st) => st.options);
-    const exact = chainReach(index, clue.node, hops, { ...options.chainReach, directed: true });
-    const undirected = chainReach(index, clue.node, hops, { ...options.chainReach, directed: false });
-    if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]! });
+    // intermediate types (a type noun between two relation words); the last hop's node is the answer
+    const typeSets = ch.steps.map((st, h) => (h < ch.steps.length - 1 && st.types.length > 0 ? new Set(st.types) : undefined));
+    const typed = typeSets.some((t) => t !== undefined);
+    const keep = (h: number, v: number) => typeSets[h] === undefined || index.isA(v, typeSets[h]!);
+    const base = { ...options.chainReach };
+    const typedExact = typed ? chainReach(index, clue.node, hops, { ...base, directed: true, keep }) : null;
+    const exact = chainReach(index, clue.node, hops, { ...base, directed: true });
+    const undirected = chainReach(index, clue.node, hops, { ...base, directed: false });
+    if (hits(typedExact)) checks.push({ exact: typedExact!, loose: exact, weight: weights[c]! });
+    else if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]! });
     else if (hits(undirected)) checks.push({ exact: undirected!, loose: null, weight: weights[c]! });
   });
   if (checks.length === 0) return undefined;

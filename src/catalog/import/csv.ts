@@ -91,8 +91,11 @@ export function importCsv(ctx: LoadContext, file: string, format: "csv" | "tsv")
 
   const row = (cells: string[], line: number): void => {
     const L = layout!;
-    if (cells.length > L.names.length) {
-      ctx.error(file, line, `row has ${cells.length} fields, the header has ${L.names.length}`);
+    // every row has the header's field count (RFC 4180 §2.4): a short row is a truncated or
+    // mis-exported one, never silently loaded (issue 10); a short edge row is reported below,
+    // by the values it lacks
+    if (cells.length > L.names.length || (cells.length < L.names.length && !L.edges)) {
+      ctx.error(file, line, `row has ${cells.length} field${cells.length === 1 ? "" : "s"}, the header has ${L.names.length}`);
       return;
     }
     const get = (name: string): string | undefined => {

@@ -8,6 +8,7 @@ import type { Command } from "commander";
 import { Catalog, loadFiles } from "../../catalog/index.js";
 import type { LoadProgress, LoadReport } from "../../catalog/index.js";
 import { TiepointError } from "../../model/index.js";
+import { Session } from "../../pipeline/index.js";
 import { reportError } from "../run.js";
 
 /** Progress display settings. */
@@ -36,6 +37,23 @@ function summary(r: LoadReport, db: string): string {
   );
 }
 
+/**
+ * Builds the snapshots a question needs (relation index `PATH.idx`, name index `PATH.link`)
+ * right after a load, so the first `ask` starts fast. A failure here leaves the catalog
+ * loaded (it is committed) and only means the first question builds them.
+ */
+function prepare(db: string, quiet: boolean): void {
+  const t0 = performance.now();
+  if (!quiet && process.stderr.isTTY) process.stderr.write("preparing the question indexes…");
+  try {
+    Session.open({ db }).close();
+    if (!quiet) process.stderr.write(`${process.stderr.isTTY ? "\r\x1b[K" : ""}prepared the question indexes in ${((performance.now() - t0) / 1000).toFixed(2)} s\n`);
+  } catch (e) {
+    if (process.stderr.isTTY) process.stderr.write("\r\x1b[K");
+    process.stderr.write(`tiepoint: warning: the catalog is loaded, but its question indexes were not prepared (${(e as Error).message}); the first question will build them\n`);
+  }
+}
+
 /** Registers `load`. */
 export function registerLoad(program: Command): void {
   program
@@ -45,7 +63,8 @@ export function registerLoad(program: Command): void {
     .requiredOption("--db <path>", "the catalog file (created when missing)")
     .option("--replace", "empty the catalog first (in the same transaction)")
     .option("--quiet", "print nothing on success")
-    .action((files: string[], opts: { db: string; replace?: boolean; quiet?: boolean }) => {
+    .option("--no-prepare", "skip building the question indexes (relation index, name index) after the load; the first question builds them instead")
+    .action((files: string[], opts: { db: string; replace?: boolean; quiet?: boolean; prepare?: boolean }) => {
       let cat: Catalog | undefined;
       const tty = process.stderr.isTTY === true;
       let drawn = false;
@@ -65,6 +84,9 @@ export function registerLoad(program: Command): void {
         if (drawn) process.stderr.write("\r\x1b[K");
         ok = true;
         if (!opts.quiet) process.stderr.write(summary(report, opts.db) + "\n");
+        cat.close();
+        cat = undefined;
+        if (opts.prepare !== false) prepare(opts.db, opts.quiet === true);
       } catch (e) {
         if (drawn) process.stderr.write("\r\x1b[K");
         if (e instanceof TiepointError && e.file !== undefined && e.line !== undefined) {

@@ -1,0 +1,78 @@
+/**
+ * Cue chains (cue-chains.ts): attribution of relation words to clues, hop order, per-place
+ * voice and the type nouns between hops, on a small in-memory catalog written through
+ * CatalogWriter; link results are built by hand from the question text so the analysis is
+ * tested alone. Expected chains are hand-derived from the rules in the file header.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { Catalog, CatalogWriter } from "../catalog/index.js";
+import type { LinkResult, LinkedMention } from "../linking/index.js";
+import { analyze, buildQuestionModel, cueChains, findTypeWords, words, type QuestionModel } from "./index.js";
+
+let cat: Catalog;
+let model: QuestionModel;
+
+beforeAll(() => {
+  cat = Catalog.open(":memory:", { create: true });
+  const w = new CatalogWriter(cat);
+  w.begin();
+  for (const [id, label, alias] of [["t:Paper", "paper", "document"], ["t:Person", "person", "people"], ["t:Report", "field report", ""]] as const) {
+    w.label(id, label);
+    if (alias) w.alias(id, alias);
+  }
+  w.predicateLabel("r:cites", "cites");
+  w.predicateLabel("r:wrote", "wrote");
+  w.predicateLabel("r:leads", "leads");
+  for (const [id, label, t] of [["d:0", "Notes on Ice", "t:Paper"], ["p:a", "Ada Roe", "t:Person"], ["x:q", "Quay", "t:Paper"], ["d:1", "Tide Log", "t:Report"]] as const) {
+    w.label(id, label);
+    w.type(id, t);
+  }
+  w.commit();
+  model = buildQuestionModel(cat);
+});
+afterAll(() => cat.close());
+
+/** A hand-made link result: each label found in the question is a confident mention. */
+function linkOf(question: string, labels: readonly string[]): LinkResult {
+  const mentions: LinkedMention[] = labels.map((label) => {
+    const start = question.indexOf(label);
+    const num = cat.byLabelOrId(label)[0]!;
+    const ref = cat.ref(num);
+    return { text: label, start, end: start + label.length, entity: { id: ref.id, label: ref.label }, confidence: 0.95, alternatives: [], num };
+  });
+  return { mentions, unlinked: [] };
+}
+
+const relId = (n: number) => model.relations.find((r) => r.num === n)!.id;
+
+describe("cueChains", () => {
+  it("gives each place of a repeated relation word its own voice", () => {
+    const q = "Which paper cites a paper that is cited by Notes on Ice?";
+    const a = analyze(q, linkOf(q, ["Notes on Ice"]), model);
+    const cue = a.relationCues.find((c) => c.id === "r:cites")!;
+    // "cites" (active, like the label) then "cited by" (passive): no flip, then a flip
+    expect(cue.occurrences!.map((o) => o.flip)).toEqual([false, true]);
+    const [chain] = cueChains(a);
+    // nearest first: "cited by" (the clue is its passive agent, so the stored subject: along), then "cites" (against)
+    expect(chain!.steps.map((s) => s.options.map((o) => [relId(o.relation), o.inverse]))).toEqual([[["r:cites", false]], [["r:cites", true]]]);
+    expect(chain!.steps[0]!.types).toEqual([cat.numOf("t:Paper")]);
+  });
+
+  it("does not attach a relation word across a coordination", () => {
+    const q = "Which person wrote Notes on Ice and leads Quay?";
+    const a = analyze(q, linkOf(q, ["Notes on Ice", "Quay"]), model);
+    const chains = cueChains(a);
+    expect(chains.map((ch) => ch.steps.map((s) => relId(s.options[0]!.relation)))).toEqual([["r:wrote"], ["r:leads"]]);
+  });
+});
+
+describe("findTypeWords", () => {
+  it("finds the longest type n-gram and skips blocked words", () => {
+    const ws = words("a field report and a document by Ada");
+    const found = findTypeWords(ws, ws.map((w) => w.text === "Ada"), model);
+    expect(found.map((t) => [t.start, t.end])).toEqual([
+      [2, 14], // "field report" (two words, one type)
+      [21, 29], // "document"
+    ]);
+  });
+});
