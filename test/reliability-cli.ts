@@ -11,7 +11,7 @@ export const ROOT = resolve(__dirname, "..");
 export const MAIN = join(ROOT, "dist/cli/main.js");
 
 /** A half-written dist/ (another build running at the same moment) fails at module load. */
-const BUILD_IN_FLUX = /SyntaxError: The requested module|ERR_MODULE_NOT_FOUND|Cannot find module/;
+export const BUILD_IN_FLUX = /SyntaxError: The requested module|ERR_MODULE_NOT_FOUND|Cannot find module/;
 
 /** Builds dist/ once when it is missing. */
 export function ensureBuilt(): void {

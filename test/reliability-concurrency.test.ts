@@ -16,7 +16,7 @@ import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Catalog, loadFiles } from "../src/catalog/index.js";
 import { Session } from "../src/pipeline/index.js";
-import { ensureBuilt, MAIN, tp } from "./reliability-cli.js";
+import { BUILD_IN_FLUX, ensureBuilt, MAIN, tp } from "./reliability-cli.js";
 
 let dir = "";
 let db = "";
@@ -51,7 +51,16 @@ beforeAll(() => {
 
 type Run = { args: string[]; started: number; ended: number; code: number | null; stdout: string; stderr: string };
 
-function run(args: string[]): Promise<Run> {
+/** Spawns `tiepoint ARGS…`; a module-load failure of a build running at the same moment is retried (never tiepoint's own output). */
+async function run(args: string[]): Promise<Run> {
+  for (let attempt = 0; ; attempt++) {
+    const r = await runOnce(args);
+    if (attempt >= 5 || !BUILD_IN_FLUX.test(r.stderr)) return r;
+    await new Promise((w) => setTimeout(w, 2000));
+  }
+}
+
+function runOnce(args: string[]): Promise<Run> {
   return new Promise((done) => {
     const started = Date.now();
     const child = spawn(process.execPath, [MAIN, ...args], { cwd: dir, env: { ...process.env, TIEPOINT_DEBUG: "" } });

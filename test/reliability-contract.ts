@@ -4,8 +4,8 @@
  * consumer of `--json` really gets (a NaN would arrive as null and fail here):
  * required fields and their types; mention offsets are UTF-16, end-exclusive and slice back
  * to the mention text; ids name catalog entities and relations; paths chain from the clue to
- * the answer, each step a stored triple in the stated direction; answers best first (by clues
- * covered, then score, when `covered` is given; else by score); the
+ * the answer, each step a stored triple in the stated direction; answers best first (in the
+ * ranking's order when it is given, else by score); the
  * verdict status from the contract's enum, `tiedWith` among the answers or the catalog.
  * Returns the list of violations (empty when the document is valid).
  */
@@ -21,7 +21,7 @@ const isNum = (x: Json | undefined): x is number => typeof x === "number" && Num
 const isStr = (x: Json | undefined): x is string => typeof x === "string";
 
 /** Validates one parsed `ask --json` document for `question` against the catalog; `top` bounds the answers. */
-export function validateAskJson(doc: Json, question: string, cat: Catalog, top: number, covered?: ReadonlyMap<string, number>): string[] {
+export function validateAskJson(doc: Json, question: string, cat: Catalog, top: number, rankingOrder?: readonly string[]): string[] {
   const bad: string[] = [];
   const entityKnown = new Map<string, boolean>();
   const known = (id: string) => {
@@ -58,10 +58,11 @@ export function validateAskJson(doc: Json, question: string, cat: Catalog, top: 
   if (!Array.isArray(doc.answers)) bad.push("answers: not an array");
   else {
     if (doc.answers.length > top) bad.push(`answers: ${doc.answers.length} > top ${top}`);
-    // best first: the ranking orders by clues covered, then score (src/ranking/rank.ts), so
-    // with `covered` given the score must not rise within one coverage level; without it, overall
+    // best first: in the ranking's order when it is given (the ranking sorts by clues covered,
+    // then score, and conditions may reorder: the score alone need not fall); else by score
     let prev = Infinity;
-    let prevCovered = Infinity;
+    let lastPlace = -1;
+    const place = new Map((rankingOrder ?? []).map((id, i) => [id, i]));
     doc.answers.forEach((a, i) => {
       const w = `answers[${i}]`;
       ref(a, w);
@@ -72,11 +73,13 @@ export function validateAskJson(doc: Json, question: string, cat: Catalog, top: 
       }
       if (!isNum(a.score)) bad.push(`${w}: score not a finite number`);
       else {
-        const c = covered && isStr(a.id) ? (covered.get(a.id) ?? -1) : 0;
-        if (c > prevCovered) bad.push(`${w}: covers ${c} clues, more than the previous answer's ${prevCovered} (answers must be best first)`);
-        else if (c === prevCovered && a.score > prev) bad.push(`${w}: score ${a.score} above the previous answer's ${prev} (answers must be best first)`);
+        if (rankingOrder) {
+          const at = isStr(a.id) ? place.get(a.id) : undefined;
+          if (at === undefined) bad.push(`${w}: "${String(a.id)}" is not among the ranked candidates`);
+          else if (at < lastPlace) bad.push(`${w}: out of the ranking's order (answers must be best first)`);
+          else lastPlace = at;
+        } else if (a.score > prev) bad.push(`${w}: score ${a.score} above the previous answer's ${prev} (answers must be best first)`);
         prev = a.score;
-        prevCovered = c;
       }
       if (!Array.isArray(a.types) || !a.types.every((t) => isStr(t) && known(t))) bad.push(`${w}: types must be catalog entity ids`);
       if (!Array.isArray(a.paths)) return void bad.push(`${w}: paths not an array`);

@@ -43,8 +43,8 @@ function askOnce(question: string, top = 5): string[] {
     return [`threw ${e instanceof TiepointError ? e.code : "a non-TiepointError"}: ${(e as Error).message}`];
   }
   if (empty || over) return ["an empty or over-limit question was answered instead of refused"];
-  const covered = new Map(out.ranked.candidates.map((c) => [session.ref(c.node).id, c.covered]));
-  return validateAskJson(JSON.parse(askJson(out.result)), question, session.catalog, top, covered);
+  const order = out.ranked.candidates.map((c) => session.ref(c.node).id);
+  return validateAskJson(JSON.parse(askJson(out.result)), question, session.catalog, top, order);
 }
 
 const EMOJI = ["🙂", "👩🏽‍🔬", "🏳️‍🌈", "👨‍👩‍👧‍👦", "🇺🇳", "🧭", "⚓️", "1️⃣", "\u{1F9D1}\u200D\u{1F692}"];

@@ -64,6 +64,9 @@ export interface AnalyzeOptions {
 /** Defaults of {@link AnalyzeOptions}. */
 export const DEFAULTS = { modifierWeight: 0.25 } as const;
 
+/** English determiners that open a noun phrase (common practice; closed class). */
+const DETERMINERS: ReadonlySet<string> = new Set(["a", "an", "the", "this", "these", "those", "some", "any", "each", "every", "which", "what", "another", "other"]);
+
 /**
  * The mention that mention `i` pre-modifies, if any: the next clue mention follows it with
  * nothing between them but type nouns and a possessive ("the Ostrel engineer Ilse Varrick",
@@ -100,12 +103,21 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
   const at = detectAnswerType(ws, inClue, model, options.answerType);
   notes.push(...at.notes);
   const used = new Set(at.usedWords);
+  // type nouns used as nouns — after a determiner, not a relational "the leader *of*" — name
+  // a node of the path, not a relation ("built by a *organisation* that …")
+  const typeWords = findTypeWords(ws, ws.map((_, i) => inClue[i]! || used.has(i)), model);
+  const nounWord = new Set<number>();
+  for (const t of typeWords) {
+    const first = ws.findIndex((w) => w.start === t.start);
+    let last = first;
+    while (last + 1 < ws.length && ws[last + 1]!.end <= t.end) last++;
+    if (first > 0 && DETERMINERS.has(ws[first - 1]!.norm) && ws[last + 1]?.norm !== "of") for (let k = first; k <= last; k++) nounWord.add(k);
+  }
   const content: number[] = [];
   ws.forEach((w, i) => {
-    if (!inClue[i] && !used.has(i) && !isFunctionWord(w.norm)) content.push(i);
+    if (!inClue[i] && !used.has(i) && !nounWord.has(i) && (!isFunctionWord(w.norm) || model.functionCueStems?.has(w.stem))) content.push(i);
   });
   const cues = relationCues(ws, content, model, options.relationCues);
-  const typeWords = findTypeWords(ws, ws.map((_, i) => inClue[i]! || used.has(i)), model);
 
   const modifierWeight = options.modifierWeight ?? DEFAULTS.modifierWeight;
   const clues: Clue[] = [];

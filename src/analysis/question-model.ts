@@ -64,6 +64,11 @@ export interface QuestionModel {
   readonly agentTypes: readonly number[];
   /** Place-like types (answer type of "where"), most general first. */
   readonly placeTypes: readonly number[];
+  /**
+   * Stems of relation surfaces made of one function word only (a relation labelled "about"):
+   * such words of a question are matched against relations after all. @default none
+   */
+  readonly functionCueStems?: ReadonlySet<string>;
 }
 
 /** General English words for people (common practice; no catalog names). */
@@ -159,16 +164,18 @@ export function buildQuestionModel(cat: Catalog, options: QuestionModelOptions =
 
   const counts = options.relationEdgeCounts;
   const relations: ModelRelation[] = [];
+  const functionCueStems = new Set<string>();
   for (const p of cat.predicates()) {
     if (counts !== undefined && !((counts[p.num] ?? 0) > 0)) continue;
     const surfaces: string[][] = [];
     for (const s of [p.label, ...p.aliases]) {
       const all = tokens(s);
       const content = all.filter((x) => !isFunctionWord(x));
+      if (content.length === 0 && all.length === 1) functionCueStems.add(stemToken(all[0]!));
       const chosen = (content.length > 0 ? content : all).map(stemToken);
       if (chosen.length > 0 && !surfaces.some((o) => o.join(" ") === chosen.join(" "))) surfaces.push(chosen);
     }
     relations.push({ num: p.num, id: p.id, label: p.label, surfaces });
   }
-  return { types, typeByNum, typesByKey, maxTypeWords, relations, personTypes, organisationTypes, agentTypes, placeTypes };
+  return { types, typeByNum, typesByKey, maxTypeWords, relations, personTypes, organisationTypes, agentTypes, placeTypes, functionCueStems };
 }

@@ -12,7 +12,7 @@
  */
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, statSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { loadavg, tmpdir } from "node:os";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { Catalog, loadFiles } from "../catalog/index.js";
@@ -88,12 +88,13 @@ try {
     htmlCallSeconds: page ? +page.seconds.toFixed(2) : null,
     htmlMebibytes: page ? +(statSync(html).size / 2 ** 20).toFixed(1) : null,
     quality: { withExpected: s.withExpected, hits1: +s.hits1.toFixed(3), hits5: +s.hits5.toFixed(3), mrr: +s.mrr.toFixed(3), verdicts: s.verdicts },
+    loadAverage: loadavg().map((x) => +x.toFixed(1)),
     target: DEFAULTS.targetSeconds,
     meetsTarget: cold.seconds <= DEFAULTS.targetSeconds,
   };
   process.stdout.write(JSON.stringify(result, null, 2) + "\n");
   process.stderr.write(
-    `check: ${s.questions} questions on ${gen.entities.toLocaleString("en-US")} entities: cold call ${cold.seconds.toFixed(1)} s, warm ${warm.seconds.toFixed(1)} s ` +
+    `check: ${s.questions} questions on ${gen.entities.toLocaleString("en-US")} entities: cold call ${cold.seconds.toFixed(1)} s${quick ? "" : `, warm ${warm.seconds.toFixed(1)} s`} ` +
       `(target ${DEFAULTS.targetSeconds} s: ${result.meetsTarget ? "met" : "NOT met"})${page ? `; html report ${page.seconds.toFixed(1)} s` : ""}\n`,
   );
 } finally {

@@ -9,7 +9,7 @@ import { Catalog, demoCatalogPath } from "../catalog/index.js";
 import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, type Analysis, type AttributeModel, type QuestionModel } from "../analysis/index.js";
 import { Linker, linkQuestion, type LinkResult, type Pin } from "../linking/index.js";
 import { DISCLAIMER, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
-import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex } from "../ranking/index.js";
+import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { basicVerdict } from "./verdict.js";
 import { conditionDocs, conditionExplanation, conditionSteps, conditionVerdict, countDoc, explain, type Explanation } from "../explain/index.js";
 
@@ -133,12 +133,14 @@ export class Session {
     const t2 = performance.now();
     const lookup = { numbers: (e: number, p: number) => this.catalog.attributeNumbers(e, p) };
     const withConditions = (r: Ranked) => (cond.conditions.length > 0 ? applyConditions(analysis, r, cond.conditions, this.index, lookup).ranked : r);
-    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
+    // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
+    const pprMemo = new Map<string, SparseScores>();
+    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
     const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup) : undefined;
     const ranked = conditions?.ranked ?? ranked0;
     const t3 = performance.now();
     const whyNot = (options.whyNot ?? []).map((e) => this.resolveEntity(e));
-    const made = this.answersOf(analysis, ranked, top, { dropClues: options.dropClues ?? [], whyNot, ...(conditions ? { rerankWith: withConditions } : {}) });
+    const made = this.answersOf(analysis, ranked, top, { dropClues: options.dropClues ?? [], whyNot, pprMemo, ...(conditions ? { rerankWith: withConditions } : {}) });
     let { answers, verdict } = made;
     if (conditions) {
       const nodeOf = new Map(ranked.candidates.slice(0, top).map((c) => [this.ref(c.node).id, c.node]));
@@ -197,7 +199,13 @@ export class Session {
     analysis: Analysis,
     ranked: Ranked,
     top: number,
-    extra: { readonly dropClues?: readonly number[]; readonly whyNot?: readonly number[]; readonly rerankWith?: (r: Ranked) => Ranked } = {},
+    extra: {
+      readonly dropClues?: readonly number[];
+      readonly whyNot?: readonly number[];
+      readonly rerankWith?: (r: Ranked) => Ranked;
+      /** Per-clue PageRank vectors of this analysis (rank's `pprMemo`), shared by the re-rankings. */
+      readonly pprMemo?: Map<string, SparseScores>;
+    } = {},
   ): { answers: Answer[]; verdict: Verdict; explanation?: Explanation } {
     if (ranked.clues.length === 0 || ranked.candidates.length === 0) {
       // nothing to explain: the basic verdict says why
@@ -210,12 +218,13 @@ export class Session {
     // ranked.clues are analysis.clues minus dropClues: map a ranked clue index back
     const dropped = new Set(extra.dropClues ?? []);
     const kept = analysis.clues.map((_, i) => i).filter((i) => !dropped.has(i));
+    const pprMemo = extra.pprMemo ?? new Map<string, SparseScores>();
     const explanation = explain(analysis, ranked, this.index, this.catalog, {
       top,
       ...(this.rankOptions.alpha !== undefined ? { restart: this.rankOptions.alpha } : {}),
       ...(this.rankOptions.hubExponent !== undefined ? { hubExponent: this.rankOptions.hubExponent } : {}),
       rerank: (a, drop) => {
-        const r = rank(a, this.index, { ...this.rankOptions, dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
+        const r = rank(a, this.index, { ...this.rankOptions, pprMemo, dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
         return extra.rerankWith ? extra.rerankWith(r) : r;
       },
       whyNot: extra.whyNot ?? [],

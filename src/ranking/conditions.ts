@@ -21,7 +21,8 @@
  * candidates carry, then by id. A multi-valued attribute passes a comparison when some value
  * does; a superlative uses the largest (for "max") or smallest value. Candidates without the
  * attribute fail comparisons and come last in an ordering. Ties of value keep the ranking's
- * order (score, then node).
+ * order (score, then node). Where the conditions change the order, each candidate's score is
+ * capped at the one before it (a running minimum), so scores stay best first.
  */
 import type { AttributeChoice, Analysis, Condition, ComparisonCondition, SuperlativeCondition } from "../analysis/index.js";
 import type { Ranked, RankedCandidate } from "./rank.js";
@@ -272,6 +273,8 @@ export function applyConditions(
     notes.push(`counted ${fitNow.length} entit${fitNow.length === 1 ? "y" : "ies"} that fit every clue and condition`);
   }
   if (cands.length === 0 && ranked.candidates.length > 0) notes.push("no candidate satisfies the conditions");
+  // the new order is the answer order: each score is capped at the previous one's (a running minimum), so scores stay best first
+  for (let i = 1; i < cands.length; i++) if (cands[i]!.score > cands[i - 1]!.score) cands[i] = { ...cands[i]!, score: cands[i - 1]!.score };
   return {
     ranked: { ...ranked, candidates: cands, notes: [...ranked.notes, ...notes] },
     applied,

@@ -82,6 +82,12 @@ export interface RankOptions extends CombineOptions {
   /** Clue indexes (into `analysis.clues`) to leave out (ablation). @default none */
   readonly dropClues?: readonly number[];
   /**
+   * Per-clue PageRank vectors already computed for this same question and options, keyed by
+   * the clue's seeds and the walk's relation weights; filled and reused, so re-ranking without a clue (ablation) runs no new
+   * PageRank. Valid for one analysis and one set of options only. @default none
+   */
+  readonly pprMemo?: Map<string, SparseScores>;
+  /**
    * Factor of a candidate that the clue's relation-path pattern (analysis cue-chains.ts)
    * does not reach, when some candidate is reached by it; combined over the clues as a
    * weighted geometric mean. 1 disables the check. @default 0.05 — about the ratio of a one-hop to a two-hop neighbour's normalised walk score, so a candidate off the pattern falls behind one on it unless it is far closer
@@ -180,6 +186,9 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   // the clue entities themselves are never answers (alternatives seeded with them may be)
   const seedNodes = new Set<number>(clues.map((c) => c.node));
   const perClue: SparseScores[] = [];
+  // the memo key holds the relation weights too (dropping a clue may drop its cues)
+  let rhoText: string | undefined;
+  const rhoKey = (): string => (rhoText ??= Array.from(rho, (w, i) => (w !== 1 ? `${i}=${w}` : "")).filter((x) => x !== "").join(";"));
   const restart: Map<number, number>[] = [];
   const usable: boolean[] = [];
   for (const clue of clues) {
@@ -190,7 +199,11 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
       notes.push(`clue "${clue.label}" has no relations in the catalog: it cannot support any answer`);
     }
     usable.push(seeds.length > 0);
-    perClue.push(seeds.length > 0 ? clueScores(index, seeds, { alpha, tolerance: options.tolerance, relationWeights: rho, hubExponent: options.hubExponent }) : { nodes: new Int32Array(0), scores: new Float64Array(0) });
+    const memoKey = options.pprMemo ? `${rhoKey()}|${seeds.map((x) => `${x.node}:${x.weight}`).join(",")}` : "";
+    const memo = options.pprMemo?.get(memoKey);
+    const scores = memo ?? (seeds.length > 0 ? clueScores(index, seeds, { alpha, tolerance: options.tolerance, relationWeights: rho, hubExponent: options.hubExponent }) : { nodes: new Int32Array(0), scores: new Float64Array(0) });
+    if (options.pprMemo && !memo) options.pprMemo.set(memoKey, scores);
+    perClue.push(scores);
   }
 
   // candidate pool: every node any clue reaches, minus the clue entities; a seeded
