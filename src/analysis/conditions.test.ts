@@ -71,6 +71,7 @@ describe("detectConditions", () => {
     const oldest = s("Which is the oldest ship?");
     expect(oldest).toMatchObject({ kind: "superlative", order: "min", temporal: true });
     expect(oldest.kind === "superlative" && oldest.choices[0]!.id).toBe("built");
+    expect(detectConditions(bare("Which ship did Alda first visit?"), model, attributes).conditions).toEqual([]); // an adverb, not an ordering
     const most = s("Which ship has the most crew?");
     expect(most.kind === "superlative" && most.choices[0]!.id).toBe("crew");
   });

@@ -396,6 +396,8 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
       }
     }
     if (order === undefined) continue;
+    // "first"/"last" order only as a determiner phrase ("the first …"); "first served on" is an adverb
+    if ((n === "first" || n === "last") && ws[i - 1]?.norm !== "the" && ORDINALS[ws[i - 1]?.norm ?? ""] === undefined) continue;
     let from = i;
     let position = 1;
     const prev = ws[i - 1]?.norm;

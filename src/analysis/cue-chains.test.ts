@@ -16,14 +16,16 @@ beforeAll(() => {
   cat = Catalog.open(":memory:", { create: true });
   const w = new CatalogWriter(cat);
   w.begin();
-  for (const [id, label, alias] of [["t:Paper", "paper", "document"], ["t:Person", "person", "people"], ["t:Report", "field report", ""]] as const) {
+  for (const [id, label, alias] of [["t:Paper", "paper", "document"], ["t:Person", "person", "people"], ["t:Report", "field report", ""], ["t:Org", "organisation", ""]] as const) {
     w.label(id, label);
     if (alias) w.alias(id, alias);
   }
   w.predicateLabel("r:cites", "cites");
   w.predicateLabel("r:wrote", "wrote");
   w.predicateLabel("r:leads", "leads");
-  for (const [id, label, t] of [["d:0", "Notes on Ice", "t:Paper"], ["p:a", "Ada Roe", "t:Person"], ["x:q", "Quay", "t:Paper"], ["d:1", "Tide Log", "t:Report"]] as const) {
+  w.predicateLabel("r:about", "about");
+  w.predicateLabel("r:organisedBy", "organised by");
+  for (const [id, label, t] of [["d:0", "Notes on Ice", "t:Paper"], ["p:a", "Ada Roe", "t:Person"], ["x:q", "Quay", "t:Paper"], ["d:1", "Tide Log", "t:Report"], ["o:1", "Rime Society", "t:Org"]] as const) {
     w.label(id, label);
     w.type(id, t);
   }
@@ -63,6 +65,20 @@ describe("cueChains", () => {
     const a = analyze(q, linkOf(q, ["Notes on Ice", "Quay"]), model);
     const chains = cueChains(a);
     expect(chains.map((ch) => ch.steps.map((s) => relId(s.options[0]!.relation)))).toEqual([["r:wrote"], ["r:leads"]]);
+  });
+});
+
+describe("analyze: relation words among function words and type nouns", () => {
+  it("matches a relation labelled by a function word, and not a type noun used as a noun", () => {
+    const q = "Which paper is about an organisation that Ada Roe leads?";
+    const a = analyze(q, linkOf(q, ["Ada Roe"]), model);
+    const ids = a.relationCues.map((c) => c.id);
+    expect(ids).toContain("r:about"); // the label "about" is a function word only
+    expect(ids).toContain("r:leads");
+    expect(ids).not.toContain("r:organisedBy"); // "an organisation" names the node in between
+    const [chain] = cueChains(a);
+    expect(chain!.steps.map((s) => relId(s.options[0]!.relation))).toEqual(["r:leads", "r:about"]);
+    expect(chain!.steps[0]!.types).toEqual([cat.numOf("t:Org")]);
   });
 });
 

@@ -22,6 +22,9 @@
  * (fewest hops on the walk first, then lowest num), so the subgraph stays small on a
  * million-entity catalog; paths the subgraph misses are left to the bounded bidirectional
  * search on the full index. The searches use per-graph stamped arrays (scratch.ts), not maps.
+ * The rows of kept hubs are not read either: a hub's arcs to kept non-hubs are taken from
+ * the non-hubs' reverse entries, priced by the walk's formula from the hub's row total, and
+ * arcs between two hubs are left out (such paths are the walk's least likely anyway).
  *
  * {@link evidenceSubgraph} returns the compact form (CSR arrays, searched by dijkstra.ts and
  * yenOnArcs), optionally with one virtual source node per clue whose arcs to the clue's
@@ -192,16 +195,34 @@ export function evidenceSubgraph(
   const rels: number[] = [];
   const invs: number[] = [];
   const hop = cost.hopCost;
-  const acc = new Map<number, number>();
-  nodes.forEach((u, ui) => {
-    offsets[ui] = heads.length;
-    acc.clear();
+  // rows of kept hubs are not read: their arcs to kept non-hubs come from the reverse entries
+  // (priced by the walk's formula from the hub's row total); hub–hub arcs are left out
+  const isHub = nodes.map((u) => graph.degree(u) > o.hubLimit);
+  const hubAcc = new Map<number, Map<number, number>>();
+  const rows: Map<number, number>[] = nodes.map((u, ui) => {
+    if (isHub[ui]) {
+      const mine = hubAcc.get(ui) ?? new Map<number, number>();
+      hubAcc.set(ui, mine);
+      return mine;
+    }
+    const acc = new Map<number, number>();
     cost.forEachProbability(u, (v, rel, inverse, p) => {
       const vl = local.get(v);
       if (vl < 0 || v === u) return;
       const k = (vl * 1048576 + rel) * 2 + (inverse ? 1 : 0);
       acc.set(k, (acc.get(k) ?? 0) + p);
+      if (isHub[vl]) {
+        const back = hubAcc.get(vl) ?? new Map<number, number>();
+        hubAcc.set(vl, back);
+        const kb = (ui * 1048576 + rel) * 2 + (inverse ? 0 : 1);
+        back.set(kb, (back.get(kb) ?? 0) + cost.entryProbability(v, u, rel));
+      }
     });
+    return acc;
+  });
+  nodes.forEach((_u, ui) => {
+    offsets[ui] = heads.length;
+    const acc = isHub[ui] ? hubAcc.get(ui)! : rows[ui]!;
     const best = new Map<number, { cost: number; rel: number; inverse: boolean }>();
     for (const [k, p] of acc) {
       if (!(p > 0)) continue;

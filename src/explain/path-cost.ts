@@ -29,6 +29,8 @@ import type { WalkGraph } from "./types.js";
 export interface TransitionLike {
   /** Calls `fn` for every adjacency entry of `u` with the probability of taking it. */
   forEachTransition(u: number, fn: (v: number, rel: number, inverse: boolean, probability: number) => void): void;
+  /** W(u), the row's total weight (0: dangling); lets one entry be priced without reading the row. */
+  rowTotal?(u: number): number;
 }
 
 /** Options of {@link PathCostModel}; all optional. */
@@ -60,6 +62,7 @@ export class PathCostModel {
   private readonly rw: Float64Array | undefined;
   private readonly transition: TransitionLike | undefined;
   private readonly rows = new Map<number, Map<number, number>>();
+  private readonly totals = new Map<number, number>();
 
   constructor(graph: WalkGraph, options: PathCostOptions = {}) {
     const restart = options.restart ?? DEFAULTS.restart;
@@ -110,6 +113,38 @@ export class PathCostModel {
     });
     this.rows.set(u, row);
     return row;
+  }
+
+  /**
+   * P(u → v via one entry of relation `rel`) = ρ[rel]·deg(v)^(−β) / W(u), computed from the
+   * formula and the row total instead of reading u's row (for hubs, whose rows are long); it
+   * equals {@link probability} for an entry that occurs once in the row.
+   */
+  entryProbability(u: number, v: number, rel: number): number {
+    if (!this.transition?.rowTotal) return this.probabilityFromFormula(u, v, rel);
+    let total = this.totals.get(u);
+    if (total === undefined) {
+      total = this.transition.rowTotal(u);
+      this.totals.set(u, total);
+    }
+    if (!(total > 0)) return 0;
+    const rho = this.rw && rel < this.rw.length ? this.rw[rel]! : 1;
+    const d = this.graph.degree(v);
+    const h = d === 0 || this.beta === 0 ? 1 : Math.pow(d, -this.beta);
+    return (rho * h) / total;
+  }
+
+  private probabilityFromFormula(u: number, v: number, rel: number): number {
+    let total = 0;
+    let w = 0;
+    this.graph.forEach(u, (x, r) => {
+      const rho = this.rw && r < this.rw.length ? this.rw[r]! : 1;
+      const d = this.graph.degree(x);
+      const wx = rho * (d > 0 && this.beta > 0 ? Math.pow(d, -this.beta) : 1);
+      total += wx;
+      if (x === v && r === rel) w = wx;
+    });
+    return total > 0 ? w / total : 0;
   }
 
   /** The walk probability of the step (without the (1 − α) factor), 0..1. */

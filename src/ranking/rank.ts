@@ -24,6 +24,16 @@
  * direction the word order implies counts as half unused (`wrongWay`): word order is only a
  * hint.
  *
+ * Then each clue's relation-path pattern (analysis cue-chains.ts: its relation words in hop
+ * order, each with a direction and, when a type noun stands between two of them, the type
+ * of the node in between) is matched exactly — hop count, relations, directions — by
+ * chain-reach.ts (a fixed-length regular path query, Mendelzon & Wood 1995): a candidate
+ * off the pattern gets `chainMiss`, one on it only when directions or intermediate types
+ * are ignored `chainLoose`, combined over the clues like their scores ({@link chainFitOf}).
+ * A pattern that reaches no eligible candidate is ignored, so a wrong reading of the
+ * question cannot empty the ranking. With `dropClues`, relation cues attributed only to
+ * dropped clues are removed before the walk (ablation without their words).
+ *
  * Clue entities are never answers of their own question; an alternative seeded with a
  * low-confidence clue may be, with its restart mass α·s(v) removed from its score.
  * Candidates are filtered by the expected types (their subtypes included, via
