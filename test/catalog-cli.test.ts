@@ -7,13 +7,12 @@
 import { spawnSync, execFileSync } from "node:child_process";
 import { chmodSync, copyFileSync, existsSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
-import { join, resolve } from "node:path";
+import { join } from "node:path";
 import Database from "better-sqlite3";
 import { beforeAll, describe, expect, it } from "vitest";
 import { dumpCatalog, integrity } from "./catalog-dump.js";
+import { ensureBuilt, MAIN } from "./reliability-cli.js";
 
-const ROOT = resolve(__dirname, "..");
-const MAIN = join(ROOT, "dist/cli/main.js");
 let dir = "";
 let base = ""; // a catalog with some content, copied per test
 
@@ -46,7 +45,7 @@ function freshCopy(): string {
 }
 
 beforeAll(() => {
-  if (!existsSync(MAIN)) execFileSync(process.execPath, [join(ROOT, "node_modules/typescript/bin/tsc"), "-p", join(ROOT, "tsconfig.json")], { stdio: "inherit" });
+  ensureBuilt();
   dir = mkdtempSync(join(tmpdir(), "tp-cli-"));
   write(
     "seed.jsonl",

@@ -5,21 +5,20 @@
  * SQLite's WAL snapshot isolation (https://www.sqlite.org/wal.html, "Concurrency") plus the
  * store's busy timeout. Needs a build (npm test builds first).
  */
-import { spawn, spawnSync, execFileSync } from "node:child_process";
-import { closeSync, existsSync, mkdtempSync, openSync, writeSync } from "node:fs";
+import { spawn, spawnSync } from "node:child_process";
+import { closeSync, mkdtempSync, openSync, writeSync } from "node:fs";
 import { tmpdir } from "node:os";
-import { join, resolve } from "node:path";
+import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Catalog, loadFiles } from "../src/catalog/index.js";
+import { ensureBuilt, MAIN } from "./reliability-cli.js";
 
-const ROOT = resolve(__dirname, "..");
-const MAIN = join(ROOT, "dist/cli/main.js");
 let dir = "";
 let db = "";
 let big = "";
 
 beforeAll(() => {
-  if (!existsSync(MAIN)) execFileSync(process.execPath, [join(ROOT, "node_modules/typescript/bin/tsc"), "-p", join(ROOT, "tsconfig.json")], { stdio: "inherit" });
+  ensureBuilt();
   dir = mkdtempSync(join(tmpdir(), "tp-conc-"));
   db = join(dir, "c.db");
   const seed = join(dir, "seed.jsonl");

@@ -5,34 +5,26 @@
  * Relies on SQLite's write-ahead log: uncommitted frames are ignored on the next open
  * (https://www.sqlite.org/wal.html, "atomic commit"). Needs a build (npm test builds first).
  */
-import { spawn, execFileSync } from "node:child_process";
-import { closeSync, copyFileSync, existsSync, mkdtempSync, openSync, statSync, writeSync } from "node:fs";
+import { closeSync, copyFileSync, mkdtempSync, openSync, writeSync } from "node:fs";
 import { tmpdir } from "node:os";
-import { join, resolve } from "node:path";
+import { join } from "node:path";
 import Database from "better-sqlite3";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Catalog, loadFiles } from "../src/catalog/index.js";
 import { dumpCatalog, integrity } from "./catalog-dump.js";
+import { writeBigNTriples } from "./helpers/catalog-files.js";
+import { killLoadWhen, type KilledLoad } from "./helpers/kill-load.js";
+import { BUILD_IN_FLUX, ensureBuilt } from "./reliability-cli.js";
 
-const ROOT = resolve(__dirname, "..");
-const MAIN = join(ROOT, "dist/cli/main.js");
 let dir = "";
 let base = "";
 let before = "";
 let big = "";
 
-/**
- * Starts a load and kills it with SIGKILL once `when` holds: after `ms` milliseconds, and
- * (when `walBytes` is given) once the write-ahead log has grown to that size, i.e. while
- * SQLite is writing pages of the uncommitted transaction.
- */
-/** A half-written dist/ (another build running at the same moment) fails at module load. */
-const BUILD_IN_FLUX = /SyntaxError: The requested module|ERR_MODULE_NOT_FOUND|Cannot find module/;
-
-async function killWhen(db: string, when: { ms: number; walBytes?: number }, extra: string[] = []): Promise<{ signal: NodeJS.Signals | null; code: number | null; stderr: string; walAtKill: number }> {
+/** Kills a load of the big file at the moment `when`; only a module-load failure of the build itself is retried. */
+async function killWhen(db: string, when: { ms: number; walBytes?: number }, extra: string[] = []): Promise<KilledLoad> {
   for (let attempt = 0; ; attempt++) {
-    const r = await killOnce(db, when, extra);
-    // only a module-load failure of the build itself is retried
+    const r = await killLoadWhen(dir, big, db, when, extra);
     if (attempt < 5 && r.signal === null && BUILD_IN_FLUX.test(r.stderr)) {
       await new Promise((ok) => setTimeout(ok, 2000));
       continue;
@@ -41,31 +33,8 @@ async function killWhen(db: string, when: { ms: number; walBytes?: number }, ext
   }
 }
 
-function killOnce(db: string, when: { ms: number; walBytes?: number }, extra: string[]): Promise<{ signal: NodeJS.Signals | null; code: number | null; stderr: string; walAtKill: number }> {
-  return new Promise((done) => {
-    const child = spawn(process.execPath, [MAIN, "load", big, "--db", db, ...extra], { cwd: dir });
-    let stderr = "";
-    let walAtKill = -1;
-    child.stderr.on("data", (d) => (stderr += String(d)));
-    const start = Date.now();
-    const wal = `${db}-wal`;
-    const poll = setInterval(() => {
-      if (Date.now() - start < when.ms) return;
-      const size = existsSync(wal) ? statSync(wal).size : 0;
-      if (when.walBytes !== undefined && size < when.walBytes) return;
-      walAtKill = size;
-      child.kill("SIGKILL");
-      clearInterval(poll);
-    }, 1);
-    child.on("exit", (code, signal) => {
-      clearInterval(poll);
-      done({ signal, code, stderr, walAtKill });
-    });
-  });
-}
-
 beforeAll(() => {
-  if (!existsSync(MAIN)) execFileSync(process.execPath, [join(ROOT, "node_modules/typescript/bin/tsc"), "-p", join(ROOT, "tsconfig.json")], { stdio: "inherit" });
+  ensureBuilt();
   dir = mkdtempSync(join(tmpdir(), "tp-crash-"));
   base = join(dir, "base.db");
   const seed = join(dir, "seed.nt");
@@ -81,18 +50,7 @@ beforeAll(() => {
   before = dumpCatalog(base);
   // a large file: 30,000 entities with labels and 120,000 edges (150,000 lines, ~9 MB)
   big = join(dir, "big.nt");
-  const fd = openSync(big, "w");
-  let chunk = "";
-  for (let i = 0; i < 30_000; i++) {
-    chunk += `<k:e${i}> <http://www.w3.org/2000/01/rdf-schema#label> "Entity number ${i}" .\n`;
-    for (let j = 1; j <= 4; j++) chunk += `<k:e${i}> <k:r${j}> <k:e${(i * 31 + j * 977) % 30_000}> .\n`;
-    if (chunk.length > 1 << 20) {
-      writeSync(fd, chunk);
-      chunk = "";
-    }
-  }
-  writeSync(fd, chunk);
-  closeSync(fd);
+  writeBigNTriples(big, 30_000);
 });
 
 describe("SIGKILL during load", () => {

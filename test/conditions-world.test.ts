@@ -16,12 +16,12 @@
  * set) and counts ("How many countries in R have an area over T km²?", "How many countries
  * border X?"). The accuracy over all generated questions is reported and must be ≥ 0.9.
  */
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Catalog, loadFiles } from "../src/catalog/index.js";
 import { Session } from "../src/pipeline/index.js";
+import { loadJsonlCatalog } from "./helpers/catalog-files.js";
 import { choose, countries, type Country } from "./helpers/world-countries-catalog.js";
 
 interface Sized extends Country {
@@ -94,13 +94,7 @@ describe("conditions on world-countries 5.1.0 (areas, borders, subregions)", () 
 
   beforeAll(() => {
     dir = mkdtempSync(join(tmpdir(), "tiepoint-wc-cond-"));
-    const file = join(dir, "countries.jsonl");
-    writeFileSync(file, catalogLines().join("\n") + "\n");
-    const db = join(dir, "countries.db");
-    const cat = Catalog.open(db, { create: true });
-    loadFiles(cat, [file]);
-    cat.close();
-    session = Session.open({ db });
+    session = Session.open({ db: loadJsonlCatalog(dir, "countries", catalogLines()) });
   });
 
   afterAll(() => {

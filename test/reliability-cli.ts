@@ -1,5 +1,6 @@
 /**
- * Helpers of the reliability tests (issue 10): run the built CLI, mount a small tmpfs.
+ * Helpers of the reliability tests (issue 10) and the catalog CLI tests: run the built CLI,
+ * mount a small tmpfs.
  * Spawned commands need a build (npm test builds first; a missing dist/ is built once).
  */
 import { execFileSync, spawnSync } from "node:child_process";

@@ -16,6 +16,7 @@ import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Catalog, loadFiles } from "../src/catalog/index.js";
 import { Session } from "../src/pipeline/index.js";
+import { BOAT_SEED } from "./helpers/catalog-files.js";
 import { BUILD_IN_FLUX, ensureBuilt, MAIN, tp } from "./reliability-cli.js";
 
 let dir = "";
@@ -26,18 +27,7 @@ beforeAll(() => {
   ensureBuilt();
   dir = mkdtempSync(join(tmpdir(), "tp-rel-conc-"));
   db = join(dir, "c.db");
-  writeFileSync(
-    join(dir, "seed.jsonl"),
-    [
-      '{"kind":"relation","id":"r:dockedAt","label":"docked at"}',
-      '{"kind":"type","id":"t:Boat","label":"boat"}',
-      '{"id":"b:wren","label":"Wren","types":["t:Boat"],"relations":{"r:dockedAt":["q:east"]}}',
-      '{"id":"b:tern","label":"Tern","types":["t:Boat"],"relations":{"r:dockedAt":["q:west"]}}',
-      '{"id":"q:east","label":"East Quay"}',
-      '{"id":"q:west","label":"West Quay"}',
-      "",
-    ].join("\n"),
-  );
+  writeFileSync(join(dir, "seed.jsonl"), BOAT_SEED);
   // the filler entities first, then their edges, then North Quay and Skua (the load's effect)
   const lines: string[] = [];
   for (let i = 0; i < 30_000; i++) lines.push(`{"id":"k:f${i}","label":"Filler item ${i}"}`);

@@ -11,14 +11,15 @@
  *    from the current catalog and rewrites the snapshot. src/ranking/snapshot.test.ts checks
  *    the detection itself in-process.
  */
-import { spawn } from "node:child_process";
-import { copyFileSync, existsSync, mkdtempSync, openSync, closeSync, readFileSync, statSync, truncateSync, writeSync, writeFileSync } from "node:fs";
+import { copyFileSync, existsSync, mkdtempSync, readFileSync, truncateSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import Database from "better-sqlite3";
 import { beforeAll, describe, expect, it } from "vitest";
 import { dumpCatalog, integrity } from "./catalog-dump.js";
-import { ensureBuilt, MAIN, tp } from "./reliability-cli.js";
+import { BOAT_SEED, writeBigNTriples } from "./helpers/catalog-files.js";
+import { killLoadWhen } from "./helpers/kill-load.js";
+import { ensureBuilt, tp } from "./reliability-cli.js";
 
 let dir = "";
 let base = "";
@@ -38,44 +39,10 @@ function mulberry32(seed: number): () => number {
   };
 }
 
-/** Runs a load and kills it once `ms` have passed and the WAL holds `walBytes`; resolves with how it ended. */
-function loadKilledAt(db: string, ms: number, walBytes: number): Promise<{ signal: NodeJS.Signals | null; stderr: string; wal: number }> {
-  return new Promise((done) => {
-    const child = spawn(process.execPath, [MAIN, "load", big, "--db", db], { cwd: dir });
-    let stderr = "";
-    let wal = -1;
-    child.stderr.on("data", (d) => (stderr += String(d)));
-    const start = Date.now();
-    const poll = setInterval(() => {
-      if (Date.now() - start < ms) return;
-      const size = existsSync(`${db}-wal`) ? statSync(`${db}-wal`).size : 0;
-      if (size < walBytes) return;
-      wal = size;
-      child.kill("SIGKILL");
-      clearInterval(poll);
-    }, 1);
-    child.on("exit", (_code, signal) => {
-      clearInterval(poll);
-      done({ signal, stderr, wal });
-    });
-  });
-}
-
 beforeAll(() => {
   ensureBuilt();
   dir = mkdtempSync(join(tmpdir(), "tp-rel-crash-"));
-  writeFileSync(
-    join(dir, "seed.jsonl"),
-    [
-      '{"kind":"relation","id":"r:dockedAt","label":"docked at"}',
-      '{"kind":"type","id":"t:Boat","label":"boat"}',
-      '{"id":"b:wren","label":"Wren","types":["t:Boat"],"relations":{"r:dockedAt":["q:east"]}}',
-      '{"id":"b:tern","label":"Tern","types":["t:Boat"],"relations":{"r:dockedAt":["q:west"]}}',
-      '{"id":"q:east","label":"East Quay"}',
-      '{"id":"q:west","label":"West Quay"}',
-      "",
-    ].join("\n"),
-  );
+  writeFileSync(join(dir, "seed.jsonl"), BOAT_SEED);
   base = join(dir, "base.db");
   expect(tp(dir, "load", "seed.jsonl", "--db", base).status).toBe(0);
   const h = new Database(base);
@@ -84,15 +51,7 @@ beforeAll(() => {
   before = dumpCatalog(base);
   // 25,000 entities with labels and 100,000 edges (125,000 N-Triples lines, ~7 MB)
   big = join(dir, "big.nt");
-  const fd = openSync(big, "w");
-  let chunk = "";
-  for (let i = 0; i < 25_000; i++) {
-    chunk += `<k:e${i}> <http://www.w3.org/2000/01/rdf-schema#label> "Entity number ${i}" .\n`;
-    for (let j = 1; j <= 4; j++) chunk += `<k:e${i}> <k:r${j}> <k:e${(i * 31 + j * 977) % 25_000}> .\n`;
-    if (chunk.length > 1 << 20) (writeSync(fd, chunk), (chunk = ""));
-  }
-  writeSync(fd, chunk);
-  closeSync(fd);
+  writeBigNTriples(big, 25_000);
 });
 
 describe("SIGKILL at 10 random moments during a load", () => {
@@ -105,7 +64,7 @@ describe("SIGKILL at 10 random moments during a load", () => {
     it(`moment ${i + 1}: ${m.walBytes > 0 ? `at ${m.walBytes} bytes of WAL` : `${m.ms} ms after start`} → integrity ok, exactly the earlier content, still answering`, async () => {
       const db = join(dir, `k${i}.db`);
       copyFileSync(base, db);
-      const r = await loadKilledAt(db, m.ms, m.walBytes);
+      const r = await killLoadWhen(dir, big, db, m);
       // a complete load of this file writes more than 8 MiB of WAL; were it to finish first, this says so
       expect(r.signal, `the load finished before the kill (${r.stderr}); WAL target ${m.walBytes}`).toBe("SIGKILL");
       expect(integrity(db)).toBe("ok");

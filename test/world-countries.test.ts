@@ -15,12 +15,12 @@
  * countries two hops away through a region, so the relation cue and the clue combination
  * have to do the work.
  */
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Catalog, loadFiles } from "../src/catalog/index.js";
 import { Session } from "../src/pipeline/index.js";
+import { loadJsonlCatalog } from "./helpers/catalog-files.js";
 import { catalogLines, choose, commonNeighbourPairs, countries } from "./helpers/world-countries-catalog.js";
 
 const byCode = new Map(countries.map((c) => [c.cca3, c]));
@@ -31,13 +31,7 @@ describe("world-countries: which country borders both A and B", () => {
 
   beforeAll(() => {
     dir = mkdtempSync(join(tmpdir(), "tiepoint-wc-"));
-    const file = join(dir, "countries.jsonl");
-    writeFileSync(file, catalogLines().join("\n") + "\n");
-    const db = join(dir, "countries.db");
-    const cat = Catalog.open(db, { create: true });
-    loadFiles(cat, [file]);
-    cat.close();
-    session = Session.open({ db });
+    session = Session.open({ db: loadJsonlCatalog(dir, "countries", catalogLines()) });
   });
 
   afterAll(() => {

@@ -16,6 +16,20 @@ program
   .showHelpAfterError("(run tiepoint --help for usage)")
   .exitOverride();
 
+program.addHelpText(
+  "after",
+  `
+Examples (the bundled demo catalog is used when --db is left out):
+  tiepoint ask "Which vessel carried the instrument used by the project that Jessa Moll leads?"
+  tiepoint ask "Which vessels have Tolvane as their home port?" --json
+  tiepoint check data/demo-questions.tsv --format html --out report.html
+  tiepoint load people.csv links.nt --db my.db && tiepoint ask "Who leads Project X?" --db my.db
+  tiepoint show ves:caddrow      (an id or a label; a shared label lists the candidates)
+  tiepoint                      (on a terminal: the interactive screen)
+
+Exit status: 0 success, 1 bad input (one line naming the file and line or field), 2 bad usage.`,
+);
+
 registerCommands(program);
 
 try {

@@ -45,14 +45,14 @@ export interface EvidenceOptions {
   readonly hubLimit?: number;
   /** Most nodes one side's breadth-first search visits. @default 50000 */
   readonly nodeBudget?: number;
-  /** Most adjacency entries one side's breadth-first search scans. @default 20000 */
+  /** Most adjacency entries one side's breadth-first search scans. @default 10000 */
   readonly workBudget?: number;
-  /** Most nodes kept in the subgraph (besides the clues and answers). @default 1000 */
+  /** Most nodes kept in the subgraph (besides the clues and answers). @default 400 */
   readonly maxNodes?: number;
 }
 
 /** The defaults of {@link EvidenceOptions}. */
-export const DEFAULTS = { maxHops: 4, hubLimit: 2000, nodeBudget: 50000, workBudget: 20000, maxNodes: 1000 } as const;
+export const DEFAULTS = { maxHops: 4, hubLimit: 2000, nodeBudget: 50000, workBudget: 10000, maxNodes: 400 } as const;
 
 /** Attributes of an evidence edge. */
 export interface EvidenceEdge {

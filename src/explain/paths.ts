@@ -41,9 +41,9 @@ export interface PathOptions {
   readonly hubLimit?: number;
   /** Node budget of each breadth-first search. @default 50000 */
   readonly nodeBudget?: number;
-  /** Adjacency entries each side of the evidence search may scan. @default 20000 */
+  /** Adjacency entries each side of the evidence search may scan. @default 10000 */
   readonly workBudget?: number;
-  /** Most nodes of the evidence subgraph besides clues and answers. @default 1000 */
+  /** Most nodes of the evidence subgraph besides clues and answers. @default 400 */
   readonly maxNodes?: number;
   /** Adjacency entries one fallback search (full index) may scan. @default 100000 */
   readonly fallbackWork?: number;
@@ -58,8 +58,8 @@ export const DEFAULTS = {
   maxHops: 6,
   hubLimit: 2000,
   nodeBudget: 50000,
-  workBudget: 20000,
-  maxNodes: 1000,
+  workBudget: 10000,
+  maxNodes: 400,
   fallbackWork: 100000,
 } as const;
 

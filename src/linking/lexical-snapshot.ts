@@ -21,6 +21,7 @@ import { readFileSync, renameSync, writeFileSync, unlinkSync } from "node:fs";
 import type { Catalog } from "../catalog/index.js";
 import { stemToken, tokens } from "../catalog/index.js";
 import { isStopWord } from "./stopwords.js";
+import { sortedIndexOf } from "./sorted-search.js";
 
 /** Format tag written at the start of the snapshot file. */
 const MAGIC = "tiepoint-link-3";
@@ -36,20 +37,6 @@ export function fnv1a(s: string): number {
     h = Math.imul(h, 0x01000193);
   }
   return (h | 1) >>> 0; // unsigned, never 0 (0 marks an empty slot)
-}
-
-/** Index of `x` in a sorted (UTF-16 order) array, or -1: binary search, so loading needs no map. */
-function sortedIndex(list: readonly string[], x: string): number {
-  let lo = 0;
-  let hi = list.length - 1;
-  while (lo <= hi) {
-    const mid = (lo + hi) >> 1;
-    const v = list[mid]!;
-    if (v === x) return mid;
-    if (v < x) lo = mid + 1;
-    else hi = mid - 1;
-  }
-  return -1;
 }
 
 /** Open-addressing hash set of 32-bit hashes (linear probing). */
@@ -151,7 +138,7 @@ export class LexicalSnapshot {
 
   /** Id of an alias token in the vocabulary, or -1. */
   tokenId(token: string): number {
-    return sortedIndex(this.vocab, token);
+    return sortedIndexOf(this.vocab, token);
   }
 
   /** Entities whose label or alias contains alias token id `t` (sorted nums). */
@@ -161,7 +148,7 @@ export class LexicalSnapshot {
 
   /** Document frequency of a context term (stem), 0 when unseen. */
   documentFrequency(term: string): number {
-    const i = sortedIndex(this.terms, term);
+    const i = sortedIndexOf(this.terms, term);
     return i < 0 ? 0 : this.df[i]!;
   }
 

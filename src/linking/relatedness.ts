@@ -8,11 +8,12 @@
  * link sets (the paper uses incoming Wikipedia links), and counts a direct edge between a and b
  * as full relatedness (one hop), so 1- and 2-hop connections both support each other.
  */
+import { sortedIndexOf } from "./sorted-search.js";
 
 /** Relatedness in [0, 1]; `a`, `b` sorted neighbour nums, `n` the number of entities. */
 export function milneWitten(aNum: number, a: readonly number[], bNum: number, b: readonly number[], n: number): number {
   if (aNum === bNum) return 1;
-  if (binaryHas(a, bNum) || binaryHas(b, aNum)) return 1;
+  if (sortedIndexOf(a, bNum) >= 0 || sortedIndexOf(b, aNum) >= 0) return 1;
   if (a.length === 0 || b.length === 0) return 0;
   let common = 0;
   let i = 0;
@@ -32,17 +33,4 @@ export function milneWitten(aNum: number, a: readonly number[], bNum: number, b:
   if (denom <= 0) return 1;
   const r = 1 - (Math.log(big) - Math.log(common)) / denom;
   return r < 0 ? 0 : r > 1 ? 1 : r;
-}
-
-function binaryHas(list: readonly number[], x: number): boolean {
-  let lo = 0;
-  let hi = list.length - 1;
-  while (lo <= hi) {
-    const mid = (lo + hi) >> 1;
-    const v = list[mid]!;
-    if (v === x) return true;
-    if (v < x) lo = mid + 1;
-    else hi = mid - 1;
-  }
-  return false;
 }
