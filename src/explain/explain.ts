@@ -248,16 +248,23 @@ export function explain<A extends ExplainAnalysis>(
     const ap = byNode.get(node);
     return ap ? ap.byClue.map((ps) => (ps[0] ? ps[0].steps.every((st) => cued.has(st.rel)) : false)).filter((_, i) => i !== skip) : undefined;
   };
-  const verdictCandidates = (cands: ExplainRanked["candidates"], skip = -1): VerdictCandidate[] =>
+  // ids and labels are read from the catalog only for the candidates the verdict names
+  // (top, rivals, tied ones): up to 200 candidates per ranking would be one row read each
+  const verdictCandidates = (cands: ExplainRanked["candidates"], skip = -1, withPaths = true): VerdictCandidate[] =>
     cands.map((c) => {
-      const r = names.ref(c.node);
-      const reached = reachedOf(c.node, skip);
-      const hops = hopsOf(c.node, skip);
-      const cuedPaths = cuedOf(c.node, skip);
+      let r: EntityRef | undefined;
+      const name = (): EntityRef => (r ??= names.ref(c.node));
+      const reached = withPaths ? reachedOf(c.node, skip) : undefined;
+      const hops = withPaths ? hopsOf(c.node, skip) : undefined;
+      const cuedPaths = withPaths ? cuedOf(c.node, skip) : undefined;
       return {
         node: c.node,
-        id: r.id,
-        label: r.label,
+        get id(): string {
+          return name().id;
+        },
+        get label(): string {
+          return name().label;
+        },
         score: c.score,
         covered: c.covered,
         ...(reached ? { reached } : {}),
@@ -285,7 +292,7 @@ export function explain<A extends ExplainAnalysis>(
       const verdictWithout = decideVerdict(
         {
           clues: clues.filter((_, j) => j !== i).map((c) => c.label),
-          candidates: same ? verdictCandidates(without.candidates, i) : verdictCandidates(without.candidates).map(({ reached: _r, hops: _h, cued: _c, ...c }) => c),
+          candidates: same ? verdictCandidates(without.candidates, i) : verdictCandidates(without.candidates, -1, false),
           equivalent: same ? intersect(patterns, i) : null,
           maxHops,
         },

@@ -128,7 +128,15 @@ export class Session {
       link === linked ? [] : [`${linked.mentions.length} names were linked; only the ${LIMITS.maxMentions} most confident are used as clues (limit: README "Failure modes")`];
     const t1 = performance.now();
     // conditions (comparisons, superlatives, exclusions, counts): src/analysis/conditions.ts
-    const cond = detectConditions(analyze(question, link, this.model), this.model, this.attributes());
+    // the attribute vocabulary (a scan of every literal) is read only when the condition
+    // detector reaches a quantity or dimension word, not for every question's first ask
+    const session = this;
+    const lazyAttributes: AttributeModel = {
+      get attributes() {
+        return session.attributes().attributes;
+      },
+    };
+    const cond = detectConditions(analyze(question, link, this.model), this.model, lazyAttributes);
     const analysis = cond.analysis;
     const t2 = performance.now();
     const lookup = { numbers: (e: number, p: number) => this.catalog.attributeNumbers(e, p) };
