@@ -64,7 +64,7 @@ export function renderAskText(r: AskResult, options: AskTextOptions = {}): strin
     const lw = Math.min(40, Math.max(...r.answers.map((a) => a.label.length)));
     r.answers.forEach((a, i) => {
       const types = a.types.length > 0 ? `  (${a.types.join(", ")})` : "";
-      out.push(`  ${String(i + 1).padStart(w)}. ${a.label.padEnd(lw)}  ${a.score.toFixed(4)}  [${a.id}]${types}`);
+      out.push(`  ${String(i + 1).padStart(w)}. ${a.label.padEnd(lw)}  ${formatScore(a.score)}  [${a.id}]${types}`);
       for (const p of a.paths.slice(0, options.paths ?? ASK_TEXT_DEFAULTS.paths)) out.push(`  ${" ".repeat(w)}    via ${pathText(p)}`);
       for (const st of a.values ?? []) out.push(`  ${" ".repeat(w)}    ${st.satisfied ? "meets" : "fails"} ${st.text}`);
     });
@@ -78,4 +78,10 @@ export function renderAskText(r: AskResult, options: AskTextOptions = {}): strin
   out.push("");
   out.push(r.disclaimer ?? DISCLAIMER);
   return out.join("\n") + "\n";
+}
+
+/** A score for people: four decimals, or two significant digits in scientific form when it would print as 0.0000. */
+function formatScore(x: number): string {
+  if (x !== 0 && Math.abs(x) < 0.00005) return x.toExponential(1);
+  return x.toFixed(4);
 }
