@@ -177,9 +177,15 @@ export function evidenceSubgraph(
     if (a >= 0 && dc.get(x) + a <= o.maxHops) inner.push(x);
   }
   if (inner.length > o.maxNodes) {
-    const hops = (x: number) => dc.get(x) + da.get(x);
-    inner.sort((x, y) => hops(x) - hops(y) || x - y);
-    inner = inner.slice(0, o.maxNodes);
+    // fewest hops first, then lowest num: one packed key per node (hops · 2^31 + num, exact
+    // in a double) sorted numerically, instead of a comparator reading both distances
+    const packed = new Float64Array(inner.length);
+    for (let i = 0; i < inner.length; i++) {
+      const x = inner[i]!;
+      packed[i] = (dc.get(x) + da.get(x)) * 2147483648 + x;
+    }
+    packed.sort();
+    inner = Array.from(packed.subarray(0, o.maxNodes), (k) => k % 2147483648);
   }
   const nodes = [...endpoints, ...inner].sort((a, b) => a - b);
   const local = scratch(graph, 2);
@@ -199,30 +205,106 @@ export function evidenceSubgraph(
   // (priced by the walk's formula from the hub's row total); hub–hub arcs are left out
   const isHub = nodes.map((u) => graph.degree(u) > o.hubLimit);
   const hubAcc = new Map<number, Map<number, number>>();
-  const rows: Map<number, number>[] = nodes.map((u, ui) => {
+  // one non-hub row: its entries to kept nodes gathered in index order into flat scratch
+  // arrays, then grouped by (target, relation, direction) with a stable sort, so the
+  // probabilities of one key are summed in index order (as a per-row map would)
+  const eV: number[] = [];
+  const eRel: number[] = [];
+  const eInv: number[] = [];
+  const eP: number[] = [];
+  const order: number[] = [];
+  const rowOut: { heads: number[]; costs: number[]; rels: number[]; invs: number[] }[] = [];
+  const byEntry = (a: number, b: number): number => eV[a]! - eV[b]! || eRel[a]! - eRel[b]! || eInv[a]! - eInv[b]! || a - b;
+  nodes.forEach((u, ui) => {
     if (isHub[ui]) {
-      const mine = hubAcc.get(ui) ?? new Map<number, number>();
-      hubAcc.set(ui, mine);
-      return mine;
+      if (!hubAcc.has(ui)) hubAcc.set(ui, new Map<number, number>());
+      return;
     }
-    const acc = new Map<number, number>();
+    eV.length = 0;
+    eRel.length = 0;
+    eInv.length = 0;
+    eP.length = 0;
     cost.forEachProbability(u, (v, rel, inverse, p) => {
       const vl = local.get(v);
       if (vl < 0 || v === u) return;
-      const k = (vl * 1048576 + rel) * 2 + (inverse ? 1 : 0);
-      acc.set(k, (acc.get(k) ?? 0) + p);
+      eV.push(vl);
+      eRel.push(rel);
+      eInv.push(inverse ? 1 : 0);
+      eP.push(p);
       if (isHub[vl]) {
-        const back = hubAcc.get(vl) ?? new Map<number, number>();
-        hubAcc.set(vl, back);
+        let back = hubAcc.get(vl);
+        if (back === undefined) {
+          back = new Map<number, number>();
+          hubAcc.set(vl, back);
+        }
         const kb = (ui * 1048576 + rel) * 2 + (inverse ? 0 : 1);
         back.set(kb, (back.get(kb) ?? 0) + cost.entryProbability(v, u, rel));
       }
     });
-    return acc;
+    const out = { heads: [] as number[], costs: [] as number[], rels: [] as number[], invs: [] as number[] };
+    rowOut[ui] = out;
+    const m = eV.length;
+    if (m === 0) return;
+    order.length = m;
+    for (let i = 0; i < m; i++) order[i] = i;
+    order.sort(byEntry);
+    let bestV = -1;
+    let bestCost = 0;
+    let bestRel = 0;
+    let bestInv = 0;
+    for (let i = 0; i < m; ) {
+      const first = order[i]!;
+      const vl = eV[first]!;
+      const rel = eRel[first]!;
+      const inv = eInv[first]!;
+      let p = 0;
+      let j = i;
+      for (; j < m; j++) {
+        const x = order[j]!;
+        if (eV[x] !== vl || eRel[x] !== rel || eInv[x] !== inv) break;
+        p += eP[x]!;
+      }
+      i = j;
+      if (!(p > 0)) continue;
+      const c = hop - Math.log(p);
+      if (vl !== bestV) {
+        if (bestV >= 0) {
+          out.heads.push(bestV);
+          out.costs.push(bestCost);
+          out.rels.push(bestRel);
+          out.invs.push(bestInv);
+        }
+        bestV = vl;
+        bestCost = c;
+        bestRel = rel;
+        bestInv = inv;
+      } else if (c < bestCost) {
+        // same target: (rel, inverse) groups come in ascending order, so on equal cost the first one (smallest rel, then not inverse) stays
+        bestCost = c;
+        bestRel = rel;
+        bestInv = inv;
+      }
+    }
+    if (bestV >= 0) {
+      out.heads.push(bestV);
+      out.costs.push(bestCost);
+      out.rels.push(bestRel);
+      out.invs.push(bestInv);
+    }
   });
   nodes.forEach((_u, ui) => {
     offsets[ui] = heads.length;
-    const acc = isHub[ui] ? hubAcc.get(ui)! : rows[ui]!;
+    if (!isHub[ui]) {
+      const out = rowOut[ui]!;
+      for (let i = 0; i < out.heads.length; i++) {
+        heads.push(out.heads[i]!);
+        costs.push(out.costs[i]!);
+        rels.push(out.rels[i]!);
+        invs.push(out.invs[i]!);
+      }
+      return;
+    }
+    const acc = hubAcc.get(ui)!;
     const best = new Map<number, { cost: number; rel: number; inverse: boolean }>();
     for (const [k, p] of acc) {
       if (!(p > 0)) continue;

@@ -55,6 +55,13 @@ export interface ExplainOptions<A extends ExplainAnalysis = ExplainAnalysis> {
   readonly whyNot?: readonly number[];
   /** The restart seeds of a clue as the ranking used them (ranking's `clueSeeds`). @default the clue's entity alone */
   readonly seeds?: (clue: ExplainClue) => readonly ClueSeed[];
+  /**
+   * A cache of entity ids and labels by num that the caller keeps across questions (valid
+   * while the catalog does not change, e.g. for one read transaction). @default a fresh one per call
+   */
+  readonly refs?: Map<number, EntityRef>;
+  /** Like `refs`: a cache of how many entities carry a label or alias, by label. @default a fresh one per call */
+  readonly labelCounts?: Map<string, number>;
 }
 
 /** The defaults of {@link ExplainOptions}. */
@@ -79,12 +86,18 @@ const relationCache = new WeakMap<Catalog, Map<number, EntityRef & { readonly al
 
 /** Entity and relation names from the catalog, cached per call (relations per catalog). */
 class Names implements FactLookup {
-  private readonly refs = new Map<number, EntityRef>();
+  private readonly refs: Map<number, EntityRef>;
   private readonly rels: Map<number, EntityRef & { readonly aliases: readonly string[] }>;
-  private readonly counts = new Map<string, number>();
+  private readonly counts: Map<string, number>;
   readonly used = new Map<string, string>();
 
-  constructor(private readonly cat: Catalog) {
+  constructor(
+    private readonly cat: Catalog,
+    refs?: Map<number, EntityRef>,
+    counts?: Map<string, number>,
+  ) {
+    this.refs = refs ?? new Map<number, EntityRef>();
+    this.counts = counts ?? new Map<string, number>();
     let rels = relationCache.get(cat);
     if (!rels) {
       rels = new Map(cat.predicates().map((p) => [p.num, { id: p.id, label: p.label, aliases: p.aliases }]));
@@ -206,7 +219,7 @@ export function explain<A extends ExplainAnalysis>(
   const rows = options.rows ?? DEFAULTS.rows;
   if (!Number.isInteger(top) || top < 1) throw new RangeError(`explain: top must be a positive integer, got ${top}`);
   if (!Number.isInteger(rows) || rows < 1) throw new RangeError(`explain: rows must be a positive integer, got ${rows}`);
-  const names = new Names(catalog);
+  const names = new Names(catalog, options.refs, options.labelCounts);
   const relationWeights = options.relationWeights ?? ranked.relationWeights;
   const walkOptions = {
     ...(relationWeights !== undefined ? { relationWeights } : {}),

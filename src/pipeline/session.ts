@@ -78,6 +78,8 @@ export class Session {
   readonly model: QuestionModel;
   private readonly rankOptions: RankOptions;
   private readonly idCache = new Map<number, { id: string; label: string }>();
+  /** Entities per label (explain's suggested clues), kept like `idCache`. */
+  private readonly labelCounts = new Map<string, number>();
   private attributeModel?: AttributeModel;
 
   private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions) {
@@ -236,6 +238,9 @@ export class Session {
         return extra.rerankWith ? extra.rerankWith(r) : r;
       },
       whyNot: extra.whyNot ?? [],
+      // the session reads one committed catalog state (one read transaction), so ids and labels can be kept across questions
+      refs: this.idCache,
+      labelCounts: this.labelCounts,
       seeds: (clue) => clueSeeds(analysis, analysis.clues.find((c) => c.node === clue.node && c.mention === clue.mention) ?? analysis.clues[0]!, this.index, this.rankOptions),
     });
     return { answers: [...explanation.answers], verdict: explanation.verdict, explanation };
