@@ -9,7 +9,8 @@
  * [Reference]: Chung & Lu, "Connected components in random graphs with given expected
  * degree sequences", Annals of Combinatorics 6, 2002.
  */
-import { mulberry32Bench } from "./random.js";
+
+import { mulberry32 } from "../ranking/index.js";
 
 /** Defaults of {@link powerLawEdges}. */
 export const DEFAULTS = Object.freeze({ gamma: 2.3, relations: 24, seed: 42 });
@@ -27,7 +28,7 @@ export interface GeneratedEdges {
 export function powerLawEdges(nodes: number, edges: number, options: { gamma?: number; relations?: number; seed?: number } = {}): GeneratedEdges {
   const gamma = options.gamma ?? DEFAULTS.gamma;
   const relations = options.relations ?? DEFAULTS.relations;
-  const random = mulberry32Bench(options.seed ?? DEFAULTS.seed);
+  const random = mulberry32(options.seed ?? DEFAULTS.seed);
   const expo = -1 / (gamma - 1);
   const cum = new Float64Array(nodes);
   let t = 0;

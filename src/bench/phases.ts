@@ -11,6 +11,7 @@ import { generateCatalog } from "../gen/index.js";
 import { parseQuestionFile, rankOfExpected, Session } from "../pipeline/index.js";
 import {
   clueSeeds,
+  mulberry32,
   pprFast,
   pprPower,
   readSnapshot,
@@ -24,7 +25,6 @@ import {
 } from "../ranking/index.js";
 import { IGRAPH_SCRIPT, findIgraph } from "./igraph.js";
 import { powerLawEdges } from "./graph.js";
-import { mulberry32Bench } from "./random.js";
 import { linkQuestion } from "../linking/index.js";
 import { analyze } from "../analysis/index.js";
 
@@ -343,7 +343,7 @@ export function phaseGraph(work: string, nodes: number, edges: number, queries: 
   list.length = 0;
   const alpha = RANK_DEFAULTS.alpha;
   const beta = TRANSITION_DEFAULTS.hubExponent;
-  const random = mulberry32Bench(17);
+  const random = mulberry32(17);
   const qs: { seeds: Seed[] }[] = [];
   while (qs.length < queries) {
     const u = 1 + Math.floor(random() * nodes);

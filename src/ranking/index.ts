@@ -3,6 +3,8 @@
  * matrix), personalized PageRank (exact, push, fast), and the clue combination.
  */
 export { RelationIndex } from "./relation-index.js";
+export { mulberry32 } from "./prng.js";
+export type { Random } from "./prng.js";
 export type { IndexProgress, IndexProgressFn } from "./relation-index.js";
 export { openIndex, snapshotPath, readSnapshot, writeSnapshot, SNAPSHOT } from "./snapshot.js";
 export type { OpenIndexOptions, SnapshotRead, SnapshotRejection } from "./snapshot.js";

@@ -3,6 +3,8 @@
  * moment is reached: after `ms` milliseconds and (when `walBytes` is given) once the
  * write-ahead log DB-wal has grown to that size, i.e. while SQLite is writing pages of the
  * uncommitted transaction (https://www.sqlite.org/wal.html). Used by the crash tests.
+ * `--no-prepare` keeps the process to the load itself: the snapshot building that `load`
+ * does after its commit would otherwise let a late kill land after the commit.
  */
 import { spawn } from "node:child_process";
 import { existsSync, statSync } from "node:fs";
@@ -19,7 +21,7 @@ export interface KilledLoad {
 /** Runs one load of `file` into `db` (in `cwd`, with `extra` arguments) and kills it at the moment `when`. */
 export function killLoadWhen(cwd: string, file: string, db: string, when: { readonly ms: number; readonly walBytes?: number }, extra: readonly string[] = []): Promise<KilledLoad> {
   return new Promise((done) => {
-    const child = spawn(process.execPath, [MAIN, "load", file, "--db", db, ...extra], { cwd });
+    const child = spawn(process.execPath, [MAIN, "load", file, "--db", db, "--no-prepare", ...extra], { cwd });
     let stderr = "";
     let walAtKill = -1;
     child.stderr.on("data", (d) => (stderr += String(d)));
