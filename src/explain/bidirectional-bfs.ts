@@ -48,6 +48,35 @@ export interface NumStep {
 
 /** The cheapest single step u → v (both directions of stored edges), or undefined. */
 export function cheapestStep(graph: WalkGraph, cost: PathCostModel, u: number, v: number): NumStep | undefined {
+  const walk = cost.flatWalk();
+  if (walk !== undefined && u >= 0 && u < graph.nodeCount) {
+    // one pass over u's row (a hub's row is long): the walk's probability per (relation,
+    // direction) of the entries to v, summed in index order as the cost model's row is
+    const { offsets, targets, links } = walk.rows;
+    const total = walk.rowTotal(u);
+    const keys: number[] = [];
+    const ps: number[] = [];
+    for (let e = offsets[u]!, end = offsets[u + 1]!; e < end; e++) {
+      if (targets[e] !== v) continue;
+      const l = links[e]!;
+      const p = total > 0 ? walk.weight(e) / total : 0;
+      const i = keys.indexOf(l);
+      if (i < 0) {
+        keys.push(l);
+        ps.push(p);
+      } else ps[i]! += p;
+    }
+    let found: NumStep | undefined;
+    for (let i = 0; i < keys.length; i++) {
+      const rel = keys[i]! >>> 1;
+      const inverse = (keys[i]! & 1) === 1;
+      const c = ps[i]! > 0 ? cost.hopCost - Math.log(ps[i]!) : Infinity;
+      if (found === undefined || c < found.cost || (c === found.cost && (rel < found.rel || (rel === found.rel && !inverse && found.inverse)))) {
+        found = { from: u, to: v, rel, inverse, cost: c };
+      }
+    }
+    return found;
+  }
   let best: NumStep | undefined;
   graph.forEach(u, (w, rel, inverse) => {
     if (w !== v) return;

@@ -33,7 +33,7 @@
  */
 import { DirectedGraph } from "graphology";
 import type { ArcGraph } from "./dijkstra.js";
-import type { PathCostModel } from "./path-cost.js";
+import type { FlatRows, PathCostModel } from "./path-cost.js";
 import { scratch, type Stamped } from "./scratch.js";
 import type { WalkGraph } from "./types.js";
 
@@ -114,7 +114,7 @@ export class EvidenceSubgraph implements ArcGraph {
  * always expanded in full (whatever the budgets, so every 1-hop path is kept), hubs (degree >
  * hubLimit) otherwise not; the budgets bound everything beyond the starts' neighbours. Returns the visited nodes in BFS order.
  */
-function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubLimit: number, nodeBudget: number, workBudget: number, dist: Stamped): number[] {
+function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubLimit: number, nodeBudget: number, workBudget: number, dist: Stamped, flat?: FlatRows): number[] {
   const seen: number[] = [];
   for (const s of starts) {
     if (s < 0 || s >= graph.nodeCount || dist.has(s)) continue;
@@ -131,6 +131,18 @@ function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubL
       const deg = graph.degree(u);
       if (d > 1 && deg > hubLimit) continue;
       work += deg;
+      if (flat !== undefined) {
+        // the same entries in the same order as graph.forEach, read from the flat arrays
+        const targets = flat.targets;
+        for (let e = flat.offsets[u]!, end = flat.offsets[u + 1]!; e < end; e++) {
+          const v = targets[e]!;
+          if (!dist.has(v) && (d === 1 || seen.length < nodeBudget)) {
+            dist.set(v, d);
+            seen.push(v);
+          }
+        }
+        continue;
+      }
       graph.forEach(u, (v) => {
         if (!dist.has(v) && (d === 1 || seen.length < nodeBudget)) {
           dist.set(v, d);
@@ -165,10 +177,13 @@ export function evidenceSubgraph(
   const o = { ...DEFAULTS, ...options };
   if (!Number.isInteger(o.maxHops) || o.maxHops < 1) throw new RangeError(`explain/evidence-graph: maxHops must be a positive integer, got ${o.maxHops}`);
   const clueNodes = [...new Set(clues.flatMap((c) => c.map((s) => s.node)))];
+  // ranking's walk offers its flat rows: the loops below read them directly (same entries,
+  // same order, same probabilities as forEach / forEachProbability)
+  const walk = cost.flatWalk();
   const dc = scratch(graph, 0);
-  const fromClues = ball(graph, clueNodes, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, dc);
+  const fromClues = ball(graph, clueNodes, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, dc, walk?.rows);
   const da = scratch(graph, 1);
-  ball(graph, answers, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, da);
+  ball(graph, answers, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, da, walk?.rows);
   const endpoints = new Set([...clueNodes, ...answers].filter((x) => x >= 0 && x < graph.nodeCount));
   let inner: number[] = [];
   for (const x of fromClues) {
@@ -224,9 +239,7 @@ export function evidenceSubgraph(
     eRel.length = 0;
     eInv.length = 0;
     eP.length = 0;
-    cost.forEachProbability(u, (v, rel, inverse, p) => {
-      const vl = local.get(v);
-      if (vl < 0 || v === u) return;
+    const keep = (v: number, vl: number, rel: number, inverse: boolean, p: number): void => {
       eV.push(vl);
       eRel.push(rel);
       eInv.push(inverse ? 1 : 0);
@@ -240,7 +253,25 @@ export function evidenceSubgraph(
         const kb = (ui * 1048576 + rel) * 2 + (inverse ? 0 : 1);
         back.set(kb, (back.get(kb) ?? 0) + cost.entryProbability(v, u, rel));
       }
-    });
+    };
+    if (walk !== undefined) {
+      // most entries lead out of the subgraph: test membership first, price only the kept ones
+      const { offsets: off, targets, links } = walk.rows;
+      const total = walk.rowTotal(u);
+      for (let e = off[u]!, end = off[u + 1]!; e < end; e++) {
+        const v = targets[e]!;
+        const vl = local.get(v);
+        if (vl < 0 || v === u) continue;
+        const l = links[e]!;
+        keep(v, vl, l >>> 1, (l & 1) === 1, total > 0 ? walk.weight(e) / total : 0);
+      }
+    } else {
+      cost.forEachProbability(u, (v, rel, inverse, p) => {
+        const vl = local.get(v);
+        if (vl < 0 || v === u) return;
+        keep(v, vl, rel, inverse, p);
+      });
+    }
     const out = { heads: [] as number[], costs: [] as number[], rels: [] as number[], invs: [] as number[] };
     rowOut[ui] = out;
     const m = eV.length;

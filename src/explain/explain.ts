@@ -164,7 +164,7 @@ function toAnswerPath(p: NumPath, names: Names): AnswerPath {
  * best and alternative paths, the one with the most steps over cued relations, then the
  * fewest uncued steps, then the cheapest). Null: too many matches.
  */
-function patternSets(index: RelationIndex, clueCount: number, top: AnswerPaths | undefined, cued: ReadonlySet<number>): (Set<number> | null | undefined)[] {
+function patternSets(index: RelationIndex, cost: PathCostModel, clueCount: number, top: AnswerPaths | undefined, cued: ReadonlySet<number>): (Set<number> | null | undefined)[] {
   const rate = (p: NumPath): [number, number, number] => {
     const c = p.steps.filter((s) => cued.has(s.rel)).length;
     return [c, p.steps.length - c, p.cost];
@@ -182,7 +182,8 @@ function patternSets(index: RelationIndex, clueCount: number, top: AnswerPaths |
       if (a1 > b1 || (a1 === b1 && (a2 < b2 || (a2 === b2 && a3 < b3)))) best = p;
     }
     if (!best) return undefined;
-    const match = (p: NumPath) => matchPattern(index, p.start, p.steps.map((s) => ({ rel: s.rel, inverse: s.inverse })));
+    const rows = cost.flatWalk()?.rows;
+    const match = (p: NumPath) => matchPattern(index, p.start, p.steps.map((s) => ({ rel: s.rel, inverse: s.inverse })), rows !== undefined ? { rows } : {});
     const cheapest = paths[0]!;
     const a = match(cheapest);
     if (best === cheapest || a === null) return a;
@@ -287,7 +288,7 @@ export function explain<A extends ExplainAnalysis>(
       };
     });
   const topPaths = shown.length > 0 ? pathSet.answers[0] : undefined;
-  const patterns = patternSets(index, clues.length, topPaths, cued);
+  const patterns = patternSets(index, cost, clues.length, topPaths, cued);
   const verdict = decideVerdict(
     { clues: clues.map((c) => c.label), candidates: verdictCandidates(ranked.candidates), equivalent: intersect(patterns), maxHops },
     options.verdict,

@@ -31,6 +31,24 @@ export interface TransitionLike {
   forEachTransition(u: number, fn: (v: number, rel: number, inverse: boolean, probability: number) => void): void;
   /** W(u), the row's total weight (0: dangling); lets one entry be priced without reading the row. */
   rowTotal?(u: number): number;
+  /** The adjacency as flat arrays (ranking's `TransitionRows`), for the hot loops. */
+  readonly rows?: FlatRows;
+  /** w(e) of adjacency entry e: P(u → targets[e] via e) = weight(e) / rowTotal(u). */
+  weight?(e: number): number;
+}
+
+/** Flat adjacency arrays: row u is entries offsets[u] … offsets[u + 1] − 1; links[e] = relation · 2 + inverse. */
+export interface FlatRows {
+  readonly offsets: ArrayLike<number>;
+  readonly targets: ArrayLike<number>;
+  readonly links: ArrayLike<number>;
+}
+
+/** The walk as flat arrays plus its weights: what the evidence subgraph's loops read. */
+export interface FlatWalk {
+  readonly rows: FlatRows;
+  weight(e: number): number;
+  rowTotal(u: number): number;
 }
 
 /** Options of {@link PathCostModel}; all optional. */
@@ -156,6 +174,18 @@ export class PathCostModel {
   stepCost(u: number, v: number, rel: number, inverse: boolean): number {
     const p = this.probability(u, v, rel, inverse);
     return p > 0 ? this.hop - Math.log(p) : Infinity;
+  }
+
+  /**
+   * The walk's flat rows and weights when the model prices steps with ranking's walk (which
+   * offers them), else undefined: loops over many entries read the arrays directly and
+   * price only the entries they keep. P(u → targets[e]) = weight(e) / rowTotal(u), exactly
+   * what {@link forEachProbability} reports.
+   */
+  flatWalk(): FlatWalk | undefined {
+    const t = this.transition;
+    if (t === undefined || t.rows === undefined || t.weight === undefined || t.rowTotal === undefined) return undefined;
+    return t as FlatWalk;
   }
 
   /** The price of one hop, −ln(1 − α). */

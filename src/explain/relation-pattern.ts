@@ -14,12 +14,16 @@
  * word, as in SPARQL 1.1 property paths (W3C Recommendation 2013, §9: sequence paths and
  * inverse paths `^p`); the frontier-by-frontier evaluation is common practice.
  */
+import type { FlatRows } from "./path-cost.js";
+import { scratch } from "./scratch.js";
 import type { WalkGraph } from "./types.js";
 
 /** Options of {@link matchPattern}; all optional. */
 export interface PatternOptions {
   /** Give up (return null) when a frontier grows beyond this many nodes. @default 100000 */
   readonly frontierLimit?: number;
+  /** The walk's flat rows (PathCostModel.flatWalk), read directly instead of through `graph.forEach`; same result. */
+  readonly rows?: FlatRows;
 }
 
 /** The defaults of {@link PatternOptions}. */
@@ -38,6 +42,32 @@ export interface PatternStep {
  */
 export function matchPattern(graph: WalkGraph, start: number, pattern: readonly PatternStep[], options: PatternOptions = {}): Set<number> | null {
   const limit = options.frontierLimit ?? DEFAULTS.frontierLimit;
+  const rows = options.rows;
+  if (rows !== undefined) {
+    // the same frontiers in the same order, kept in arrays with a stamped seen-mark per step
+    const { offsets, targets, links } = rows;
+    let front: number[] = start >= 0 && start < graph.nodeCount ? [start] : [];
+    for (const step of pattern) {
+      const want = step.rel * 2 + (step.inverse ? 1 : 0);
+      const seen = scratch(graph, 5);
+      const next: number[] = [];
+      for (const u of front) {
+        for (let e = offsets[u]!, end = offsets[u + 1]!; e < end; e++) {
+          if (links[e] !== want) continue;
+          const v = targets[e]!;
+          if (seen.has(v)) continue;
+          seen.set(v, 1);
+          next.push(v);
+        }
+        if (next.length > limit) return null;
+      }
+      front = next;
+      if (front.length === 0) break;
+    }
+    const out = new Set(front);
+    out.delete(start);
+    return out;
+  }
   let frontier = new Set<number>([start]);
   for (const step of pattern) {
     const next = new Set<number>();

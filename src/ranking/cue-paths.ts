@@ -23,7 +23,8 @@
  * the question names ("who supervised the leader of X": the supervisor, reached through
  * "leads" then "supervises", over the leader, reached through "leads" alone).
  */
-import type { RelationIndex } from "./relation-index.js";
+import { csrOf, type RelationIndex } from "./relation-index.js";
+import { stampedFor } from "./stamped.js";
 
 /** Options of {@link cueReach}; all optional. */
 export interface CuePathOptions {
@@ -57,59 +58,117 @@ export function cueReach(index: RelationIndex, source: number, cues: readonly nu
   const within = options.within;
   if (cues.length > MAX_CUES) throw new RangeError(`ranking/cue-paths: at most ${MAX_CUES} cued relations, got ${cues.length}`);
   if (!Number.isInteger(maxHops) || maxHops < 1) throw new RangeError(`ranking/cue-paths: maxHops must be a positive integer, got ${maxHops}`);
-  // per relation: [bits when walked forwards, bits when walked against the stored triple]
   const expect = options.expectInverse;
-  const bit = new Map<number, [number, number]>();
+  // per relation: the bits set when walked forwards, and when walked against the stored triple
+  const fwdBits = new Map<number, number>();
+  const invBits = new Map<number, number>();
   cues.forEach((r, i) => {
-    const b = bit.get(r) ?? [0, 0];
     const good = 1 << (2 * i);
     const other = 1 << (2 * i + 1);
     const e = expect?.[i];
-    b[0] |= e === true ? other : good;
-    b[1] |= e === false ? other : good;
-    bit.set(r, b);
+    fwdBits.set(r, (fwdBits.get(r) ?? 0) | (e === true ? other : good));
+    invBits.set(r, (invBits.get(r) ?? 0) | (e === false ? other : good));
   });
-  // per node: non-dominated masks, each with the node it was entered from (−2: from two
-  // or more different nodes, so no step out of it is a step straight back)
-  const states = new Map<number, { mask: number; prev: number }[]>();
+  const relBits = new Int32Array(2 * Math.max(index.relationCount, 1));
+  for (const [r, b] of fwdBits) if (r >= 0 && r < index.relationCount) relBits[2 * r] = b;
+  for (const [r, b] of invBits) if (r >= 0 && r < index.relationCount) relBits[2 * r + 1] = b;
+  // per node: its non-dominated masks as a linked list of entries (flat arrays), each with
+  // the node it was entered from (−2: from two or more different nodes, so no step out of
+  // it is a step straight back); the node → first entry map is a stamped scratch array
+  // a source outside the index reaches nothing but itself
+  if (!(Number.isInteger(source) && source >= 0 && source < index.nodeCount)) return new Map([[source, [0]]]);
+  const head = stampedFor(index, "cue-paths/heads", index.nodeCount);
+  const st = new StateList();
+  const order: number[] = [];
   const MULTI = -2;
   /** Records state (v, m) entered from u; returns true when it must be expanded. */
   const enter = (v: number, m: number, u: number): boolean => {
-    const list = states.get(v);
-    if (!list) {
-      states.set(v, [{ mask: m, prev: u }]);
+    const h = head.get(v);
+    if (h < 0) {
+      head.set(v, st.add(m, u, -1));
+      order.push(v);
       return true;
     }
-    for (const e of list) {
-      if ((e.mask & m) !== m) continue;
-      if (e.mask !== m || e.prev === u || e.prev === MULTI) return false;
+    for (let e = h; e >= 0; e = st.next[e]!) {
+      const em = st.mask[e]!;
+      if ((em & m) !== m) continue;
+      const ep = st.prev[e]!;
+      if (em !== m || ep === u || ep === MULTI) return false;
       // the same relations, entered from a second node: the step back to the first is now allowed
-      e.prev = MULTI;
+      st.prev[e] = MULTI;
       return true;
     }
-    const kept = list.filter((e) => (e.mask & m) !== e.mask);
-    kept.push({ mask: m, prev: u });
-    states.set(v, kept);
+    // drop the entries m dominates (keeping the others' order), then append (m, u)
+    let first = -1;
+    let last = -1;
+    for (let e = h; e >= 0; e = st.next[e]!) {
+      const em = st.mask[e]!;
+      if ((em & m) === em) continue;
+      if (last < 0) first = e;
+      else st.next[last] = e;
+      last = e;
+    }
+    const added = st.add(m, u, -1);
+    if (last < 0) first = added;
+    else st.next[last] = added;
+    head.set(v, first);
     return true;
   };
-  const reached = new Map<number, number[]>();
   enter(source, 0, -1);
-  let frontier: [number, number, number][] = [[source, 0, -1]];
+  // the frontier as flat (node, mask, previous node) triples
+  let frontier: number[] = [source, 0, -1];
   let visits = 0;
+  const { offsets, targets, links } = csrOf(index);
   for (let hop = 1; hop <= maxHops && frontier.length > 0; hop++) {
-    const next: [number, number, number][] = [];
-    for (const [u, m, prev] of frontier) {
-      visits += index.degree(u);
+    const next: number[] = [];
+    for (let f = 0; f < frontier.length; f += 3) {
+      const u = frontier[f]!;
+      const m = frontier[f + 1]!;
+      const prev = frontier[f + 2]!;
+      const startE = offsets[u]!;
+      const endE = offsets[u + 1]!;
+      visits += endE - startE;
       if (visits > maxVisits) return null;
-      index.forEach(u, (v, rel, inverse) => {
-        if (v === prev || (within !== undefined && !within(v))) return;
-        const b = bit.get(rel);
-        const m2 = b === undefined ? m : m | b[inverse ? 1 : 0];
-        if (enter(v, m2, u)) next.push([v, m2, u]);
-      });
+      for (let e = startE; e < endE; e++) {
+        const v = targets[e]!;
+        if (v === prev || (within !== undefined && !within(v))) continue;
+        const l = links[e]!;
+        const m2 = m | relBits[2 * (l >>> 1) + (l & 1)]!;
+        if (enter(v, m2, u)) next.push(v, m2, u);
+      }
     }
     frontier = next;
   }
-  for (const [v, list] of states) reached.set(v, list.map((e) => e.mask));
+  const reached = new Map<number, number[]>();
+  for (const v of order) {
+    const masks: number[] = [];
+    for (let e = head.get(v); e >= 0; e = st.next[e]!) masks.push(st.mask[e]!);
+    reached.set(v, masks);
+  }
   return reached;
+}
+
+/** Growable flat storage of (mask, previous node, next entry) state entries. */
+class StateList {
+  mask = new Int32Array(1024);
+  prev = new Int32Array(1024);
+  next = new Int32Array(1024);
+  private count = 0;
+  add(mask: number, prev: number, next: number): number {
+    if (this.count === this.mask.length) {
+      const grow = (a: Int32Array) => {
+        const b = new Int32Array(a.length * 2);
+        b.set(a);
+        return b;
+      };
+      this.mask = grow(this.mask);
+      this.prev = grow(this.prev);
+      this.next = grow(this.next);
+    }
+    const e = this.count++;
+    this.mask[e] = mask;
+    this.prev[e] = prev;
+    this.next[e] = next;
+    return e;
+  }
 }

@@ -4,12 +4,13 @@
  */
 export { RelationIndex } from "./relation-index.js";
 export { mulberry32 } from "./prng.js";
+export { Stamped, stampedFor } from "./stamped.js";
 export type { Random } from "./prng.js";
 export type { IndexProgress, IndexProgressFn } from "./relation-index.js";
 export { openIndex, snapshotPath, readSnapshot, writeSnapshot, SNAPSHOT } from "./snapshot.js";
 export type { OpenIndexOptions, SnapshotRead, SnapshotRejection } from "./snapshot.js";
 export { transition, DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
-export type { Transition, TransitionOptions } from "./transition.js";
+export type { Transition, TransitionOptions, TransitionRows } from "./transition.js";
 export { PPR_DEFAULTS } from "./ppr-options.js";
 export type { Seed, PprOptions, SparseScores } from "./ppr-options.js";
 export { pprPower, DEFAULTS as POWER_DEFAULTS } from "./ppr-power.js";

@@ -100,56 +100,61 @@ export function pprFast(index: RelationIndex, seeds: readonly Seed[], options: F
     const walks = options.walks ?? (push.complete ? 0 : DEFAULTS.walksWhenCut);
     const { p, q } = ws;
     const mu = walk.measure;
-    // the residual's nodes in first-touch order (deterministic), duplicates skipped
-    const residualNodes = new Int32Array(ws.touchedCount);
-    let rn = 0;
     let residualSum = 0;
-    for (let i = 0; i < ws.touchedCount; i++) {
-      const v = ws.touched[i]!;
-      if (ws.mark[v] === 1 || q[v] === 0) continue;
-      ws.mark[v] = 1;
-      residualNodes[rn++] = v;
-      residualSum += q[v]! * mu[v]!;
-    }
-    for (let i = 0; i < rn; i++) ws.mark[residualNodes[i]!] = 0;
     let steps = 0;
     let done = 0;
-    if (walks > 0 && residualSum > 0) {
-      const random = mulberry32(randomSeed);
-      const share = residualSum / walks;
-      let next = random() * share; // systematic sampling grid: next, next + share, …
-      let acc = 0;
-      const ends = new Int32Array(walks);
-      for (let i = 0; i < rn && done < walks; i++) {
-        const u = residualNodes[i]!;
-        const ru = q[u]! * mu[u]!;
-        if (ru === 0) continue;
-        acc += ru;
-        while (next < acc && done < walks) {
-          next += share;
-          let cur = u;
-          while (random() >= alpha) {
-            const nx = walk.step(cur, random);
-            steps++;
-            if (nx >= 0) {
-              cur = nx;
-            } else {
-              let x = random();
-              let k = 0;
-              while (k < s.nodes.length - 1 && x >= s.weights[k]!) x -= s.weights[k++]!;
-              cur = s.nodes[k]!;
+    if (walks > 0) {
+      // the residual's nodes in first-touch order (deterministic), duplicates skipped
+      const residualNodes = new Int32Array(ws.touchedCount);
+      let rn = 0;
+      for (let i = 0; i < ws.touchedCount; i++) {
+        const v = ws.touched[i]!;
+        if (ws.mark[v] === 1 || q[v] === 0) continue;
+        ws.mark[v] = 1;
+        residualNodes[rn++] = v;
+        residualSum += q[v]! * mu[v]!;
+      }
+      for (let i = 0; i < rn; i++) ws.mark[residualNodes[i]!] = 0;
+      if (residualSum > 0) {
+        const random = mulberry32(randomSeed);
+        const share = residualSum / walks;
+        let next = random() * share; // systematic sampling grid: next, next + share, …
+        let acc = 0;
+        const ends = new Int32Array(walks);
+        for (let i = 0; i < rn && done < walks; i++) {
+          const u = residualNodes[i]!;
+          const ru = q[u]! * mu[u]!;
+          if (ru === 0) continue;
+          acc += ru;
+          while (next < acc && done < walks) {
+            next += share;
+            let cur = u;
+            while (random() >= alpha) {
+              const nx = walk.step(cur, random);
+              steps++;
+              if (nx >= 0) {
+                cur = nx;
+              } else {
+                let x = random();
+                let k = 0;
+                while (k < s.nodes.length - 1 && x >= s.weights[k]!) x -= s.weights[k++]!;
+                cur = s.nodes[k]!;
+              }
             }
+            ends[done++] = cur;
           }
-          ends[done++] = cur;
+        }
+        for (let i = 0; i < done; i++) {
+          const v = ends[i]!;
+          if (p[v] === 0 && q[v] === 0) ws.touch(v);
+          p[v]! += share;
         }
       }
-      for (let i = 0; i < done; i++) {
-        const v = ends[i]!;
-        if (p[v] === 0 && q[v] === 0) ws.touch(v);
-        p[v]! += share;
-      }
     }
-    const out = collect(ws.distinctTouched(), p);
+    const distinct = ws.distinctTouched();
+    // push only: the residual left (a statistic) summed over the distinct touched nodes
+    if (walks === 0) for (let i = 0; i < distinct.length; i++) residualSum += q[distinct[i]!]! * mu[distinct[i]!]!;
+    const out = collect(distinct, p);
     return {
       nodes: out.nodes,
       scores: out.scores,

@@ -48,6 +48,7 @@ import type { Seed, SparseScores } from "./ppr-options.js";
 import { pprFast, type FastOptions } from "./ppr-fast.js";
 import { cueReach, MAX_CUES, type CuePathOptions } from "./cue-paths.js";
 import type { RelationIndex } from "./relation-index.js";
+import { stampedFor } from "./stamped.js";
 import { DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
 
 /** Options of {@link rank}; all optional. */
@@ -223,37 +224,58 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   // when a walk touches many nodes.
   const floor = options.floor ?? COMBINE_DEFAULTS.floor;
   const prune = options.prune ?? DEFAULTS.prune;
-  const pool = new Map<number, Float64Array>();
+  // the pool lives in flat arrays (a node's slot, then one row of clue scores per slot), not
+  // in a map of per-node arrays: a walk reaches thousands of nodes per clue
+  const slots = stampedFor(index, "rank/pool", index.nodeCount);
+  const C = clues.length;
+  const seedList = [...seedNodes];
+  const isSeed = (v: number): boolean => {
+    for (let k = 0; k < seedList.length; k++) if (seedList[k] === v) return true;
+    return false;
+  };
+  const poolNodes: number[] = [];
+  let rows = new Float64Array(256 * C);
   perClue.forEach((sp, c) => {
     let top = 0;
-    for (let i = 0; i < sp.scores.length; i++) if (sp.scores[i]! > top && !seedNodes.has(sp.nodes[i]!)) top = sp.scores[i]!;
+    for (let i = 0; i < sp.scores.length; i++) if (sp.scores[i]! > top && !isSeed(sp.nodes[i]!)) top = sp.scores[i]!;
     const cut = top * floor * prune;
+    const rn = [...restart[c]!.keys()];
+    const rw = rn.map((x) => restart[c]!.get(x)!);
     for (let i = 0; i < sp.nodes.length; i++) {
       const v = sp.nodes[i]!;
-      const s = sp.scores[i]! - (restart[c]!.get(v) ?? 0);
-      if (!(s > cut) || seedNodes.has(v)) continue;
-      let row = pool.get(v);
-      if (!row) {
-        row = new Float64Array(clues.length);
-        pool.set(v, row);
+      let s = sp.scores[i]!;
+      for (let k = 0; k < rn.length; k++) if (rn[k] === v) s -= rw[k]!;
+      if (!(s > cut) || isSeed(v)) continue;
+      let slot = slots.get(v);
+      if (slot < 0) {
+        slot = poolNodes.length;
+        slots.set(v, slot);
+        poolNodes.push(v);
+        if ((slot + 1) * C > rows.length) {
+          const grown = new Float64Array(rows.length * 2);
+          grown.set(rows);
+          rows = grown;
+        }
       }
-      row[c] = s;
+      rows[slot * C + c] = s;
     }
   });
+  const rowOf = (slot: number): Float64Array => rows.subarray(slot * C, slot * C + C);
 
   const gamma = options.endCompensation ?? (options.hubExponent ?? TRANSITION_DEFAULTS.hubExponent) / 2;
   if (gamma !== 0) {
-    for (const [v, row] of pool) {
-      const f = Math.pow(Math.max(index.degree(v), 1), gamma);
-      for (let c = 0; c < row.length; c++) row[c]! *= f;
+    for (let slot = 0; slot < poolNodes.length; slot++) {
+      const f = Math.pow(Math.max(index.degree(poolNodes[slot]!), 1), gamma);
+      for (let c = 0; c < C; c++) rows[slot * C + c]! *= f;
     }
   }
 
   const typeSet = new Set(analysis.answerTypes.map((t) => t.num));
-  let eligible = [...pool.keys()];
+  // eligible candidates as pool slots, in pool order
+  let eligible: number[] = poolNodes.map((_, slot) => slot);
   let typeFiltered = false;
   if (typeSet.size > 0) {
-    const typed = eligible.filter((v) => index.isA(v, typeSet));
+    const typed = eligible.filter((slot) => index.isA(poolNodes[slot]!, typeSet));
     if (typed.length > 0) {
       eligible = typed;
       typeFiltered = true;
@@ -263,20 +285,20 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   }
 
   // normalise each clue by its best eligible candidate
-  const max = new Float64Array(clues.length);
-  for (const v of eligible) {
-    const row = pool.get(v)!;
-    for (let c = 0; c < clues.length; c++) if (row[c]! > max[c]!) max[c] = row[c]!;
+  const max = new Float64Array(C);
+  for (const slot of eligible) {
+    for (let c = 0; c < C; c++) if (rows[slot * C + c]! > max[c]!) max[c] = rows[slot * C + c]!;
   }
   clues.forEach((clue, c) => {
     if (usable[c] && !(max[c]! > 0) && eligible.length > 0) notes.push(`clue "${clue.label}" reaches no candidate answer`);
   });
   const weights = clues.map((c) => Math.max(c.weight, 1e-3));
   const cueMiss = options.cueMiss ?? DEFAULTS.cueMiss;
-  const cueFit = cueMiss < 1 ? cueFitOf(analysis, clues, index, options, (v) => pool.has(v) || seedNodes.has(v)) : undefined;
-  const chainFit = chainFitOf(chains, clues, weights, index, new Set(eligible), options);
-  const candidates: RankedCandidate[] = eligible.map((v) => {
-    const row = pool.get(v)!;
+  const cueFit = cueMiss < 1 ? cueFitOf(analysis, clues, index, options, (v) => slots.get(v) >= 0 || isSeed(v)) : undefined;
+  const chainFit = chainFitOf(chains, clues, weights, index, new Set(eligible.map((slot) => poolNodes[slot]!)), options);
+  const candidates: RankedCandidate[] = eligible.map((slot) => {
+    const v = poolNodes[slot]!;
+    const row = rowOf(slot);
     const norm = Array.from(row, (s, c) => (max[c]! > 0 ? s / max[c]! : 0));
     const { score, covered } = combineClueScores(norm, weights, options);
     const missing = cueFit ? cueFit(v) : 0;

@@ -62,6 +62,8 @@ interface HubTables {
   rowCache: Float64Array | null;
   rowStamp: Uint32Array | null;
   stamp: number;
+  /** The relation weights the current stamp's row totals belong to (a walk with the same weights reuses them). */
+  stampKey: string | null;
   /** Per adjacency entry: hub[target] / measure[target] (push in measure-normalised units; built on first push). */
   scaled: Float64Array | null;
 }
@@ -91,16 +93,31 @@ function hubTables(c: Csr, beta: number): HubTables {
     }
     const measure = new Float64Array(n);
     for (let u = 0; u < n; u++) measure[u] = rowTotal[u]! > 0 ? hub[u]! * rowTotal[u]! : 1;
-    t = { hub, rowTotal, measure, cum: null, rowCache: null, rowStamp: null, stamp: 0, scaled: null };
+    t = { hub, rowTotal, measure, cum: null, rowCache: null, rowStamp: null, stamp: 0, stampKey: null, scaled: null };
     byBeta.set(beta, t);
   }
   return t;
+}
+
+/**
+ * The walk's adjacency as flat arrays, for hot loops in other stages (read them, never
+ * write them): row u is the entries e = offsets[u] … offsets[u + 1] − 1, in index order;
+ * targets[e] is the node entry e leads to, links[e] = relation num · 2 + (1 when inverse).
+ */
+export interface TransitionRows {
+  readonly offsets: Uint32Array;
+  readonly targets: Int32Array;
+  readonly links: Uint32Array;
 }
 
 /** The walk's transition probabilities for one set of options (what other stages see). */
 export interface Transition {
   /** β of the hub damping. */
   readonly hubExponent: number;
+  /** The adjacency the walk runs on (see {@link TransitionRows}). */
+  readonly rows: TransitionRows;
+  /** w(e), the unnormalised weight of adjacency entry e: P(u → targets[e] via e) = weight(e) / rowTotal(u). */
+  weight(e: number): number;
   /** W(u), the total weight at u; 0 means u is dangling (its mass restarts at the seeds). */
   rowTotal(u: number): number;
   /**
@@ -150,6 +167,8 @@ export class Walk implements Transition {
     this.measure = this.tables.measure;
     const rho = options.relationWeights;
     let rhoMax = 1;
+    // the weights as text (every entry ≠ 1, exact: a number's shortest round-trip form)
+    let rhoKey = "";
     if (rho !== undefined) {
       if (!(rho instanceof Float64Array)) throw new TypeError("ranking/transition: relationWeights must be a Float64Array indexed by relation num");
       if (rho.length < index.relationCount) {
@@ -160,6 +179,7 @@ export class Walk implements Transition {
         const w = rho[i]!;
         if (!(w >= 0) || !Number.isFinite(w)) throw new RangeError(`ranking/transition: relationWeights[${i}] = ${w}; weights must be finite and ≥ 0`);
         if (w > rhoMax) rhoMax = w;
+        if (w !== 1) rhoKey += `${i}=${w};`;
       }
     }
     this.rho = rho ?? null;
@@ -169,16 +189,30 @@ export class Walk implements Transition {
       t.rowCache = new Float64Array(this.csr.nodeCount);
       t.rowStamp = new Uint32Array(this.csr.nodeCount);
     }
-    if (t.stamp >= 0xfffffffe) {
-      t.stamp = 0;
-      t.rowStamp?.fill(0);
+    if (this.rho === null) {
+      this.stamp = 0; // unit weights read the precomputed totals, not the cache
+    } else if (t.stampKey === rhoKey) {
+      // the same weights as the weighted walk before (the other clues of a question, its
+      // explanation, the next question with the same relation cues): its cached totals are valid
+      this.stamp = t.stamp;
+    } else {
+      if (t.stamp >= 0xfffffffe) {
+        t.stamp = 0;
+        t.rowStamp?.fill(0);
+      }
+      this.stamp = ++t.stamp;
+      t.stampKey = rhoKey;
     }
-    this.stamp = ++t.stamp;
     this.rowCache = t.rowCache ?? new Float64Array(0);
     this.rowStamp = t.rowStamp ?? new Uint32Array(0);
   }
 
-  /** w(e) of adjacency entry `e` (an index into the CSR arrays). @internal */
+  /** The CSR arrays of the index (offsets, targets, links). */
+  get rows(): TransitionRows {
+    return this.csr;
+  }
+
+  /** w(e) of adjacency entry `e` (an index into the CSR arrays). */
   weight(e: number): number {
     const h = this.hub[this.csr.targets[e]!]!;
     return this.rho === null ? h : this.rho[this.csr.links[e]! >>> 1]! * h;
