@@ -107,7 +107,7 @@ export class Session {
       progress?.({ phase: "linker" });
       const linker = Linker.fromCatalog(catalog);
       progress?.({ phase: "model" });
-      const model = buildQuestionModel(catalog, { relationEdgeCounts: relationEdgeCounts(index) });
+      const model = buildQuestionModel(catalog, { relationEdgeCounts: index.relationEdgeCounts() });
       progress?.({ phase: "ready" });
       return new Session(catalog, index, linker, model, options.rank ?? {});
     } catch (e) {
@@ -292,15 +292,4 @@ function capMentions(link: LinkResult): LinkResult {
   const keep = new Set(order.slice(0, LIMITS.maxMentions));
   const dropped = link.mentions.filter((_, i) => !keep.has(i)).map((m) => ({ text: m.text, start: m.start, end: m.end, suggestions: [] }));
   return { ...link, mentions: link.mentions.filter((_, i) => keep.has(i)), unlinked: [...link.unlinked, ...dropped].sort((a, b) => a.start - b.start) };
-}
-
-/** Edge count per relation num, from the index (each edge is seen once, from its source). */
-function relationEdgeCounts(index: RelationIndex): Uint32Array {
-  const counts = new Uint32Array(Math.max(index.relationCount, 1));
-  for (let u = 0; u < index.nodeCount; u++) {
-    index.forEach(u, (_v, rel, inverse) => {
-      if (!inverse) counts[rel]!++;
-    });
-  }
-  return counts;
 }

@@ -118,13 +118,27 @@ export class RelationIndex {
   /** Number of stored edges (each appears twice in the adjacency, once per direction). */
   readonly edgeCount: number;
   private readonly closureCache = new Map<number, readonly number[]>();
+  /** The packed arrays (also reachable through csrOf for ranking's hot loops). */
+  readonly #c: Csr;
 
   /** @internal use {@link RelationIndex.fromCatalog}, {@link RelationIndex.fromEdges} or `openIndex`. */
   constructor(csr: Csr) {
     this.nodeCount = csr.nodeCount;
     this.relationCount = csr.relationCount;
     this.edgeCount = csr.targets.length / 2;
+    this.#c = csr;
     internals.set(this, csr);
+  }
+
+  /** Stored edges per relation num (each edge counted once, from its source's entry). */
+  relationEdgeCounts(): Uint32Array {
+    const counts = new Uint32Array(Math.max(this.relationCount, 1));
+    const links = this.#c.links;
+    for (let e = 0; e < links.length; e++) {
+      const l = links[e]!;
+      if ((l & 1) === 0) counts[l >>> 1]!++;
+    }
+    return counts;
   }
 
   /**
@@ -213,7 +227,7 @@ export class RelationIndex {
 
   /** Number of adjacency entries at `u` (edges out plus edges in). */
   degree(u: number): number {
-    const c = csrOf(this);
+    const c = this.#c;
     if (!(u >= 0 && u < this.nodeCount)) return 0;
     return c.offsets[u + 1]! - c.offsets[u]!;
   }
@@ -223,7 +237,7 @@ export class RelationIndex {
    * `inverse` is true when the stored triple is `v rel u`.
    */
   forEach(u: number, fn: (v: number, rel: number, inverse: boolean) => void): void {
-    const c = csrOf(this);
+    const c = this.#c;
     if (!(u >= 0 && u < this.nodeCount)) return;
     const end = c.offsets[u + 1]!;
     for (let e = c.offsets[u]!; e < end; e++) {
@@ -234,7 +248,7 @@ export class RelationIndex {
 
   /** Direct type nums of node `u`, ascending. */
   typesOf(u: number): readonly number[] {
-    const c = csrOf(this);
+    const c = this.#c;
     if (!(u >= 0 && u < this.nodeCount)) return [];
     return Array.from(c.typeList.subarray(c.typeOffsets[u]!, c.typeOffsets[u + 1]!));
   }
@@ -243,7 +257,7 @@ export class RelationIndex {
   supertypesClosure(t: number): readonly number[] {
     const hit = this.closureCache.get(t);
     if (hit) return hit;
-    const c = csrOf(this);
+    const c = this.#c;
     const seen = new Set<number>([t]);
     const stack = [t];
     while (stack.length > 0) {
@@ -264,7 +278,7 @@ export class RelationIndex {
 
   /** True when one of `u`'s direct types, or one of their supertypes, is in `typeSet`. */
   isA(u: number, typeSet: ReadonlySet<number>): boolean {
-    const c = csrOf(this);
+    const c = this.#c;
     if (!(u >= 0 && u < this.nodeCount)) return false;
     for (let i = c.typeOffsets[u]!; i < c.typeOffsets[u + 1]!; i++) {
       for (const t of this.supertypesClosure(c.typeList[i]!)) if (typeSet.has(t)) return true;

@@ -11,6 +11,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { Catalog, loadFiles } from "../catalog/index.js";
 import { openIndex, readSnapshot, snapshotPath, type IndexProgress, type RelationIndex } from "./index.js";
 import { crc32, crc32Table } from "./snapshot.js";
+import { walkTables, DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
 
 const dir = mkdtempSync(join(tmpdir(), "tiepoint-snap-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -69,6 +70,27 @@ describe("openIndex and the PATH.idx snapshot", () => {
       expect(second.index.edgeCount).toBe(3);
       // no temporary file is left behind
       expect(readdirSync(dir).filter((f) => f.includes(".tmp-"))).toEqual([]);
+    } finally {
+      cat.close();
+    }
+  });
+
+  it("stores the walk tables: the loaded ones equal the ones computed from the index's arrays", () => {
+    const cat = freshCatalog("w.db");
+    try {
+      openIndex(cat);
+      const read = readSnapshot(snapshotPath(cat.path), cat.version());
+      expect(read.ok).toBe(true);
+      if (!read.ok) return;
+      const stored = walkTables(read.index, TRANSITION_DEFAULTS.hubExponent);
+      // a fresh index from the catalog (no snapshot) computes them anew
+      const fresh = walkTables(openIndex(cat, { noSnapshot: true }), TRANSITION_DEFAULTS.hubExponent);
+      for (const k of ["hub", "rowTotal", "measure", "scaled", "hubAt"] as const) {
+        expect(Array.from(stored[k])).toEqual(Array.from(fresh[k]));
+        expect(stored[k].length).toBeGreaterThan(0);
+      }
+      // hub[v] = deg(v)^(−1/2) (transition.ts), e.g. the lab with two members: 2^(−1/2)
+      expect(Math.max(...Array.from(stored.hub).filter((h) => h < 1))).toBeCloseTo(Math.SQRT1_2, 12);
     } finally {
       cat.close();
     }

@@ -66,15 +66,17 @@ interface HubTables {
   stampKey: string | null;
   /** Per adjacency entry: hub[target] / measure[target] (push in measure-normalised units; built on first push). */
   scaled: Float64Array | null;
+  /** Per adjacency entry: hub[target], so weighted row totals read sequentially (built with `scaled`). */
+  hubAt: Float64Array | null;
 }
 
-const tables = new WeakMap<Csr, Map<number, HubTables>>();
+const tables_ = new WeakMap<Csr, Map<number, HubTables>>();
 
 function hubTables(c: Csr, beta: number): HubTables {
-  let byBeta = tables.get(c);
+  let byBeta = tables_.get(c);
   if (!byBeta) {
     byBeta = new Map();
-    tables.set(c, byBeta);
+    tables_.set(c, byBeta);
   }
   let t = byBeta.get(beta);
   if (!t) {
@@ -93,7 +95,7 @@ function hubTables(c: Csr, beta: number): HubTables {
     }
     const measure = new Float64Array(n);
     for (let u = 0; u < n; u++) measure[u] = rowTotal[u]! > 0 ? hub[u]! * rowTotal[u]! : 1;
-    t = { hub, rowTotal, measure, cum: null, rowCache: null, rowStamp: null, stamp: 0, stampKey: null, scaled: null };
+    t = { hub, rowTotal, measure, cum: null, rowCache: null, rowStamp: null, stamp: 0, stampKey: null, scaled: null, hubAt: null };
     byBeta.set(beta, t);
   }
   return t;
@@ -108,6 +110,57 @@ export interface TransitionRows {
   readonly offsets: Uint32Array;
   readonly targets: Int32Array;
   readonly links: Uint32Array;
+}
+
+/**
+ * The walk's precomputed arrays for one β (what the relation-index snapshot stores, so a
+ * query process does not rebuild them): per node deg^(−β), the unit-weight row total W₁ and
+ * the measure μ₀; per adjacency entry hub[target]/μ₀(target) and hub[target].
+ */
+export interface WalkTables {
+  readonly hubExponent: number;
+  readonly hub: Float64Array;
+  readonly rowTotal: Float64Array;
+  readonly measure: Float64Array;
+  readonly scaled: Float64Array;
+  readonly hubAt: Float64Array;
+}
+
+/** The walk tables of `index` at β = `hubExponent` (built once per index and β). */
+export function walkTables(index: RelationIndex, hubExponent: number = DEFAULTS.hubExponent): WalkTables {
+  const w = new Walk(index, { hubExponent });
+  const t = hubTables(w.csr, hubExponent);
+  return { hubExponent, hub: t.hub, rowTotal: t.rowTotal, measure: t.measure, scaled: w.scaledEntries(), hubAt: w.entryHubs() };
+}
+
+/**
+ * Installs walk tables read from a snapshot for `index` (they must have been computed by
+ * {@link walkTables} for an index with the same arrays); the walk then skips building them.
+ */
+export function adoptWalkTables(index: RelationIndex, tables: WalkTables): void {
+  const c = csrOf(index);
+  const n = c.nodeCount;
+  const m = c.targets.length;
+  if (tables.hub.length !== n || tables.rowTotal.length !== n || tables.measure.length !== n || tables.scaled.length !== m || tables.hubAt.length !== m) {
+    throw new RangeError("ranking/transition: walk tables do not match the index's size");
+  }
+  let byBeta = tables_.get(c);
+  if (!byBeta) {
+    byBeta = new Map();
+    tables_.set(c, byBeta);
+  }
+  byBeta.set(tables.hubExponent, {
+    hub: tables.hub,
+    rowTotal: tables.rowTotal,
+    measure: tables.measure,
+    cum: null,
+    rowCache: null,
+    rowStamp: null,
+    stamp: 0,
+    stampKey: null,
+    scaled: tables.scaled,
+    hubAt: tables.hubAt,
+  });
 }
 
 /** The walk's transition probabilities for one set of options (what other stages see). */
@@ -224,12 +277,12 @@ export class Walk implements Transition {
     if (rho === null) return this.tables.rowTotal[u]!;
     if (this.rowStamp[u] === this.stamp) return this.rowCache[u]!;
     const c = this.csr;
-    const targets = c.targets;
     const links = c.links;
-    const hub = this.hub;
+    // hub[targets[e]] laid out per entry: the same products in the same order, read sequentially
+    const hubAt = this.entryHubs();
     let s = 0;
     const end = c.offsets[u + 1]!;
-    for (let e = c.offsets[u]!; e < end; e++) s += rho[links[e]! >>> 1]! * hub[targets[e]!]!;
+    for (let e = c.offsets[u]!; e < end; e++) s += rho[links[e]! >>> 1]! * hubAt[e]!;
     this.rowCache[u] = s;
     this.rowStamp[u] = this.stamp;
     return s;
@@ -292,17 +345,30 @@ export class Walk implements Transition {
 
   /** Per adjacency entry e: deg(v)^(−β) / μ₀(v) for v = target(e), so push can work in units of μ₀ with sequential reads. @internal */
   scaledEntries(): Float64Array {
-    let sc = this.tables.scaled;
-    if (sc === null) {
-      const c = this.csr;
-      sc = new Float64Array(c.targets.length);
-      for (let e = 0; e < sc.length; e++) {
-        const v = c.targets[e]!;
-        sc[e] = this.hub[v]! / this.measure[v]!;
-      }
-      this.tables.scaled = sc;
+    if (this.tables.scaled === null) this.buildEntryTables();
+    return this.tables.scaled!;
+  }
+
+  /** Per adjacency entry e: hub[targets[e]] (deg(v)^(−β) of the entry's target). @internal */
+  entryHubs(): Float64Array {
+    if (this.tables.hubAt === null) this.buildEntryTables();
+    return this.tables.hubAt!;
+  }
+
+  /** Builds the per-entry tables `scaled` and `hubAt` in one pass over the entries. */
+  private buildEntryTables(): void {
+    const c = this.csr;
+    const m = c.targets.length;
+    const sc = new Float64Array(m);
+    const ha = new Float64Array(m);
+    for (let e = 0; e < m; e++) {
+      const v = c.targets[e]!;
+      const h = this.hub[v]!;
+      ha[e] = h;
+      sc[e] = h / this.measure[v]!;
     }
-    return sc;
+    this.tables.scaled = sc;
+    this.tables.hubAt = ha;
   }
 
   private cumulative(): Float64Array {
