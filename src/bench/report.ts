@@ -75,6 +75,7 @@ export function renderMarkdown(doc: BenchDocument): string {
   const ppr = doc.results[0]?.phases.ppr as Record<string, unknown> | undefined;
   const lines = [
     `Machine: ${String(m.cpus)} CPUs (${String(m.cpuModel)}), ${String(m.memoryGiB)} GiB RAM, Node ${String(m.node)}, ${String(m.platform)}; python3-igraph ${m.igraph === null ? "not installed (igraph rows skipped)" : String(m.igraph)}; ${String(m.date)}.`,
+    `Questions: generated with known answers, each asked once through one Session after ${String((doc.results[0]?.phases.ask as Record<string, unknown> | undefined)?.warmUp ?? "?")} other generated questions (warm-up, not counted).`,
     `PPR: restart α = ${String(ppr?.alpha ?? "?")}, hub exponent β = ${String(ppr?.hubExponent ?? "?")}; seeds = the clue seeds of the generated questions; agreement = |top-20 ∩ exact top-20| / 20, seeds excluded, ties at the 20th exact score counted as agreeing.`,
     "",
     head,

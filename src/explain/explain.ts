@@ -115,6 +115,11 @@ class Names implements FactLookup {
     return r;
   }
 
+  /** The id of `num` when it has been read already (by this question or, with a shared cache, an earlier one). */
+  cachedId(num: number): string | undefined {
+    return this.refs.get(num)?.id;
+  }
+
   relation(rel: number): EntityRef {
     const r = this.rels.get(rel);
     return r ? { id: r.id, label: r.label } : { id: `#${rel}`, label: `relation ${rel}` };
@@ -164,7 +169,7 @@ function toAnswerPath(p: NumPath, names: Names): AnswerPath {
  * best and alternative paths, the one with the most steps over cued relations, then the
  * fewest uncued steps, then the cheapest). Null: too many matches.
  */
-function patternSets(index: RelationIndex, cost: PathCostModel, clueCount: number, top: AnswerPaths | undefined, cued: ReadonlySet<number>): (Set<number> | null | undefined)[] {
+function patternSets(index: RelationIndex, cost: PathCostModel, clueCount: number, top: AnswerPaths | undefined, cued: ReadonlySet<number>, targets: ReadonlySet<number>): (Set<number> | null | undefined)[] {
   const rate = (p: NumPath): [number, number, number] => {
     const c = p.steps.filter((s) => cued.has(s.rel)).length;
     return [c, p.steps.length - c, p.cost];
@@ -183,7 +188,7 @@ function patternSets(index: RelationIndex, cost: PathCostModel, clueCount: numbe
     }
     if (!best) return undefined;
     const rows = cost.flatWalk()?.rows;
-    const match = (p: NumPath) => matchPattern(index, p.start, p.steps.map((s) => ({ rel: s.rel, inverse: s.inverse })), rows !== undefined ? { rows } : {});
+    const match = (p: NumPath) => matchPattern(index, p.start, p.steps.map((s) => ({ rel: s.rel, inverse: s.inverse })), { targets, ...(rows !== undefined ? { rows } : {}) });
     const cheapest = paths[0]!;
     const a = match(cheapest);
     if (best === cheapest || a === null) return a;
@@ -288,7 +293,13 @@ export function explain<A extends ExplainAnalysis>(
       };
     });
   const topPaths = shown.length > 0 ? pathSet.answers[0] : undefined;
-  const patterns = patternSets(index, cost, clues.length, topPaths, cued);
+  // the re-rankings of the clue ablation (one per clue), done first: the relation patterns
+  // are only ever asked about the candidates of the ranking and of these re-rankings
+  const ablate = options.rerank !== undefined && (options.ablation ?? DEFAULTS.ablation) && shown.length > 0;
+  const withouts = ablate ? clues.map((_, i) => options.rerank!(analysis, [i])) : [];
+  const asked = new Set<number>(ranked.candidates.map((c) => c.node));
+  for (const w of withouts) for (const c of w.candidates) asked.add(c.node);
+  const patterns = patternSets(index, cost, clues.length, topPaths, cued, asked);
   const verdict = decideVerdict(
     { clues: clues.map((c) => c.label), candidates: verdictCandidates(ranked.candidates), equivalent: intersect(patterns), maxHops },
     options.verdict,
@@ -296,10 +307,10 @@ export function explain<A extends ExplainAnalysis>(
 
   // clue ablation
   const ablation: AblationEntry[] = [];
-  if (options.rerank && (options.ablation ?? DEFAULTS.ablation) && shown.length > 0) {
+  if (ablate) {
     const topRef = names.ref(shown[0]!.node);
     clues.forEach((clue, i) => {
-      const without = options.rerank!(analysis, [i]);
+      const without = withouts[i]!;
       const first = without.candidates[0];
       const topWithout = first ? names.ref(first.node) : null;
       const same = first !== undefined && first.node === shown[0]!.node;
@@ -327,7 +338,13 @@ export function explain<A extends ExplainAnalysis>(
   let suggestions: SuggestedClue[] = [];
   if ((verdict.status === "tied" || verdict.status === "weak") && shown.length > 1) {
     const s1 = shown[0]!.score;
-    const idToNode = new Map(ranked.candidates.map((c) => [names.ref(c.node).id, c.node]));
+    // the tied ids were read by the verdict through `names`, so the cached ids are enough
+    // (reading every candidate's id would cost one catalog row each)
+    const idToNode = new Map<string, number>();
+    for (const c of ranked.candidates) {
+      const id = names.cachedId(c.node);
+      if (id !== undefined) idToNode.set(id, c.node);
+    }
     const rivals =
       verdict.tiedWith.length > 0
         ? verdict.tiedWith.map((id) => idToNode.get(id)!).filter((x) => x !== undefined)

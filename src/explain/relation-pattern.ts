@@ -39,47 +39,67 @@ export interface PatternStep {
  * All nodes reached from `start` by walking `pattern` (loopless walks are not required:
  * any node sequence following the steps counts, except that the end node must differ from
  * `start`). Returns null when a frontier exceeds `frontierLimit`.
+ *
+ * With `targets`, only the targets the pattern reaches are returned, and the last step is
+ * checked backwards from each target (an entry of the target's row with the step's
+ * relation, the other way round, into the frontier before it), so the last frontier — the
+ * largest one through a hub — is never built; null then means that a frontier before the
+ * last step exceeded the limit.
  */
-export function matchPattern(graph: WalkGraph, start: number, pattern: readonly PatternStep[], options: PatternOptions = {}): Set<number> | null {
+export function matchPattern(graph: WalkGraph, start: number, pattern: readonly PatternStep[], options: PatternOptions & { readonly targets?: Iterable<number> } = {}): Set<number> | null {
   const limit = options.frontierLimit ?? DEFAULTS.frontierLimit;
   const rows = options.rows;
-  if (rows !== undefined) {
-    // the same frontiers in the same order, kept in arrays with a stamped seen-mark per step
-    const { offsets, targets, links } = rows;
-    let front: number[] = start >= 0 && start < graph.nodeCount ? [start] : [];
-    for (const step of pattern) {
-      const want = step.rel * 2 + (step.inverse ? 1 : 0);
-      const seen = scratch(graph, 5);
-      const next: number[] = [];
-      for (const u of front) {
-        for (let e = offsets[u]!, end = offsets[u + 1]!; e < end; e++) {
-          if (links[e] !== want) continue;
-          const v = targets[e]!;
-          if (seen.has(v)) continue;
-          seen.set(v, 1);
-          next.push(v);
+  // calls hit(v) for every entry of u whose packed relation and direction (rel · 2 + inverse)
+  // is `want`, in index order: straight from the flat rows when given
+  const scan =
+    rows !== undefined
+      ? (u: number, want: number, hit: (v: number) => boolean | void): void => {
+          const { offsets, targets, links } = rows;
+          for (let e = offsets[u]!, end = offsets[u + 1]!; e < end; e++) if (links[e] === want && hit(targets[e]!) === true) return;
         }
-        if (next.length > limit) return null;
-      }
-      front = next;
-      if (front.length === 0) break;
+      : (u: number, want: number, hit: (v: number) => boolean | void): void => {
+          let done = false;
+          graph.forEach(u, (v, rel, inverse) => {
+            if (!done && rel * 2 + (inverse ? 1 : 0) === want && hit(v) === true) done = true;
+          });
+        };
+  const targets = options.targets;
+  const forward = targets === undefined ? pattern.length : pattern.length - 1;
+  let front: number[] = start >= 0 && start < graph.nodeCount ? [start] : [];
+  for (let i = 0; i < forward && front.length > 0; i++) {
+    const step = pattern[i]!;
+    const want = step.rel * 2 + (step.inverse ? 1 : 0);
+    const seen = scratch(graph, 5);
+    const next: number[] = [];
+    for (const u of front) {
+      scan(u, want, (v) => {
+        if (seen.has(v)) return;
+        seen.set(v, 1);
+        next.push(v);
+      });
+      if (next.length > limit) return null;
     }
+    front = next;
+  }
+  if (targets === undefined) {
     const out = new Set(front);
     out.delete(start);
     return out;
   }
-  let frontier = new Set<number>([start]);
-  for (const step of pattern) {
-    const next = new Set<number>();
-    for (const u of frontier) {
-      graph.forEach(u, (v, rel, inverse) => {
-        if (rel === step.rel && inverse === step.inverse) next.add(v);
-      });
-      if (next.size > limit) return null;
-    }
-    frontier = next;
-    if (frontier.size === 0) break;
+  const out = new Set<number>();
+  const last = pattern[pattern.length - 1];
+  if (last === undefined || front.length === 0) return out;
+  const before = scratch(graph, 6);
+  for (const u of front) before.set(u, 1);
+  // the stored edge of a step u → v appears in v's row with the same relation, the other way
+  const back = last.rel * 2 + (last.inverse ? 0 : 1);
+  for (const t of targets) {
+    if (t === start || out.has(t) || !(t >= 0 && t < graph.nodeCount)) continue;
+    scan(t, back, (u) => {
+      if (!before.has(u)) return false;
+      out.add(t);
+      return true;
+    });
   }
-  frontier.delete(start);
-  return frontier;
+  return out;
 }

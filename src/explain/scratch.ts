@@ -12,7 +12,7 @@ import type { WalkGraph } from "./types.js";
 
 export type { Stamped };
 
-/** The `slot`-th scratch array of `graph` (explain uses slots 0–2 for the evidence subgraph, 3–4 for the bidirectional search, 5 for pattern matching), reset. */
+/** The `slot`-th scratch array of `graph` (explain uses slots 0–2 for the evidence subgraph, 3–4 for the bidirectional search, 5–6 for pattern matching), reset. */
 export function scratch(graph: WalkGraph, slot: number): Stamped {
   return stampedFor(graph, `explain/${slot}`, graph.nodeCount);
 }
