@@ -34,6 +34,7 @@
 import { DirectedGraph } from "graphology";
 import type { ArcGraph } from "./dijkstra.js";
 import type { FlatRows, PathCostModel } from "./path-cost.js";
+import { nodeBitsFor, type NodeBits } from "../ranking/index.js";
 import { scratch, type Stamped } from "./scratch.js";
 import type { WalkGraph } from "./types.js";
 
@@ -114,11 +115,12 @@ export class EvidenceSubgraph implements ArcGraph {
  * always expanded in full (whatever the budgets, so every 1-hop path is kept), hubs (degree >
  * hubLimit) otherwise not; the budgets bound everything beyond the starts' neighbours. Returns the visited nodes in BFS order.
  */
-function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubLimit: number, nodeBudget: number, workBudget: number, dist: Stamped, flat?: FlatRows): number[] {
+function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubLimit: number, nodeBudget: number, workBudget: number, dist: Stamped, flat?: FlatRows, visited?: NodeBits): number[] {
   const seen: number[] = [];
   for (const s of starts) {
     if (s < 0 || s >= graph.nodeCount || dist.has(s)) continue;
     dist.set(s, 0);
+    visited?.add(s);
     seen.push(s);
   }
   let work = 0;
@@ -134,11 +136,15 @@ function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubL
       if (flat !== undefined) {
         // the same entries in the same order as graph.forEach, read from the flat arrays
         const targets = flat.targets;
+        // `visited` mirrors dist's set nodes as bits (in cache) when given
         for (let e = flat.offsets[u]!, end = flat.offsets[u + 1]!; e < end; e++) {
           const v = targets[e]!;
-          if (!dist.has(v) && (d === 1 || seen.length < nodeBudget)) {
-            dist.set(v, d);
-            seen.push(v);
+          if (visited !== undefined ? !visited.has(v) : !dist.has(v)) {
+            if (d === 1 || seen.length < nodeBudget) {
+              dist.set(v, d);
+              visited?.add(v);
+              seen.push(v);
+            }
           }
         }
         continue;
@@ -181,9 +187,9 @@ export function evidenceSubgraph(
   // same order, same probabilities as forEach / forEachProbability)
   const walk = cost.flatWalk();
   const dc = scratch(graph, 0);
-  const fromClues = ball(graph, clueNodes, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, dc, walk?.rows);
+  const fromClues = ball(graph, clueNodes, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, dc, walk?.rows, nodeBitsFor(graph, "explain/ball-clues", graph.nodeCount));
   const da = scratch(graph, 1);
-  ball(graph, answers, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, da, walk?.rows);
+  ball(graph, answers, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, da, walk?.rows, nodeBitsFor(graph, "explain/ball-answers", graph.nodeCount));
   const endpoints = new Set([...clueNodes, ...answers].filter((x) => x >= 0 && x < graph.nodeCount));
   let inner: number[] = [];
   for (const x of fromClues) {
@@ -204,9 +210,13 @@ export function evidenceSubgraph(
   }
   const nodes = [...endpoints, ...inner].sort((a, b) => a - b);
   const local = scratch(graph, 2);
+  // the kept nodes also as bits: the row scans below test every entry, and the bit array
+  // stays in cache where the stamped array would cost a miss per entry on a large graph
+  const kept = nodeBitsFor(graph, "explain/evidence-kept", graph.nodeCount);
   const localIds = new Map<number, number>();
   nodes.forEach((x, i) => {
     local.set(x, i);
+    kept.add(x);
     localIds.set(x, i);
   });
   const virtualCount = options.virtual ? clues.length : 0;
@@ -260,6 +270,7 @@ export function evidenceSubgraph(
       const total = walk.rowTotal(u);
       for (let e = off[u]!, end = off[u + 1]!; e < end; e++) {
         const v = targets[e]!;
+        if (!kept.has(v)) continue;
         const vl = local.get(v);
         if (vl < 0 || v === u) continue;
         const l = links[e]!;

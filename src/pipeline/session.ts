@@ -233,8 +233,9 @@ export class Session {
       top,
       ...(this.rankOptions.alpha !== undefined ? { restart: this.rankOptions.alpha } : {}),
       ...(this.rankOptions.hubExponent !== undefined ? { hubExponent: this.rankOptions.hubExponent } : {}),
+      // re-ranking without a clue reuses the other clues' walks (same relation weights, pprMemo)
       rerank: (a, drop) => {
-        const r = rank(a, this.index, { ...this.rankOptions, pprMemo, dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
+        const r = rank(a, this.index, { ...this.rankOptions, pprMemo, walkWeights: ranked.relationWeights, dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
         return extra.rerankWith ? extra.rerankWith(r) : r;
       },
       whyNot: extra.whyNot ?? [],

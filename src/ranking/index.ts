@@ -4,7 +4,7 @@
  */
 export { RelationIndex } from "./relation-index.js";
 export { mulberry32 } from "./prng.js";
-export { Stamped, stampedFor } from "./stamped.js";
+export { NodeBits, nodeBitsFor, Stamped, stampedFor } from "./stamped.js";
 export type { Random } from "./prng.js";
 export type { IndexProgress, IndexProgressFn } from "./relation-index.js";
 export { openIndex, snapshotPath, readSnapshot, writeSnapshot, SNAPSHOT } from "./snapshot.js";

@@ -32,7 +32,9 @@
  * are ignored `chainLoose`, combined over the clues like their scores ({@link chainFitOf}).
  * A pattern that reaches no eligible candidate is ignored, so a wrong reading of the
  * question cannot empty the ranking. With `dropClues`, relation cues attributed only to
- * dropped clues are removed before the walk (ablation without their words).
+ * dropped clues are removed from the cue check and the patterns (ablation without their
+ * words); the walks keep the full question's weights when the caller passes them
+ * (`walkWeights`, as the pipeline's ablation does), so no new PageRank is needed.
  *
  * Clue entities are never answers of their own question; an alternative seeded with a
  * low-confidence clue may be, with its restart mass α·s(v) removed from its score.
@@ -48,7 +50,7 @@ import type { Seed, SparseScores } from "./ppr-options.js";
 import { pprFast, type FastOptions } from "./ppr-fast.js";
 import { cueReach, MAX_CUES, type CuePathOptions } from "./cue-paths.js";
 import type { RelationIndex } from "./relation-index.js";
-import { stampedFor } from "./stamped.js";
+import { nodeBitsFor, stampedFor } from "./stamped.js";
 import { DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
 
 /** Options of {@link rank}; all optional. */
@@ -92,6 +94,13 @@ export interface RankOptions extends CombineOptions {
   readonly prune?: number;
   /** Clue indexes (into `analysis.clues`) to leave out (ablation). @default none */
   readonly dropClues?: readonly number[];
+  /**
+   * Relation weights of the walks, instead of those of the analysis's cues. The ablation
+   * passes the full question's (`Ranked.relationWeights`), so that re-ranking without a clue
+   * reuses the other clues' walks (through `pprMemo`) while the dropped clue's words still
+   * leave the cue check and the patterns. @default relationWeightsOf(analysis)
+   */
+  readonly walkWeights?: Float64Array;
   /**
    * Per-clue PageRank vectors already computed for this same question and options, keyed by
    * the clue's seeds and the walk's relation weights; filled and reused, so re-ranking without a clue (ablation) runs no new
@@ -189,7 +198,7 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   if (drop.size > 0) analysis = withoutDroppedCues(analysis, chainsAll, drop);
   const clues = analysis.clues.filter((_, i) => !drop.has(i));
   const chains = chainsAll.filter((_, i) => !drop.has(i));
-  const rho = relationWeightsOf(analysis, index);
+  const rho = options.walkWeights ?? relationWeightsOf(analysis, index);
   const notes: string[] = [];
   if (clues.length === 0) return { clues, candidates: [], typeFiltered: false, relationWeights: rho, notes };
 
@@ -294,7 +303,14 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   });
   const weights = clues.map((c) => Math.max(c.weight, 1e-3));
   const cueMiss = options.cueMiss ?? DEFAULTS.cueMiss;
-  const cueFit = cueMiss < 1 ? cueFitOf(analysis, clues, index, options, (v) => slots.get(v) >= 0 || isSeed(v)) : undefined;
+  // the cue-path search may enter the pool and the seeds (as bits: it tests every entry it scans)
+  let cueFit: ((v: number) => number) | undefined;
+  if (cueMiss < 1) {
+    const within = nodeBitsFor(index, "rank/within", index.nodeCount);
+    for (const v of poolNodes) within.add(v);
+    for (const v of seedList) if (v >= 0 && v < index.nodeCount) within.add(v);
+    cueFit = cueFitOf(analysis, clues, index, options, (v) => within.has(v));
+  }
   const chainFit = chainFitOf(chains, clues, weights, index, new Set(eligible.map((slot) => poolNodes[slot]!)), options);
   const candidates: RankedCandidate[] = eligible.map((slot) => {
     const v = poolNodes[slot]!;

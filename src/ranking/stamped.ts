@@ -8,21 +8,28 @@
  * searches running at the same time (the searches are synchronous).
  */
 
-/** One stamped node array pair: `value[u]` is valid where `stamp[u] === epoch`. */
+/**
+ * One stamped node array: the value of u is valid where its stamp equals `epoch`. Stamp and
+ * value sit side by side (cells 2u and 2u + 1), so a lookup touches one cache line — on a
+ * million-node index every search step is a random access.
+ */
 export class Stamped {
-  stamp: Uint32Array;
-  value: Int32Array;
-  epoch = 0;
+  private readonly cells: Int32Array;
+  private epoch = 0;
 
   constructor(n: number) {
-    this.stamp = new Uint32Array(n);
-    this.value = new Int32Array(n);
+    this.cells = new Int32Array(2 * n);
+  }
+
+  /** Nodes it has room for. */
+  get size(): number {
+    return this.cells.length / 2;
   }
 
   /** Starts a new search (every node unset); returns this. */
   reset(): this {
-    if (this.epoch >= 0xfffffffe) {
-      this.stamp.fill(0);
+    if (this.epoch >= 0x7ffffffe) {
+      this.cells.fill(0);
       this.epoch = 0;
     }
     this.epoch++;
@@ -30,17 +37,17 @@ export class Stamped {
   }
 
   has(u: number): boolean {
-    return this.stamp[u] === this.epoch;
+    return this.cells[2 * u] === this.epoch;
   }
 
   /** The value at u, or -1 when unset. */
   get(u: number): number {
-    return this.stamp[u] === this.epoch ? this.value[u]! : -1;
+    return this.cells[2 * u] === this.epoch ? this.cells[2 * u + 1]! : -1;
   }
 
   set(u: number, v: number): void {
-    this.stamp[u] = this.epoch;
-    this.value[u] = v;
+    this.cells[2 * u] = this.epoch;
+    this.cells[2 * u + 1] = v;
   }
 }
 
@@ -54,9 +61,65 @@ export function stampedFor(owner: object, name: string, n: number): Stamped {
     byOwner.set(owner, named);
   }
   let s = named.get(name);
-  if (!s || s.stamp.length < n) {
+  if (!s || s.size < n) {
     s = new Stamped(n);
     named.set(name, s);
   }
   return s.reset();
+}
+
+/**
+ * A node set as a bit array with its members listed, so that clearing costs the members,
+ * not the graph: one bit per node keeps a million-node membership test inside 128 KiB,
+ * in cache, where a stamped array would cost a cache miss per test (common practice).
+ */
+export class NodeBits {
+  private readonly words: Uint32Array;
+  private readonly members: number[] = [];
+
+  constructor(n: number) {
+    this.words = new Uint32Array((n >>> 5) + 1);
+  }
+
+  /** Nodes it has room for (a multiple of 32). */
+  get size(): number {
+    return this.words.length * 32;
+  }
+
+  has(u: number): boolean {
+    return (this.words[u >>> 5]! & (1 << (u & 31))) !== 0;
+  }
+
+  add(u: number): void {
+    const w = u >>> 5;
+    const b = 1 << (u & 31);
+    if ((this.words[w]! & b) === 0) {
+      this.words[w]! |= b;
+      this.members.push(u);
+    }
+  }
+
+  /** Empties the set; returns this. */
+  clear(): this {
+    for (const u of this.members) this.words[u >>> 5] = 0;
+    this.members.length = 0;
+    return this;
+  }
+}
+
+const bitsByOwner = new WeakMap<object, Map<string, NodeBits>>();
+
+/** The bit set named `name` of `owner` with room for `n` nodes, emptied. */
+export function nodeBitsFor(owner: object, name: string, n: number): NodeBits {
+  let named = bitsByOwner.get(owner);
+  if (!named) {
+    named = new Map();
+    bitsByOwner.set(owner, named);
+  }
+  let s = named.get(name);
+  if (!s || s.size < n) {
+    s = new NodeBits(n);
+    named.set(name, s);
+  }
+  return s.clear();
 }
