@@ -51,21 +51,26 @@ export class Stamped {
   }
 }
 
-const byOwner = new WeakMap<object, Map<string, Stamped>>();
+/** Scratch structures kept per owner (an index or graph) and name, grown on demand. */
+const byOwner = new WeakMap<object, Map<string, Stamped | NodeBits>>();
 
-/** The stamped array named `name` of `owner` (an index or graph) with room for `n` nodes, reset. */
-export function stampedFor(owner: object, name: string, n: number): Stamped {
+function kept<T extends Stamped | NodeBits>(owner: object, name: string, n: number, make: (n: number) => T): T {
   let named = byOwner.get(owner);
   if (!named) {
     named = new Map();
     byOwner.set(owner, named);
   }
-  let s = named.get(name);
+  let s = named.get(name) as T | undefined;
   if (!s || s.size < n) {
-    s = new Stamped(n);
+    s = make(n);
     named.set(name, s);
   }
-  return s.reset();
+  return s;
+}
+
+/** The stamped array named `name` of `owner` (an index or graph) with room for `n` nodes, reset. */
+export function stampedFor(owner: object, name: string, n: number): Stamped {
+  return kept(owner, name, n, (k) => new Stamped(k)).reset();
 }
 
 /**
@@ -107,19 +112,7 @@ export class NodeBits {
   }
 }
 
-const bitsByOwner = new WeakMap<object, Map<string, NodeBits>>();
-
 /** The bit set named `name` of `owner` with room for `n` nodes, emptied. */
 export function nodeBitsFor(owner: object, name: string, n: number): NodeBits {
-  let named = bitsByOwner.get(owner);
-  if (!named) {
-    named = new Map();
-    bitsByOwner.set(owner, named);
-  }
-  let s = named.get(name);
-  if (!s || s.size < n) {
-    s = new NodeBits(n);
-    named.set(name, s);
-  }
-  return s.clear();
+  return kept(owner, name, n, (k) => new NodeBits(k)).clear();
 }
