@@ -236,6 +236,8 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   // the pool lives in flat arrays (a node's slot, then one row of clue scores per slot), not
   // in a map of per-node arrays: a walk reaches thousands of nodes per clue
   const slots = stampedFor(index, "rank/pool", index.nodeCount);
+  // pool membership as bits (in cache) before the slot lookup (a random access)
+  const inPool = nodeBitsFor(index, "rank/in-pool", index.nodeCount);
   const C = clues.length;
   const seedList = [...seedNodes];
   const isSeed = (v: number): boolean => {
@@ -255,10 +257,11 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
       let s = sp.scores[i]!;
       for (let k = 0; k < rn.length; k++) if (rn[k] === v) s -= rw[k]!;
       if (!(s > cut) || isSeed(v)) continue;
-      let slot = slots.get(v);
+      let slot = inPool.has(v) ? slots.get(v) : -1;
       if (slot < 0) {
         slot = poolNodes.length;
         slots.set(v, slot);
+        inPool.add(v);
         poolNodes.push(v);
         if ((slot + 1) * C > rows.length) {
           const grown = new Float64Array(rows.length * 2);
@@ -364,15 +367,23 @@ function cueFitOf(analysis: Analysis, clues: readonly Clue[], index: RelationInd
   const wrongWay = options.wrongWay ?? DEFAULTS.wrongWay;
   // unused cue weight of a mask: a word is satisfied by one of its cues walked the expected
   // way, partly (wrongWay) by one walked the other way
-  const missingOf = (mask: number) =>
-    words.reduce((sum, w) => {
-      let miss = 1;
-      for (const i of wordCues.get(w)!) {
-        if (mask & (1 << (2 * i))) miss = 0;
-        else if (mask & (1 << (2 * i + 1))) miss = Math.min(miss, wrongWay);
-      }
-      return sum + miss * wordScore.get(w)!;
-    }, 0);
+  // a pure function of the mask (at most 2^16 of them), asked for every candidate: memoised
+  const missingMemo = new Map<number, number>();
+  const missingOf = (mask: number): number => {
+    let m = missingMemo.get(mask);
+    if (m === undefined) {
+      m = words.reduce((sum, w) => {
+        let miss = 1;
+        for (const i of wordCues.get(w)!) {
+          if (mask & (1 << (2 * i))) miss = 0;
+          else if (mask & (1 << (2 * i + 1))) miss = Math.min(miss, wrongWay);
+        }
+        return sum + miss * wordScore.get(w)!;
+      }, 0);
+      missingMemo.set(mask, m);
+    }
+    return m;
+  };
   return (v) => {
     const lists = reaches.map((reach) => reach.get(v) ?? [0]);
     // one mask per clue, the union leaving the least cue weight unused: exhaustive while
