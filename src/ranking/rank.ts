@@ -322,7 +322,12 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     const { score, covered } = combineClueScores(norm, weights, options);
     const missing = cueFit ? cueFit(v) : 0;
     const fit = chainFit ? chainFit(v) : 1;
-    return { node: v, score: score * Math.pow(cueMiss, missing) * fit, perClue: norm, covered, ...(cueFit ? { cueMissing: missing } : {}), ...(chainFit ? { chainFit: fit } : {}) };
+    const total = score * Math.pow(cueMiss, missing) * fit;
+    // (no object spread: one literal per shape, same keys in the same order)
+    if (cueFit && chainFit) return { node: v, score: total, perClue: norm, covered, cueMissing: missing, chainFit: fit };
+    if (cueFit) return { node: v, score: total, perClue: norm, covered, cueMissing: missing };
+    if (chainFit) return { node: v, score: total, perClue: norm, covered, chainFit: fit };
+    return { node: v, score: total, perClue: norm, covered };
   });
   candidates.sort((a, b) => b.covered - a.covered || b.score - a.score || a.node - b.node);
   return { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
@@ -384,21 +389,25 @@ function cueFitOf(analysis: Analysis, clues: readonly Clue[], index: RelationInd
     }
     return m;
   };
+  // the exhaustive search over one mask per clue (one closure for every candidate)
+  const none = [0];
+  const lists: number[][] = reaches.map(() => none);
+  let best = Infinity;
+  const walk = (i: number, union: number): void => {
+    if (i === lists.length) {
+      best = Math.min(best, missingOf(union));
+      return;
+    }
+    for (const m of lists[i]!) walk(i + 1, union | m);
+  };
   return (v) => {
-    const lists = reaches.map((reach) => reach.get(v) ?? [0]);
+    for (let c = 0; c < reaches.length; c++) lists[c] = reaches[c]!.get(v) ?? none;
     // one mask per clue, the union leaving the least cue weight unused: exhaustive while
     // the combinations are few, greedy (clue by clue) beyond
     let combos = 1;
     for (const l of lists) combos *= l.length;
     if (combos <= 512) {
-      let best = Infinity;
-      const walk = (i: number, union: number): void => {
-        if (i === lists.length) {
-          best = Math.min(best, missingOf(union));
-          return;
-        }
-        for (const m of lists[i]!) walk(i + 1, union | m);
-      };
+      best = Infinity;
       walk(0, 0);
       return best;
     }

@@ -104,9 +104,10 @@ export class NodeBits {
     }
   }
 
-  /** Empties the set; returns this. */
+  /** Empties the set (word by word for a few members, else the whole array); returns this. */
   clear(): this {
-    for (const u of this.members) this.words[u >>> 5] = 0;
+    if (this.members.length * 8 > this.words.length) this.words.fill(0);
+    else for (const u of this.members) this.words[u >>> 5] = 0;
     this.members.length = 0;
     return this;
   }
