@@ -127,7 +127,11 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
     if (head !== undefined) notes.push(`"${m.text}" qualifies "${link.mentions[head]!.text}": weighed as a weaker clue`);
     clues.push({ node: m.num, id: m.entity.id, label: m.entity.label, weight: m.confidence * (head !== undefined ? modifierWeight : 1), mention: i });
   });
-  for (const u of link.unlinked) notes.push(`"${u.text}" matched no catalog entity${u.suggestions.length > 0 ? ` (did you mean ${u.suggestions.slice(0, 3).map((s) => s.label).join(", ")}?)` : ""}`);
+  for (const u of link.unlinked) {
+    const near = u.suggestions.slice(0, 3).map((s) => s.label).join(", ");
+    if (u.relationWord) notes.push(`"${u.text}" read as a relation word, not a name${near !== "" ? ` (it only resembles ${near})` : ""}`);
+    else notes.push(`"${u.text}" matched no catalog entity${near !== "" ? ` (did you mean ${near}?)` : ""}`);
+  }
   if (clues.length === 0) notes.push("no clue entity linked: nothing to start from");
 
   const answerTypes: AnswerType[] = at.types.map((t) => {

@@ -94,6 +94,7 @@ describe("CatalogWriter alias forms", () => {
       fc.property(fc.string({ unit: "grapheme", minLength: 1, maxLength: 20 }), (text) => {
         const id = `e${k++}`;
         w.label(id, text);
+        w.flush(); // rows are buffered until a flush (or the commit)
         const row = cat.db.prepare("SELECT norm, stem FROM alias WHERE entity = ? AND text = ?").get(cat.db.prepare("SELECT num FROM entity WHERE id = ?").pluck().get(id), text) as { norm: string; stem: string };
         expect(row).toEqual({ norm: normalize(text), stem: stemKey(text) });
       }),

@@ -9,8 +9,21 @@ import { stemmer } from "stemmer";
 const COMBINING = /\p{M}+/gu;
 const NON_WORD = /[^\p{L}\p{N}]+/gu;
 
-/** Folds one string to its comparison form: "Bérénice  O'Hara-Lund" → "berenice o hara lund". */
+const ASCII = /^[\x00-\x7f]*$/;
+const ASCII_APOSTROPHES = /['`]/g;
+const ASCII_NON_WORD = /[^a-z0-9]+/g;
+
+/** Folds one string to its comparison form: "Bérénice  O'Hara-Lund" → "berenice ohara lund". */
 export function normalize(text: string): string {
+  // ASCII text is unchanged by NFKC and NFD and has no combining marks, ß or typographic
+  // apostrophes, and its only letters and digits are [a-z0-9] once lower-cased: the same
+  // result as the general path, without the Unicode passes
+  if (ASCII.test(text)) return text.toLowerCase().replace(ASCII_APOSTROPHES, "").replace(ASCII_NON_WORD, " ").trim();
+  return normalizeUnicode(text);
+}
+
+/** The general path of {@link normalize}, for any text (exported for the equivalence test). */
+export function normalizeUnicode(text: string): string {
   return text
     .normalize("NFKC")
     .toLowerCase()

@@ -2,11 +2,15 @@
  * Batched writes into a catalog inside one explicit transaction (BEGIN … COMMIT).
  * Importers call the `add*` methods; `commit` bumps the generation counter, `rollback`
  * leaves the catalog exactly as it was. Ids are interned to integer nums through an
- * in-memory cache so a large load does not look each id up twice.
+ * in-memory table so a large load does not look each id up twice. Rows are buffered and
+ * written in multi-row INSERTs (rows.ts): inside the transaction, call `flush` before
+ * reading the tables directly.
  */
 import type Database from "better-sqlite3";
 import { normalize, stemToken } from "./normalize.js";
 import type { Catalog } from "./store.js";
+import { PendingEntities, RowBatch, SortedEdges } from "./rows.js";
+import { IdTable } from "./intern.js";
 
 /** Parses a literal as a number for attribute comparisons: plain numbers, years and ISO dates. */
 export function literalNumber(value: string, datatype: string | null): number | null {
@@ -26,14 +30,32 @@ export function literalNumber(value: string, datatype: string | null): number | 
   return null;
 }
 
+/** Writer options; all optional. */
+export const DEFAULTS = {
+  /** New entity rows held back (so their label and description join the INSERT) before they are written. */
+  pendingEntities: 4096,
+  /** Stems remembered per token (labels repeat their words; the memo is emptied when full). */
+  stemMemo: 100_000,
+};
+
+/** Porter stems of recent tokens (`stemToken` is a pure function of the token). */
+const stems = new Map<string, string>();
+
+function stemMemoised(token: string): string {
+  let stem = stems.get(token);
+  if (stem === undefined) {
+    stem = stemToken(token);
+    if (stems.size >= DEFAULTS.stemMemo) stems.clear();
+    stems.set(token, stem);
+  }
+  return stem;
+}
+
 /** The normalised and stemmed forms of an alias, normalising once (same result as `normalize` + `stemKey`). */
 function forms(text: string): [string, string] {
   const norm = normalize(text);
-  return [norm, norm === "" ? "" : norm.split(" ").map(stemToken).join(" ")];
+  return [norm, norm === "" ? "" : norm.split(" ").map(stemMemoised).join(" ")];
 }
-
-/** Edges per multi-row INSERT (SQLite allows 32766 bound parameters; 3 per edge). */
-export const EDGE_BATCH = 128;
 
 /** Bits of the writer's per-entity flags. */
 const KNOWN = 1;
@@ -44,7 +66,7 @@ const HAS_DESC = 4;
 export class CatalogWriter {
   private readonly cat: Catalog;
   private readonly db: Database.Database;
-  private readonly entityNums = new Map<string, number>();
+  private readonly entityNums = new IdTable();
   private readonly predNums = new Map<string, number>();
   private readonly s: Record<string, Database.Statement>;
   private open = false;
@@ -54,9 +76,14 @@ export class CatalogWriter {
   private flags = new Uint8Array(1024);
   /** Secondary indexes dropped for a fast load into an empty catalog, recreated at commit. */
   private deferred: { name: string; sql: string }[] = [];
-  private readonly edgeBuf: number[] = [];
-  /** Edges written in this transaction. */
-  edgesWritten = 0;
+  /** Rows buffered for multi-row INSERTs (written by `flush`, before anything reads them). */
+  private readonly entities: PendingEntities;
+  private readonly aliases: RowBatch;
+  private readonly types: RowBatch;
+  private readonly attributes: RowBatch;
+  private readonly edges: SortedEdges;
+  /** The num the next new entity gets (0: read it from the table first). */
+  private nextNum = 0;
 
   constructor(cat: Catalog) {
     this.cat = cat;
@@ -64,7 +91,7 @@ export class CatalogWriter {
     const p = (sql: string) => this.db.prepare(sql);
     this.s = {
       findEntity: p("SELECT num FROM entity WHERE id = ?"),
-      insEntity: p("INSERT INTO entity(id) VALUES (?)"),
+      maxNum: p("SELECT max(num) AS m FROM entity"),
       findPred: p("SELECT num FROM predicate WHERE id = ?"),
       insPred: p("INSERT INTO predicate(id) VALUES (?)"),
       getLabel: p("SELECT label FROM entity WHERE num = ?"),
@@ -75,16 +102,22 @@ export class CatalogWriter {
       getDesc: p("SELECT description FROM entity WHERE num = ?"),
       insAlias: p("INSERT OR IGNORE INTO alias(entity, text, norm, stem, kind) VALUES (?, ?, ?, ?, ?)"),
       demoteLabel: p("UPDATE alias SET kind = 1 WHERE entity = ? AND kind = 0"),
-      insType: p("INSERT OR IGNORE INTO entity_type(entity, type) VALUES (?, ?)"),
       insSub: p("INSERT OR IGNORE INTO subclass(sub, sup) VALUES (?, ?)"),
-      insEdge: p("INSERT OR IGNORE INTO edge(src, rel, dst) VALUES (?, ?, ?)"),
-      insEdges: p(`INSERT OR IGNORE INTO edge(src, rel, dst) VALUES ${Array(EDGE_BATCH).fill("(?, ?, ?)").join(", ")}`),
-      insAttr: p("INSERT OR IGNORE INTO attribute(entity, predicate, value, datatype, lang, num) VALUES (?, ?, ?, ?, ?, ?)"),
       getPredLabel: p("SELECT label FROM predicate WHERE num = ?"),
       setPredLabel: p("UPDATE predicate SET label = ? WHERE num = ?"),
       insPredAlias: p("INSERT OR IGNORE INTO predicate_alias(predicate, text, norm, stem) VALUES (?, ?, ?, ?)"),
       bump: p("UPDATE meta SET value = CAST(CAST(value AS INTEGER) + 1 AS TEXT) WHERE key = 'generation'"),
     };
+    this.entities = new PendingEntities(this.db, DEFAULTS.pendingEntities);
+    this.aliases = new RowBatch(this.db, "INSERT OR IGNORE INTO alias(entity, text, norm, stem, kind)", 5);
+    this.types = new RowBatch(this.db, "INSERT OR IGNORE INTO entity_type(entity, type)", 2);
+    this.attributes = new RowBatch(this.db, "INSERT OR IGNORE INTO attribute(entity, predicate, value, datatype, lang, num)", 6);
+    this.edges = new SortedEdges(this.db);
+  }
+
+  /** Edges written in this transaction (duplicates not counted; buffered ones once flushed). */
+  get edgesWritten(): number {
+    return this.edges.changes;
   }
 
   /** Starts the transaction (`BEGIN IMMEDIATE`, so a concurrent writer waits). */
@@ -98,7 +131,7 @@ export class CatalogWriter {
     this.entityNums.clear();
     this.predNums.clear();
     this.lastId = undefined;
-    this.edgeBuf.length = 0;
+    this.discardBuffers();
     this.flags = new Uint8Array(1024);
     this.maxNumBefore = (this.db.prepare("SELECT max(num) AS m FROM entity").get() as { m: number | null }).m ?? 0;
     this.predicatesBefore = (this.db.prepare("SELECT count(*) AS n FROM predicate").get() as { n: number }).n;
@@ -148,7 +181,7 @@ export class CatalogWriter {
 
   /** Rolls everything back (deferred indexes come back with the rollback). */
   rollback(): void {
-    this.edgeBuf.length = 0;
+    this.discardBuffers();
     if (this.open && this.db.inTransaction) this.db.exec("ROLLBACK");
     this.open = false;
     this.deferred = [];
@@ -188,8 +221,8 @@ export class CatalogWriter {
       return n;
     }
     const r = this.maxNumBefore > 0 ? (this.s.findEntity!.get(id) as { num: number } | undefined) : undefined;
-    n = r ? r.num : Number(this.s.insEntity!.run(id).lastInsertRowid);
-    this.entityNums.set(id, n);
+    n = r ? r.num : this.newEntity(id);
+    this.entityNums.add(id, n);
     this.lastId = id;
     this.lastNum = n;
     return n;
@@ -197,6 +230,33 @@ export class CatalogWriter {
 
   private lastId: string | undefined;
   private lastNum = 0;
+
+  /** Makes the (pending) row of a new entity; its num is the largest num + 1, as SQLite would choose. */
+  private newEntity(id: string): number {
+    if (this.entities.full) this.entities.flush();
+    if (this.nextNum === 0) this.nextNum = ((this.s.maxNum!.get() as { m: number | null }).m ?? 0) + 1;
+    const n = this.nextNum++;
+    this.entities.add(n, id);
+    return n;
+  }
+
+  private labelOf(n: number): string | null {
+    return this.entities.has(n) ? this.entities.label(n) : (this.s.getLabel!.get(n) as { label: string | null }).label;
+  }
+
+  private setLabelOf(n: number, text: string): void {
+    if (this.entities.has(n)) this.entities.setLabel(n, text);
+    else this.s.setLabel!.run(text, n);
+  }
+
+  private descriptionOf(n: number): string | null {
+    return this.entities.has(n) ? this.entities.description(n) : (this.s.getDesc!.get(n) as { description: string | null }).description;
+  }
+
+  private setDescriptionOf(n: number, text: string): void {
+    if (this.entities.has(n)) this.entities.setDescription(n, text);
+    else this.s.setDesc!.run(text, n);
+  }
 
   /** The num of predicate `id`, creating it when new. */
   predicate(id: string): number {
@@ -213,19 +273,21 @@ export class CatalogWriter {
     const n = this.entity(id);
     const f = this.flag(n);
     if ((f & HAS_LABEL) === 0) {
-      this.s.setLabel!.run(text, n);
-      this.s.insAlias!.run(n, text, ...forms(text), 0);
+      this.setLabelOf(n, text);
+      this.aliases.add(n, text, ...forms(text), 0);
       this.flags[n] = f | HAS_LABEL;
       return;
     }
-    const cur = (this.s.getLabel!.get(n) as { label: string | null }).label;
+    const cur = this.labelOf(n);
     if (preferred) {
+      // the UPDATEs below must see every alias row added so far
+      this.aliases.flush();
       if (cur !== text) this.s.demoteLabel!.run(n);
-      this.s.setLabel!.run(text, n);
+      this.setLabelOf(n, text);
       this.s.insAlias!.run(n, text, ...forms(text), 0);
       this.s.promoteAlias!.run(n, text);
     } else if (cur !== text) {
-      this.s.insAlias!.run(n, text, ...forms(text), 1);
+      this.aliases.add(n, text, ...forms(text), 1);
     }
   }
 
@@ -237,7 +299,7 @@ export class CatalogWriter {
   /** Adds an alias. */
   alias(id: string, text: string): void {
     const n = this.entity(id);
-    this.s.insAlias!.run(n, text, ...forms(text), 1);
+    this.aliases.add(n, text, ...forms(text), 1);
   }
 
   /** Sets the description (the first one wins; later ones are appended after a blank line). */
@@ -245,18 +307,18 @@ export class CatalogWriter {
     const n = this.entity(id);
     const f = this.flag(n);
     if ((f & HAS_DESC) === 0) {
-      this.s.setDesc!.run(text, n);
+      this.setDescriptionOf(n, text);
       this.flags[n] = f | HAS_DESC;
       return;
     }
-    const cur = this.s.getDesc!.get(n) as { description: string | null };
-    if (cur.description === null) this.s.setDesc!.run(text, n);
-    else if (!cur.description.includes(text)) this.s.setDesc!.run(`${cur.description}\n\n${text}`, n);
+    const cur = this.descriptionOf(n);
+    if (cur === null) this.setDescriptionOf(n, text);
+    else if (!cur.includes(text)) this.setDescriptionOf(n, `${cur}\n\n${text}`);
   }
 
   /** `id rdf:type type`. */
   type(id: string, type: string): void {
-    this.s.insType!.run(this.entity(id), this.entity(type));
+    this.types.add(this.entity(id), this.entity(type));
   }
 
   /** `sub rdfs:subClassOf sup`. */
@@ -264,25 +326,37 @@ export class CatalogWriter {
     this.s.insSub!.run(this.entity(sub), this.entity(sup));
   }
 
-  /** A relation edge `src rel dst` (buffered; written in batches of {@link EDGE_BATCH}). */
+  /** A relation edge `src rel dst` (buffered; see rows.ts). */
   edge(src: string, rel: string, dst: string): void {
-    const b = this.edgeBuf;
-    b.push(this.entity(src), this.predicate(rel), this.entity(dst));
-    if (b.length === 3 * EDGE_BATCH) this.flush();
+    this.edges.add(this.entity(src), this.predicate(rel), this.entity(dst));
   }
 
-  /** Writes buffered rows now (done before every read of the edge table and at commit). */
+  /**
+   * Writes every buffered row now: done before anything outside the writer reads the
+   * tables (the end-of-load steps) and at commit.
+   */
   flush(): void {
-    const b = this.edgeBuf;
-    if (b.length === 0) return;
-    if (b.length === 3 * EDGE_BATCH) this.edgesWritten += this.s.insEdges!.run(b).changes;
-    else for (let i = 0; i < b.length; i += 3) this.edgesWritten += this.s.insEdge!.run(b[i], b[i + 1], b[i + 2]).changes;
-    b.length = 0;
+    this.entities.flush();
+    this.aliases.flush();
+    this.types.flush();
+    this.attributes.flush();
+    this.edges.flush();
+    // whoever reads next may also delete rows: take the next num from the table again
+    this.nextNum = 0;
+  }
+
+  private discardBuffers(): void {
+    this.entities.discard();
+    this.aliases.discard();
+    this.types.discard();
+    this.attributes.discard();
+    this.edges.discard();
+    this.nextNum = 0;
   }
 
   /** A literal attribute. */
   attribute(id: string, predicate: string, value: string, datatype: string | null = null, lang: string | null = null): void {
-    this.s.insAttr!.run(this.entity(id), this.predicate(predicate), value, datatype, lang, literalNumber(value, datatype));
+    this.attributes.add(this.entity(id), this.predicate(predicate), value, datatype, lang, literalNumber(value, datatype));
   }
 
   /** A relation's (predicate's) label; the first one wins, later ones become aliases. */

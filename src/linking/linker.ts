@@ -4,6 +4,11 @@
  * Pipeline per question: tokens with UTF-16 spans (text-spans.ts) → pins applied → mention
  * detection (mention-detection.ts) → per candidate: prior, string similarity, BM25 context,
  * type/relation compatibility → collective disambiguation (collective-disambiguation.ts).
+ * A relation counts as named for a mention's candidates only when the words naming it lie
+ * outside the mention: a word is either a name or a relation cue, never evidence for both
+ * (question analysis likewise reads relation cues only outside linked mentions). The relation
+ * vocabulary (content-word stems of predicate labels and aliases) is read from the catalog and
+ * feeds detection's relation-word rule (mention-detection.ts).
  * `Linker.fromCatalog` loads the lexical snapshot (saved beside the catalog, see
  * lexical-snapshot.ts) and the type and relation vocabulary once; per question it makes only
  * indexed SQLite lookups (aliases by normalised key, a candidate's description, neighbours).
@@ -62,6 +67,8 @@ export interface UnlinkedSpan {
   readonly start: number;
   readonly end: number;
   readonly suggestions: readonly EntityRef[];
+  /** True when the span is a relation word its nearest names match only loosely (read as a relation, not a name). */
+  readonly relationWord?: boolean;
 }
 
 /** Result of {@link linkQuestion}. */
@@ -84,6 +91,29 @@ export interface LinkOptions {
 export interface LinkerOptions {
   /** Use this snapshot instead of loading or building one (tests, tools). */
   readonly snapshot?: LexicalSnapshot;
+}
+
+/** A type or relation phrase found in the question: token range and what it names. */
+interface VocabularyOccurrence {
+  readonly first: number;
+  /** One past the last token. */
+  readonly last: number;
+  readonly types: readonly number[];
+  readonly relations: readonly number[];
+}
+
+/**
+ * What the question's vocabulary names for a mention on tokens [first, last): every type, and
+ * the relations of the phrases outside the mention (a mention's own words are no relation cue).
+ */
+function namedOutside(occ: readonly VocabularyOccurrence[], first: number, last: number): { types: Set<number>; relations: Set<number> } {
+  const types = new Set<number>();
+  const relations = new Set<number>();
+  for (const o of occ) {
+    for (const n of o.types) types.add(n);
+    if (o.last <= first || o.first >= last) for (const n of o.relations) relations.add(n);
+  }
+  return { types, relations };
 }
 
 /** A small bounded cache (drops everything when full; simple and deterministic). */
@@ -115,6 +145,8 @@ export class Linker implements AliasLexicon {
   private readonly supertypes = new Map<number, ReadonlySet<number>>();
   /** Every word (normalised or stemmed) of some type or relation phrase. */
   private readonly phraseWords = new Set<string>();
+  /** Porter stems of the content words (not stop words) of every relation label and alias. */
+  private readonly relationStems = new Set<string>();
   /** Longest type or relation phrase, in tokens. */
   private readonly maxPhrase: number;
   private fuzzyIndex: FuzzyTokenIndex | undefined;
@@ -159,8 +191,10 @@ export class Linker implements AliasLexicon {
       this.supertypes.set(t.num, seen);
     }
     for (const p of cat.predicates()) {
-      add(this.phraseRelations, p.label, p.num);
-      for (const a of p.aliases) add(this.phraseRelations, a, p.num);
+      for (const text of [p.label, ...p.aliases]) {
+        add(this.phraseRelations, text, p.num);
+        for (const t of tokens(text)) if (!isStopWord(t)) this.relationStems.add(stemToken(t));
+      }
     }
     this.maxPhrase = maxPhrase;
   }
@@ -204,14 +238,18 @@ export class Linker implements AliasLexicon {
   }
 
   /** @internal */
+  isRelationWord(norm: string, stem: string): boolean {
+    return this.relationStems.has(stem) || this.relationStems.has(norm);
+  }
+
+  /** @internal */
   fuzzy(): FuzzyTokenIndex {
     return (this.fuzzyIndex ??= new FuzzyTokenIndex(this.snapshot.vocab));
   }
 
-  /** Type and relation nums named by n-grams of the question (normalised or stemmed). */
-  vocabularyIn(toks: readonly QuestionToken[]): { types: Set<number>; relations: Set<number> } {
-    const types = new Set<number>();
-    const relations = new Set<number>();
+  /** Type and relation phrases in the question: each n-gram (normalised or stemmed) naming some, as a token range. */
+  vocabularyOccurrences(toks: readonly QuestionToken[]): VocabularyOccurrence[] {
+    const out: VocabularyOccurrence[] = [];
     for (let i = 0; i < toks.length; i++) {
       let norm = "";
       let stem = "";
@@ -220,13 +258,19 @@ export class Linker implements AliasLexicon {
         if (!this.phraseWords.has(t.norm) && !this.phraseWords.has(t.stem)) break;
         norm = len === 1 ? t.norm : `${norm} ${t.norm}`;
         stem = len === 1 ? t.stem : `${stem} ${t.stem}`;
-        for (const k of [norm, stem]) {
-          for (const n of this.phraseTypes.get(k) ?? []) types.add(n);
-          for (const n of this.phraseRelations.get(k) ?? []) relations.add(n);
-        }
+        const tn = this.phraseTypes.get(norm);
+        const ts = stem === norm ? undefined : this.phraseTypes.get(stem);
+        const rn = this.phraseRelations.get(norm);
+        const rs = stem === norm ? undefined : this.phraseRelations.get(stem);
+        if (tn || ts || rn || rs) out.push({ first: i, last: i + len, types: [...(tn ?? []), ...(ts ?? [])], relations: [...(rn ?? []), ...(rs ?? [])] });
       }
     }
-    return { types, relations };
+    return out;
+  }
+
+  /** Type and relation nums named by n-grams of the question (normalised or stemmed). */
+  vocabularyIn(toks: readonly QuestionToken[]): { types: Set<number>; relations: Set<number> } {
+    return namedOutside(this.vocabularyOccurrences(toks), 0, 0);
   }
 
   /** @internal the context document of an entity: its description, neighbours' labels and (half weight) descriptions, type labels; stemmed. */
@@ -367,7 +411,8 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
   }
   const allEligible = !/\p{Lu}/u.test(question);
   const det = detectMentions(toks, linker, blocked, allEligible);
-  const named = linker.vocabularyIn(toks);
+  const vocabulary = linker.vocabularyOccurrences(toks);
+  const namedAll = namedOutside(vocabulary, 0, 0);
   // context words: every content token outside the mention (computed per mention)
   const contentStems = toks.map((t) => (isStopWord(t.norm) ? "" : t.stem));
   const spans = det.spans.map((s) => topCandidates(s, linker, DEFAULTS.maxCandidates));
@@ -377,6 +422,7 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     const lo = Math.max(0, span.first - DEFAULTS.contextWindow);
     const hi = Math.min(toks.length, span.last + DEFAULTS.contextWindow);
     for (let k = lo; k < hi; k++) if (contentStems[k] !== "" && (k < span.first || k >= span.last)) query.push(contentStems[k]!);
+    const named = vocabulary.some((o) => o.relations.length > 0 && o.last > span.first && o.first < span.last) ? namedOutside(vocabulary, span.first, span.last) : namedAll;
     // context only decides between candidates; an unambiguous span skips it
     return cands.map((c) => linker.evidence(c, query, named, cands.length > 1));
   });
@@ -411,10 +457,13 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     });
   });
   mentions.sort((a, b) => a.start - b.start);
-  let unlinked: UnlinkedSpan[] = det.unmatched.map((u) => ({
-    ...spanText(u.first, u.last),
-    suggestions: u.suggestions.map((s) => cat.ref(s.num)),
-  }));
+  let unlinked: UnlinkedSpan[] = det.unmatched
+    .map((u) => ({
+      ...spanText(u.first, u.last),
+      suggestions: u.suggestions.map((s) => cat.ref(s.num)),
+      ...(u.relationWord ? { relationWord: true } : {}),
+    }))
+    .sort((a, b) => a.start - b.start);
   if (mentions.length === 0 && unlinked.length === 0) {
     // nothing linked and no name-like words: offer the nearest names for the content words
     const runs: [number, number][] = [];
@@ -474,7 +523,8 @@ export function rankSpanCandidates(
     cands = [...best].sort((a, b) => a[0] - b[0]).map(([num, kind]) => ({ num, similarity: sim, kind }));
   }
   const query = toks.filter((t, k) => !inside[k] && !isStopWord(t.norm)).map((t) => t.stem);
-  const named = linker.vocabularyIn(toks);
+  const first = inside.indexOf(true);
+  const named = namedOutside(linker.vocabularyOccurrences(toks), first, inside.lastIndexOf(true) + 1);
   const ev = cands.map((c) => linker.evidence(c, query, named, true));
   return disambiguate([ev], undefined, options.scoring)[0]!.map((c) => ({ num: c.num, confidence: c.confidence }));
 }

@@ -12,6 +12,20 @@
  * alone never become fuzzy names); a span may not end with a stop word, may start with one only when it is exactly an
  * alias ("the Dawn"), and a span that is only stop words or
  * exactly a type or relation phrase of the catalog never becomes a mention.
+ *
+ * Relation words. A one-word span whose word is, by Porter stem, a content word of a relation
+ * label or alias ("lives" of "lives in", "hosted" of "hosted by") is already explained by the
+ * catalog's relation vocabulary — the words question analysis reads as relation cues. Such a
+ * span is a mention only for the candidates it names *as written*: the word equals the label or
+ * alias (normalised, not only by stem, not a fuzzy correction, not one token of a longer name)
+ * and, when the question's capitals carry information, it is written like the name — in capitals
+ * for a code (an alias with no lower-case letter, "HELD", "VK-7"), capitalised for a capitalised
+ * name. Otherwise the relation is the better explanation: the span is left unlinked, its nearest
+ * names kept as suggestions, and the word stays free for the relation cues. (Capitalisation as
+ * the cue for proper names and codes: common practice in gazetteer matching, cf. Mikheev,
+ * Moens and Grover, "Named entity recognition without gazetteers", EACL 1999.) Questions typed
+ * without capitals, or with every word capitalised, are case-blind: there only an exact,
+ * non-code match keeps a relation word linked.
  */
 import type { AliasHit } from "../catalog/index.js";
 import type { FuzzyTokenIndex } from "./fuzzy-index.js";
@@ -55,6 +69,8 @@ export interface AliasLexicon {
   isVocabularyPhrase(norm: string, stem: string): boolean;
   /** True when the entity is a type (types are never fuzzy candidates). */
   isTypeEntity(num: number): boolean;
+  /** True when the word's stem is a content word of some relation label or alias. */
+  isRelationWord(norm: string, stem: string): boolean;
   /** The lazily built fuzzy index over the alias token vocabulary. */
   fuzzy(): FuzzyTokenIndex;
 }
@@ -66,6 +82,11 @@ export interface SpanCandidate {
   readonly similarity: number;
   /** 0 when the best alias is the entity's label, 1 for another alias. */
   readonly kind: number;
+}
+
+/** A candidate as found, with the stored text of the alias it matched (for the relation-word rule). */
+interface FoundCandidate extends SpanCandidate {
+  readonly alias: string;
 }
 
 /** A detected span (token indexes) with its candidates. */
@@ -82,6 +103,8 @@ export interface UnmatchedRun {
   readonly first: number;
   readonly last: number;
   readonly suggestions: readonly SpanCandidate[];
+  /** True when the run is one relation word whose names matched it only loosely (see the header). */
+  readonly relationWord?: boolean;
 }
 
 /** Result of {@link detectMentions}. */
@@ -99,6 +122,42 @@ function hitsToCandidates(hits: readonly AliasHit[], similarity: number): SpanCa
   return [...best].sort((a, b) => a[0] - b[0]).map(([num, kind]) => ({ num, similarity, kind }));
 }
 
+const LOWER = /\p{Ll}/u;
+const LETTER = /\p{L}/u;
+const CAPITAL = /\p{Lu}|\p{Lt}/u;
+
+/** Letters of a code (an alias with at least two letters and no lower-case one: "HELD", "VK-7"), else 0. */
+export function codeLetters(alias: string): number {
+  let letters = 0;
+  for (const ch of alias) {
+    if (LOWER.test(ch)) return 0;
+    if (LETTER.test(ch)) letters++;
+  }
+  return letters >= 2 ? letters : 0;
+}
+
+/**
+ * True when question word `tok`, equal (normalised) to `alias`, is written like it: a code in
+ * capitals ("MICA's" writes MICA, "held" does not write HELD), a capitalised name capitalised.
+ * A case-blind question can confirm no code, and any other alias.
+ */
+export function writtenAs(tok: QuestionToken, alias: string, caseBlind: boolean): boolean {
+  const code = codeLetters(alias);
+  if (code > 0) return !caseBlind && tok.upper >= code;
+  if (caseBlind) return true;
+  for (const ch of alias) if (LETTER.test(ch)) return !CAPITAL.test(ch) || tok.marked;
+  return true;
+}
+
+/** The best few of a span's candidates as suggestions: by similarity, then prominence, then num. */
+function asSuggestions(cands: readonly SpanCandidate[], lex: AliasLexicon): SpanCandidate[] {
+  const d = (n: number) => lex.snapshot.degreeOf(n);
+  return [...cands]
+    .sort((a, b) => b.similarity - a.similarity || d(b.num) - d(a.num) || a.num - b.num)
+    .slice(0, 3)
+    .map((c) => ({ num: c.num, similarity: c.similarity, kind: c.kind }));
+}
+
 /**
  * Detects mentions in the question tokens. `blocked[i]` marks tokens already taken (pins).
  * `allEligible` lets lower-case words start fuzzy spans (a question typed without capitals).
@@ -114,7 +173,17 @@ export function detectMentions(
   const n = toks.length;
   const maxLen = Math.min(o.maxTokens, lex.snapshot.maxAliasTokens);
   const spans: DetectedSpan[] = [];
+  const unmatched: UnmatchedRun[] = [];
   const covered = blocked.slice();
+  // capitals tell names from words only when some words are capitalised and some are not
+  let blind: boolean | undefined;
+  const caseBlind = () => (blind ??= allEligible || toks.every((t) => t.marked || !LETTER.test(t.norm)));
+  /** A one-word relation span keeps only the candidates it names as written (see the header). */
+  const relationWord = (k: number) => lex.isRelationWord(toks[k]!.norm, toks[k]!.stem);
+  const explained = (k: number, cands: readonly SpanCandidate[]) => {
+    unmatched.push({ first: k, last: k + 1, suggestions: asSuggestions(cands, lex), relationWord: true });
+    covered[k] = true;
+  };
   // 1. leftmost-longest exact (normalised) or stemmed match
   let i = 0;
   while (i < n) {
@@ -141,13 +210,24 @@ export function detectMentions(
       const normKey = lex.snapshot.mayBeKey(kn);
       const stemKey = !leadingStop && lex.snapshot.mayBeKey(ks);
       if ((!normKey && !stemKey) || lex.isVocabularyPhrase(kn, ks)) continue;
+      let hits: readonly AliasHit[] = [];
       if (normKey) {
-        const hits = lex.byNorm(kn);
+        hits = lex.byNorm(kn);
         if (hits.length > 0) found = { first: i, last: i + len, match: "exact", candidates: hitsToCandidates(hits, 1) };
       }
       if (!found && stemKey) {
-        const hits = lex.byStem(ks);
+        hits = lex.byStem(ks);
         if (hits.length > 0) found = { first: i, last: i + len, match: "stem", candidates: hitsToCandidates(hits, o.stemSimilarity) };
+      }
+      if (found && len === 1 && relationWord(i)) {
+        const tok = toks[i]!;
+        const named = found.match === "exact" ? new Set(hits.filter((h) => writtenAs(tok, h.text, caseBlind())).map((h) => h.entity)) : new Set<number>();
+        if (named.size === 0) {
+          explained(i, found.candidates);
+          found = undefined;
+          break;
+        }
+        found = { ...found, candidates: found.candidates.filter((c) => named.has(c.num)) };
       }
     }
     if (found) {
@@ -158,7 +238,6 @@ export function detectMentions(
   }
   // 2. fuzzy spans over runs of uncovered content words; capitalised type or relation words
   //    may sit inside a run (as in a misspelt "Shoal Chian Survey") but never form one alone
-  const unmatched: UnmatchedRun[] = [];
   const free = (k: number) => !covered[k] && !isStopWord(toks[k]!.norm) && toks[k]!.norm.length >= 2 && (allEligible || toks[k]!.marked);
   const endsAt = new Map<number, DetectedSpan>(spans.map((sp) => [sp.last, sp]));
   const startsAt = new Map<number, DetectedSpan>(spans.map((sp) => [sp.first, sp]));
@@ -177,8 +256,16 @@ export function detectMentions(
     }
     const first = a + result.first;
     const last = a + result.last;
-    spans.push({ first, last, match: "fuzzy", candidates: result.candidates });
-    for (let k = first; k < last; k++) covered[k] = true;
+    let candidates: readonly SpanCandidate[] = result.candidates;
+    if (last - first === 1 && relationWord(first)) {
+      // only an exact alias written like the name keeps a relation word linked
+      candidates = result.candidates.filter((c) => c.similarity === 1 && writtenAs(toks[first]!, c.alias, caseBlind()));
+      if (candidates.length === 0) explained(first, result.candidates);
+    }
+    if (candidates.length > 0) {
+      spans.push({ first, last, match: "fuzzy", candidates: candidates.map((c) => ({ num: c.num, similarity: c.similarity, kind: c.kind })) });
+      for (let k = first; k < last; k++) covered[k] = true;
+    }
     if (depth < 3) {
       if (first > a) piece(a, first, depth + 1);
       if (last < b) piece(last, b, depth + 1);
@@ -223,7 +310,7 @@ export function detectMentions(
             startsAt.delete(sp.first);
           }
         }
-        spans.push({ first, last, match: "fuzzy", candidates: merged.candidates });
+        spans.push({ first, last, match: "fuzzy", candidates: merged.candidates.map((c) => ({ num: c.num, similarity: c.similarity, kind: c.kind })) });
         for (let k = first; k < last; k++) covered[k] = true;
         if (first > a) piece(a, first, 0);
         if (last < j) piece(last, j, 0);
@@ -241,7 +328,7 @@ export function detectMentions(
 interface FuzzyResult {
   first: number;
   last: number;
-  candidates: SpanCandidate[];
+  candidates: FoundCandidate[];
   suggestions: SpanCandidate[];
 }
 
@@ -296,11 +383,11 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: typeof D
   const runNorms = run.map((t) => t.norm);
   // each entity keeps its best alias by sim·(1 + covered)/(1 + |run|): a longer name that
   // covers more of the run beats a short alias matching one word of it exactly
-  const scored: { num: number; sim: number; key: number; kind: number; used: boolean[] }[] = [];
+  const scored: { num: number; sim: number; key: number; kind: number; used: boolean[]; alias: string }[] = [];
   for (const [num] of ranked) {
     if (lex.isTypeEntity(num)) continue;
-    let best = { sim: 0, key: 0, kind: 1, used: [] as boolean[] };
-    for (const [, norm, kind] of lex.aliasRows(num)) {
+    let best = { sim: 0, key: 0, kind: 1, used: [] as boolean[], alias: "" };
+    for (const [text, norm, kind] of lex.aliasRows(num)) {
       const at = norm.split(" ");
       const s = spanSimilarity(runNorms, at, o.tokenMatch);
       // score only the covered part of the run: the span shrinks to the matched tokens
@@ -311,9 +398,9 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: typeof D
       const exact = runNorms.slice(first, last).join(" ") === norm;
       const sim = exact ? 1 : sub.sim * o.partialFactor;
       const key = (sim * (1 + last - first)) / (1 + runNorms.length);
-      if (key > best.key || (key === best.key && kind < best.kind)) best = { sim, key, kind, used: s.used };
+      if (key > best.key || (key === best.key && kind < best.kind)) best = { sim, key, kind, used: s.used, alias: text };
     }
-    if (best.sim > 0) scored.push({ num, sim: best.sim, key: best.key, kind: best.kind, used: best.used });
+    if (best.sim > 0) scored.push({ num, sim: best.sim, key: best.key, kind: best.kind, used: best.used, alias: best.alias });
   }
   scored.sort((a, b) => b.key - a.key || b.sim - a.sim || a.num - b.num);
   const suggestions = scored.filter((s) => s.sim >= o.minSuggestion).slice(0, 3).map((s) => ({ num: s.num, similarity: s.sim, kind: s.kind }));
@@ -325,6 +412,6 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: typeof D
   const candidates = scored
     .filter((s) => s.sim >= o.minSimilarity && s.used.indexOf(true) >= first && s.used.lastIndexOf(true) + 1 <= last)
     .slice(0, o.maxFuzzyCandidates)
-    .map((s) => ({ num: s.num, similarity: s.sim, kind: s.kind }));
+    .map((s) => ({ num: s.num, similarity: s.sim, kind: s.kind, alias: s.alias }));
   return { first, last, candidates, suggestions };
 }

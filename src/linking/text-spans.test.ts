@@ -13,6 +13,12 @@ describe("questionTokens", () => {
     expect(t[1]!.marked).toBe(false);
   });
 
+  it("counts the capitals each word was written with", () => {
+    // one per original character: "Ｍ" (full-width) and "Ñ" count, the possessive "'s" does not
+    const t = questionTokens("Is MICA's Ｍica held by Ñandú?");
+    expect(t.map((x) => [x.norm, x.upper])).toEqual([["is", 1], ["micas", 4], ["mica", 1], ["held", 0], ["by", 0], ["nandu", 1]]);
+  });
+
   it("maps NFKC expansions and combining marks back to whole characters", () => {
     // "ﬁ" (U+FB01) becomes "fi" under NFKC (Unicode's compatibility decomposition)
     const q = "the ﬁord of Ａｂｃ and Zoe\u0308";

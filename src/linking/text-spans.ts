@@ -24,6 +24,8 @@ export interface QuestionToken {
   readonly end: number;
   /** True when the original word starts with an upper-case letter or contains a digit. */
   readonly marked: boolean;
+  /** Upper-case (or title-case) letters in the original word ("MICA's" 4, "Lives" 1, "lives" 0). */
+  readonly upper: number;
 }
 
 const MARK = /\p{M}/u;
@@ -67,11 +69,13 @@ export function questionTokens(question: string): QuestionToken[] {
   let curStart = -1;
   let curEnd = -1;
   let marked = false;
+  let upper = 0;
   const flush = () => {
-    if (cur !== "") out.push({ norm: cur, stem: stemOf(cur), start: curStart, end: curEnd, marked });
+    if (cur !== "") out.push({ norm: cur, stem: stemOf(cur), start: curStart, end: curEnd, marked, upper });
     cur = "";
     curStart = -1;
     marked = false;
+    upper = 0;
   };
   let i = 0;
   const n = question.length;
@@ -86,6 +90,9 @@ export function questionTokens(question: string): QuestionToken[] {
     }
     const cluster = question.slice(i, j);
     const piece = normCluster(cluster);
+    const c0 = cluster.charCodeAt(0);
+    const isCapital = cluster.length === 1 && c0 < 128 ? c0 >= 65 && c0 <= 90 : UPPER.test(cluster);
+    let capital = isCapital;
     if (piece === "") {
       // dropped inside a word (apostrophe, stray mark): the word goes on, its end stays
     } else {
@@ -96,9 +103,13 @@ export function questionTokens(question: string): QuestionToken[] {
         } else {
           if (cur === "") {
             curStart = i;
-            marked = UPPER.test(cluster) || (cluster >= "0" && cluster <= "9");
+            marked = isCapital || (cluster >= "0" && cluster <= "9");
           } else if (cluster >= "0" && cluster <= "9") {
             marked = true;
+          }
+          if (capital) {
+            upper++; // once per original character
+            capital = false;
           }
           cur += ch;
           curEnd = j;

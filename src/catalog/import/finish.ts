@@ -14,6 +14,7 @@ const PROPERTY_SCHEMA = [`${RDFS}domain`, `${RDFS}range`, `${RDFS}subPropertyOf`
 /** Runs the end-of-load fix-ups. */
 export function finishLoad(writer: CatalogWriter, options: { rdf: boolean }): void {
   if (!options.rdf) return;
+  writer.flush();
   const db = writer.catalog.db;
   const pairs = db.prepare("SELECT e.num AS e, p.id AS pid FROM predicate p JOIN entity e ON e.id = p.id").all() as { e: number; pid: string }[];
   if (pairs.length === 0) return;

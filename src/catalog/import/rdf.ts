@@ -13,6 +13,7 @@
 import { Parser } from "n3";
 import type { Quad, Term } from "n3";
 import type { LoadContext } from "./context.js";
+import type { CatalogWriter } from "../writer.js";
 import { readBlocks } from "./lines.js";
 
 const RDF = "http://www.w3.org/1999/02/22-rdf-syntax-ns#";
@@ -63,45 +64,62 @@ function preferred(lang: string): boolean {
   return lang === "" || lang.toLowerCase().split("-")[0] === DEFAULTS.preferredLanguage;
 }
 
-/** Imports one N-Triples (`nt`) or Turtle (`ttl`) file. */
-export function importRdf(ctx: LoadContext, file: string, format: "nt" | "ttl"): void {
-  const w = ctx.writer;
-  const blank = new Map<string, string>();
-  let anon = 0;
-  let bytes = 0;
-  /** Entities whose current label is in a non-preferred language. */
-  const provisional = new Set<string>();
+/** Blank-node labels of one file mapped to catalog ids (kept when the file is read a second time). */
+class BlankNames {
+  private readonly w: CatalogWriter;
+  private readonly ids = new Map<string, string>();
+  private anon = 0;
 
-  const blankId = (value: string): string => {
-    let id = blank.get(value);
+  constructor(w: CatalogWriter) {
+    this.w = w;
+  }
+
+  /** The catalog id of blank node `value` (its file label, suffixed when taken; `_:anonN` for generated ones). */
+  id(value: string): string {
+    let id = this.ids.get(value);
     if (id !== undefined) return id;
-    const base = value.startsWith(MARK) ? `_:${value.slice(1)}` : `_:anon${++anon}`;
+    const base = value.startsWith(MARK) ? `_:${value.slice(1)}` : `_:anon${++this.anon}`;
     id = base;
-    for (let k = 2; w.hasEntity(id); k++) id = `${base}-${k}`;
-    blank.set(value, id);
-    w.entity(id);
+    for (let k = 2; this.w.hasEntity(id); k++) id = `${base}-${k}`;
+    this.ids.set(value, id);
+    this.w.entity(id);
     return id;
-  };
-  const node = (t: Term): string => (t.termType === "BlankNode" ? blankId(t.value) : t.value);
+  }
+}
 
-  let line = 1;
-  let offset = 0; // added to the parser's line numbers (N-Triples resumes with a new parser)
-  let dead = false; // Turtle after a syntax error
+/**
+ * Maps one file's triples onto the catalog (contract "RDF mapping"). A triple the mapping
+ * rejects is passed to `reject` with its message instead.
+ */
+class TripleMapper {
+  private readonly w: CatalogWriter;
+  private readonly names: BlankNames;
+  /** Entities whose current label is in a non-preferred language. */
+  private readonly provisional = new Set<string>();
 
-  const quad = (q: Quad): void => {
-    const s = node(q.subject);
+  constructor(w: CatalogWriter, names: BlankNames) {
+    this.w = w;
+    this.names = names;
+  }
+
+  private node(t: Term): string {
+    return t.termType === "BlankNode" ? this.names.id(t.value) : t.value;
+  }
+
+  quad(q: Quad, reject: (message: string) => void): void {
+    const w = this.w;
+    const s = this.node(q.subject);
     const p = q.predicate.value;
     const o = q.object;
-    ctx.tick(bytes);
     if (o.termType === "NamedNode" || o.termType === "BlankNode") {
-      const target = node(o);
+      const target = this.node(o);
       if (p === VOCABULARY.type) w.type(s, target);
       else if (p === VOCABULARY.subClassOf) w.subclass(s, target);
       else w.edge(s, p, target);
       return;
     }
     if (o.termType !== "Literal") {
-      ctx.error(file, line, `unsupported object term (${o.termType}); expected an IRI, a blank node or a literal`);
+      reject(`unsupported object term (${o.termType}); expected an IRI, a blank node or a literal`);
       return;
     }
     const value = o.value;
@@ -109,17 +127,17 @@ export function importRdf(ctx: LoadContext, file: string, format: "nt" | "ttl"):
     const dt = o.datatype.value;
     if (p === VOCABULARY.label || p === VOCABULARY.prefLabel || p === VOCABULARY.altLabel) {
       if (value.trim() === "") {
-        ctx.error(file, line, `empty label (${p === VOCABULARY.altLabel ? "skos:altLabel" : p === VOCABULARY.label ? "rdfs:label" : "skos:prefLabel"} of ${s} is "")`);
+        reject(`empty label (${p === VOCABULARY.altLabel ? "skos:altLabel" : p === VOCABULARY.label ? "rdfs:label" : "skos:prefLabel"} of ${s} is "")`);
         return;
       }
       if (p === VOCABULARY.altLabel) w.alias(s, value);
       else if (preferred(lang)) {
-        if (provisional.delete(s)) w.label(s, value, true);
+        if (this.provisional.delete(s)) w.label(s, value, true);
         else w.label(s, value);
       } else {
         const had = w.hasLabel(s);
         w.label(s, value);
-        if (!had) provisional.add(s);
+        if (!had) this.provisional.add(s);
       }
       return;
     }
@@ -128,6 +146,75 @@ export function importRdf(ctx: LoadContext, file: string, format: "nt" | "ttl"):
       return;
     }
     w.attribute(s, p, value, dt === XSD_STRING || dt === LANG_STRING ? null : dt, lang === "" ? null : lang);
+  }
+}
+
+/** Ends the quick N-Triples pass at its first problem of any kind. */
+class Restart extends Error {}
+
+/** Imports one N-Triples (`nt`) or Turtle (`ttl`) file. */
+export function importRdf(ctx: LoadContext, file: string, format: "nt" | "ttl"): void {
+  const names = new BlankNames(ctx.writer);
+  if (format === "nt" && readQuick(ctx, file, names)) return;
+  readTracked(ctx, file, format, names);
+}
+
+/**
+ * N-Triples without line tracking (n3 emits no token events, the dearest part of parsing):
+ * true when the whole file was read without a problem. At the first syntax error, rejected
+ * triple or bad line it stops and returns false, having reported nothing; the caller then
+ * reads the file again with {@link readTracked}, which finds and reports the same problems
+ * with their lines. What the quick pass wrote is rolled back with the failed load.
+ */
+function readQuick(ctx: LoadContext, file: string, names: BlankNames): boolean {
+  const mapper = new TripleMapper(ctx.writer, names);
+  const startStatements = ctx.statements;
+  const restart = (): never => {
+    throw new Restart();
+  };
+  let bytes = 0;
+  const src = new PushSource();
+  new Parser({ format: "N-Triples", blankNodePrefix: MARK }).parse(src as never, {
+    onQuad: (err: Error | null, q: Quad | null) => {
+      if (err) restart();
+      else if (q) {
+        ctx.tick(bytes);
+        mapper.quad(q, restart);
+      }
+    },
+  } as never);
+  try {
+    readBlocks(
+      file,
+      (block) => {
+        bytes = block.bytesRead;
+        src.push(block.text);
+      },
+      restart,
+    );
+    src.finish();
+    return true;
+  } catch (e) {
+    if (!(e instanceof Restart)) throw e;
+    ctx.statements = startStatements;
+    return false;
+  }
+}
+
+/**
+ * Reads a file with line tracking (n3's token events), reporting every problem at its line;
+ * N-Triples resumes after each bad line, Turtle stops at its first syntax error.
+ */
+function readTracked(ctx: LoadContext, file: string, format: "nt" | "ttl", names: BlankNames): void {
+  const mapper = new TripleMapper(ctx.writer, names);
+  let bytes = 0;
+  let line = 1;
+  let offset = 0; // added to the parser's line numbers (N-Triples resumes with a new parser)
+  let dead = false; // Turtle after a syntax error
+  const reject = (message: string): void => ctx.error(file, line, message);
+  const quad = (q: Quad): void => {
+    ctx.tick(bytes);
+    mapper.quad(q, reject);
   };
 
   const makeParser = (): PushSource => {
