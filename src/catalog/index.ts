@@ -2,6 +2,7 @@ export { Catalog, labelFromId } from "./store.js";
 export type { OpenOptions, TypeInfo, PredicateInfo, AttributeInfo, NeighbourInfo, EntityInfo, AliasHit, CatalogCounts, AttributeSummary } from "./store.js";
 export { CatalogWriter, literalNumber } from "./writer.js";
 export { normalize, tokens, stemToken, stemKey } from "./normalize.js";
+export { fnv1a32 } from "./intern.js";
 export { SCHEMA_VERSION } from "./schema.js";
 export { loadFiles, formatOf } from "./load.js";
 export type { LoadOptions, LoadReport, FileReport, ImportFormat, LoadProgress } from "./load.js";

@@ -20,16 +20,20 @@ export const DEFAULTS = {
   initialArena: 1 << 16,
 };
 
-const FNV_OFFSET = 0x811c9dc5 | 0;
-const FNV_PRIME = 0x01000193;
 /** Slot fields: hash (0 = empty), arena offset, key length, value. */
 const WIDTH = 4;
 const MAX_INT32 = 0x7fffffff;
 
-/** FNV-1a over UTF-16 code units, never 0 (0 marks an empty slot). */
+/** 32-bit FNV-1a (Fowler–Noll–Vo) of a string's UTF-16 code units, as a signed int32 (common practice). */
+export function fnv1a32(s: string): number {
+  let h = 0x811c9dc5 | 0;
+  for (let i = 0; i < s.length; i++) h = Math.imul(h ^ s.charCodeAt(i), 0x01000193);
+  return h;
+}
+
+/** The slot hash: FNV-1a, never 0 (0 marks an empty slot). */
 function hashOf(s: string): number {
-  let h = FNV_OFFSET;
-  for (let i = 0; i < s.length; i++) h = Math.imul(h ^ s.charCodeAt(i), FNV_PRIME);
+  const h = fnv1a32(s);
   return h === 0 ? 1 : h;
 }
 

@@ -336,22 +336,19 @@ export class CatalogWriter {
    * tables (the end-of-load steps) and at commit.
    */
   flush(): void {
-    this.entities.flush();
-    this.aliases.flush();
-    this.types.flush();
-    this.attributes.flush();
-    this.edges.flush();
+    for (const b of this.buffers()) b.flush();
     // whoever reads next may also delete rows: take the next num from the table again
     this.nextNum = 0;
   }
 
   private discardBuffers(): void {
-    this.entities.discard();
-    this.aliases.discard();
-    this.types.discard();
-    this.attributes.discard();
-    this.edges.discard();
+    for (const b of this.buffers()) b.discard();
     this.nextNum = 0;
+  }
+
+  /** The row buffers, entities first (the other tables' rows refer to entity nums). */
+  private buffers(): readonly { flush(): void; discard(): void }[] {
+    return [this.entities, this.aliases, this.types, this.attributes, this.edges];
   }
 
   /** A literal attribute. */

@@ -19,7 +19,7 @@
  */
 import { readFileSync, renameSync, writeFileSync, unlinkSync } from "node:fs";
 import type { Catalog } from "../catalog/index.js";
-import { stemToken, tokens } from "../catalog/index.js";
+import { fnv1a32, stemToken, tokens } from "../catalog/index.js";
 import { isStopWord } from "./stopwords.js";
 import { sortedIndexOf } from "./sorted-search.js";
 
@@ -31,12 +31,7 @@ export const NEIGHBOUR_DESCRIPTION_WEIGHT = 0.5;
 
 /** FNV-1a 32-bit hash of a string's UTF-16 code units (Fowler–Noll–Vo; common practice). */
 export function fnv1a(s: string): number {
-  let h = 0x811c9dc5;
-  for (let i = 0; i < s.length; i++) {
-    h ^= s.charCodeAt(i);
-    h = Math.imul(h, 0x01000193);
-  }
-  return (h | 1) >>> 0; // unsigned, never 0 (0 marks an empty slot)
+  return (fnv1a32(s) | 1) >>> 0; // unsigned, never 0 (0 marks an empty slot)
 }
 
 /** Open-addressing hash set of 32-bit hashes (linear probing). */

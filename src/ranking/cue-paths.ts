@@ -59,19 +59,16 @@ export function cueReach(index: RelationIndex, source: number, cues: readonly nu
   if (cues.length > MAX_CUES) throw new RangeError(`ranking/cue-paths: at most ${MAX_CUES} cued relations, got ${cues.length}`);
   if (!Number.isInteger(maxHops) || maxHops < 1) throw new RangeError(`ranking/cue-paths: maxHops must be a positive integer, got ${maxHops}`);
   const expect = options.expectInverse;
-  // per relation: the bits set when walked forwards, and when walked against the stored triple
-  const fwdBits = new Map<number, number>();
-  const invBits = new Map<number, number>();
+  // per relation r the cue bits it sets: relBits[2r] walked forwards, relBits[2r + 1] against the stored triple
+  const relBits = new Int32Array(2 * Math.max(index.relationCount, 1));
   cues.forEach((r, i) => {
+    if (!(r >= 0 && r < index.relationCount)) return;
     const good = 1 << (2 * i);
     const other = 1 << (2 * i + 1);
     const e = expect?.[i];
-    fwdBits.set(r, (fwdBits.get(r) ?? 0) | (e === true ? other : good));
-    invBits.set(r, (invBits.get(r) ?? 0) | (e === false ? other : good));
+    relBits[2 * r] |= e === true ? other : good;
+    relBits[2 * r + 1] |= e === false ? other : good;
   });
-  const relBits = new Int32Array(2 * Math.max(index.relationCount, 1));
-  for (const [r, b] of fwdBits) if (r >= 0 && r < index.relationCount) relBits[2 * r] = b;
-  for (const [r, b] of invBits) if (r >= 0 && r < index.relationCount) relBits[2 * r + 1] = b;
   // per node: its non-dominated masks as a linked list of entries (flat arrays), each with
   // the node it was entered from (−2: from two or more different nodes, so no step out of
   // it is a step straight back); the node → first entry map is a stamped scratch array
