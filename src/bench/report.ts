@@ -59,6 +59,7 @@ const ROWS: Row[] = [
   { label: "  with cue weights", target: "≥ 0.95", value: (r) => num(r, "ppr.agreementTop20Cues", 3) },
   { label: "igraph exact PPR per query, median (ms)", target: "", value: (r) => num(r, "ppr.igraph.ms.median", 0) },
   { label: "top-20 agreement with igraph", target: "≥ 0.95", value: (r) => num(r, "ppr.igraph.agreementTop20", 3) },
+  { label: "  with power iteration on igraph's queries / power iteration vs igraph", target: "", value: (r) => `${num(r, "ppr.igraph.agreementTop20PowerSameQueries", 3)} / ${num(r, "ppr.igraph.agreementPowerVsIgraph", 3)}` },
   { label: "speed-up over igraph (median)", target: "≥ 100× (L)", value: (r) => num(r, "ppr.igraph.speedup", 0) },
   { label: "power-law graph (no catalog): PPR median / p95 (ms)", target: "", value: (r) => `${num(r, "graph.fastMs.median", 2)} / ${num(r, "graph.fastMs.p95", 2)}` },
   { label: "  CPU time, median / p95 (ms)", target: "", value: (r) => `${num(r, "graph.fastCpuMs.median", 2)} / ${num(r, "graph.fastCpuMs.p95", 2)}` },

@@ -41,9 +41,23 @@ const HERE = dirname(fileURLToPath(import.meta.url));
 const ROOT = resolve(HERE, "../..");
 const CLI = join(ROOT, "dist/cli/main.js");
 
+const USAGE = `usage: npm run bench -- [--size S|M|L]… [--questions N] [--work DIR] [--out DIR] [--phases LIST]
+
+  --size S|M|L     catalog size(s), repeatable or comma-separated (default S,M):
+                   S 10,000 entities / 50,000 edges, M 100,000 / 500,000, L 1,000,000 / 5,000,000
+  --questions N    generated questions asked per size (default 200)
+  --work DIR       where generated catalogs, snapshots and igraph files go (default $TMPDIR/tiepoint-bench)
+  --out DIR        where the JSON and Markdown results go (default bench-results/)
+  --phases LIST    comma-separated subset of generate,load,index,ready,ask,ppr,graph
+                   (default all but graph; later phases reuse the work folder of earlier runs)
+
+The igraph columns need python3-igraph (apt-get install python3-igraph, or pip install igraph);
+they are skipped, and say so, when it is absent.
+`;
+
 function usage(msg: string): never {
-  process.stderr.write(`bench: ${msg}\nusage: npm run bench -- [--size S|M|L]… [--questions N] [--work DIR] [--out DIR]\n`);
-  process.exit(2);
+  process.stderr.write(`bench: ${msg}\n${USAGE}`);
+  process.exit(1);
 }
 
 function args(argv: readonly string[]) {
@@ -55,6 +69,10 @@ function args(argv: readonly string[]) {
   let phases = ["generate", "load", "index", "ready", "ask", "ppr"];
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
+    if (a === "--help" || a === "-h") {
+      process.stdout.write(USAGE);
+      process.exit(0);
+    }
     const next = () => argv[++i] ?? usage(`${a} needs a value`);
     if (a === "--size") for (const s of next().split(",")) {
       const u = s.trim().toUpperCase();
