@@ -65,6 +65,26 @@ describe("cueChains", () => {
     const a = analyze(q, linkOf(q, ["Notes on Ice", "Quay"]), model);
     const chains = cueChains(a);
     expect(chains.map((ch) => ch.steps.map((s) => relId(s.options[0]!.relation)))).toEqual([["r:wrote"], ["r:leads"]]);
+    expect(chains.every((ch) => ch.conjuncts === undefined)).toBe(true);
+  });
+
+  it("gives coordinated clues one shared pattern, directed from the group (rule 5)", () => {
+    const q = "Which person wrote a paper that cites both Notes on Ice and the Quay?";
+    const a = analyze(q, linkOf(q, ["Notes on Ice", "Quay"]), model);
+    const chains = cueChains(a);
+    // "cites" is nearest to the first conjunct only; the second takes it through the group
+    const shape = (ch: (typeof chains)[number]) => ch.steps.map((s) => [relId(s.options[0]!.relation), s.options[0]!.inverse]);
+    expect(shape(chains[0]!)).toEqual([["r:cites", true], ["r:wrote", true]]);
+    expect(shape(chains[1]!)).toEqual(shape(chains[0]!));
+    expect(chains.map((ch) => ch.conjuncts)).toEqual([[0, 1], [0, 1]]);
+    // the type noun between the two relation words ("a paper") types the middle node for both
+    expect(chains[1]!.steps[0]!.types).toEqual([cat.numOf("t:Paper")]);
+  });
+
+  it("keeps clues apart when a relation word stands between them, even with a conjunction", () => {
+    const q = "Which paper cites Notes on Ice or cites Quay?";
+    const chains = cueChains(analyze(q, linkOf(q, ["Notes on Ice", "Quay"]), model));
+    expect(chains.map((ch) => ch.conjuncts)).toEqual([undefined, undefined]);
   });
 });
 

@@ -23,6 +23,10 @@
  * aboard", "a *document* that cites") names the node between those hops, so the step
  * carries that type (the type nouns are found like the answer type: Porter-stem keys of
  * the catalog's type labels and aliases, {@link findTypeWords}).
+ * (5) coordinated clues — mentions joined only by a coordination ("borders both *A and B*",
+ * "*A, B or C*") are conjuncts of one noun phrase and fill the same slot of the sentence
+ * (Quirk et al. 1985, §13.1 ff., coordination of noun phrases), so each of them takes the
+ * steps attributed to any of them, ordered and directed from the group's span.
  * Pure string positions: no catalog names or words are involved.
  */
 import type { Analysis } from "./analyze.js";
@@ -41,6 +45,14 @@ export const DEFAULTS = { minScore: 0.75 } as const;
 
 /** Coordinating conjunctions and list punctuation (common practice: they join clauses of equal rank). */
 const COORDINATION = /\b(?:and|or|but|nor)\b|[,;]/i;
+
+/**
+ * The text between two conjoined noun phrases and nothing else: conjunctions, list
+ * punctuation, articles and the focusing "also" ("A, B and also the C"); at least one
+ * conjunction or comma.
+ */
+const CONJUNCT_GAP = /^(?:\s|,|;|&|\b(?:and|or|nor|as well as|also|the|a|an)\b)*$/i;
+const HAS_CONJUNCTION = /,|;|&|\b(?:and|or|nor|as well as)\b/i;
 
 /** One way to take a chain step: a relation and its stored direction. */
 export interface StepOption {
@@ -77,6 +89,11 @@ export interface CueChain {
   readonly clue: number;
   /** Hops out of the clue, nearest relation word first (may be empty). */
   readonly steps: readonly ChainStep[];
+  /**
+   * The clues coordinated with this one ("both A and B"), itself included, ascending; they
+   * share one pattern, which must hold from each of them. Absent when the clue stands alone.
+   */
+  readonly conjuncts?: readonly number[];
 }
 
 /**
@@ -115,20 +132,53 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
       perClue[best]!.set(p.start, list);
     }
   });
+  // (5) groups of coordinated clue mentions, in string order; each member takes the group's steps
+  const order = spans.map((_, c) => c).sort((a, b) => spans[a]!.start - spans[b]!.start || a - b);
+  const groupOf = spans.map((_, c) => [c]);
+  for (let k = 1; k < order.length; k++) {
+    const a = order[k - 1]!;
+    const b = order[k]!;
+    const gap = spans[a]!.end <= spans[b]!.start ? text.slice(spans[a]!.end, spans[b]!.start) : "";
+    if (gap !== "" && CONJUNCT_GAP.test(gap) && HAS_CONJUNCTION.test(gap)) {
+      const merged = [...groupOf[a]!, ...groupOf[b]!.filter((x) => !groupOf[a]!.includes(x))];
+      for (const x of merged) groupOf[x] = merged;
+    }
+  }
+  const groupSpan = groupOf.map((g) => ({ start: Math.min(...g.map((x) => spans[x]!.start)), end: Math.max(...g.map((x) => spans[x]!.end)) }));
+  const shared = perClue.map((own, c) => {
+    const g = groupOf[c]!;
+    if (g.length === 1) return own;
+    const all = new Map<number, StepOption[]>();
+    for (const x of g) {
+      for (const [at, opts] of perClue[x]!) {
+        const list = all.get(at) ?? [];
+        for (const o of opts) if (!list.some((y) => y.relation === o.relation && y.inverse === o.inverse)) list.push(o);
+        all.set(at, list);
+      }
+    }
+    return all;
+  });
+  // a group member's steps are ordered from the group's span (the coordination inside it costs nothing)
+  const groupDistance = (c: number, at: number) => {
+    if (groupOf[c]!.length === 1) return distance(c, at);
+    const s = groupSpan[c]!;
+    const d = at >= s.end ? at - s.end : at < s.start ? s.start - at : 0;
+    const gap = at >= s.end ? text.slice(s.end, at) : at < s.start ? text.slice(at, s.start) : "";
+    return COORDINATION.test(gap) ? d + 1e6 : d;
+  };
   const typeWords = analysis.typeWords ?? [];
-  return perClue.map((steps, c) => {
-    const ordered = [...steps.entries()].sort((a, b) => distance(c, a[0]) - distance(c, b[0]) || a[0] - b[0]);
-    return {
-      clue: c,
-      steps: ordered.map(([at, opts], i) => {
+  return shared.map((steps, c) => {
+    const ordered = [...steps.entries()].sort((a, b) => groupDistance(c, a[0]) - groupDistance(c, b[0]) || a[0] - b[0]);
+    const steps2 = ordered.map(([at, opts], i) => {
         // the node this hop reaches: a type noun strictly between this word and the next hop's
         const next = ordered[i + 1]?.[0];
         const lo = next === undefined ? at : Math.min(at, next);
         const hi = next === undefined ? at : Math.max(at, next);
         const types = [...new Set(typeWords.filter((t) => t.start > lo && t.start < hi).flatMap((t) => t.types))].sort((a, b) => a - b);
         return { at, options: [...opts].sort((x, y) => x.cue - y.cue), types };
-      }),
-    };
+      });
+    const g = groupOf[c]!;
+    return g.length > 1 ? { clue: c, steps: steps2, conjuncts: [...g].sort((a, b) => a - b) } : { clue: c, steps: steps2 };
   });
 }
 

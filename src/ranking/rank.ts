@@ -457,8 +457,17 @@ function chainFitOf(chains: readonly CueChain[], clues: readonly Clue[], weights
   const maxSteps = options.chainMaxSteps ?? DEFAULTS.chainMaxSteps;
   if (miss >= 1) return undefined;
   const hits = (set: Set<number> | null) => set !== null && [...set].some((v) => eligible.has(v));
-  const checks: { exact: Set<number>; loose: Set<number> | null; weight: number }[] = [];
+  const checks: { exact: Set<number>; loose: Set<number> | null; weight: number; group: number }[] = [];
+  // coordinated clues ("both A and B") share one pattern that must hold from each: one group
+  // (named by its first clue present here), whose factor is its members' minimum
+  const present = new Set(chains.map((ch) => ch.clue));
+  const groupOf = (ch: CueChain, c: number): number => {
+    const members = (ch.conjuncts ?? []).filter((x) => present.has(x));
+    if (members.length < 2) return -1 - c;
+    return chains.findIndex((x) => x.clue === members[0]);
+  };
   chains.forEach((ch, c) => {
+    const group = groupOf(ch, c);
     const clue = clues[c]!;
     if (ch.steps.length === 0 || ch.steps.length > maxSteps || !(clue.node >= 0 && clue.node < index.nodeCount)) return;
     const hops = ch.steps.map((st) => st.options);
@@ -470,15 +479,30 @@ function chainFitOf(chains: readonly CueChain[], clues: readonly Clue[], weights
     const typedExact = typed ? chainReach(index, clue.node, hops, { ...base, directed: true, keep }) : null;
     const exact = chainReach(index, clue.node, hops, { ...base, directed: true });
     const undirected = chainReach(index, clue.node, hops, { ...base, directed: false });
-    if (hits(typedExact)) checks.push({ exact: typedExact!, loose: exact, weight: weights[c]! });
-    else if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]! });
-    else if (hits(undirected)) checks.push({ exact: undirected!, loose: null, weight: weights[c]! });
+    if (hits(typedExact)) checks.push({ exact: typedExact!, loose: exact, weight: weights[c]!, group });
+    else if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]!, group });
+    else if (hits(undirected)) checks.push({ exact: undirected!, loose: null, weight: weights[c]!, group });
   });
   if (checks.length === 0) return undefined;
   const total = checks.reduce((a, ch) => a + ch.weight, 0);
+  if (checks.every((ch) => ch.group < 0)) {
+    return (v) => {
+      let log = 0;
+      for (const ch of checks) log += (ch.weight / total) * Math.log(ch.exact.has(v) ? 1 : ch.loose?.has(v) ? loose : miss);
+      return Math.exp(log);
+    };
+  }
+  // groups: weight = the members' total, factor = the members' minimum
+  const groups = new Map<number, typeof checks>();
+  for (const ch of checks) groups.set(ch.group, [...(groups.get(ch.group) ?? []), ch]);
+  const list = [...groups.values()].map((members) => ({ members, weight: members.reduce((a, ch) => a + ch.weight, 0) }));
   return (v) => {
     let log = 0;
-    for (const ch of checks) log += (ch.weight / total) * Math.log(ch.exact.has(v) ? 1 : ch.loose?.has(v) ? loose : miss);
+    for (const g of list) {
+      let f = 1;
+      for (const ch of g.members) f = Math.min(f, ch.exact.has(v) ? 1 : ch.loose?.has(v) ? loose : miss);
+      log += (g.weight / total) * Math.log(f);
+    }
     return Math.exp(log);
   };
 }

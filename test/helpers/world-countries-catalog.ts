@@ -1,8 +1,9 @@
 /**
  * A catalog generated from the `world-countries` npm package 5.1.0 (mledoze/countries, ODbL):
  * countries (cca3 ids, common name as label, official name as alias), land borders
- * (`borders`, cca3 codes) as `r:borders` edges and subregions as `r:locatedIn` edges, written
- * as JSONL in the project's documented layout. Used by test/world-countries.test.ts.
+ * (`borders`, cca3 codes) as `r:borders` edges, subregions as `r:locatedIn` edges and capitals
+ * (`capital`, names) as city entities with `r:capital` edges, written as JSONL in the project's
+ * documented layout. Used by test/world-countries.test.ts.
  */
 import { createRequire } from "node:module";
 
@@ -13,6 +14,7 @@ export interface Country {
   readonly borders: readonly string[];
   readonly region: string;
   readonly subregion: string;
+  readonly capital?: readonly string[];
 }
 
 const require = createRequire(import.meta.url);
@@ -24,8 +26,10 @@ export function catalogLines(): string[] {
   const lines: object[] = [
     { kind: "type", id: "t:Country", label: "country", aliases: ["nation"] },
     { kind: "type", id: "t:Region", label: "region", aliases: ["subregion"] },
+    { kind: "type", id: "t:City", label: "city", aliases: ["town"] },
     { kind: "relation", id: "r:borders", label: "borders", aliases: ["shares a border with", "neighbour of", "adjacent to"] },
     { kind: "relation", id: "r:locatedIn", label: "located in", aliases: ["part of", "lies in"] },
+    { kind: "relation", id: "r:capital", label: "capital", aliases: ["capital city", "seat of government"] },
   ];
   const regions = new Set<string>();
   for (const c of countries) if (c.subregion) regions.add(c.subregion);
@@ -38,13 +42,25 @@ export function catalogLines(): string[] {
       types: ["t:Country"],
       attributes: { "iso code": c.cca3 },
     });
+    capitalsOf(c).forEach((name, i) => lines.push({ id: capitalId(c, i), label: name, types: ["t:City"] }));
   }
   for (const c of countries) {
     // each land border is listed by both countries in the dataset; both statements are kept
     for (const b of c.borders) lines.push({ kind: "edge", subject: `c:${c.cca3}`, relation: "r:borders", object: `c:${b}` });
     if (c.subregion) lines.push({ kind: "edge", subject: `c:${c.cca3}`, relation: "r:locatedIn", object: `g:${c.subregion}` });
+    capitalsOf(c).forEach((_, i) => lines.push({ kind: "edge", subject: `c:${c.cca3}`, relation: "r:capital", object: capitalId(c, i) }));
   }
   return lines.map((l) => JSON.stringify(l));
+}
+
+/** The dataset's capitals of a country (none for a few territories, three for South Africa). */
+export function capitalsOf(c: Country): readonly string[] {
+  return (c.capital ?? []).filter((x) => x.trim() !== "");
+}
+
+/** The catalog id of a country's i-th capital. */
+export function capitalId(c: Country, i: number): string {
+  return `city:${c.cca3}:${String(i)}`;
 }
 
 /**
