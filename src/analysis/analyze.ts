@@ -14,6 +14,7 @@ import type { EntityRef } from "../model/index.js";
 import { detectAnswerType, type AnswerTypeOptions, type AnswerTypeSource } from "./answer-type.js";
 import type { QuestionModel } from "./question-model.js";
 import { relationCues, type RelationCue, type RelationCueOptions } from "./relation-cues.js";
+import { relationalAnswerType, type RelationRangeOptions } from "./relation-range.js";
 import { isFunctionWord, words } from "./words.js";
 import { findTypeWords, type TypeWord } from "./cue-chains.js";
 
@@ -59,6 +60,8 @@ export interface AnalyzeOptions {
   readonly modifierWeight?: number;
   readonly answerType?: AnswerTypeOptions;
   readonly relationCues?: RelationCueOptions;
+  /** Options of the relational head-noun typing (relation-range.ts). */
+  readonly relationRange?: RelationRangeOptions;
 }
 
 /** Defaults of {@link AnalyzeOptions}. */
@@ -134,9 +137,25 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
   }
   if (clues.length === 0) notes.push("no clue entity linked: nothing to start from");
 
-  const answerTypes: AnswerType[] = at.types.map((t) => {
+  // a head noun naming a relation, not a type: the answer is typed like that relation's far end
+  let typeNums = at.types;
+  let typeSource = at.source;
+  if (typeNums.length === 0 && at.source === "none" && at.headPhrase) {
+    const r = relationalAnswerType(ws, at.headPhrase, cues, clues.map((c) => c.node), model, options.relationRange);
+    if (r) {
+      typeNums = r.types;
+      typeSource = "relation";
+      const labels = r.types.map((t) => model.typeByNum.get(t)?.label ?? String(t)).join(", ");
+      const which = r.end === "object" ? "objects" : r.end === "subject" ? "subjects" : "ends";
+      const k = notes.indexOf(at.notes[0] ?? "");
+      const note = `"${r.cue.words.join(" ")}" names the relation ${r.cue.label}: answers expected of the types of its ${which} (${labels})`;
+      if (k >= 0) notes[k] = note;
+      else notes.push(note);
+    }
+  }
+  const answerTypes: AnswerType[] = typeNums.map((t) => {
     const mt = model.typeByNum.get(t)!;
     return { num: t, id: mt.id, label: mt.label };
   });
-  return { question, mentions: link.mentions, answerTypes, answerTypeSource: at.source, relationCues: cues, clues, notes, typeWords };
+  return { question, mentions: link.mentions, answerTypes, answerTypeSource: typeSource, relationCues: cues, clues, notes, typeWords };
 }

@@ -28,7 +28,7 @@ export interface AnswerTypeOptions {
 export const DEFAULTS = { window: 6, maxModifiers: 2 } as const;
 
 /** How the answer type was found. */
-export type AnswerTypeSource = "head-noun" | "who" | "where" | "none";
+export type AnswerTypeSource = "head-noun" | "who" | "where" | "relation" | "none";
 
 /** The detected answer type. */
 export interface AnswerTypeResult {
@@ -38,6 +38,8 @@ export interface AnswerTypeResult {
   /** Indexes (into the word list) of the words used as the head noun phrase or wh-word. */
   readonly usedWords: readonly number[];
   readonly notes: readonly string[];
+  /** Indexes of the head noun phrase's words when it named no type (a relational noun may stand there: "the *capital* of"). */
+  readonly headPhrase?: readonly number[];
 }
 
 const WH_WHICH = new Set(["which", "what"]);
@@ -104,6 +106,7 @@ export function detectAnswerType(ws: readonly Word[], blocked: readonly boolean[
     source: "none",
     usedWords: [wh],
     notes: [np === "" ? "no head noun after the question word: no answer-type filter" : `"${np}" names no type of the catalog: no answer-type filter`],
+    headPhrase: phrase,
   };
 }
 

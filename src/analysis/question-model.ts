@@ -20,12 +20,24 @@ import type { EntityRef } from "../model/index.js";
 import { isFunctionWord } from "./words.js";
 
 /** Options of {@link buildQuestionModel}; all optional. */
+/** The direct types at the ends of each relation, with counts (the relation index's `relationEnds()`). */
+export interface RelationEndTypes {
+  /** Types at the subject end (`object` false) or the object end of `rel`, most frequent first. */
+  types(rel: number, object: boolean): readonly { readonly type: number; readonly count: number }[];
+  /** Stored edges of `rel`. */
+  edges(rel: number): number;
+}
+
 export interface QuestionModelOptions {
   /**
    * Edge count per predicate num (index = num). When given, predicates with no edges
    * (attribute names) are left out of the relation vocabulary. @default all predicates
    */
   readonly relationEdgeCounts?: ArrayLike<number>;
+  /** Types at the relations' ends, asked for on first use; without it a relational head noun sets no answer type. */
+  readonly relationEnds?: () => RelationEndTypes;
+  /** Direct type nums of an entity (to tell which end of a relation the clues stand at). */
+  readonly typesOf?: (num: number) => readonly number[];
 }
 
 /** A type of the catalog as question analysis sees it. */
@@ -69,6 +81,10 @@ export interface QuestionModel {
    * such words of a question are matched against relations after all. @default none
    */
   readonly functionCueStems?: ReadonlySet<string>;
+  /** See {@link QuestionModelOptions.relationEnds}. */
+  readonly relationEnds?: () => RelationEndTypes;
+  /** See {@link QuestionModelOptions.typesOf}. */
+  readonly typesOf?: (num: number) => readonly number[];
 }
 
 /** General English words for people (common practice; no catalog names). */
@@ -177,5 +193,12 @@ export function buildQuestionModel(cat: Catalog, options: QuestionModelOptions =
     }
     relations.push({ num: p.num, id: p.id, label: p.label, surfaces });
   }
-  return { types, typeByNum, typesByKey, maxTypeWords, relations, personTypes, organisationTypes, agentTypes, placeTypes, functionCueStems };
+  let ends: RelationEndTypes | undefined;
+  const source = options.relationEnds;
+  const relationEnds = source ? () => (ends ??= source()) : undefined;
+  return {
+    types, typeByNum, typesByKey, maxTypeWords, relations, personTypes, organisationTypes, agentTypes, placeTypes, functionCueStems,
+    ...(relationEnds ? { relationEnds } : {}),
+    ...(options.typesOf ? { typesOf: options.typesOf } : {}),
+  };
 }

@@ -107,7 +107,7 @@ export class Session {
       progress?.({ phase: "linker" });
       const linker = Linker.fromCatalog(catalog);
       progress?.({ phase: "model" });
-      const model = buildQuestionModel(catalog, { relationEdgeCounts: index.relationEdgeCounts() });
+      const model = buildQuestionModel(catalog, { relationEdgeCounts: index.relationEdgeCounts(), relationEnds: () => index.relationEnds(), typesOf: (n) => index.typesOf(n) });
       progress?.({ phase: "ready" });
       return new Session(catalog, index, linker, model, options.rank ?? {});
     } catch (e) {

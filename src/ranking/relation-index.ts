@@ -276,6 +276,94 @@ export class RelationIndex {
     return out;
   }
 
+  #ends: RelationEnds | undefined;
+  #endTable: RelationEndTable | undefined;
+
+  /**
+   * The direct types found at each end of each relation, with counts ({@link endTable}),
+   * grouped for lookup. Used to type the answer of a question whose head noun names a
+   * relation ("what is the *capital* of …": the types at the far end of `capital`).
+   */
+  relationEnds(): RelationEnds {
+    if (this.#ends) return this.#ends;
+    const t = this.endTable();
+    const R = t.totals.length / 2;
+    const out: RelationEnd[][] = Array.from({ length: R * 2 }, () => []);
+    for (let i = 0; i < t.keys.length; i++) out[t.keys[i]!]!.push({ type: t.types[i]!, count: t.counts[i]! });
+    const ends: RelationEnds = {
+      types: (rel, object) => (rel >= 0 && rel < R ? out[rel * 2 + (object ? 1 : 0)]! : []),
+      edges: (rel) => (rel >= 0 && rel < R ? t.totals[rel * 2]! : 0),
+    };
+    this.#ends = ends;
+    return ends;
+  }
+
+  /**
+   * The flat table behind {@link relationEnds}: one pass over the adjacency entries (each
+   * stored edge is seen once from each end), counting the direct types of the node at that
+   * end; computed on first use (≈ 0.2 s at 10 million entries) unless a snapshot supplied it.
+   * @internal (snapshot.ts stores it)
+   */
+  endTable(): RelationEndTable {
+    if (this.#endTable) return this.#endTable;
+    const c = this.#c;
+    const n = this.nodeCount;
+    const R = Math.max(c.relationCount, 1);
+    const slotOf = new Map<number, number>();
+    const typeNums: number[] = [];
+    for (let i = 0; i < c.typeList.length; i++) {
+      const t = c.typeList[i]!;
+      if (!slotOf.has(t)) {
+        slotOf.set(t, typeNums.length);
+        typeNums.push(t);
+      }
+    }
+    const T = Math.max(typeNums.length, 1);
+    const cells = R * 2 * T;
+    const dense = cells <= 8_000_000 ? new Float64Array(cells) : null;
+    const sparse = dense ? null : new Map<number, number>();
+    const totals = new Float64Array(R * 2);
+    const slots: number[] = [];
+    for (let u = 0; u < n; u++) {
+      const start = c.offsets[u]!;
+      const end = c.offsets[u + 1]!;
+      if (start === end) continue;
+      // links = rel·2 + (1 when u is the stored object): the end u stands at
+      for (let e = start; e < end; e++) totals[c.links[e]!]!++;
+      const t0 = c.typeOffsets[u]!;
+      const t1 = c.typeOffsets[u + 1]!;
+      if (t0 === t1) continue;
+      slots.length = 0;
+      for (let i = t0; i < t1; i++) slots.push(slotOf.get(c.typeList[i]!)!);
+      for (let e = start; e < end; e++) {
+        const base = c.links[e]! * T;
+        for (const sl of slots) {
+          if (dense) dense[base + sl]!++;
+          else sparse!.set(base + sl, (sparse!.get(base + sl) ?? 0) + 1);
+        }
+      }
+    }
+    const rows: [number, number, number][] = [];
+    if (dense) {
+      for (let i = 0; i < dense.length; i++) if (dense[i]! > 0) rows.push([Math.floor(i / T), typeNums[i % T]!, dense[i]!]);
+    } else for (const [cell, count] of sparse!) rows.push([Math.floor(cell / T), typeNums[cell % T]!, count]);
+    rows.sort((a, b) => a[0] - b[0] || b[2] - a[2] || a[1] - b[1]);
+    const table: RelationEndTable = {
+      totals,
+      keys: Int32Array.from(rows, (r) => r[0]),
+      types: Int32Array.from(rows, (r) => r[1]),
+      counts: Float64Array.from(rows, (r) => r[2]),
+    };
+    this.#endTable = table;
+    return table;
+  }
+
+  /** Adopts a table read from a snapshot (its shape checked by the caller). @internal */
+  adoptEndTable(table: RelationEndTable): void {
+    this.#endTable = table;
+    this.#ends = undefined;
+  }
+
   /** True when one of `u`'s direct types, or one of their supertypes, is in `typeSet`. */
   isA(u: number, typeSet: ReadonlySet<number>): boolean {
     const c = this.#c;
@@ -285,6 +373,32 @@ export class RelationIndex {
     }
     return false;
   }
+}
+
+/** One direct type at one end of a relation, and how many of its edges have it there. */
+export interface RelationEnd {
+  readonly type: number;
+  readonly count: number;
+}
+
+/**
+ * Flat form of {@link RelationEnds}: `totals[rel·2 + end]` adjacency entries per relation end
+ * (end 0 = subject, 1 = object); rows (`keys[i]` = rel·2 + end, `types[i]`, `counts[i]`)
+ * sorted by key, then count descending, then type.
+ */
+export interface RelationEndTable {
+  readonly totals: Float64Array;
+  readonly keys: Int32Array;
+  readonly types: Int32Array;
+  readonly counts: Float64Array;
+}
+
+/** Direct types at the ends of every relation ({@link RelationIndex.relationEnds}). */
+export interface RelationEnds {
+  /** Types at the subject end (`object` false) or the object end of `rel`, most frequent first. */
+  types(rel: number, object: boolean): readonly RelationEnd[];
+  /** Stored edges of `rel`. */
+  edges(rel: number): number;
 }
 
 /** Count pass then fill pass over flat (src, rel, dst) buffers. */

@@ -96,6 +96,35 @@ describe("openIndex and the PATH.idx snapshot", () => {
     }
   });
 
+  it("stores the relation-end type table: equal to SQLite's own count of types per relation end", () => {
+    const cat = freshCatalog("e.db");
+    try {
+      openIndex(cat);
+      const read = readSnapshot(snapshotPath(cat.path), cat.version());
+      expect(read.ok).toBe(true);
+      if (!read.ok) return;
+      const fresh = openIndex(cat, { noSnapshot: true }).endTable();
+      const stored = read.index.endTable();
+      for (const k of ["totals", "keys", "types", "counts"] as const) expect(Array.from(stored[k])).toEqual(Array.from(fresh[k]));
+      // the reference: GROUP BY over the catalog's edge and entity_type tables (subject end, then object end)
+      const sql = cat.db
+        .prepare(
+          `SELECT rel * 2 AS k, t.type AS type, COUNT(*) AS n FROM edge e JOIN entity_type t ON t.entity = e.src GROUP BY rel, t.type
+           UNION ALL SELECT rel * 2 + 1, t.type, COUNT(*) FROM edge e JOIN entity_type t ON t.entity = e.dst GROUP BY rel, t.type
+           ORDER BY 1, 3 DESC, 2`,
+        )
+        .all() as { k: number; type: number; n: number }[];
+      expect(sql.length).toBeGreaterThan(0);
+      expect(Array.from(stored.keys).map((key, i) => [key, stored.types[i], stored.counts[i]])).toEqual(sql.map((r) => [r.k, r.type, r.n]));
+      // the two memberOf edges end at the lab: its object end is typed lab twice
+      const memberOf = cat.db.prepare("SELECT num FROM predicate WHERE id = 'r:memberOf'").get() as { num: number };
+      expect(read.index.relationEnds().types(memberOf.num, true)).toEqual([{ type: cat.numOf("t:Lab"), count: 2 }]);
+      expect(read.index.relationEnds().edges(memberOf.num)).toBe(2);
+    } finally {
+      cat.close();
+    }
+  });
+
   it("rejects a stale snapshot after a load and rebuilds it with the new edges", () => {
     const cat = freshCatalog("b.db");
     try {

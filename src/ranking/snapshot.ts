@@ -12,7 +12,7 @@
  *
  *   offset size  field
  *   0      8     magic "TPRIDX\0\1"
- *   8      4     format version (u32, = 1)
+ *   8      4     format version (u32, = 3)
  *   12     4     header length in bytes (u32, = 128)
  *   16     8     catalog generation (f64)
  *   24     4     nodeCount n (u32)
@@ -24,13 +24,16 @@
  *   48     8     total file length in bytes (f64)
  *   56     4     uid length in bytes (u32, ≤ 64)
  *   60     64    catalog uid (UTF-8, zero padded)
- *   124    4     reserved (0)
+ *   124    4     rows k of the relation-end type table (u32)
  *   128          offsets u32[n+1], targets i32[m], links u32[m], typeOffsets u32[n+1],
  *                typeList i32[types], superOffsets u32[n+1], superList i32[subtypes],
  *                then the walk tables (transition.ts `WalkTables`) at the default hub
  *                exponent: β f64, hub f64[n], rowTotal f64[n], measure f64[n],
  *                scaled f64[m], hubAt f64[m] — so a query process does not rebuild them
- *                (about 0.8 s at 1,000,000 nodes / 5,000,000 edges)
+ *                (about 0.8 s at 1,000,000 nodes / 5,000,000 edges); then the
+ *                relation-end type table (relation-index.ts `RelationEndTable`, about
+ *                0.2 s to count at that size): totals f64[2·max(relationCount, 1)],
+ *                keys i32[k], types i32[k], counts f64[k]
  *
  * Writing goes to a temporary file in the same folder, fsync, then rename over `PATH.idx`
  * (atomic on POSIX), so a reader sees the old file or the new one, never half of one.
@@ -42,13 +45,13 @@ import { closeSync, fstatSync, fsyncSync, openSync, readSync, renameSync, unlink
 import { endianness } from "node:os";
 import * as zlib from "node:zlib";
 import type { Catalog } from "../catalog/index.js";
-import { RelationIndex, csrOf, type Csr, type IndexProgressFn } from "./relation-index.js";
+import { RelationIndex, csrOf, type Csr, type IndexProgressFn, type RelationEndTable } from "./relation-index.js";
 import { adoptWalkTables, walkTables, DEFAULTS as TRANSITION_DEFAULTS, type WalkTables } from "./transition.js";
 
 /** Snapshot format constants. */
 export const SNAPSHOT = Object.freeze({
   magic: "TPRIDX\u0000\u0001",
-  version: 2,
+  version: 3,
   headerLength: 128,
   /** File name suffix beside the catalog. */
   suffix: ".idx",
@@ -86,15 +89,16 @@ export type SnapshotRead = { readonly ok: true; readonly index: RelationIndex } 
 
 const align8 = (x: number) => (x + 7) & ~7;
 
-function sections(c: Csr, w: WalkTables): ArrayBufferView[] {
-  return [c.offsets, c.targets, c.links, c.typeOffsets, c.typeList, c.superOffsets, c.superList, new Float64Array([w.hubExponent]), w.hub, w.rowTotal, w.measure, w.scaled, w.hubAt];
+function sections(c: Csr, w: WalkTables, e: RelationEndTable): ArrayBufferView[] {
+  return [c.offsets, c.targets, c.links, c.typeOffsets, c.typeList, c.superOffsets, c.superList, new Float64Array([w.hubExponent]), w.hub, w.rowTotal, w.measure, w.scaled, w.hubAt, e.totals, e.keys, e.types, e.counts];
 }
 
 /** Writes the snapshot of `index` for the catalog stamp `(uid, generation)` atomically to `file`. */
 export function writeSnapshot(file: string, index: RelationIndex, stamp: { uid: string; generation: number }): void {
   if (endianness() !== "LE") throw new RangeError("ranking/snapshot: snapshots are little-endian; this machine is big-endian");
   const c = csrOf(index);
-  const parts = sections(c, walkTables(index, TRANSITION_DEFAULTS.hubExponent));
+  const ends = index.endTable();
+  const parts = sections(c, walkTables(index, TRANSITION_DEFAULTS.hubExponent), ends);
   let length = SNAPSHOT.headerLength;
   for (const p of parts) length += align8(p.byteLength);
   const header = Buffer.alloc(SNAPSHOT.headerLength);
@@ -112,6 +116,7 @@ export function writeSnapshot(file: string, index: RelationIndex, stamp: { uid: 
   if (uid.length > 64) throw new RangeError("ranking/snapshot: catalog uid longer than 64 bytes");
   header.writeUInt32LE(uid.length, 56);
   uid.copy(header, 60);
+  header.writeUInt32LE(ends.keys.length, 124);
   const pad = new Uint8Array(8);
   let crc = 0;
   for (const p of parts) {
@@ -179,7 +184,9 @@ export function readSnapshot(file: string, stamp: { uid: string; generation: num
     const nt = header.readUInt32LE(36);
     const ns = header.readUInt32LE(40);
     const expected = header.readDoubleLE(48);
-    const lengths = [4 * (n + 1), 4 * m, 4 * m, 4 * (n + 1), 4 * nt, 4 * (n + 1), 4 * ns, 8, 8 * n, 8 * n, 8 * n, 8 * m, 8 * m];
+    const k = header.readUInt32LE(124);
+    const R = Math.max(relationCount, 1);
+    const lengths = [4 * (n + 1), 4 * m, 4 * m, 4 * (n + 1), 4 * nt, 4 * (n + 1), 4 * ns, 8, 8 * n, 8 * n, 8 * n, 8 * m, 8 * m, 16 * R, 4 * k, 4 * k, 8 * k];
     let length = SNAPSHOT.headerLength;
     for (const l of lengths) length += align8(l);
     if (length !== expected || size !== expected) return { ok: false, reason: "torn", detail: `file has ${size} bytes, its header promises ${expected} (arrays need ${length})` };
@@ -222,8 +229,14 @@ export function readSnapshot(file: string, stamp: { uid: string; generation: num
       scaled: take(f64, lengths[11]!),
       hubAt: take(f64, lengths[12]!),
     };
+    const ends: RelationEndTable = { totals: take(f64, lengths[13]!), keys: take(i32, lengths[14]!), types: take(i32, lengths[15]!), counts: take(f64, lengths[16]!) };
+    for (let i = 0; i < k; i++) {
+      const key = ends.keys[i]!;
+      if (!(key >= 0 && key < 2 * R) || (i > 0 && key < ends.keys[i - 1]!)) return { ok: false, reason: "torn", detail: "relation-end table out of order" };
+    }
     const index = new RelationIndex(csr);
     adoptWalkTables(index, walk);
+    index.adoptEndTable(ends);
     return { ok: true, index };
   } finally {
     closeSync(fd);

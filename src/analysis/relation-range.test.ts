@@ -1,0 +1,102 @@
+/**
+ * Relational head nouns (relation-range.ts): the answer type read from the types found at
+ * the far end of the relation the head noun names. A small catalog written through
+ * CatalogWriter into in-memory SQLite, the real relation index (its end-type table) and the
+ * real question model; link results built by hand so the analysis is tested alone. Expected
+ * types are hand-derived from the rule in the file header (invented data).
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { Catalog, CatalogWriter } from "../catalog/index.js";
+import type { LinkResult, LinkedMention } from "../linking/index.js";
+import { RelationIndex } from "../ranking/index.js";
+import { analyze, buildQuestionModel, type QuestionModel } from "./index.js";
+
+let cat: Catalog;
+let model: QuestionModel;
+
+beforeAll(() => {
+  cat = Catalog.open(":memory:", { create: true });
+  const w = new CatalogWriter(cat);
+  w.begin();
+  for (const [id, label] of [["t:Realm", "realm"], ["t:Town", "town"], ["t:Port", "port town"], ["t:Coin", "coin"], ["t:Noble", "noble"]] as const) w.label(id, label);
+  w.subclass("t:Port", "t:Town");
+  w.predicateLabel("r:seat", "seat");
+  w.predicateLabel("r:ruler", "ruler");
+  w.predicateLabel("r:coin", "coin");
+  w.predicateLabel("r:neighbour", "neighbour");
+  const realms = ["Avenmark", "Brisca", "Coldhollow", "Dunmere"];
+  realms.forEach((r, i) => {
+    w.label(`x:${r}`, r);
+    w.type(`x:${r}`, "t:Realm");
+    const town = `x:${r}-seat`;
+    w.label(town, `${r} Keep`);
+    w.type(town, i === 0 ? "t:Port" : "t:Town");
+    w.edge(`x:${r}`, "r:seat", town);
+    w.label(`x:${r}-lord`, `Lord of ${r}`);
+    w.type(`x:${r}-lord`, "t:Noble");
+    w.edge(`x:${r}-lord`, "r:ruler", `x:${r}`);
+    w.label(`x:${r}-coin`, `${r} mark`);
+    w.type(`x:${r}-coin`, "t:Coin");
+    w.edge(`x:${r}`, "r:coin", `x:${r}-coin`);
+    if (i > 0) w.edge(`x:${r}`, "r:neighbour", `x:${realms[i - 1]!}`);
+  });
+  w.commit();
+  const index = RelationIndex.fromCatalog(cat);
+  model = buildQuestionModel(cat, { relationEdgeCounts: index.relationEdgeCounts(), relationEnds: () => index.relationEnds(), typesOf: (n) => index.typesOf(n) });
+});
+afterAll(() => cat.close());
+
+function linkOf(question: string, labels: readonly string[]): LinkResult {
+  const mentions: LinkedMention[] = labels.map((label) => {
+    const start = question.indexOf(label);
+    const num = cat.byLabelOrId(label)[0]!;
+    const ref = cat.ref(num);
+    return { text: label, start, end: start + label.length, entity: { id: ref.id, label: ref.label }, confidence: 0.95, alternatives: [], num };
+  });
+  return { mentions, unlinked: [] };
+}
+
+const ids = (a: ReturnType<typeof analyze>) => a.answerTypes.map((t) => t.id).sort();
+
+describe("relationalAnswerType, through analyze", () => {
+  it("types the answer like the relation's objects when the clue stands at its subject end", () => {
+    const q = "What is the seat of Brisca?";
+    const a = analyze(q, linkOf(q, ["Brisca"]), model);
+    expect(a.answerTypeSource).toBe("relation");
+    // one port town and three towns at the object end of "seat": both direct types
+    expect(ids(a)).toEqual(["t:Port", "t:Town"]);
+    expect(a.notes.join(" ")).toMatch(/names the relation seat: answers expected of the types of its objects/);
+    expect(a.notes.join(" ")).not.toMatch(/names no type/);
+  });
+
+  it("takes the subject end when the clue stands at the object end (noble —ruler→ realm)", () => {
+    const q = "What is the ruler of Dunmere?";
+    const a = analyze(q, linkOf(q, ["Dunmere"]), model);
+    expect(ids(a)).toEqual(["t:Noble"]);
+    expect(a.notes.join(" ")).toMatch(/types of its subjects/);
+  });
+
+  it("keeps the types of both ends when the clue's type is at both (a relation between realms)", () => {
+    const q = "What is the neighbour of Coldhollow?";
+    const a = analyze(q, linkOf(q, ["Coldhollow"]), model);
+    expect(ids(a)).toEqual(["t:Realm"]);
+    expect(a.notes.join(" ")).toMatch(/types of its ends/);
+  });
+
+  it("leaves a type-naming head noun alone, and sets nothing for a head noun that names neither", () => {
+    const typed = "Which town is the seat of Avenmark?";
+    expect(analyze(typed, linkOf(typed, ["Avenmark"]), model).answerTypeSource).toBe("head-noun");
+    const neither = "What is the weather of Avenmark?";
+    const a = analyze(neither, linkOf(neither, ["Avenmark"]), model);
+    expect(a.answerTypes).toEqual([]);
+    expect(a.notes.join(" ")).toMatch(/names no type/);
+  });
+
+  it("sets nothing without the relation-end table (a model built without an index)", () => {
+    const bare = buildQuestionModel(cat);
+    const q = "What is the seat of Brisca?";
+    const a = analyze(q, linkOf(q, ["Brisca"]), bare);
+    expect(a.answerTypes).toEqual([]);
+    expect(a.answerTypeSource).toBe("none");
+  });
+});

@@ -1,0 +1,72 @@
+/**
+ * Answer type from a relational head noun: the range of the relation it names.
+ *
+ * Method: when the question's head noun names no type but a relation ("what is the
+ * *capital* of …", "which *home port* does …"), the answer stands at one end of that
+ * relation, so its type is that end's type — the relation's range or domain in RDF Schema
+ * terms (RDF Schema 1.1, W3C 2014, §3.6 rdfs:range, §3.5 rdfs:domain), here estimated from
+ * the catalog's own edges instead of declared: the direct types found at that end on at
+ * least `minShare` of the relation's edges. Which end: the one the clues do not stand at —
+ * when some clue's type (or a supertype) is found at one end only, the answer is at the
+ * other; otherwise (both ends alike, as in "borders", or no clue typed) the types of both
+ * ends are kept. The ranking's type filter follows subtypes and falls back to every type
+ * when nothing typed is reachable, so a wrong estimate cannot empty the answers.
+ * (Using the relation's target types as the answer type is common practice in question
+ * answering over knowledge bases.)
+ */
+import type { QuestionModel } from "./question-model.js";
+import type { RelationCue } from "./relation-cues.js";
+import type { Word } from "./words.js";
+
+/** Options of {@link relationalAnswerType}; all optional. */
+export interface RelationRangeOptions {
+  /** A type counts at a relation end when at least this share of the relation's edges have it there. @default 0.02 */
+  readonly minShare?: number;
+  /** Smallest cue match score of the head noun. @default 0.75 */
+  readonly minScore?: number;
+}
+
+/** Defaults of {@link RelationRangeOptions}. */
+export const DEFAULTS = { minShare: 0.02, minScore: 0.75 } as const;
+
+/** The answer type read from a relational head noun. */
+export interface RelationalType {
+  /** Type nums, ascending. */
+  readonly types: readonly number[];
+  /** The relation cue the head noun matched. */
+  readonly cue: RelationCue;
+  /** Which end of the relation the answer is taken at. */
+  readonly end: "object" | "subject" | "either";
+}
+
+/**
+ * The answer type named by a relation in the head noun phrase (`headPhrase`: word indexes),
+ * or undefined when no cue stands there or the catalog has no types at its ends. `clueNodes`:
+ * entity nums of the question's clues.
+ */
+export function relationalAnswerType(ws: readonly Word[], headPhrase: readonly number[], cues: readonly RelationCue[], clueNodes: readonly number[], model: QuestionModel, options: RelationRangeOptions = {}): RelationalType | undefined {
+  const minShare = options.minShare ?? DEFAULTS.minShare;
+  const minScore = options.minScore ?? DEFAULTS.minScore;
+  if (headPhrase.length === 0 || !model.relationEnds) return undefined;
+  const starts = new Set(headPhrase.map((k) => ws[k]!.start));
+  const cue = cues.filter((c) => c.score >= minScore && starts.has(c.start)).sort((a, b) => b.score - a.score || a.start - b.start)[0];
+  if (!cue) return undefined;
+  const ends = model.relationEnds();
+  const total = ends.edges(cue.relation);
+  if (!(total > 0)) return undefined;
+  const at = (object: boolean) => ends.types(cue.relation, object).filter((t) => t.count >= minShare * total).map((t) => t.type);
+  const subject = at(false);
+  const object = at(true);
+  if (subject.length === 0 && object.length === 0) return undefined;
+  // the clues' types with their supertypes
+  const clueTypes = new Set<number>();
+  for (const n of clueNodes) {
+    for (const t of model.typesOf?.(n) ?? []) for (const a of model.typeByNum.get(t)?.ancestors ?? [t]) clueTypes.add(a);
+  }
+  const clueAtSubject = subject.some((t) => clueTypes.has(t));
+  const clueAtObject = object.some((t) => clueTypes.has(t));
+  const sorted = (xs: readonly number[]) => [...new Set(xs)].sort((a, b) => a - b);
+  if (clueAtSubject && !clueAtObject && object.length > 0) return { types: sorted(object), cue, end: "object" };
+  if (clueAtObject && !clueAtSubject && subject.length > 0) return { types: sorted(subject), cue, end: "subject" };
+  return { types: sorted([...subject, ...object]), cue, end: "either" };
+}
