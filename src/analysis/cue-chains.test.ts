@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Catalog, CatalogWriter } from "../catalog/index.js";
-import type { LinkResult, LinkedMention } from "../linking/index.js";
+import { handLinks } from "../../test/helpers/hand-links.js";
 import { analyze, buildQuestionModel, cueChains, findTypeWords, words, type QuestionModel } from "./index.js";
 
 let cat: Catalog;
@@ -34,16 +34,7 @@ beforeAll(() => {
 });
 afterAll(() => cat.close());
 
-/** A hand-made link result: each label found in the question is a confident mention. */
-function linkOf(question: string, labels: readonly string[]): LinkResult {
-  const mentions: LinkedMention[] = labels.map((label) => {
-    const start = question.indexOf(label);
-    const num = cat.byLabelOrId(label)[0]!;
-    const ref = cat.ref(num);
-    return { text: label, start, end: start + label.length, entity: { id: ref.id, label: ref.label }, confidence: 0.95, alternatives: [], num };
-  });
-  return { mentions, unlinked: [] };
-}
+const linkOf = (question: string, labels: readonly string[]) => handLinks(cat, question, labels);
 
 const relId = (n: number) => model.relations.find((r) => r.num === n)!.id;
 

@@ -7,7 +7,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Catalog, CatalogWriter } from "../catalog/index.js";
-import type { LinkResult, LinkedMention } from "../linking/index.js";
+import { handLinks } from "../../test/helpers/hand-links.js";
 import { RelationIndex } from "../ranking/index.js";
 import { analyze, buildQuestionModel, type QuestionModel } from "./index.js";
 
@@ -46,15 +46,7 @@ beforeAll(() => {
 });
 afterAll(() => cat.close());
 
-function linkOf(question: string, labels: readonly string[]): LinkResult {
-  const mentions: LinkedMention[] = labels.map((label) => {
-    const start = question.indexOf(label);
-    const num = cat.byLabelOrId(label)[0]!;
-    const ref = cat.ref(num);
-    return { text: label, start, end: start + label.length, entity: { id: ref.id, label: ref.label }, confidence: 0.95, alternatives: [], num };
-  });
-  return { mentions, unlinked: [] };
-}
+const linkOf = (question: string, labels: readonly string[]) => handLinks(cat, question, labels);
 
 const ids = (a: ReturnType<typeof analyze>) => a.answerTypes.map((t) => t.id).sort();
 
