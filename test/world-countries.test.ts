@@ -23,6 +23,14 @@
  * misses, Mongolia & Russia and India & Nepal → China, put a clue's own capital first: China's
  * 16 land borders dilute the hub-damped walk into its capital more than the off-pattern
  * factor `chainMiss` = 0.05 takes from the clue's capital — a known limit, not tuned away).
+ *
+ * Third property, three clues: for 60 triples (A, B, C) where some country borders two of
+ * them but none borders all three (computed from the dataset), "Which country borders A, B
+ * and C?" must get the verdict `weak` (no answer fits every clue); for 60 triples with
+ * exactly one common neighbour, that neighbour must come first and the verdict must not be
+ * `weak`. (Measured once over all 2,402 single-neighbour triples and 3,000 of the 149,757
+ * no-neighbour ones, 2 December 2026: no failure. Before a coordinated clue whose pattern
+ * reaches only other clues counted as not supporting, 259 of all 152,159 failed.)
  */
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -30,7 +38,7 @@ import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Session } from "../src/pipeline/index.js";
 import { loadJsonlCatalog } from "./helpers/catalog-files.js";
-import { capitalId, capitalsOf, catalogLines, choose, commonNeighbourPairs, countries } from "./helpers/world-countries-catalog.js";
+import { capitalId, capitalsOf, catalogLines, choose, commonNeighbourPairs, countries, type Country } from "./helpers/world-countries-catalog.js";
 
 const byCode = new Map(countries.map((c) => [c.cca3, c]));
 
@@ -85,5 +93,48 @@ describe("world-countries: which country borders both A and B", () => {
     }
     // (printed when the floor is not met: the failing questions)
     expect(failures.length <= 5 ? [] : failures).toEqual([]);
+  });
+
+  it("says weak when no country borders all three, and finds the one that does (60 + 60 triples)", () => {
+    // enumerated around each country X: pairs and triples of X's neighbours
+    const nb = new Map(countries.map((c) => [c.cca3, new Set(c.borders)]));
+    const common = (t: readonly string[]) => [...nb.get(t[0]!)!].filter((x) => !t.includes(x) && t.every((y) => nb.get(y)!.has(x)));
+    const noneKeys = new Set<string>();
+    const oneKeys = new Map<string, string>();
+    const bordered = countries.filter((c) => c.borders.length > 0).map((c) => c.cca3);
+    for (const x of countries) {
+      const ns = [...x.borders].sort();
+      for (let i = 0; i < ns.length; i++) {
+        for (let j = i + 1; j < ns.length; j++) {
+          for (let k = j + 1; k < ns.length; k++) {
+            const t = [ns[i]!, ns[j]!, ns[k]!];
+            const cm = common(t);
+            if (cm.length === 1) oneKeys.set(t.join(" "), `c:${cm[0]!}`);
+          }
+          // a third country X does not border, and that no country borders together with the pair
+          for (const c of bordered) {
+            if (c === x.cca3 || nb.get(x.cca3)!.has(c) || c === ns[i] || c === ns[j]) continue;
+            const t = [ns[i]!, ns[j]!, c].sort();
+            if (common(t).length === 0) noneKeys.add(t.join(" "));
+          }
+        }
+      }
+    }
+    const none = [...noneKeys].sort().map((k) => k.split(" ").map((code) => byCode.get(code)!) as [Country, Country, Country]);
+    const one = [...oneKeys.entries()].sort().map(([k, x]) => [...k.split(" ").map((code) => byCode.get(code)!), x] as [Country, Country, Country, string]);
+    expect(none.length).toBeGreaterThanOrEqual(60);
+    expect(one.length).toBeGreaterThanOrEqual(60);
+    const failures: string[] = [];
+    for (const [a, b, c] of choose(none, 60, 11)) {
+      const q = `Which country borders ${a.name.common}, ${b.name.common} and ${c.name.common}?`;
+      const r = session.ask(q, { top: 10 }).result;
+      if (r.verdict.status !== "weak") failures.push(`${q} -> ${r.verdict.status}: ${r.verdict.reason ?? ""}`);
+    }
+    for (const [a, b, c, x] of choose(one, 60, 13)) {
+      const q = `Which country borders ${a.name.common}, ${b.name.common} and ${c.name.common}?`;
+      const r = session.ask(q, { top: 10 }).result;
+      if (r.answers[0]?.id !== x || r.verdict.status === "weak") failures.push(`${q} -> ${r.answers[0]?.id ?? "nothing"} (${r.verdict.status}), expected ${x}`);
+    }
+    expect(failures).toEqual([]);
   });
 });

@@ -269,8 +269,10 @@ export function explain<A extends ExplainAnalysis>(
   };
   // ids and labels are read from the catalog only for the candidates the verdict names
   // (top, rivals, tied ones): up to 200 candidates per ranking would be one row read each
-  const verdictCandidates = (cands: ExplainRanked["candidates"], skip = -1, withPaths = true): VerdictCandidate[] =>
-    cands.map((c) => {
+  const verdictCandidates = (cands: ExplainRanked["candidates"], skip = -1, withPaths = true, chainMissOf?: ExplainRanked["chainMissOf"]): VerdictCandidate[] =>
+    cands.map((c, k) => {
+      // only the best candidate's pattern misses matter to the verdict
+      const chainMissed = k === 0 && chainMissOf ? chainMissOf(c.node) : undefined;
       let r: EntityRef | undefined;
       const name = (): EntityRef => (r ??= names.ref(c.node));
       const reached = withPaths ? reachedOf(c.node, skip) : undefined;
@@ -290,6 +292,7 @@ export function explain<A extends ExplainAnalysis>(
         ...(hops ? { hops } : {}),
         ...(cuedPaths ? { cued: cuedPaths } : {}),
         ...(c.chainFit !== undefined ? { chainFit: c.chainFit } : {}),
+        ...(chainMissed && chainMissed.length > 0 ? { chainMissed } : {}),
       };
     });
   const topPaths = shown.length > 0 ? pathSet.answers[0] : undefined;
@@ -301,7 +304,7 @@ export function explain<A extends ExplainAnalysis>(
   for (const w of withouts) for (const c of w.candidates) asked.add(c.node);
   const patterns = patternSets(index, cost, clues.length, topPaths, cued, asked);
   const verdict = decideVerdict(
-    { clues: clues.map((c) => c.label), candidates: verdictCandidates(ranked.candidates), equivalent: intersect(patterns), maxHops },
+    { clues: clues.map((c) => c.label), candidates: verdictCandidates(ranked.candidates, -1, true, ranked.chainMissOf), equivalent: intersect(patterns), maxHops },
     options.verdict,
   );
 
@@ -317,7 +320,7 @@ export function explain<A extends ExplainAnalysis>(
       const verdictWithout = decideVerdict(
         {
           clues: clues.filter((_, j) => j !== i).map((c) => c.label),
-          candidates: same ? verdictCandidates(without.candidates, i) : verdictCandidates(without.candidates, -1, false),
+          candidates: same ? verdictCandidates(without.candidates, i, true, without.chainMissOf) : verdictCandidates(without.candidates, -1, false, without.chainMissOf),
           equivalent: same ? intersect(patterns, i) : null,
           maxHops,
         },

@@ -44,6 +44,8 @@ export interface ExplainCandidate {
 export interface ExplainRanked {
   readonly clues: readonly ExplainClue[];
   readonly candidates: readonly ExplainCandidate[];
+  /** Clues (indexes into `clues`) whose relation-path pattern was checked and misses `node`; absent when none was checked. */
+  readonly chainMissOf?: (node: number) => readonly number[];
 }
 
 /** A relation cue of the question (analysis's `relationCues` entries). */

@@ -38,6 +38,15 @@ describe("decideVerdict (rules of the file header; scores hand-chosen)", () => {
     expect(b.status).toBe("weak");
     expect(b.margin).toBeCloseTo(0.12, 10);
   });
+  it("weak when the best is off the relation-path pattern of a clue, even when it would be tied", () => {
+    const top = { ...c(1, 1), chainFit: 0.05, chainMissed: [1] };
+    const v = decideVerdict({ clues, candidates: [top, { ...c(2, 0.98), chainFit: 0.05 }], equivalent: null, maxHops: 6 });
+    expect(v.status).toBe("weak");
+    expect(v.reason).toBe('"B" does not reach E1 along the relations the question names for it');
+    expect(v.tiedWith).toEqual(["e2"]);
+    // on the pattern from every clue (nothing missed): the ordinary rules
+    expect(decideVerdict({ clues, candidates: [{ ...c(1, 1), chainFit: 1, chainMissed: [] }, c(2, 0.5)], equivalent: new Set(), maxHops: 6 }).status).toBe("unique");
+  });
   it("measures the margin against the next candidate with as much coverage", () => {
     // the runner-up covers one clue only: the lead is measured against E3 (0.4) → margin 0.6
     const v = decideVerdict({ clues, candidates: [c(1, 1), c(2, 0.99, [true, false], 1), c(3, 0.4)], equivalent: null, maxHops: 6 });

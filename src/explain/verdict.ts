@@ -14,6 +14,9 @@
  *              (the relation pattern of every clue's best path reaches them too, see
  *              relation-pattern.ts) and their score is at least `equivalentFloor` × the best.
  * - `weak`   — a best answer exists but some clue does not reach it within N hops, or
+ *              does not reach it along the relation-path pattern the question's wording
+ *              names for that clue (ranking `chainMissOf`: "which country borders A, B and
+ *              C" when none borders all three), or
  *              another candidate's evidence dominates it (every clue reaches the other in
  *              no more hops, and some clue in fewer along relations the question names:
  *              the path evidence disagrees with the score — unless the other fits the
@@ -63,6 +66,8 @@ export interface VerdictCandidate {
   readonly cued?: readonly boolean[];
   /** The ranking's relation-path pattern factor (1: the path the question's wording implies reaches it), when known. */
   readonly chainFit?: number;
+  /** Clues (indexes into the clue list) whose relation-path pattern misses this candidate, when checked (best candidate only). */
+  readonly chainMissed?: readonly number[];
 }
 
 /** What the verdict is decided from. */
@@ -118,6 +123,11 @@ export function decideVerdict(input: VerdictInput, options: VerdictOptions = {})
   if (missing.length > 0) {
     const which = missing.map((m) => `"${m}"`).join(", ");
     return { status: "weak", margin, tiedWith, reason: `${which} ${missing.length === 1 ? "does" : "do"} not reach ${top.label} within ${input.maxHops} hops` };
+  }
+  const offPattern = (top.chainMissed ?? []).filter((i) => i >= 0 && i < input.clues.length);
+  if (offPattern.length > 0) {
+    const which = offPattern.map((i) => `"${input.clues[i]}"`).join(", ");
+    return { status: "weak", margin, tiedWith, reason: `${which} ${offPattern.length === 1 ? "does" : "do"} not reach ${top.label} along the relations the question names for ${offPattern.length === 1 ? "it" : "them"}` };
   }
   const topHops = top.hops;
   if (topHops !== undefined) {

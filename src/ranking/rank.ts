@@ -165,6 +165,11 @@ export interface Ranked {
   readonly relationWeights: Float64Array;
   /** Notes for the user (type filter fallback, unreachable clues). */
   readonly notes: readonly string[];
+  /**
+   * The clues (indexes into `clues`) whose relation-path pattern was checked and reaches
+   * `node` neither exactly nor loosely; absent when no pattern was checked.
+   */
+  readonly chainMissOf?: (node: number) => readonly number[];
 }
 
 /** The per-question relation weights: 1 everywhere, the cue weight on cued relations. */
@@ -314,7 +319,8 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     for (const v of seedList) if (v >= 0 && v < index.nodeCount) within.add(v);
     cueFit = cueFitOf(analysis, clues, index, options, (v) => within.has(v));
   }
-  const chainFit = chainFitOf(chains, clues, weights, index, new Set(eligible.map((slot) => poolNodes[slot]!)), options);
+  const chainCheck = chainFitOf(chains, clues, weights, index, new Set(eligible.map((slot) => poolNodes[slot]!)), options);
+  const chainFit = chainCheck?.fit;
   const candidates: RankedCandidate[] = eligible.map((slot) => {
     const v = poolNodes[slot]!;
     const row = rowOf(slot);
@@ -330,7 +336,8 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     return { node: v, score: total, perClue: norm, covered };
   });
   candidates.sort((a, b) => b.covered - a.covered || b.score - a.score || a.node - b.node);
-  return { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
+  const out = { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
+  return chainCheck ? { ...out, chainMissOf: chainCheck.misses } : out;
 }
 
 /** One clue's query-time personalized PageRank (push + random walks, ppr-fast.ts). */
@@ -451,13 +458,20 @@ function withoutDroppedCues(analysis: Analysis, chains: readonly CueChain[], dro
  * ignored). When a type noun names an intermediate node, the typed directed pattern comes
  * first and the untyped directed one counts as loose. The clues' factors are combined like their scores (weighted geometric mean).
  */
-function chainFitOf(chains: readonly CueChain[], clues: readonly Clue[], weights: readonly number[], index: RelationIndex, eligible: ReadonlySet<number>, options: RankOptions): ((v: number) => number) | undefined {
+function chainFitOf(
+  chains: readonly CueChain[],
+  clues: readonly Clue[],
+  weights: readonly number[],
+  index: RelationIndex,
+  eligible: ReadonlySet<number>,
+  options: RankOptions,
+): { fit: (v: number) => number; misses: (v: number) => number[] } | undefined {
   const miss = options.chainMiss ?? DEFAULTS.chainMiss;
   const loose = options.chainLoose ?? DEFAULTS.chainLoose;
   const maxSteps = options.chainMaxSteps ?? DEFAULTS.chainMaxSteps;
   if (miss >= 1) return undefined;
   const hits = (set: Set<number> | null) => set !== null && [...set].some((v) => eligible.has(v));
-  const checks: { exact: Set<number>; loose: Set<number> | null; weight: number; group: number }[] = [];
+  const checks: { exact: Set<number>; loose: Set<number> | null; weight: number; group: number; clue: number }[] = [];
   // coordinated clues ("both A and B") share one pattern that must hold from each: one group
   // (named by its first clue present here), whose factor is its members' minimum
   const present = new Set(chains.map((ch) => ch.clue));
@@ -466,6 +480,7 @@ function chainFitOf(chains: readonly CueChain[], clues: readonly Clue[], weights
     if (members.length < 2) return -1 - c;
     return chains.findIndex((x) => x.clue === members[0]);
   };
+  const empty: { group: number; clue: number }[] = [];
   chains.forEach((ch, c) => {
     const group = groupOf(ch, c);
     const clue = clues[c]!;
@@ -479,24 +494,32 @@ function chainFitOf(chains: readonly CueChain[], clues: readonly Clue[], weights
     const typedExact = typed ? chainReach(index, clue.node, hops, { ...base, directed: true, keep }) : null;
     const exact = chainReach(index, clue.node, hops, { ...base, directed: true });
     const undirected = chainReach(index, clue.node, hops, { ...base, directed: false });
-    if (hits(typedExact)) checks.push({ exact: typedExact!, loose: exact, weight: weights[c]!, group });
-    else if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]!, group });
-    else if (hits(undirected)) checks.push({ exact: undirected!, loose: null, weight: weights[c]!, group });
+    if (hits(typedExact)) checks.push({ exact: typedExact!, loose: exact, weight: weights[c]!, group, clue: c });
+    else if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]!, group, clue: c });
+    else if (hits(undirected)) checks.push({ exact: undirected!, loose: null, weight: weights[c]!, group, clue: c });
+    else if (group >= 0) empty.push({ group, clue: c });
   });
   if (checks.length === 0) return undefined;
   const total = checks.reduce((a, ch) => a + ch.weight, 0);
+  // a coordinated clue whose shared pattern reaches no candidate at all, while another
+  // member's does ("borders A, B and C" with C's only neighbours among the clues): it
+  // supports no answer — a miss for every candidate, told to the verdict, not in the score
+  const emptyMembers = empty.filter((e) => checks.some((ch) => ch.group === e.group)).map((e) => e.clue);
+  const misses = (v: number): number[] =>
+    [...checks.filter((ch) => !ch.exact.has(v) && !ch.loose?.has(v)).map((ch) => ch.clue), ...emptyMembers].sort((a, b) => a - b);
   if (checks.every((ch) => ch.group < 0)) {
-    return (v) => {
+    const fit = (v: number): number => {
       let log = 0;
       for (const ch of checks) log += (ch.weight / total) * Math.log(ch.exact.has(v) ? 1 : ch.loose?.has(v) ? loose : miss);
       return Math.exp(log);
     };
+    return { fit, misses };
   }
   // groups: weight = the members' total, factor = the members' minimum
   const groups = new Map<number, typeof checks>();
   for (const ch of checks) groups.set(ch.group, [...(groups.get(ch.group) ?? []), ch]);
   const list = [...groups.values()].map((members) => ({ members, weight: members.reduce((a, ch) => a + ch.weight, 0) }));
-  return (v) => {
+  const fit = (v: number): number => {
     let log = 0;
     for (const g of list) {
       let f = 1;
@@ -505,4 +528,5 @@ function chainFitOf(chains: readonly CueChain[], clues: readonly Clue[], weights
     }
     return Math.exp(log);
   };
+  return { fit, misses };
 }
