@@ -14,7 +14,7 @@ import type { EntityRef } from "../model/index.js";
 import { detectAnswerType, type AnswerTypeOptions, type AnswerTypeSource } from "./answer-type.js";
 import type { QuestionModel } from "./question-model.js";
 import { relationCues, type RelationCue, type RelationCueOptions } from "./relation-cues.js";
-import { relationalAnswerType, type RelationRangeOptions } from "./relation-range.js";
+import { relationalAnswerType, whereRangeType, type RelationRangeOptions } from "./relation-range.js";
 import { isFunctionWord, words } from "./words.js";
 import { findTypeWords, type TypeWord } from "./cue-chains.js";
 
@@ -151,6 +151,17 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
       const note = `"${r.cue.words.join(" ")}" names the relation ${r.cue.label}: answers expected of the types of its ${which} (${labels})`;
       if (k >= 0) notes[k] = note;
       else notes.push(note);
+    }
+  }
+  // "where" + a last relation word whose far end is not a place ("where did X study")
+  if (at.source === "where" && model.relationEnds) {
+    const places = new Set(model.placeTypes.flatMap((t) => model.typeByNum.get(t)?.descendants ?? [t]));
+    const r = whereRangeType(cues, clues.map((c) => c.node), places, model, options.relationRange);
+    if (r) {
+      typeNums = r.types;
+      typeSource = "relation";
+      const labels = r.types.map((t) => model.typeByNum.get(t)?.label ?? String(t)).join(", ");
+      notes.push(`"where" with "${r.cue.words.join(" ")}" (${r.cue.label}): answers expected of the types at its far end (${labels}), not places`);
     }
   }
   const answerTypes: AnswerType[] = typeNums.map((t) => {

@@ -5,31 +5,29 @@
  * tested alone. Expected chains are hand-derived from the rules in the file header.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Catalog, CatalogWriter } from "../catalog/index.js";
-import { handLinks } from "../../test/helpers/hand-links.js";
+import type { Catalog } from "../catalog/index.js";
+import { handLinks, writtenCatalog } from "../../test/helpers/hand-links.js";
 import { analyze, buildQuestionModel, cueChains, findTypeWords, words, type QuestionModel } from "./index.js";
 
 let cat: Catalog;
 let model: QuestionModel;
 
 beforeAll(() => {
-  cat = Catalog.open(":memory:", { create: true });
-  const w = new CatalogWriter(cat);
-  w.begin();
-  for (const [id, label, alias] of [["t:Paper", "paper", "document"], ["t:Person", "person", "people"], ["t:Report", "field report", ""], ["t:Org", "organisation", ""]] as const) {
-    w.label(id, label);
-    if (alias) w.alias(id, alias);
-  }
-  w.predicateLabel("r:cites", "cites");
-  w.predicateLabel("r:wrote", "wrote");
-  w.predicateLabel("r:leads", "leads");
-  w.predicateLabel("r:about", "about");
-  w.predicateLabel("r:organisedBy", "organised by");
-  for (const [id, label, t] of [["d:0", "Notes on Ice", "t:Paper"], ["p:a", "Ada Roe", "t:Person"], ["x:q", "Quay", "t:Paper"], ["d:1", "Tide Log", "t:Report"], ["o:1", "Rime Society", "t:Org"]] as const) {
-    w.label(id, label);
-    w.type(id, t);
-  }
-  w.commit();
+  cat = writtenCatalog((w) => {
+    for (const [id, label, alias] of [["t:Paper", "paper", "document"], ["t:Person", "person", "people"], ["t:Report", "field report", ""], ["t:Org", "organisation", ""]] as const) {
+      w.label(id, label);
+      if (alias) w.alias(id, alias);
+    }
+    w.predicateLabel("r:cites", "cites");
+    w.predicateLabel("r:wrote", "wrote");
+    w.predicateLabel("r:leads", "leads");
+    w.predicateLabel("r:about", "about");
+    w.predicateLabel("r:organisedBy", "organised by");
+    for (const [id, label, t] of [["d:0", "Notes on Ice", "t:Paper"], ["p:a", "Ada Roe", "t:Person"], ["x:q", "Quay", "t:Paper"], ["d:1", "Tide Log", "t:Report"], ["o:1", "Rime Society", "t:Org"]] as const) {
+      w.label(id, label);
+      w.type(id, t);
+    }
+  });
   model = buildQuestionModel(cat);
 });
 afterAll(() => cat.close());
@@ -57,6 +55,13 @@ describe("cueChains", () => {
     const chains = cueChains(a);
     expect(chains.map((ch) => ch.steps.map((s) => relId(s.options[0]!.relation)))).toEqual([["r:wrote"], ["r:leads"]]);
     expect(chains.every((ch) => ch.conjuncts === undefined)).toBe(true);
+  });
+
+  it("gives a relation word its object clue when only function words stand between", () => {
+    // "cites" is 1 character from "Quay" on its left, but "Notes on Ice" is its object
+    const q = "Which paper about Quay cites Notes on Ice?";
+    const chains = cueChains(analyze(q, linkOf(q, ["Quay", "Notes on Ice"]), model));
+    expect(chains.map((ch) => ch.steps.map((s) => relId(s.options[0]!.relation)))).toEqual([["r:about"], ["r:cites"]]);
   });
 
   it("gives coordinated clues one shared pattern, directed from the group (rule 5)", () => {

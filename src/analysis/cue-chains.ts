@@ -11,6 +11,8 @@
  * in a right-branching chain of relative clauses and of-phrases ("the X that R1 the Y that
  * R2 C", "the R1 of the R2 of C") each relation word joins the noun phrase next to it, so
  * the relation word next to the clue is the first hop out of it and the farthest the last
+ * — except that a relation word followed by a clue with only function words between ("studied
+ * *at* M", "directed by Q") takes that clue, its object, first
  * (Quirk et al. 1985, "A Comprehensive Grammar of the English Language", §17.10 ff.,
  * relative clauses as postmodifiers); (3) direction — each step's stored direction from
  * the clue's position (subject left of the verb, SVO, with the voice flip of the cue word;
@@ -53,6 +55,18 @@ const COORDINATION = /\b(?:and|or|but|nor)\b|[,;]/i;
  */
 const CONJUNCT_GAP = /^(?:\s|,|;|&|\b(?:and|or|nor|as well as|also|the|a|an)\b)*$/i;
 const HAS_CONJUNCTION = /,|;|&|\b(?:and|or|nor|as well as)\b/i;
+
+/** The text from a relation word to a following clue: the word itself, then only function words (no other content word, no punctuation). */
+function argumentGap(gap: string): boolean {
+  const parts = gap.trim().split(/\s+/);
+  if (parts.length < 1 || /[,;:.!?()]/.test(gap)) return false;
+  return parts.slice(1).every((w) => isFunctionWord(w.toLowerCase()));
+}
+
+/** True when the mention at `s` is a possessive ("Peru's", "Peru’s", "the Moll's"). */
+function possessive(text: string, s: { start: number; end: number }): boolean {
+  return /['’]s$/i.test(text.slice(s.start, s.end)) || /^['’]s\b/i.test(text.slice(s.end, s.end + 3));
+}
 
 /** One way to take a chain step: a relation and its stored direction. */
 export interface StepOption {
@@ -114,7 +128,12 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
     const s = spans[c]!;
     const d = at >= s.end ? at - s.end : at < s.start ? s.start - at : 0;
     const gap = at >= s.end ? text.slice(s.end, at) : at < s.start ? text.slice(at, s.start) : "";
-    return COORDINATION.test(gap) ? d + 1e6 : d;
+    if (COORDINATION.test(gap)) return d + 1e6;
+    // a relation word whose object follows it with only function words between ("studied
+    // *at* M", "works for Y", "cited by Z") takes that clue as its argument
+    // (not a possessive clue: "the capital of *Peru's* neighbour E" — Peru's only determines E)
+    if (at < s.start && argumentGap(text.slice(at, s.start)) && !possessive(text, s)) return 0;
+    return d;
   };
   // steps per clue, keyed by word offset
   const perClue = analysis.clues.map(() => new Map<number, StepOption[]>());

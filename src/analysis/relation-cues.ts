@@ -10,11 +10,14 @@
  * still walked; each cue also records where it stands in the question and whether the voice
  * flips its direction (see {@link expectedInverse}) (lexical relation matching as a soft prior, as in the relation-matching step
  * of Yih et al. 2015, "Semantic Parsing via Staged Query Graph Generation", ACL, here with
- * plain stem overlap instead of a learned similarity).
+ * plain stem overlap instead of a learned similarity). A question word also matches through
+ * the general-English paraphrase lexicon and as a closed compound (relation-lexicon.ts), at
+ * `LEXICON_CREDIT` (0.9) of a direct match.
  */
 import { tokens } from "../catalog/index.js";
 import type { QuestionModel } from "./question-model.js";
 import type { Word } from "./words.js";
+import { compoundCovers, LEXICON_CREDIT, lexiconCredit, paraphrasesOf } from "./relation-lexicon.js";
 
 /** Options of {@link relationCues}; all optional. */
 export interface RelationCueOptions {
@@ -99,7 +102,13 @@ export function relationCues(ws: readonly Word[], content: readonly number[], mo
         let c = 0;
         let w = -1;
         for (const k of content) {
-          const x = stemCredit(s, ws[k]!.stem, o);
+          let x = stemCredit(s, ws[k]!.stem, o);
+          if (x < 1) {
+            // general-English paraphrases ("born" ~ "birth") and closed compounds ("birthplace")
+            const phrases = paraphrasesOf(ws[k]!.stem);
+            if (phrases.length > 0) x = Math.max(x, lexiconCredit(s, surface, phrases, (a, b) => stemCredit(a, b, o)));
+            if (compoundCovers(ws[k]!.norm, surface)) x = Math.max(x, LEXICON_CREDIT);
+          }
           if (x > c) {
             c = x;
             w = k;

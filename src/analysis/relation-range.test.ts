@@ -6,8 +6,8 @@
  * types are hand-derived from the rule in the file header (invented data).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Catalog, CatalogWriter } from "../catalog/index.js";
-import { handLinks } from "../../test/helpers/hand-links.js";
+import type { Catalog } from "../catalog/index.js";
+import { handLinks, writtenCatalog } from "../../test/helpers/hand-links.js";
 import { RelationIndex } from "../ranking/index.js";
 import { analyze, buildQuestionModel, type QuestionModel } from "./index.js";
 
@@ -15,32 +15,30 @@ let cat: Catalog;
 let model: QuestionModel;
 
 beforeAll(() => {
-  cat = Catalog.open(":memory:", { create: true });
-  const w = new CatalogWriter(cat);
-  w.begin();
-  for (const [id, label] of [["t:Realm", "realm"], ["t:Town", "town"], ["t:Port", "port town"], ["t:Coin", "coin"], ["t:Noble", "noble"]] as const) w.label(id, label);
-  w.subclass("t:Port", "t:Town");
-  w.predicateLabel("r:seat", "seat");
-  w.predicateLabel("r:ruler", "ruler");
-  w.predicateLabel("r:coin", "coin");
-  w.predicateLabel("r:neighbour", "neighbour");
-  const realms = ["Avenmark", "Brisca", "Coldhollow", "Dunmere"];
-  realms.forEach((r, i) => {
-    w.label(`x:${r}`, r);
-    w.type(`x:${r}`, "t:Realm");
-    const town = `x:${r}-seat`;
-    w.label(town, `${r} Keep`);
-    w.type(town, i === 0 ? "t:Port" : "t:Town");
-    w.edge(`x:${r}`, "r:seat", town);
-    w.label(`x:${r}-lord`, `Lord of ${r}`);
-    w.type(`x:${r}-lord`, "t:Noble");
-    w.edge(`x:${r}-lord`, "r:ruler", `x:${r}`);
-    w.label(`x:${r}-coin`, `${r} mark`);
-    w.type(`x:${r}-coin`, "t:Coin");
-    w.edge(`x:${r}`, "r:coin", `x:${r}-coin`);
-    if (i > 0) w.edge(`x:${r}`, "r:neighbour", `x:${realms[i - 1]!}`);
+  cat = writtenCatalog((w) => {
+    for (const [id, label] of [["t:Realm", "realm"], ["t:Town", "town"], ["t:Port", "port town"], ["t:Coin", "coin"], ["t:Noble", "noble"]] as const) w.label(id, label);
+    w.subclass("t:Port", "t:Town");
+    w.predicateLabel("r:seat", "seat");
+    w.predicateLabel("r:ruler", "ruler");
+    w.predicateLabel("r:coin", "coin");
+    w.predicateLabel("r:neighbour", "neighbour");
+    const realms = ["Avenmark", "Brisca", "Coldhollow", "Dunmere"];
+    realms.forEach((r, i) => {
+      w.label(`x:${r}`, r);
+      w.type(`x:${r}`, "t:Realm");
+      const town = `x:${r}-seat`;
+      w.label(town, `${r} Keep`);
+      w.type(town, i === 0 ? "t:Port" : "t:Town");
+      w.edge(`x:${r}`, "r:seat", town);
+      w.label(`x:${r}-lord`, `Lord of ${r}`);
+      w.type(`x:${r}-lord`, "t:Noble");
+      w.edge(`x:${r}-lord`, "r:ruler", `x:${r}`);
+      w.label(`x:${r}-coin`, `${r} mark`);
+      w.type(`x:${r}-coin`, "t:Coin");
+      w.edge(`x:${r}`, "r:coin", `x:${r}-coin`);
+      if (i > 0) w.edge(`x:${r}`, "r:neighbour", `x:${realms[i - 1]!}`);
+    });
   });
-  w.commit();
   const index = RelationIndex.fromCatalog(cat);
   model = buildQuestionModel(cat, { relationEdgeCounts: index.relationEdgeCounts(), relationEnds: () => index.relationEnds(), typesOf: (n) => index.typesOf(n) });
 });
@@ -91,4 +89,18 @@ describe("relationalAnswerType, through analyze", () => {
     expect(a.answerTypes).toEqual([]);
     expect(a.answerTypeSource).toBe("none");
   });
+
+  it("'where' with a last relation word whose far end is no place: that end's types, not places", () => {
+    // realm is not a place-like word; town is (question-model.ts PLACE_WORDS)
+    const q = "Where is Lord of Brisca the ruler?";
+    const a = analyze(q, linkOf(q, ["Lord of Brisca"]), model);
+    expect(a.answerTypeSource).toBe("relation");
+    expect(ids(a)).toEqual(["t:Realm"]);
+    expect(a.notes.join(" ")).toMatch(/"where" with "ruler" \(ruler\): answers expected of the types at its far end \(realm\), not places/);
+    // far end holding a place-like type (the seat: towns): the place default stays
+    const seat = "Where is the seat of Brisca?";
+    const b = analyze(seat, linkOf(seat, ["Brisca"]), model);
+    expect(b.answerTypeSource).toBe("where");
+  });
 });
+

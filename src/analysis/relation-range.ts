@@ -13,6 +13,11 @@
  * when nothing typed is reachable, so a wrong estimate cannot empty the answers.
  * (Using the relation's target types as the answer type is common practice in question
  * answering over knowledge bases.)
+ *
+ * "where" questions ({@link whereRangeType}): "where" asks for the entity at the far end of
+ * the question's last relation word ("where did X *study*" — a university, not a town), so
+ * when that relation's far end holds no place-like type at all, its types replace the
+ * place-like default; when it holds one, the default stays.
  */
 import type { QuestionModel } from "./question-model.js";
 import type { RelationCue } from "./relation-cues.js";
@@ -45,13 +50,32 @@ export interface RelationalType {
  * entity nums of the question's clues.
  */
 export function relationalAnswerType(ws: readonly Word[], headPhrase: readonly number[], cues: readonly RelationCue[], clueNodes: readonly number[], model: QuestionModel, options: RelationRangeOptions = {}): RelationalType | undefined {
-  const minShare = options.minShare ?? DEFAULTS.minShare;
   const minScore = options.minScore ?? DEFAULTS.minScore;
   if (headPhrase.length === 0 || !model.relationEnds) return undefined;
   const starts = new Set(headPhrase.map((k) => ws[k]!.start));
   const cue = cues.filter((c) => c.score >= minScore && starts.has(c.start)).sort((a, b) => b.score - a.score || a.start - b.start)[0];
   if (!cue) return undefined;
-  const ends = model.relationEnds();
+  return farEnd(cue, clueNodes, model, options);
+}
+
+/**
+ * The far-end types of the last relation word of a "where" question, when none of them is
+ * place-like (else undefined: the place-like default stands). `placeTypes`: the place-like
+ * types with their subtypes.
+ */
+export function whereRangeType(cues: readonly RelationCue[], clueNodes: readonly number[], placeTypes: ReadonlySet<number>, model: QuestionModel, options: RelationRangeOptions = {}): RelationalType | undefined {
+  const minScore = options.minScore ?? DEFAULTS.minScore;
+  if (!model.relationEnds) return undefined;
+  const last = cues.filter((c) => c.score >= minScore).sort((a, b) => b.start - a.start || b.score - a.score)[0];
+  if (!last) return undefined;
+  const r = farEnd(last, clueNodes, model, options);
+  if (!r || r.types.some((t) => placeTypes.has(t))) return undefined;
+  return r;
+}
+
+function farEnd(cue: RelationCue, clueNodes: readonly number[], model: QuestionModel, options: RelationRangeOptions): RelationalType | undefined {
+  const minShare = options.minShare ?? DEFAULTS.minShare;
+  const ends = model.relationEnds!();
   const total = ends.edges(cue.relation);
   if (!(total > 0)) return undefined;
   const at = (object: boolean) => ends.types(cue.relation, object).filter((t) => t.count >= minShare * total).map((t) => t.type);
