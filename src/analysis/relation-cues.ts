@@ -12,7 +12,8 @@
  * of Yih et al. 2015, "Semantic Parsing via Staged Query Graph Generation", ACL, here with
  * plain stem overlap instead of a learned similarity). A question word also matches through
  * the general-English paraphrase lexicon and as a closed compound (relation-lexicon.ts), at
- * `LEXICON_CREDIT` (0.9) of a direct match.
+ * `LEXICON_CREDIT` (0.9) of a direct match — only when no relation label or alias of the
+ * catalog holds the word's stem itself (the lexicon fills gaps, it does not compete).
  */
 import { tokens } from "../catalog/index.js";
 import type { QuestionModel } from "./question-model.js";
@@ -88,9 +89,22 @@ function stemCredit(a: string, b: string, options: Required<RelationCueOptions>)
   return 0;
 }
 
+const stemSets = new WeakMap<QuestionModel, ReadonlySet<string>>();
+/** Every stem of every relation surface of the model (cached per model). */
+function surfaceStems(model: QuestionModel): ReadonlySet<string> {
+  let set = stemSets.get(model);
+  if (!set) {
+    set = new Set(model.relations.flatMap((r) => r.surfaces.flat()));
+    stemSets.set(model, set);
+  }
+  return set;
+}
+
 /** Matches content words (by index into `ws`) to the model's relations; best first, ties by id. */
 export function relationCues(ws: readonly Word[], content: readonly number[], model: QuestionModel, options: RelationCueOptions = {}): RelationCue[] {
   const o: Required<RelationCueOptions> = { ...DEFAULTS, ...options };
+  // the paraphrase lexicon fills gaps only: a word some label or alias holds as it is stays literal
+  const direct = surfaceStems(model);
   const cues: RelationCue[] = [];
   for (const r of model.relations) {
     let best = 0;
@@ -103,10 +117,10 @@ export function relationCues(ws: readonly Word[], content: readonly number[], mo
         let w = -1;
         for (const k of content) {
           let x = stemCredit(s, ws[k]!.stem, o);
-          if (x < 1) {
+          if (x < 1 && !direct.has(ws[k]!.stem)) {
             // general-English paraphrases ("born" ~ "birth") and closed compounds ("birthplace")
             const phrases = paraphrasesOf(ws[k]!.stem);
-            if (phrases.length > 0) x = Math.max(x, lexiconCredit(s, surface, phrases, (a, b) => stemCredit(a, b, o)));
+            if (phrases.length > 0) x = Math.max(x, lexiconCredit(s, surface, phrases));
             if (compoundCovers(ws[k]!.norm, surface)) x = Math.max(x, LEXICON_CREDIT);
           }
           if (x > c) {

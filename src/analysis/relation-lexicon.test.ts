@@ -16,7 +16,7 @@ let model: QuestionModel;
 
 beforeAll(() => {
   cat = writtenCatalog((w) => {
-    for (const [id, label] of [["r:pob", "place of birth"], ["r:cast", "cast member"], ["r:edu", "educated at"], ["r:spouse", "spouse"], ["r:member", "member of"]] as const) w.predicateLabel(id, label);
+    for (const [id, label] of [["r:pob", "place of birth"], ["r:cast", "cast member"], ["r:edu", "educated at"], ["r:spouse", "spouse"], ["r:member", "member of"], ["r:leads", "leads"], ["r:head", "head of"]] as const) w.predicateLabel(id, label);
   });
   model = buildQuestionModel(cat);
 });
@@ -42,7 +42,9 @@ describe("relation cues through the paraphrase lexicon", () => {
     expect(compoundCovers("placebo", ["place", "bo"])).toBe(false);
     expect(cuesOf("What is the birthplace of Ada?")).toEqual({ "r:pob": LEXICON_CREDIT });
   });
-  it("keeps direct matches at full credit", () => {
+  it("keeps direct matches at full credit, and fills gaps only: a word a label holds is not paraphrased", () => {
     expect(cuesOf("Who is the spouse of Ada?")).toEqual({ "r:spouse": 1 });
+    // "leads" is a label here: it does not also cue "head of" through the lexicon (lead ~ head)
+    expect(cuesOf("Who leads Orrin?")).toEqual({ "r:leads": 1 });
   });
 });

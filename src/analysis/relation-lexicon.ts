@@ -79,17 +79,16 @@ export function paraphrasesOf(stem: string): readonly (readonly string[])[] {
 }
 
 /**
- * Credit of surface stem `s` from a question word through the lexicon: a one-word phrase by
- * `credit(s, phrase)` (exact or shared prefix), a longer phrase only when `surface` holds
- * all of its stems and `s` is one of them.
+ * Credit of surface stem `s` from a question word through the lexicon: a one-word phrase when
+ * its stem is `s` exactly (no prefix credit: "director" must not reach "directs", nor "head"
+ * "headquartered"), a longer phrase only when `surface` holds all of its stems and `s` is
+ * one of them.
  */
-export function lexiconCredit(s: string, surface: readonly string[], phrases: readonly (readonly string[])[], credit: (a: string, b: string) => number): number {
-  let best = 0;
+export function lexiconCredit(s: string, surface: readonly string[], phrases: readonly (readonly string[])[]): number {
   for (const p of phrases) {
-    if (p.length === 1) best = Math.max(best, LEXICON_CREDIT * credit(s, p[0]!));
-    else if (p.includes(s) && p.every((x) => surface.includes(x))) best = Math.max(best, LEXICON_CREDIT);
+    if (p.length === 1 ? p[0] === s : p.includes(s) && p.every((x) => surface.includes(x))) return LEXICON_CREDIT;
   }
-  return best;
+  return 0;
 }
 
 /**
