@@ -140,12 +140,13 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
   // a head noun naming a relation, not a type: the answer is typed like that relation's far end
   let typeNums = at.types;
   let typeSource = at.source;
-  if (typeNums.length === 0 && at.source === "none" && at.headPhrase) {
+  const labelsOf = (types: readonly number[]) => types.map((t) => model.typeByNum.get(t)?.label ?? String(t)).join(", ");
+  if (at.source === "none" && at.headPhrase) {
     const r = relationalAnswerType(ws, at.headPhrase, cues, clues.map((c) => c.node), model, options.relationRange);
     if (r) {
       typeNums = r.types;
       typeSource = "relation";
-      const labels = r.types.map((t) => model.typeByNum.get(t)?.label ?? String(t)).join(", ");
+      const labels = labelsOf(r.types);
       const which = r.end === "object" ? "objects" : r.end === "subject" ? "subjects" : "ends";
       const k = notes.indexOf(at.notes[0] ?? "");
       const note = `"${r.cue.words.join(" ")}" names the relation ${r.cue.label}: answers expected of the types of its ${which} (${labels})`;
@@ -160,7 +161,7 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
     if (r) {
       typeNums = r.types;
       typeSource = "relation";
-      const labels = r.types.map((t) => model.typeByNum.get(t)?.label ?? String(t)).join(", ");
+      const labels = labelsOf(r.types);
       notes.push(`"where" with "${r.cue.words.join(" ")}" (${r.cue.label}): answers expected of the types at its far end (${labels}), not places`);
     }
   }

@@ -58,9 +58,8 @@ const HAS_CONJUNCTION = /,|;|&|\b(?:and|or|nor|as well as)\b/i;
 
 /** The text from a relation word to a following clue: the word itself, then only function words (no other content word, no punctuation). */
 function argumentGap(gap: string): boolean {
-  const parts = gap.trim().split(/\s+/);
-  if (parts.length < 1 || /[,;:.!?()]/.test(gap)) return false;
-  return parts.slice(1).every((w) => isFunctionWord(w.toLowerCase()));
+  if (/[,;:.!?()]/.test(gap)) return false;
+  return gap.trim().split(/\s+/).slice(1).every((w) => isFunctionWord(w.toLowerCase()));
 }
 
 /** True when the mention at `s` is a possessive ("Peru's", "Peru’s", "the Moll's"). */
@@ -124,17 +123,18 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
   // characters between the word and the clue; a coordination in between ("R1 C1 and R2 C2")
   // closes the attachment, so it costs more than any distance within the question
   const text = analysis.question ?? "";
-  const distance = (c: number, at: number) => {
-    const s = spans[c]!;
+  // characters from the word at `at` to a span; `argument` applies the object rule below
+  const spanDistance = (s: { start: number; end: number }, at: number, argument: boolean) => {
     const d = at >= s.end ? at - s.end : at < s.start ? s.start - at : 0;
     const gap = at >= s.end ? text.slice(s.end, at) : at < s.start ? text.slice(at, s.start) : "";
     if (COORDINATION.test(gap)) return d + 1e6;
     // a relation word whose object follows it with only function words between ("studied
     // *at* M", "works for Y", "cited by Z") takes that clue as its argument
     // (not a possessive clue: "the capital of *Peru's* neighbour E" — Peru's only determines E)
-    if (at < s.start && argumentGap(text.slice(at, s.start)) && !possessive(text, s)) return 0;
+    if (argument && at < s.start && argumentGap(gap) && !possessive(text, s)) return 0;
     return d;
   };
+  const distance = (c: number, at: number) => spanDistance(spans[c]!, at, true);
   // steps per clue, keyed by word offset
   const perClue = analysis.clues.map(() => new Map<number, StepOption[]>());
   if (analysis.clues.length === 0) return [];
@@ -178,26 +178,20 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
     return all;
   });
   // a group member's steps are ordered from the group's span (the coordination inside it costs nothing)
-  const groupDistance = (c: number, at: number) => {
-    if (groupOf[c]!.length === 1) return distance(c, at);
-    const s = groupSpan[c]!;
-    const d = at >= s.end ? at - s.end : at < s.start ? s.start - at : 0;
-    const gap = at >= s.end ? text.slice(s.end, at) : at < s.start ? text.slice(at, s.start) : "";
-    return COORDINATION.test(gap) ? d + 1e6 : d;
-  };
+  const groupDistance = (c: number, at: number) => (groupOf[c]!.length === 1 ? distance(c, at) : spanDistance(groupSpan[c]!, at, false));
   const typeWords = analysis.typeWords ?? [];
   return shared.map((steps, c) => {
     const ordered = [...steps.entries()].sort((a, b) => groupDistance(c, a[0]) - groupDistance(c, b[0]) || a[0] - b[0]);
-    const steps2 = ordered.map(([at, opts], i) => {
-        // the node this hop reaches: a type noun strictly between this word and the next hop's
-        const next = ordered[i + 1]?.[0];
-        const lo = next === undefined ? at : Math.min(at, next);
-        const hi = next === undefined ? at : Math.max(at, next);
-        const types = [...new Set(typeWords.filter((t) => t.start > lo && t.start < hi).flatMap((t) => t.types))].sort((a, b) => a - b);
-        return { at, options: [...opts].sort((x, y) => x.cue - y.cue), types };
-      });
+    const chainSteps = ordered.map(([at, opts], i) => {
+      // the node this hop reaches: a type noun strictly between this word and the next hop's
+      const next = ordered[i + 1]?.[0];
+      const lo = next === undefined ? at : Math.min(at, next);
+      const hi = next === undefined ? at : Math.max(at, next);
+      const types = [...new Set(typeWords.filter((t) => t.start > lo && t.start < hi).flatMap((t) => t.types))].sort((a, b) => a - b);
+      return { at, options: [...opts].sort((x, y) => x.cue - y.cue), types };
+    });
     const g = groupOf[c]!;
-    return g.length > 1 ? { clue: c, steps: steps2, conjuncts: [...g].sort((a, b) => a - b) } : { clue: c, steps: steps2 };
+    return g.length > 1 ? { clue: c, steps: chainSteps, conjuncts: [...g].sort((a, b) => a - b) } : { clue: c, steps: chainSteps };
   });
 }
 

@@ -16,26 +16,21 @@
  */
 import type { Catalog } from "../catalog/index.js";
 import { stemKey, stemToken, tokens } from "../catalog/index.js";
-import type { EntityRef } from "../model/index.js";
+import type { EntityRef, RelationEnds } from "../model/index.js";
 import { isFunctionWord } from "./words.js";
 
 /** Options of {@link buildQuestionModel}; all optional. */
-/** The direct types at the ends of each relation, with counts (the relation index's `relationEnds()`). */
-export interface RelationEndTypes {
-  /** Types at the subject end (`object` false) or the object end of `rel`, most frequent first. */
-  types(rel: number, object: boolean): readonly { readonly type: number; readonly count: number }[];
-  /** Stored edges of `rel`. */
-  edges(rel: number): number;
-}
-
 export interface QuestionModelOptions {
   /**
    * Edge count per predicate num (index = num). When given, predicates with no edges
    * (attribute names) are left out of the relation vocabulary. @default all predicates
    */
   readonly relationEdgeCounts?: ArrayLike<number>;
-  /** Types at the relations' ends, asked for on first use; without it a relational head noun sets no answer type. */
-  readonly relationEnds?: () => RelationEndTypes;
+  /**
+   * Types at the relations' ends (the relation index's `relationEnds`, which caches them),
+   * asked for on first use; without it a relational head noun sets no answer type.
+   */
+  readonly relationEnds?: () => RelationEnds;
   /** Direct type nums of an entity (to tell which end of a relation the clues stand at). */
   readonly typesOf?: (num: number) => readonly number[];
 }
@@ -82,7 +77,7 @@ export interface QuestionModel {
    */
   readonly functionCueStems?: ReadonlySet<string>;
   /** See {@link QuestionModelOptions.relationEnds}. */
-  readonly relationEnds?: () => RelationEndTypes;
+  readonly relationEnds?: () => RelationEnds;
   /** See {@link QuestionModelOptions.typesOf}. */
   readonly typesOf?: (num: number) => readonly number[];
 }
@@ -193,12 +188,9 @@ export function buildQuestionModel(cat: Catalog, options: QuestionModelOptions =
     }
     relations.push({ num: p.num, id: p.id, label: p.label, surfaces });
   }
-  let ends: RelationEndTypes | undefined;
-  const source = options.relationEnds;
-  const relationEnds = source ? () => (ends ??= source()) : undefined;
   return {
     types, typeByNum, typesByKey, maxTypeWords, relations, personTypes, organisationTypes, agentTypes, placeTypes, functionCueStems,
-    ...(relationEnds ? { relationEnds } : {}),
+    ...(options.relationEnds ? { relationEnds: options.relationEnds } : {}),
     ...(options.typesOf ? { typesOf: options.typesOf } : {}),
   };
 }

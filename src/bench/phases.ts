@@ -283,10 +283,7 @@ export function phasePpr(work: string, limit: number, exactLimit: number, igraph
     agreementTop20Cues: quantiles(agreeCue).mean,
     peakMiB: peakMiB(),
   };
-  result.igraph = compareIgraph(index, queries.slice(0, igraphLimit), fastTops, fastMs, alpha, beta, p.igraph, exactTops);
-  // the power-iteration agreement on exactly the queries igraph ran, so the two columns compare like with like
-  const same = agree.slice(0, Math.min(igraphLimit, agree.length));
-  if (typeof result.igraph === "object" && result.igraph !== null && "queries" in result.igraph) (result.igraph as Record<string, unknown>).agreementTop20PowerSameQueries = quantiles(same).mean;
+  result.igraph = compareIgraph(index, queries.slice(0, igraphLimit), fastTops, fastMs, alpha, beta, p.igraph, exactTops, agree);
   session.close();
   return result;
 }
@@ -301,6 +298,7 @@ function compareIgraph(
   beta: number,
   dir: string,
   exactTops: readonly [number, number][][] = [],
+  exactAgree: readonly number[] = [],
 ): Record<string, unknown> {
   const K = 20;
   const ig = findIgraph();
@@ -354,6 +352,8 @@ function compareIgraph(
     ms: igMs,
     agreementTop20: quantiles(ag).mean,
     agreementPowerVsIgraph: refs.length > 0 ? quantiles(refs).mean : null,
+    // the power-iteration agreement on exactly the queries igraph ran, so the two columns compare like with like
+    agreementTop20PowerSameQueries: quantiles(exactAgree.slice(0, out.results.length)).mean,
     speedup: igMs.median / ours.median,
   };
 }

@@ -18,4 +18,5 @@ export type {
   CountDoc,
 } from "./answer.js";
 export { DISCLAIMER } from "./answer.js";
+export type { RelationEnd, RelationEnds } from "./relation-ends.js";
 export { LIMITS, checkQuestionLength, checkTop } from "./limits.js";

@@ -6,7 +6,7 @@ export { RelationIndex } from "./relation-index.js";
 export { mulberry32 } from "./prng.js";
 export { NodeBits, nodeBitsFor, Stamped, stampedFor } from "./stamped.js";
 export type { Random } from "./prng.js";
-export type { IndexProgress, IndexProgressFn, RelationEnd, RelationEnds, RelationEndTable } from "./relation-index.js";
+export type { IndexProgress, IndexProgressFn, RelationEndTable } from "./relation-index.js";
 export { openIndex, snapshotPath, readSnapshot, writeSnapshot, SNAPSHOT } from "./snapshot.js";
 export type { OpenIndexOptions, SnapshotRead, SnapshotRejection } from "./snapshot.js";
 export { transition, DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";

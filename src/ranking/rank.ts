@@ -507,15 +507,7 @@ function chainFitOf(
   const emptyMembers = empty.filter((e) => checks.some((ch) => ch.group === e.group)).map((e) => e.clue);
   const misses = (v: number): number[] =>
     [...checks.filter((ch) => !ch.exact.has(v) && !ch.loose?.has(v)).map((ch) => ch.clue), ...emptyMembers].sort((a, b) => a - b);
-  if (checks.every((ch) => ch.group < 0)) {
-    const fit = (v: number): number => {
-      let log = 0;
-      for (const ch of checks) log += (ch.weight / total) * Math.log(ch.exact.has(v) ? 1 : ch.loose?.has(v) ? loose : miss);
-      return Math.exp(log);
-    };
-    return { fit, misses };
-  }
-  // groups: weight = the members' total, factor = the members' minimum
+  // groups (a clue standing alone is a group of one): weight = the members' total, factor = the members' minimum
   const groups = new Map<number, typeof checks>();
   for (const ch of checks) groups.set(ch.group, [...(groups.get(ch.group) ?? []), ch]);
   const list = [...groups.values()].map((members) => ({ members, weight: members.reduce((a, ch) => a + ch.weight, 0) }));

@@ -33,6 +33,7 @@
  * `supertypesClosure` and `isA`; ranking's own hot loops use `csrOf` (not exported from
  * the stage's index).
  */
+import type { RelationEnd, RelationEnds } from "../model/index.js";
 import type { Catalog } from "../catalog/index.js";
 
 /** The packed arrays of a {@link RelationIndex}. @internal */
@@ -375,12 +376,6 @@ export class RelationIndex {
   }
 }
 
-/** One direct type at one end of a relation, and how many of its edges have it there. */
-export interface RelationEnd {
-  readonly type: number;
-  readonly count: number;
-}
-
 /**
  * Flat form of {@link RelationEnds}: `totals[rel·2 + end]` adjacency entries per relation end
  * (end 0 = subject, 1 = object); rows (`keys[i]` = rel·2 + end, `types[i]`, `counts[i]`)
@@ -391,14 +386,6 @@ export interface RelationEndTable {
   readonly keys: Int32Array;
   readonly types: Int32Array;
   readonly counts: Float64Array;
-}
-
-/** Direct types at the ends of every relation ({@link RelationIndex.relationEnds}). */
-export interface RelationEnds {
-  /** Types at the subject end (`object` false) or the object end of `rel`, most frequent first. */
-  types(rel: number, object: boolean): readonly RelationEnd[];
-  /** Stored edges of `rel`. */
-  edges(rel: number): number;
 }
 
 /** Count pass then fill pass over flat (src, rel, dst) buffers. */

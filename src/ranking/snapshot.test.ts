@@ -42,6 +42,15 @@ function freshCatalog(name: string): Catalog {
   return cat;
 }
 
+/** Opens the index once (writing the snapshot), then reads the snapshot back; it must be accepted. */
+function savedIndex(cat: Catalog): RelationIndex {
+  openIndex(cat);
+  const read = readSnapshot(snapshotPath(cat.path), cat.version());
+  expect(read.ok).toBe(true);
+  if (!read.ok) throw new Error(`snapshot rejected: ${read.reason}`);
+  return read.index;
+}
+
 function openWithEvents(cat: Catalog): { index: RelationIndex; events: IndexProgress[] } {
   const events: IndexProgress[] = [];
   const index = openIndex(cat, { onProgress: (e) => events.push(e) });
@@ -78,11 +87,8 @@ describe("openIndex and the PATH.idx snapshot", () => {
   it("stores the walk tables: the loaded ones equal the ones computed from the index's arrays", () => {
     const cat = freshCatalog("w.db");
     try {
-      openIndex(cat);
-      const read = readSnapshot(snapshotPath(cat.path), cat.version());
-      expect(read.ok).toBe(true);
-      if (!read.ok) return;
-      const stored = walkTables(read.index, TRANSITION_DEFAULTS.hubExponent);
+      const saved = savedIndex(cat);
+      const stored = walkTables(saved, TRANSITION_DEFAULTS.hubExponent);
       // a fresh index from the catalog (no snapshot) computes them anew
       const fresh = walkTables(openIndex(cat, { noSnapshot: true }), TRANSITION_DEFAULTS.hubExponent);
       for (const k of ["hub", "rowTotal", "measure", "scaled", "hubAt"] as const) {
@@ -99,12 +105,9 @@ describe("openIndex and the PATH.idx snapshot", () => {
   it("stores the relation-end type table: equal to SQLite's own count of types per relation end", () => {
     const cat = freshCatalog("e.db");
     try {
-      openIndex(cat);
-      const read = readSnapshot(snapshotPath(cat.path), cat.version());
-      expect(read.ok).toBe(true);
-      if (!read.ok) return;
+      const saved = savedIndex(cat);
       const fresh = openIndex(cat, { noSnapshot: true }).endTable();
-      const stored = read.index.endTable();
+      const stored = saved.endTable();
       for (const k of ["totals", "keys", "types", "counts"] as const) expect(Array.from(stored[k])).toEqual(Array.from(fresh[k]));
       // the reference: GROUP BY over the catalog's edge and entity_type tables (subject end, then object end)
       const sql = cat.db
@@ -118,8 +121,8 @@ describe("openIndex and the PATH.idx snapshot", () => {
       expect(Array.from(stored.keys).map((key, i) => [key, stored.types[i], stored.counts[i]])).toEqual(sql.map((r) => [r.k, r.type, r.n]));
       // the two memberOf edges end at the lab: its object end is typed lab twice
       const memberOf = cat.db.prepare("SELECT num FROM predicate WHERE id = 'r:memberOf'").get() as { num: number };
-      expect(read.index.relationEnds().types(memberOf.num, true)).toEqual([{ type: cat.numOf("t:Lab"), count: 2 }]);
-      expect(read.index.relationEnds().edges(memberOf.num)).toBe(2);
+      expect(saved.relationEnds().types(memberOf.num, true)).toEqual([{ type: cat.numOf("t:Lab"), count: 2 }]);
+      expect(saved.relationEnds().edges(memberOf.num)).toBe(2);
     } finally {
       cat.close();
     }
