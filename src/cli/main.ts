@@ -4,6 +4,9 @@
  */
 import { Command, CommanderError } from "commander";
 import { registerCommands } from "./commands/index.js";
+import { endQuietlyWhenReaderGone } from "./closed-output.js";
+
+endQuietlyWhenReaderGone();
 
 const program = new Command();
 program

@@ -67,11 +67,7 @@ export function registerTui(program: Command): void {
     .action((opts: TuiOptions) =>
       guarded(async () => {
         if (!process.stdout.isTTY || !process.stdin.isTTY) {
-          // a reader that stops early (`tiepoint | head`) is not an error
-          process.stdout.on("error", (e: NodeJS.ErrnoException) => {
-            if (e.code === "EPIPE") process.exit(0);
-            throw e;
-          });
+          // a reader that stops early (`tiepoint | head`) ends quietly (closed-output.ts, main.ts)
           process.stdout.write(program.helpInformation());
           process.stdout.write("\n(run tiepoint on a terminal, with no command, for the interactive screen)\n");
           return;
