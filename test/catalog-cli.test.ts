@@ -233,7 +233,7 @@ describe("bad catalog files: one line, exit 1, nothing corrupted", () => {
   it("a missing catalog file", () => {
     const r = tp("show", "x", "--db", "absent.db");
     expect(r.status).toBe(1);
-    expect(r.stderr).toBe("tiepoint: absent.db: catalog not found (create one with: tiepoint load FILE --db absent.db)\n");
+    expect(r.stderr).toBe("tiepoint: absent.db: catalog not found; make one from your data with: tiepoint load FILE… --db absent.db\n");
     expect(existsSync(join(dir, "absent.db"))).toBe(false);
   });
 

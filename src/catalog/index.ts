@@ -1,4 +1,4 @@
-export { Catalog, labelFromId } from "./store.js";
+export { Catalog, labelFromId, missingCatalog } from "./store.js";
 export type { OpenOptions, TypeInfo, PredicateInfo, AttributeInfo, NeighbourInfo, EntityInfo, AliasHit, CatalogCounts, AttributeSummary } from "./store.js";
 export { CatalogWriter, literalNumber } from "./writer.js";
 export { normalize, tokens, stemToken, stemKey } from "./normalize.js";

@@ -6,6 +6,7 @@
 import Database from "better-sqlite3";
 import { randomUUID } from "node:crypto";
 import { accessSync, constants, existsSync, openSync, readSync, closeSync, statSync, readFileSync } from "node:fs";
+import { dirname } from "node:path";
 import { TiepointError } from "../model/index.js";
 import { SCHEMA_SQL, SCHEMA_VERSION } from "./schema.js";
 
@@ -127,6 +128,23 @@ function isSqliteFile(path: string): boolean {
   }
 }
 
+/** Quotes a path for a POSIX shell when it holds anything beyond plain path characters. */
+function shellWord(s: string): string {
+  return /^[\w@%+=:,./-]+$/.test(s) ? s : `'${s.replace(/'/g, `'\\''`)}'`;
+}
+
+/**
+ * The error for a catalog file that does not exist, with a load command that works as
+ * given: when the folder is missing too, the command creates it first.
+ */
+export function missingCatalog(path: string): TiepointError {
+  const dir = dirname(path);
+  const load = `tiepoint load FILE… --db ${shellWord(path)}`;
+  const hint = existsSync(dir) ? load : `mkdir -p ${shellWord(dir)} && ${load}`;
+  const what = existsSync(dir) ? "catalog not found" : `catalog not found (the folder ${dir} does not exist either)`;
+  return new TiepointError("catalog/missing", `${what}; make one from your data with: ${hint}`, { file: path });
+}
+
 /**
  * A handle on one catalog file. Read methods use statements prepared once per handle.
  */
@@ -151,7 +169,7 @@ export class Catalog {
     if (!memory) {
       if (!existsSync(path)) {
         if (!options.create) {
-          throw new TiepointError("catalog/missing", `catalog not found (create one with: tiepoint load FILE --db ${path})`, { file: path });
+          throw missingCatalog(path);
         }
       } else {
         if (statSync(path).isDirectory()) throw new TiepointError("catalog/not-sqlite", "is a directory, not a catalog file", { file: path });

@@ -25,6 +25,7 @@
  * capped at the one before it (a running minimum), so scores stay best first.
  */
 import type { AttributeChoice, Analysis, Condition, ComparisonCondition, SuperlativeCondition } from "../analysis/index.js";
+import { words } from "../analysis/index.js";
 import type { Ranked, RankedCandidate } from "./rank.js";
 import type { RelationIndex } from "./relation-index.js";
 
@@ -114,6 +115,21 @@ function hopDistances(index: RelationIndex, start: number, maxHops: number, maxV
   return dist;
 }
 
+/**
+ * The note for a comparison or superlative whose attributes no candidate carries: which
+ * question words named the attribute (or that none did, when only the adjective's dimension
+ * chose it), rather than every attribute the candidates lack.
+ */
+function unmatchedNote(question: string, c: ComparisonCondition | SuperlativeCondition, candidates: number, what: "condition" | "ordering"): string {
+  const ws = words(question);
+  const best = c.choices[0]!;
+  const named = [...new Set([...best.wordIndexes].sort((x, y) => x - y).map((k) => ws[k]?.text).filter((t): t is string => t !== undefined))];
+  const none = `none of the ${candidates} candidate${candidates === 1 ? "" : "s"} has`;
+  return named.length > 0
+    ? `"${c.words}": the word${named.length === 1 ? "" : "s"} "${named.join(" ")}" matched the attribute ${best.label}, but ${none} it, so the ${what} is not applied`
+    : `"${c.words}": no word of the question names an attribute that the candidates have (nearest by meaning: ${best.label}), so the ${what} is not applied`;
+}
+
 /** Applies the conditions to a ranking. */
 export function applyConditions(
   analysis: Analysis,
@@ -200,7 +216,7 @@ export function applyConditions(
       const before = cands.length;
       if (attr === null) {
         applied.push({ condition: c, attribute: null, before, after: before });
-        if (c.choices.length > 0) notes.push(`"${c.words}": no candidate has ${c.choices.map((a) => a.label).join(" or ")}, so the condition is not applied`);
+        if (c.choices.length > 0) notes.push(unmatchedNote(analysis.question, c, before, "condition"));
         return;
       }
       cands = cands.filter((x) => {
@@ -231,7 +247,7 @@ export function applyConditions(
     const before = cands.length;
     if (attr === null) {
       applied.push({ condition: c, attribute: null, before, after: before });
-      if (c.choices.length > 0) notes.push(`"${c.words}": no candidate has ${c.choices.map((a) => a.label).join(" or ")}, so the ordering is not applied`);
+      if (c.choices.length > 0) notes.push(unmatchedNote(analysis.question, c, before, "ordering"));
       return;
     }
     const order = orderOf(c, attr);

@@ -8,6 +8,8 @@
  */
 import type { Command } from "commander";
 import { existsSync } from "node:fs";
+import { distance } from "fastest-levenshtein";
+import { missingCatalog } from "../../catalog/index.js";
 import { TiepointError } from "../../model/index.js";
 import { guarded } from "../run.js";
 import { parseTop } from "./ask.js";
@@ -24,7 +26,7 @@ interface TuiOptions {
 async function runScreen(opts: TuiOptions): Promise<void> {
   const top = parseTop(opts.top);
   if (opts.db !== undefined && !existsSync(opts.db)) {
-    throw new TiepointError("catalog/missing", `catalog not found (create one with: tiepoint load FILE --db ${opts.db})`, { file: opts.db });
+    throw missingCatalog(opts.db);
   }
   // ink renders nothing interactive when it believes it runs under CI; the user asked for
   // the screen on a real terminal, so say we are not (read once, when ink is imported).
@@ -51,6 +53,22 @@ async function runScreen(opts: TuiOptions): Promise<void> {
   setTimeout(() => process.exit(process.exitCode ?? 0), 1000).unref();
 }
 
+/** Edit distance at most this share of the word's length counts as a likely typo of a command name. */
+const TYPO_SHARE = 0.4;
+
+/**
+ * The usage error for `tiepoint WORD …` when WORD names no command: the list of commands and,
+ * when one is within a few edits (Levenshtein distance), that one as the likely meaning.
+ */
+export function unknownCommand(word: string, commands: readonly string[]): TiepointError {
+  const near = commands
+    .map((c) => ({ c, d: distance(word.toLowerCase(), c) }))
+    .filter((x) => x.d <= Math.max(1, Math.ceil(TYPO_SHARE * Math.max(word.length, x.c.length))) || (word.length >= 2 && x.c.startsWith(word.toLowerCase())))
+    .sort((a, b) => a.d - b.d || a.c.localeCompare(b.c));
+  const guess = near.length > 0 ? ` (did you mean ${near[0]!.c}?)` : "";
+  return new TiepointError("cli/usage", `unknown command '${word}'${guess}; the commands are ${commands.join(", ")} (tiepoint COMMAND --help for each)`);
+}
+
 /** Registers the default action (no command) on the program. */
 export function registerTui(program: Command): void {
   // `--db` belongs to the program here and to each command after its name
@@ -64,8 +82,11 @@ export function registerTui(program: Command): void {
   program
     .option("--db <path>", "the catalog for the terminal screen (default: the bundled demo catalog)")
     .option("--top <n>", "answers per question on the terminal screen", "10")
+    // words after `tiepoint` that name no command reach this action: say so (not "too many arguments")
+    .allowExcessArguments(true)
     .action((opts: TuiOptions) =>
       guarded(async () => {
+        if (program.args.length > 0) throw unknownCommand(program.args[0]!, program.commands.map((c) => c.name()));
         if (!process.stdout.isTTY || !process.stdin.isTTY) {
           // a reader that stops early (`tiepoint | head`) ends quietly (closed-output.ts, main.ts)
           process.stdout.write(program.helpInformation());
