@@ -10,13 +10,14 @@ import { TiepointError } from "../model/index.js";
 import type { Catalog } from "./store.js";
 import { CatalogWriter } from "./writer.js";
 import { LoadContext, TooManyErrors, DEFAULTS as CONTEXT_DEFAULTS } from "./import/context.js";
-import type { LoadProgress } from "./import/context.js";
+import type { LoadProgress, LoadWarning, WarningKind } from "./import/context.js";
+import { checkNames, locateWarnings } from "./import/names.js";
 import { importJsonl } from "./import/jsonl.js";
 import { importCsv } from "./import/csv.js";
 import { importRdf } from "./import/rdf.js";
 import { finishLoad } from "./import/finish.js";
 
-export type { LoadProgress };
+export type { LoadProgress, LoadWarning, WarningKind };
 
 /** Defaults of {@link loadFiles}. */
 export const DEFAULTS = {
@@ -44,6 +45,8 @@ export interface LoadOptions {
   readonly onProgress?: (p: LoadProgress) => void;
   /** @default DEFAULTS.maxErrors */
   readonly maxErrors?: number;
+  /** Every warning is an error: nothing is written when there is one. @default false */
+  readonly strict?: boolean;
 }
 
 /** What one file contributed. */
@@ -64,6 +67,8 @@ export interface LoadReport {
   readonly added: { readonly entities: number; readonly edges: number; readonly attributes: number; readonly aliases: number; readonly predicates: number };
   /** The catalog's generation after the load. */
   readonly generation: number;
+  /** Warnings, in file and line order (each `FILE:LINE`). */
+  readonly warnings: readonly LoadWarning[];
   readonly seconds: number;
 }
 
@@ -137,6 +142,7 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
     throw e;
   }
   const reports: FileReport[] = [];
+  const order = new Map(files.map((f, i) => [f, i]));
   let ctx: LoadContext | undefined;
   try {
     if (options.replace) writer.clear();
@@ -164,23 +170,25 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
           else throw e;
         }
         ctx.progress(size, true);
-        reports.push({ file, format, statements: ctx.statements - startStatements, bytes: size });
+        const statements = ctx.statements - startStatements;
+        if (statements === 0 && ctx.errors.length === 0) ctx.warn("empty file", "no statements in this file; nothing was loaded from it", undefined, { file, line: 1 });
+        reports.push({ file, format, statements, bytes: size });
       }
       ctx.checkPending();
       if (ctx.errors.length === 0) {
         writer.restoreIndexes();
         finishLoad(writer, { rdf });
+        checkNames(ctx);
+        locateWarnings(ctx.warnings);
+        // --strict: every warning is an error (up to the error limit)
+        if (options.strict) for (const x of ctx.warnings) ctx.error(x.file, x.line, `${x.message} (--strict: warnings are errors)`, "catalog/strict");
       }
     } catch (e) {
       if (!(e instanceof TooManyErrors)) throw e;
     }
     if (ctx.errors.length > 0) {
       // in file order, then line order (end-of-load checks come last otherwise)
-      const order = new Map(files.map((f, i) => [f, i]));
-      const errs = ctx.errors
-        .map((e, i) => ({ e, i }))
-        .sort((a, b) => (order.get(a.e.file ?? "") ?? 0) - (order.get(b.e.file ?? "") ?? 0) || (a.e.line ?? 0) - (b.e.line ?? 0) || a.i - b.i)
-        .map((x) => x.e);
+      const errs = inFileOrder(ctx.errors, order);
       const more = errs.slice(1);
       if (errs.length >= ctx.maxErrors) more.push(new TiepointError("catalog/parse", `stopped after ${ctx.maxErrors} errors; nothing was loaded`));
       else more.push(new TiepointError("catalog/parse", `${errs.length} error${errs.length === 1 ? "" : "s"}; nothing was loaded`));
@@ -206,6 +214,15 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
       predicates: after.predicates - before.predicates,
     },
     generation: cat.version().generation,
+    warnings: inFileOrder(ctx.warnings, order).map((x) => ({ kind: x.kind, file: x.file, line: x.line, message: x.message })),
     seconds: (Date.now() - t0) / 1000,
   };
+}
+
+/** Problems in file order, then line order, then the order found (a stable sort). */
+function inFileOrder<T extends { readonly file?: string; readonly line?: number }>(list: readonly T[], order: ReadonlyMap<string, number>): T[] {
+  return list
+    .map((e, i) => ({ e, i }))
+    .sort((a, b) => (order.get(a.e.file ?? "") ?? 0) - (order.get(b.e.file ?? "") ?? 0) || (a.e.line ?? 0) - (b.e.line ?? 0) || a.i - b.i)
+    .map((x) => x.e);
 }

@@ -84,6 +84,16 @@ export class CatalogWriter {
   private readonly edges: SortedEdges;
   /** The num the next new entity gets (0: read it from the table first). */
   private nextNum = 0;
+  /** Per predicate num: edges this load gave it (a misspelt relation id shows up rarely used). */
+  private relUses = new Int32Array(64);
+  /** Per type entity num: rows of this load that name it as a type or in the type hierarchy. */
+  private readonly typeUseCount = new Map<number, number>();
+  /** Predicate nums at or below this existed before the transaction. */
+  private maxPredBefore = 0;
+  /** Called the first time this load uses a relation (in an edge) or a type (so the load can note where). */
+  onFirstUse?: (kind: "type" | "relation", id: string) => void;
+  /** Called when a write deserves a warning (an existing entity's label kept, a second value), with the entity's id. */
+  onNotice?: (kind: "label kept" | "second value", message: string, id: string) => void;
 
   constructor(cat: Catalog) {
     this.cat = cat;
@@ -135,6 +145,37 @@ export class CatalogWriter {
     this.flags = new Uint8Array(1024);
     this.maxNumBefore = (this.db.prepare("SELECT max(num) AS m FROM entity").get() as { m: number | null }).m ?? 0;
     this.predicatesBefore = (this.db.prepare("SELECT count(*) AS n FROM predicate").get() as { n: number }).n;
+    this.maxPredBefore = (this.db.prepare("SELECT max(num) AS m FROM predicate").get() as { m: number | null }).m ?? 0;
+    this.relUses = new Int32Array(64);
+    this.typeUseCount.clear();
+  }
+
+  /** True when entity `num` was made in this transaction. */
+  isNewEntity(num: number): boolean {
+    return num > this.maxNumBefore;
+  }
+
+  /** True when predicate `num` was made in this transaction. */
+  isNewPredicate(num: number): boolean {
+    return num > this.maxPredBefore;
+  }
+
+  /** [predicate num, edges] of every relation this load wrote edges of. */
+  relationUses(): [number, number][] {
+    const out: [number, number][] = [];
+    for (let i = 0; i < this.relUses.length; i++) if (this.relUses[i]! > 0) out.push([i, this.relUses[i]!]);
+    return out;
+  }
+
+  /** [type num, rows] of every type this load named (entity types and the type hierarchy). */
+  typeUses(): [number, number][] {
+    return [...this.typeUseCount];
+  }
+
+  private useType(num: number, id: string): void {
+    const c = this.typeUseCount.get(num);
+    this.typeUseCount.set(num, (c ?? 0) + 1);
+    if (c === undefined) this.onFirstUse?.("type", id);
   }
 
   private predicatesBefore = 0;
@@ -318,17 +359,32 @@ export class CatalogWriter {
 
   /** `id rdf:type type`. */
   type(id: string, type: string): void {
-    this.types.add(this.entity(id), this.entity(type));
+    const e = this.entity(id);
+    const t = this.entity(type);
+    this.useType(t, type);
+    this.types.add(e, t);
   }
 
   /** `sub rdfs:subClassOf sup`. */
   subclass(sub: string, sup: string): void {
-    this.s.insSub!.run(this.entity(sub), this.entity(sup));
+    const a = this.entity(sub);
+    const b = this.entity(sup);
+    this.useType(a, sub);
+    this.useType(b, sup);
+    this.s.insSub!.run(a, b);
   }
 
   /** A relation edge `src rel dst` (buffered; see rows.ts). */
   edge(src: string, rel: string, dst: string): void {
-    this.edges.add(this.entity(src), this.predicate(rel), this.entity(dst));
+    const s = this.entity(src);
+    const r = this.predicate(rel);
+    if (r >= this.relUses.length) {
+      const bigger = new Int32Array(Math.max(r + 1, this.relUses.length * 2));
+      bigger.set(this.relUses);
+      this.relUses = bigger;
+    }
+    if (this.relUses[r]++ === 0) this.onFirstUse?.("relation", rel);
+    this.edges.add(s, r, this.entity(dst));
   }
 
   /**

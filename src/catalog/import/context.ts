@@ -30,6 +30,43 @@ export interface LoadProgress {
   readonly elapsedMs: number;
 }
 
+/** What a warning is about (counted by kind in the load summary). */
+export type WarningKind =
+  | "undeclared type"
+  | "undeclared relation"
+  | "unlabelled relation"
+  | "ignored column"
+  | "label kept"
+  | "second value"
+  | "empty file";
+
+/**
+ * A problem that does not stop a load: listed as `FILE:LINE: warning: message` and counted;
+ * under `--strict` every warning is an error and nothing is written.
+ */
+export interface LoadWarning {
+  readonly kind: WarningKind;
+  readonly file: string;
+  /** 1-based line of the statement it is about. */
+  readonly line: number;
+  readonly message: string;
+}
+
+/** A warning as collected: its line may still be unknown (0), `id` names what to look for. */
+export interface PendingWarning {
+  readonly kind: WarningKind;
+  readonly file: string;
+  line: number;
+  readonly message: string;
+  readonly id?: string;
+}
+
+/** Where a type or relation id was first used in a load (line 0: not known yet, found by `locateWarnings`). */
+export interface FirstUse {
+  readonly file: string;
+  readonly line: number;
+}
+
 /** Thrown internally when the error limit is reached; ends the load. */
 export class TooManyErrors extends Error {}
 
@@ -53,6 +90,18 @@ export class LoadContext {
   private readonly existedStmt;
   /** Statements read so far. */
   statements = 0;
+  /**
+   * The line of the statement being imported, set by the importers before each one (0 when
+   * the reader does not track lines: the quick N-Triples pass; {@link LoadContext.where}
+   * finds those lines afterwards).
+   */
+  line = 0;
+  /** Warnings so far, in the order found (line 0 until {@link locateWarnings} finds it). */
+  readonly warnings: PendingWarning[] = [];
+  /** Where each type and relation id was first used in this load, by `kind + "\0" + id`. */
+  readonly firstUse = new Map<string, FirstUse>();
+  /** Relation and attribute ids declared by a record (JSON Lines, CSV) in this load. */
+  readonly declaredPredicates = new Set<string>();
   private readonly onProgress?: (p: LoadProgress) => void;
   private readonly started = Date.now();
   private lastProgress = 0;
@@ -66,6 +115,17 @@ export class LoadContext {
     const db = writer.catalog.db;
     this.maxNumBefore = (db.prepare("SELECT max(num) AS m FROM entity").get() as { m: number | null }).m ?? 0;
     this.existedStmt = db.prepare("SELECT num FROM entity WHERE id = ?");
+    writer.onFirstUse = (kind, id) => this.firstUse.set(`${kind}\0${id}`, { file: this.progressBase.file, line: this.line });
+    writer.onNotice = (kind, message, id) => this.warn(kind, message, id);
+  }
+
+  /**
+   * Records a warning about the statement being imported (or at `at`). `id` names the
+   * entity or predicate it is about, so that a line the reader did not track (line 0) can be
+   * found afterwards ({@link locateWarnings}).
+   */
+  warn(kind: WarningKind, message: string, id?: string, at?: FirstUse): void {
+    this.warnings.push({ kind, file: at?.file ?? this.progressBase.file, line: at?.line ?? this.line, message, id });
   }
 
   /** Records an error at `file:line`; throws {@link TooManyErrors} at the limit. */
@@ -77,6 +137,11 @@ export class LoadContext {
   /** Notes that entity `id` is declared by a record of this load. */
   declare(id: string): void {
     this.declared.add(id);
+  }
+
+  /** True when entity `id` is declared by a record of this load. */
+  isDeclared(id: string): boolean {
+    return this.declared.has(id);
   }
 
   /** True when `id` is declared in this load or existed in the catalog before it. */

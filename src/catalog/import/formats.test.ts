@@ -176,7 +176,7 @@ describe("JSON Lines details", () => {
         ].join("\n"),
       }),
     ).toEqual([
-      'x.jsonl:1: unknown field "lable" in a entity record (expected id, label, aliases, types, description, attributes, relations, subClassOf)',
+      'x.jsonl:1: unknown field "lable" in an entity record (expected id, label, aliases, types, description, attributes, relations, subClassOf)',
       'x.jsonl:2: unknown kind "thing" (expected entity, type, relation, attribute or edge)',
       'x.jsonl:3: field "types" must be a string or a list of strings (item 1 is a number)',
       "x.jsonl:4: expected a JSON object, got a list",

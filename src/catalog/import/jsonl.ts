@@ -67,7 +67,7 @@ function inferKind(o: Obj): string {
 function checkFields(o: Obj, kind: string): void {
   const allowed = FIELDS[kind]!;
   for (const k of Object.keys(o)) {
-    if (!allowed.includes(k)) throw new Bad(`unknown field "${k}" in a ${kind} record (expected ${allowed.filter((f) => f !== "kind").join(", ")})`);
+    if (!allowed.includes(k)) throw new Bad(`unknown field "${k}" in ${/^[aeiou]/.test(kind) ? "an" : "a"} ${kind} record (expected ${allowed.filter((f) => f !== "kind").join(", ")})`);
   }
 }
 
@@ -157,6 +157,7 @@ export function importJsonl(ctx: LoadContext, file: string): void {
           continue;
         }
         try {
+          ctx.line = lineNo;
           record(ctx, file, lineNo, o);
         } catch (e) {
           if (e instanceof Bad) ctx.error(file, lineNo, e.message);

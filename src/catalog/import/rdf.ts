@@ -167,6 +167,7 @@ export function importRdf(ctx: LoadContext, file: string, format: "nt" | "ttl"):
  * with their lines. What the quick pass wrote is rolled back with the failed load.
  */
 function readQuick(ctx: LoadContext, file: string, names: BlankNames): boolean {
+  ctx.line = 0; // not tracked here: warnings find their lines afterwards (names.ts locateWarnings)
   const mapper = new TripleMapper(ctx.writer, names);
   const startStatements = ctx.statements;
   const restart = (): never => {
@@ -214,6 +215,7 @@ function readTracked(ctx: LoadContext, file: string, format: "nt" | "ttl", names
   const reject = (message: string): void => ctx.error(file, line, message);
   const quad = (q: Quad): void => {
     ctx.tick(bytes);
+    ctx.line = line;
     mapper.quad(q, reject);
   };
 

@@ -3,10 +3,11 @@
  * missing) in one transaction. Errors print as `FILE:LINE: message` on stderr, exit 1.
  * A progress bar is drawn on stderr when it is a terminal and the load runs over a second.
  */
-import { existsSync, rmSync } from "node:fs";
+import { existsSync, rmSync, statSync } from "node:fs";
+import { dirname } from "node:path";
 import type { Command } from "commander";
 import { Catalog, loadFiles } from "../../catalog/index.js";
-import type { LoadProgress, LoadReport } from "../../catalog/index.js";
+import type { LoadProgress, LoadReport, LoadWarning } from "../../catalog/index.js";
 import { TiepointError } from "../../model/index.js";
 import { Session } from "../../pipeline/index.js";
 import { reportError } from "../run.js";
@@ -17,7 +18,16 @@ export const DEFAULTS = {
   showAfterMs: 1000,
   /** Width of the bar in cells. */
   barWidth: 24,
+  /** Warnings listed on stderr (the rest are counted). */
+  maxWarnings: 20,
 };
+
+/** `n word` or `n words` (English plural with -s; `many` for the irregular ones). */
+export function count(n: number, word: string, many = `${word}s`): string {
+  return `${n.toLocaleString("en-US")} ${n === 1 || n === -1 ? word : many}`;
+}
+
+const signed = (n: number, word: string, many?: string): string => `${n >= 0 ? "+" : ""}${count(n, word, many)}`;
 
 /** Draws one progress line (pure; exported for tests). */
 export function progressLine(p: LoadProgress, width = DEFAULTS.barWidth): string {
@@ -28,13 +38,43 @@ export function progressLine(p: LoadProgress, width = DEFAULTS.barWidth): string
   return `loading ${p.file}${files} [${"#".repeat(filled)}${"-".repeat(width - filled)}] ${Math.floor(frac * 100)}%  ${p.statements.toLocaleString("en-US")} statements  ${rate.toLocaleString("en-US")}/s`;
 }
 
-function summary(r: LoadReport, db: string): string {
+/** The one-line summary of a committed load (pure; exported for tests). */
+export function summary(r: LoadReport, db: string): string {
   const a = r.added;
   const rate = r.seconds > 0 ? Math.round(r.statements / r.seconds) : r.statements;
-  return (
-    `loaded ${r.files.length} file${r.files.length === 1 ? "" : "s"} into ${db}: ${r.statements.toLocaleString("en-US")} statements in ${r.seconds.toFixed(2)} s (${rate.toLocaleString("en-US")}/s); ` +
-    `${a.entities >= 0 ? "+" : ""}${a.entities} entities, ${a.edges >= 0 ? "+" : ""}${a.edges} edges, ${a.attributes >= 0 ? "+" : ""}${a.attributes} attributes`
-  );
+  let line =
+    `loaded ${count(r.files.length, "file")} into ${db}: ${count(r.statements, "statement")} in ${r.seconds.toFixed(2)} s (${rate.toLocaleString("en-US")}/s); ` +
+    `${signed(a.entities, "entity", "entities")}, ${signed(a.edges, "edge")}, ${signed(a.attributes, "attribute")}`;
+  if (r.warnings.length > 0) line += `; ${warningCounts(r.warnings)}`;
+  return line;
+}
+
+/** "3 warnings (2 undeclared types, 1 ignored column)". */
+export function warningCounts(warnings: readonly LoadWarning[]): string {
+  const byKind = new Map<string, number>();
+  for (const w of warnings) byKind.set(w.kind, (byKind.get(w.kind) ?? 0) + 1);
+  const parts = [...byKind].map(([kind, n]) => count(n, kind));
+  return `${count(warnings.length, "warning")} (${parts.join(", ")})`;
+}
+
+/** The warnings as `FILE:LINE: warning: message` lines, at most `max`, then how many more. */
+export function warningLines(warnings: readonly LoadWarning[], max = DEFAULTS.maxWarnings): string[] {
+  const lines = warnings.slice(0, max).map((w) => `${w.file}:${w.line}: warning: ${w.message}`);
+  if (warnings.length > max) lines.push(`… and ${count(warnings.length - max, "more warning")}`);
+  return lines;
+}
+
+/** A catalog path whose folder is missing: one clear line instead of SQLite's own message. */
+function checkFolder(db: string): void {
+  if (db === ":memory:" || existsSync(db)) return;
+  const dir = dirname(db);
+  let isDir = false;
+  try {
+    isDir = statSync(dir).isDirectory();
+  } catch {
+    isDir = false;
+  }
+  if (!isDir) throw new TiepointError("catalog/open", `cannot create catalog ${db}: folder ${dir} does not exist`);
 }
 
 /**
@@ -62,9 +102,10 @@ export function registerLoad(program: Command): void {
     .argument("<files...>", "files to import")
     .requiredOption("--db <path>", "the catalog file (created when missing)")
     .option("--replace", "empty the catalog first (in the same transaction)")
+    .option("--strict", "treat warnings (undeclared or unlabelled types and relations, ignored columns, kept labels, second values, empty files) as errors: nothing is written")
     .option("--quiet", "print nothing on success")
     .option("--no-prepare", "skip building the question indexes (relation index, name index) after the load; the first question builds them instead")
-    .action((files: string[], opts: { db: string; replace?: boolean; quiet?: boolean; prepare?: boolean }) => {
+    .action((files: string[], opts: { db: string; replace?: boolean; strict?: boolean; quiet?: boolean; prepare?: boolean }) => {
       let cat: Catalog | undefined;
       const tty = process.stderr.isTTY === true;
       let drawn = false;
@@ -79,10 +120,13 @@ export function registerLoad(program: Command): void {
       const existed = existsSync(opts.db);
       let ok = false;
       try {
+        checkFolder(opts.db);
         cat = Catalog.open(opts.db, { create: true });
-        const report = loadFiles(cat, files, { replace: opts.replace === true, onProgress });
+        const report = loadFiles(cat, files, { replace: opts.replace === true, strict: opts.strict === true, onProgress });
         if (drawn) process.stderr.write("\r\x1b[K");
         ok = true;
+        // warnings print even with --quiet: they are about the data just loaded
+        if (report.warnings.length > 0) process.stderr.write(warningLines(report.warnings).join("\n") + "\n");
         if (!opts.quiet) process.stderr.write(summary(report, opts.db) + "\n");
         cat.close();
         cat = undefined;

@@ -1,0 +1,131 @@
+/**
+ * `tiepoint load` warnings and `--strict` through the real CLI (spawned `node dist/cli/main.js`,
+ * real files in a temp folder, real SQLite): misspelt type and relation ids (issue 18), empty
+ * files, a catalog in a missing folder, plurals in the summary. Expected lines are written by
+ * hand from the input files (the line numbers counted in them).
+ */
+import { mkdtempSync, writeFileSync, existsSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { beforeAll, describe, expect, it } from "vitest";
+import { dumpCatalog } from "./catalog-dump.js";
+import { ensureBuilt, tp as run } from "./reliability-cli.js";
+
+let dir = "";
+const tp = (...args: string[]) => run(dir, ...args);
+function write(name: string, content: string): string {
+  writeFileSync(join(dir, name), content);
+  return name;
+}
+
+beforeAll(() => {
+  ensureBuilt();
+  dir = mkdtempSync(join(tmpdir(), "tp-load-checks-"));
+});
+
+const TYPO_JSONL = [
+  '{"kind":"type","id":"t:Surveyor","label":"surveyor"}',
+  '{"kind":"relation","id":"worksAt","label":"works at"}',
+  '{"id":"p:ana","label":"Ana Vell","types":["t:Surveyor"],"relations":{"worksAt":"o:lab"}}',
+  '{"id":"o:lab","label":"Harl Lab"}',
+  '{"id":"p:bo","label":"Bo Trem","types":["t:Surveyr"],"relations":{"workAt":"o:lab"}}',
+  "",
+].join("\n");
+
+const RDFS_LABEL = "<http://www.w3.org/2000/01/rdf-schema#label>";
+const RDF_TYPE = "<http://www.w3.org/1999/02/22-rdf-syntax-ns#type>";
+
+describe("load: misspelt ids are reported with FILE:LINE and a did-you-mean", () => {
+  it("JSON Lines: an undeclared type and relation used once, at the line of first use", () => {
+    const r = tp("load", write("typo.jsonl", TYPO_JSONL), "--db", "typo.db", "--no-prepare");
+    expect(r.status, r.stderr).toBe(0);
+    const lines = r.stderr.trimEnd().split("\n");
+    expect(lines).toContain('typo.jsonl:5: warning: relation "workAt" is not declared and has no label (used by 1 edge); did you mean "worksAt"?');
+    expect(lines).toContain('typo.jsonl:5: warning: type "t:Surveyr" is not declared and has no label (used by 1 row); did you mean "t:Surveyor"?');
+    expect(lines.at(-1)).toMatch(/; 2 warnings \(1 undeclared relation, 1 undeclared type\)$/);
+  });
+
+  it("N-Triples (read without line tracking) and Turtle find the line of first use too", () => {
+    const nt = [
+      `<urn:x:worksAt> ${RDFS_LABEL} "works at" .`,
+      `<urn:x:Surveyor> ${RDFS_LABEL} "surveyor" .`,
+      `<urn:x:ana> ${RDF_TYPE} <urn:x:Surveyor> .`,
+      `<urn:x:ana> <urn:x:worksAt> <urn:x:lab> .`,
+      "",
+      `<urn:x:bo> ${RDF_TYPE} <urn:x:Surveyr> .`,
+      `<urn:x:bo> <urn:x:workAt> <urn:x:lab> .`,
+      "",
+    ].join("\n");
+    const r = tp("load", write("typo.nt", nt), "--db", "typo-nt.db", "--no-prepare");
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stderr).toContain('typo.nt:6: warning: type "urn:x:Surveyr" is not declared and has no label (used by 1 row); did you mean "urn:x:Surveyor"?');
+    expect(r.stderr).toContain('typo.nt:7: warning: relation "urn:x:workAt" is not declared and has no label (used by 1 edge); did you mean "urn:x:worksAt"?');
+    const ttl = ["@prefix x: <urn:x:> .", "@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .", 'x:worksAt rdfs:label "works at" .', 'x:Surveyor rdfs:label "surveyor" .', "x:ana a x:Surveyor ; x:worksAt x:lab .", "x:bo a x:Surveyr ;", "  x:workAt x:lab .", ""].join("\n");
+    const t = tp("load", write("typo.ttl", ttl), "--db", "typo-ttl.db", "--no-prepare");
+    expect(t.status, t.stderr).toBe(0);
+    expect(t.stderr).toContain('typo.ttl:6: warning: type "urn:x:Surveyr"');
+    expect(t.stderr).toContain('typo.ttl:7: warning: relation "urn:x:workAt"');
+  });
+
+  it("a widely used relation without a label is reported as unlabelled, once", () => {
+    const rows = ["subject,relation,object", ...["a", "b", "c"].map((x) => `e:${x},r:near,e:z`), ""].join("\n");
+    write("ents.csv", "id,label\ne:a,Alder\ne:b,Birch\ne:c,Cedar\ne:z,Zelkova\n");
+    const r = tp("load", "ents.csv", write("near.csv", rows), "--db", "near.db", "--no-prepare");
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stderr).toContain('near.csv:2: warning: relation "r:near" has no label (used by 3 edges); questions can name it only as "near"');
+    expect(r.stderr).toMatch(/1 warning \(1 unlabelled relation\)\n/);
+  });
+
+  it("--strict: the same warnings are errors, exit 1, nothing written", () => {
+    const before = tp("load", write("seed.jsonl", '{"id":"s:1","label":"Seed"}\n'), "--db", "strict.db", "--no-prepare");
+    expect(before.status, before.stderr).toBe(0);
+    const dump = dumpCatalog(join(dir, "strict.db"));
+    const r = tp("load", "typo.jsonl", "--db", "strict.db", "--strict", "--no-prepare");
+    expect(r.status).toBe(1);
+    expect(r.stderr.trimEnd().split("\n")).toEqual([
+      'typo.jsonl:5: relation "workAt" is not declared and has no label (used by 1 edge); did you mean "worksAt"? (--strict: warnings are errors)',
+      'typo.jsonl:5: type "t:Surveyr" is not declared and has no label (used by 1 row); did you mean "t:Surveyor"? (--strict: warnings are errors)',
+      "2 errors; nothing was loaded",
+    ]);
+    expect(dumpCatalog(join(dir, "strict.db"))).toBe(dump);
+    // a clean file passes --strict
+    const ok = tp("load", write("clean.jsonl", TYPO_JSONL.split("\n").slice(0, 4).join("\n") + "\n"), "--db", "strict.db", "--strict", "--no-prepare");
+    expect(ok.status, ok.stderr).toBe(0);
+    expect(ok.stderr).not.toMatch(/warning/);
+  });
+
+  it("the warning list is capped, and says how many more", () => {
+    // 25 relations, each used once, no labels: 25 warnings, 20 listed (DEFAULTS.maxWarnings)
+    const rows = ["subject,relation,object", ...Array.from({ length: 25 }, (_, i) => `e:a,r:q${i},e:z`), ""].join("\n");
+    const r = tp("load", "ents.csv", write("many.csv", rows), "--db", "many.db", "--no-prepare");
+    expect(r.status, r.stderr).toBe(0);
+    const lines = r.stderr.trimEnd().split("\n");
+    expect(lines.filter((l) => l.includes(": warning: "))).toHaveLength(20);
+    expect(lines).toContain("… and 5 more warnings");
+    expect(lines.at(-1)).toMatch(/; 25 warnings \(25 undeclared relations\)$/);
+  });
+});
+
+describe("load: small things (issue 18)", () => {
+  it("an empty .csv and an empty .ttl both load nothing, with a warning", () => {
+    const r = tp("load", write("empty.csv", ""), write("empty.ttl", ""), write("one.jsonl", '{"id":"x:1","label":"Uno"}\n'), "--db", "empty.db", "--no-prepare");
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stderr).toContain("empty.csv:1: warning: no statements in this file; nothing was loaded from it");
+    expect(r.stderr).toContain("empty.ttl:1: warning: no statements in this file; nothing was loaded from it");
+    // singular forms: 1 statement, +1 entity, +0 edges
+    expect(r.stderr).toMatch(/loaded 3 files into empty\.db: 1 statement in [\d.]+ s \([\d,]+\/s\); \+1 entity, \+0 edges, \+0 attributes; 2 warnings \(2 empty files\)/);
+  });
+
+  it("a catalog in a folder that does not exist: one clear line, exit 1, nothing created", () => {
+    const r = tp("load", "one.jsonl", "--db", "no/such/place.db");
+    expect(r.status).toBe(1);
+    expect(r.stderr).toBe("tiepoint: cannot create catalog no/such/place.db: folder no/such does not exist\n");
+    expect(existsSync(join(dir, "no"))).toBe(false);
+  });
+
+  it("an unknown JSON Lines field names the record kind with the right article", () => {
+    const r = tp("load", write("field.jsonl", '{"kind":"attribute","id":"a:x","lable":"x"}\n'), "--db", "field.db");
+    expect(r.status).toBe(1);
+    expect(r.stderr).toMatch(/^field\.jsonl:1: unknown field "lable" in an attribute record/);
+  });
+});
