@@ -174,6 +174,10 @@ export interface CheckItem {
   /** rank === 1 (false when no expected answers were given). */
   readonly hit: boolean;
   readonly answer: AskResult;
+  /** Expected values that are neither an entity id nor an exact label of the catalog (absent when none); they can never match. */
+  readonly unknownExpected?: readonly string[];
+  /** The verdict the question file expects (a CSV `verdict` column), when given. */
+  readonly expectedVerdict?: VerdictStatus;
 }
 
 /** The summary of `check --json`. */

@@ -27,6 +27,11 @@ export function rankOfExpected(result: AskResult, expected: readonly string[]): 
   return i < 0 ? null : i + 1;
 }
 
+/** The expected values of an item that name no entity (neither an id nor an exact label of the catalog): they can never match an answer. */
+export function unknownExpected(session: Session, item: QuestionItem): string[] {
+  return item.expected.filter((x) => session.catalog.byLabelOrId(x).length === 0);
+}
+
 /** Runs every question and summarises (contract.md, `check --json`). */
 export function runCheck(session: Session, items: readonly QuestionItem[], options: CheckOptions = {}): CheckReport {
   const t0 = performance.now();
@@ -35,7 +40,17 @@ export function runCheck(session: Session, items: readonly QuestionItem[], optio
   for (const item of items) {
     const answer = session.ask(item.question, ask).result;
     const rank = rankOfExpected(answer, item.expected);
-    const r: CheckItem = { line: item.line, question: item.question, expected: item.expected, rank, hit: rank === 1, answer };
+    const unknown = unknownExpected(session, item);
+    const r: CheckItem = {
+      line: item.line,
+      question: item.question,
+      expected: item.expected,
+      rank,
+      hit: rank === 1,
+      answer,
+      ...(unknown.length > 0 ? { unknownExpected: unknown } : {}),
+      ...(item.verdict ? { expectedVerdict: item.verdict } : {}),
+    };
     results.push(r);
     options.onProgress?.(results.length, items.length, r);
   }

@@ -4,9 +4,9 @@
  */
 export { Session, DEFAULTS as ASK_DEFAULTS } from "./session.js";
 export type { SessionOptions, SessionProgress, AskOptions, AskOutcome, AskTimings } from "./session.js";
-export { parseQuestionFile, parseQuestionText } from "./questions.js";
-export type { QuestionItem } from "./questions.js";
-export { runCheck, rankOfExpected, summarise } from "./check.js";
+export { parseQuestionFile, parseQuestionText, questionLayout, DEFAULTS as QUESTION_FILE_DEFAULTS } from "./questions.js";
+export type { QuestionItem, QuestionLayout } from "./questions.js";
+export { runCheck, rankOfExpected, summarise, unknownExpected } from "./check.js";
 export type { CheckOptions } from "./check.js";
 export { basicVerdict, DEFAULTS as VERDICT_DEFAULTS } from "./verdict.js";
 export type { VerdictOptions } from "./verdict.js";

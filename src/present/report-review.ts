@@ -18,7 +18,7 @@ export interface ReviewOptions {
 export const REVIEW_DEFAULTS = { lowConfidence: 0.5 } as const;
 
 /** Why a question needs a look. */
-export type ReviewKind = "miss" | "tied" | "weak" | "none" | "low-confidence";
+export type ReviewKind = "miss" | "tied" | "weak" | "none" | "low-confidence" | "verdict";
 
 /** One reason a question needs a look. */
 export interface ReviewFlag {
@@ -40,12 +40,14 @@ export function reviewItem(item: CheckItem, options: ReviewOptions = {}): readon
   const a = item.answer;
   if (item.expected.length > 0 && !item.hit) {
     const exp = item.expected.join(" | ");
+    const absent = item.unknownExpected && item.unknownExpected.length > 0 ? ` (not in the catalog: ${item.unknownExpected.join(", ")})` : "";
     flags.push({
       kind: "miss",
-      detail: item.rank === null ? `expected ${exp}, not among the ${a.answers.length} answers` : `expected ${exp} at rank ${item.rank}`,
+      detail: (item.rank === null ? `expected ${exp}, not among the ${a.answers.length} answers` : `expected ${exp} at rank ${item.rank}`) + absent,
     });
   }
   const v = a.verdict;
+  if (item.expectedVerdict !== undefined && item.expectedVerdict !== v.status) flags.push({ kind: "verdict", detail: `${v.status}, the file expects ${item.expectedVerdict}` });
   if (v.status === "tied") {
     const named = v.tiedWith.map((id) => {
       const x = a.answers.find((y) => y.id === id);
