@@ -8,6 +8,7 @@ import { mkdtempSync, writeFileSync, existsSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
+import Database from "better-sqlite3";
 import { dumpCatalog } from "./catalog-dump.js";
 import { ensureBuilt, tp as run } from "./reliability-cli.js";
 
@@ -127,5 +128,57 @@ describe("load: small things (issue 18)", () => {
     const r = tp("load", write("field.jsonl", '{"kind":"attribute","id":"a:x","lable":"x"}\n'), "--db", "field.db");
     expect(r.status).toBe(1);
     expect(r.stderr).toMatch(/^field\.jsonl:1: unknown field "lable" in an attribute record/);
+  });
+});
+
+/** The units stored in a catalog file (meta `unit:PRED`), read with SQLite directly. */
+function units(db: string): Record<string, string> {
+  const h = new Database(join(dir, db), { readonly: true });
+  try {
+    const rows = h.prepare("SELECT key, value FROM meta WHERE key LIKE 'unit:%' ORDER BY key").all() as { key: string; value: string }[];
+    return Object.fromEntries(rows.map((r) => [r.key.slice(5), r.value]));
+  } finally {
+    h.close();
+  }
+}
+
+describe("load: attribute units in every format", () => {
+  it("CSV: a unit column gives attribute rows their unit; cells a row cannot hold are warned about", () => {
+    const csv = ["id,kind,label,unit,types", "depth,attribute,depth,metres,", "worksAt,relation,works at,km,t:X", "p:a,entity,Ana,,", "p:b,entity,Bo,7,", ""].join("\n");
+    const r = tp("load", write("units.csv", csv), "--db", "units-csv.db", "--no-prepare");
+    expect(r.status, r.stderr).toBe(0);
+    expect(units("units-csv.db")).toEqual({ depth: "metres" });
+    expect(r.stderr.split("\n").filter((l) => l.includes(": warning: "))).toEqual([
+      'units.csv:3: warning: column "unit" is ignored on a relation row (a relation row takes id, kind, label, aliases, description)',
+      'units.csv:3: warning: column "types" is ignored on a relation row (a relation row takes id, kind, label, aliases, description)',
+      'units.csv:5: warning: column "unit" is ignored on an entity row (it gives the unit of attribute rows)',
+    ]);
+    // without a kind column, "unit" is an ordinary attribute column
+    const plain = tp("load", write("plain.csv", "id,label,unit\nr:7,Seventh Rangers,brigade\n"), "--db", "plain.db", "--no-prepare");
+    expect(plain.status, plain.stderr).toBe(0);
+    expect(tp("show", "r:7", "--db", "plain.db").stdout).toContain("unit [unit]: brigade");
+  });
+
+  it("RDF: qudt:unit / qudt:hasUnit (named by the unit IRI's label, else its last segment), schema.org unitText and unitCode", () => {
+    const ttl = [
+      "@prefix x: <urn:x:> .",
+      "@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .",
+      "@prefix qudt: <http://qudt.org/schema/qudt/> .",
+      "@prefix unit: <http://qudt.org/vocab/unit/> .",
+      "@prefix schema: <http://schema.org/> .",
+      'x:depth rdfs:label "depth" ; qudt:hasUnit unit:M .',
+      'unit:M rdfs:label "metre" ; a qudt:Unit .',
+      'x:area rdfs:label "area" ; schema:unitText "square kilometres" ; qudt:unit unit:KiloM2 .',
+      "x:mass qudt:unit unit:KiloGM .",
+      'x:code <https://schema.org/unitCode> "MTR" .',
+      'x:trench rdfs:label "Harl Trench" ; x:depth 4200 ; x:area 12 .',
+      "",
+    ].join("\n");
+    const r = tp("load", write("units.ttl", ttl), "--db", "units-ttl.db", "--no-prepare");
+    expect(r.status, r.stderr).toBe(0);
+    expect(units("units-ttl.db")).toEqual({ "urn:x:depth": "metre", "urn:x:area": "square kilometres", "urn:x:mass": "KiloGM", "urn:x:code": "MTR" });
+    // the unit IRI (and its type qudt:Unit) took no part in the graph: not left as entities
+    expect(r.stderr).toMatch(/\+1 entity, \+0 edges, \+2 attributes/);
+    expect(tp("show", "metre", "--db", "units-ttl.db").status).toBe(1);
   });
 });

@@ -177,6 +177,7 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
       ctx.checkPending();
       if (ctx.errors.length === 0) {
         writer.restoreIndexes();
+        writer.writeUnits();
         finishLoad(writer, { rdf });
         checkNames(ctx);
         locateWarnings(ctx.warnings);

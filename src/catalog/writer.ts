@@ -8,6 +8,7 @@
  */
 import type Database from "better-sqlite3";
 import { normalize, stemToken } from "./normalize.js";
+import { labelFromId } from "./store.js";
 import type { Catalog } from "./store.js";
 import { PendingEntities, RowBatch, SortedEdges } from "./rows.js";
 import { IdTable } from "./intern.js";
@@ -148,6 +149,7 @@ export class CatalogWriter {
     this.maxPredBefore = (this.db.prepare("SELECT max(num) AS m FROM predicate").get() as { m: number | null }).m ?? 0;
     this.relUses = new Int32Array(64);
     this.typeUseCount.clear();
+    this.units.clear();
   }
 
   /** True when entity `num` was made in this transaction. */
@@ -421,12 +423,53 @@ export class CatalogWriter {
   }
 
   /**
-   * An attribute's unit (JSONL `"unit"`), kept in the meta table under `unit:` + the
-   * predicate id (no schema change; read back by `Catalog.predicateUnits`). The last one wins.
+   * An attribute's unit, written by {@link CatalogWriter.writeUnits} at the end of the load
+   * into the meta table under `unit:` + the predicate id (no schema change; read back by
+   * `Catalog.predicateUnits`). `source` ranks the ways a file can give it: `text` (JSON Lines
+   * and CSV `unit`, schema.org `unitText`) over `code` (schema.org `unitCode`) over `iri` (QUDT
+   * `qudt:unit` / `qudt:hasUnit`: `unit` is the unit's IRI, named by its label in the catalog
+   * or else its last segment); within a rank the last one wins.
    */
-  predicateUnit(id: string, unit: string): void {
+  predicateUnit(id: string, unit: string, source: "text" | "code" | "iri" = "text"): void {
     this.predicate(id);
-    this.db.prepare("INSERT OR REPLACE INTO meta(key, value) VALUES (?, ?)").run(`unit:${id}`, unit);
+    const rank = source === "text" ? 0 : source === "code" ? 1 : 2;
+    const cur = this.units.get(id);
+    if (cur === undefined || rank <= cur.rank) this.units.set(id, { rank, value: unit });
+  }
+
+  private readonly units = new Map<string, { rank: number; value: string }>();
+
+  /**
+   * Writes the units given in this load. A unit IRI is named by its label (it was loaded as
+   * an entity by its own triples) or else by its last segment; such an IRI leaves the entity
+   * table when it takes no part in the graph (no edge, not a type), so "metre" does not
+   * become a linkable name.
+   */
+  writeUnits(): void {
+    if (this.units.size === 0) return;
+    this.flush();
+    const put = this.db.prepare("INSERT OR REPLACE INTO meta(key, value) VALUES (?, ?)");
+    const find = this.db.prepare("SELECT num, label FROM entity WHERE id = ?");
+    const inGraph = this.db.prepare(
+      "SELECT EXISTS(SELECT 1 FROM edge WHERE src = @n) OR EXISTS(SELECT 1 FROM edge WHERE dst = @n) OR EXISTS(SELECT 1 FROM entity_type WHERE type = @n) OR EXISTS(SELECT 1 FROM subclass WHERE sub = @n OR sup = @n)",
+    ).pluck();
+    const drops = ["DELETE FROM alias WHERE entity = ?", "DELETE FROM attribute WHERE entity = ?", "DELETE FROM entity_type WHERE entity = ?", "DELETE FROM entity WHERE num = ?"].map((q) => this.db.prepare(q));
+    for (const [id, u] of this.units) {
+      let text = u.value;
+      if (u.rank === 2) {
+        const e = find.get(u.value) as { num: number; label: string | null } | undefined;
+        text = e?.label ?? labelFromId(u.value);
+        if (e !== undefined && this.isNewEntity(e.num) && !inGraph.get({ n: e.num })) {
+          // (the end of the load: no id is looked up through the writer after this)
+          const types = this.db.prepare("SELECT type FROM entity_type WHERE entity = ?").pluck().all(e.num) as number[];
+          for (const d of drops) d.run(e.num);
+          // a type only the unit had (qudt:Unit) goes with it
+          for (const t of types) if (this.isNewEntity(t) && !inGraph.get({ n: t }) && !this.db.prepare("SELECT 1 FROM edge WHERE src = ? LIMIT 1").get(t)) for (const d of drops) d.run(t);
+        }
+      }
+      put.run(`unit:${id}`, text);
+    }
+    this.units.clear();
   }
 
   /** A relation's alias phrasing. */

@@ -17,6 +17,8 @@ export const DEFAULTS = {
 };
 
 const RESERVED = new Set(["id", "kind", "label", "aliases", "types", "description", "subclassof"]);
+/** Columns a relation or attribute row reads (plus `unit` on attribute rows of a file with a `kind` column). */
+const PREDICATE_COLUMNS = new Set(["id", "kind", "label", "aliases", "description"]);
 const EDGE_COLUMNS = ["subject", "relation", "object"];
 const KINDS = new Set(["entity", "type", "relation", "attribute"]);
 
@@ -25,6 +27,8 @@ interface Layout {
   readonly names: readonly string[];
   /** lower-cased header → column index */
   readonly col: ReadonlyMap<string, number>;
+  /** A `unit` column in a file with a `kind` column: the unit of attribute rows, not an attribute. */
+  readonly unit: boolean;
 }
 
 interface CsvInfo {
@@ -73,7 +77,7 @@ export function importCsv(ctx: LoadContext, file: string, format: "csv" | "tsv")
     const hasEdge = EDGE_COLUMNS.filter((c) => col.has(c));
     if (col.has("id")) {
       if (hasEdge.length === 3) ctx.error(file, line, `the header has both "id" and subject, relation, object columns (use one layout per file)`);
-      return { edges: false, names, col };
+      return { edges: false, names, col, unit: col.has("unit") && col.has("kind") };
     }
     if (hasEdge.length > 0) {
       const missing = EDGE_COLUMNS.filter((c) => !col.has(c));
@@ -83,7 +87,7 @@ export function importCsv(ctx: LoadContext, file: string, format: "csv" | "tsv")
       }
       const extra = names.filter((n) => !EDGE_COLUMNS.includes(n.toLowerCase()));
       if (extra.length > 0) ctx.error(file, line, `unexpected column "${extra[0]}" in an edge file (expected only subject, relation, object)`);
-      return { edges: true, names, col };
+      return { edges: true, names, col, unit: false };
     }
     ctx.error(file, line, `missing required columns: expected a column "id" (entities) or columns subject, relation, object (edges)`);
     return undefined;
@@ -134,8 +138,17 @@ export function importCsv(ctx: LoadContext, file: string, format: "csv" | "tsv")
     const aliases = list(get("aliases"));
     if (kind === "relation" || kind === "attribute") {
       w.predicate(id);
+      ctx.declaredPredicates.add(id);
       if (label) w.predicateLabel(id, label);
       for (const a of aliases) w.predicateAlias(id, a);
+      const unit = L.unit ? get("unit")?.trim() : undefined;
+      if (kind === "attribute" && unit) w.predicateUnit(id, unit);
+      // what a relation or attribute row cannot hold is said, not dropped silently
+      L.names.forEach((name, i) => {
+        const k = name.toLowerCase();
+        if (PREDICATE_COLUMNS.has(k) || (k === "unit" && kind === "attribute" && L.unit) || (cells[i] ?? "").trim() === "") return;
+        ctx.warn("ignored column", `column "${name}" is ignored on a ${kind} row (a ${kind} row takes id, kind, label, aliases, description${kind === "attribute" && L.unit ? ", unit" : ""})`);
+      });
       return;
     }
     w.entity(id);
@@ -149,6 +162,10 @@ export function importCsv(ctx: LoadContext, file: string, format: "csv" | "tsv")
     L.names.forEach((name, i) => {
       if (RESERVED.has(name.toLowerCase())) return;
       const v = (cells[i] ?? "").trim();
+      if (L.unit && name.toLowerCase() === "unit") {
+        if (v !== "") ctx.warn("ignored column", `column "${name}" is ignored on ${kind === "entity" ? "an" : "a"} ${kind} row (it gives the unit of attribute rows)`);
+        return;
+      }
       if (v !== "") w.attribute(id, name, v, null, null);
     });
   };

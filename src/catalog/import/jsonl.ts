@@ -97,6 +97,7 @@ function record(ctx: LoadContext, file: string, line: number, o: Obj): void {
   if (kind === "relation" || kind === "attribute") {
     const unit = str(o, "unit", false);
     w.predicate(id);
+    ctx.declaredPredicates.add(id);
     if (kind === "attribute" && unit !== undefined && unit.trim() !== "") w.predicateUnit(id, unit.trim());
     if (l !== undefined) w.predicateLabel(id, l);
     for (const a of aliases) w.predicateAlias(id, a);

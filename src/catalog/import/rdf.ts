@@ -20,6 +20,8 @@ const RDF = "http://www.w3.org/1999/02/22-rdf-syntax-ns#";
 const RDFS = "http://www.w3.org/2000/01/rdf-schema#";
 const SKOS = "http://www.w3.org/2004/02/skos/core#";
 const XSD_STRING = "http://www.w3.org/2001/XMLSchema#string";
+/** QUDT schema namespace (https://qudt.org/doc/DOC_SCHEMA-QUDT.html). */
+const QUDT = "http://qudt.org/schema/qudt/";
 const LANG_STRING = `${RDF}langString`;
 
 /** The predicates with a fixed meaning (contract "RDF mapping"). */
@@ -33,6 +35,20 @@ export const VOCABULARY = {
   description: "http://schema.org/description",
   descriptionHttps: "https://schema.org/description",
 } as const;
+
+/**
+ * Predicates that give an attribute predicate its unit (`P qudt:unit unit:M`,
+ * `P schema:unitText "metres"`): QUDT's `qudt:unit` and `qudt:hasUnit` (object: a unit IRI),
+ * schema.org's `unitText` (a literal) and `unitCode` (a literal code, or an IRI), http and https.
+ */
+export const UNIT_VOCABULARY: Readonly<Record<string, "text" | "code" | "iri">> = {
+  [`${QUDT}unit`]: "iri",
+  [`${QUDT}hasUnit`]: "iri",
+  "http://schema.org/unitText": "text",
+  "https://schema.org/unitText": "text",
+  "http://schema.org/unitCode": "code",
+  "https://schema.org/unitCode": "code",
+};
 
 /** Importer options; all optional. */
 export const DEFAULTS = {
@@ -111,6 +127,11 @@ class TripleMapper {
     const s = this.node(q.subject);
     const p = q.predicate.value;
     const o = q.object;
+    const unit = UNIT_VOCABULARY[p];
+    if (unit !== undefined && (o.termType === "Literal" || o.termType === "NamedNode")) {
+      if (o.value.trim() !== "") w.predicateUnit(s, o.value.trim(), o.termType === "NamedNode" ? "iri" : unit === "iri" ? "text" : unit);
+      return;
+    }
     if (o.termType === "NamedNode" || o.termType === "BlankNode") {
       const target = this.node(o);
       if (p === VOCABULARY.type) w.type(s, target);
