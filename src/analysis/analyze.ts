@@ -52,6 +52,8 @@ export interface Analysis {
   readonly notes: readonly string[];
   /** Type nouns outside the clues and the answer-type phrase ("a *document* that …"; cue-chains.ts). @default none */
   readonly typeWords?: readonly TypeWord[];
+  /** UTF-16 spans of the words the answer type was read from (wh-word and head noun phrase). @default none */
+  readonly answerTypeWords?: readonly { readonly start: number; readonly end: number }[];
 }
 
 /** Options of {@link analyze}; all optional. */
@@ -169,5 +171,6 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
     const mt = model.typeByNum.get(t)!;
     return { num: t, id: mt.id, label: mt.label };
   });
-  return { question, mentions: link.mentions, answerTypes, answerTypeSource: typeSource, relationCues: cues, clues, notes, typeWords };
+  const answerTypeWords = [...at.usedWords, ...(at.headPhrase ?? [])].sort((a, b) => a - b).map((k) => ({ start: ws[k]!.start, end: ws[k]!.end }));
+  return { question, mentions: link.mentions, answerTypes, answerTypeSource: typeSource, relationCues: cues, clues, notes, typeWords, answerTypeWords };
 }

@@ -37,6 +37,7 @@ import type { Analysis, AnswerType } from "./analyze.js";
 import type { QuestionModel } from "./question-model.js";
 import { findQuantities, type Quantity } from "./quantity.js";
 import { isFunctionWord, words, type Word } from "./words.js";
+import { COPULAS, DIMENSIONS, HOW_AMOUNT, ORDINALS, QUANTITY_COMPARATIVES, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
 
 /** Options of {@link detectConditions}; all optional. */
 export interface ConditionOptions {
@@ -164,6 +165,31 @@ export interface ConditionAnalysis {
   /** The analysis with excluded mentions removed from the clues, condition words removed from the relation cues, and the answer type of a "how many X" question. */
   readonly analysis: Analysis;
   readonly conditions: readonly Condition[];
+  /** A value question ("What is the depth of X?", "How tall is X?"): the answer is an attribute value of one clue. */
+  readonly value?: ValueQuestion;
+  /** A comparison between named entities ("Which is bigger, A or B?"): the answer is one of them. */
+  readonly compare?: EntityComparison;
+}
+
+/** A value question: the asked attribute of one named entity. */
+export interface ValueQuestion extends ConditionBase {
+  /** Index into `Analysis.mentions` of the entity whose value is asked. */
+  readonly mention: number;
+  readonly node: number;
+  /** Attributes that fit the words, best first. */
+  readonly choices: readonly AttributeChoice[];
+}
+
+/** A comparison between named entities: order them by an attribute, the first is the answer. */
+export interface EntityComparison extends ConditionBase {
+  /** Indexes into `Analysis.mentions` of the compared entities, in question order. */
+  readonly mentions: readonly number[];
+  readonly nodes: readonly number[];
+  /** "max": the larger value wins; "min": the smaller. */
+  readonly order: "max" | "min";
+  /** True when the word is temporal ("older"): on a non-temporal attribute (an age) the order flips. */
+  readonly temporal: boolean;
+  readonly choices: readonly AttributeChoice[];
 }
 
 function surfaceStems(text: string): string[] {
@@ -192,22 +218,6 @@ export function buildAttributeModel(cat: Catalog): AttributeModel {
   }
   return { attributes };
 }
-
-/** Adjectives of dimension with their comparative and superlative forms and the general nouns they hint at (common practice, general English). */
-const DIMENSIONS: readonly { readonly up: readonly string[]; readonly down: readonly string[]; readonly hints: readonly string[] }[] = [
-  { up: ["large", "larger", "largest", "big", "bigger", "biggest", "great", "greater", "greatest", "huge", "hugest"], down: ["small", "smaller", "smallest", "little", "tiny", "tiniest"], hints: ["size", "area", "surface", "extent", "volume", "capacity", "tonnage", "population"] },
-  { up: ["long", "longer", "longest"], down: ["short", "shorter", "shortest"], hints: ["length", "duration"] },
-  { up: ["deep", "deeper", "deepest"], down: ["shallow", "shallower", "shallowest"], hints: ["depth"] },
-  { up: ["tall", "taller", "tallest", "high", "higher", "highest"], down: ["low", "lower", "lowest"], hints: ["height", "altitude", "elevation"] },
-  { up: ["heavy", "heavier", "heaviest"], down: ["light", "lighter", "lightest"], hints: ["weight", "mass", "tonnage"] },
-  { up: ["wide", "wider", "widest", "broad", "broader", "broadest"], down: ["narrow", "narrower", "narrowest"], hints: ["width", "breadth"] },
-  { up: ["expensive", "costlier", "costliest", "rich", "richer", "richest"], down: ["cheap", "cheaper", "cheapest", "poor", "poorer", "poorest"], hints: ["cost", "price", "budget", "value"] },
-  { up: ["populous", "crowded"], down: [], hints: ["population", "inhabitants"] },
-];
-/** Temporal adjectives: "up" = later (larger year), "down" = earlier. */
-const TEMPORAL = { up: ["new", "newer", "newest", "late", "later", "latest", "recent", "young", "younger", "youngest", "last"], down: ["old", "older", "oldest", "early", "earlier", "earliest", "first"] } as const;
-const SUPERLATIVE_FORM = /(est|most)$/;
-const ORDINALS: Readonly<Record<string, number>> = { second: 2, third: 3, fourth: 4, fifth: 5, sixth: 6, seventh: 7, eighth: 8, ninth: 9, tenth: 10, "2nd": 2, "3rd": 3, "4th": 4, "5th": 5, "6th": 6, "7th": 7, "8th": 8, "9th": 9, "10th": 10 };
 
 /** Operator phrases right before a quantity (normalised words, longest first). */
 const BEFORE_QUANTITY: readonly [string, "before" | "after" | "since" | "until" | "in" | ">" | "<" | ">=" | "<=" | "="][] = [
@@ -329,7 +339,7 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
       // skip an article: "of a 1,000", "over the 1970s" is read by the decade parser already
     }
     // a comparative adjective: "longer than 60", "older than 1980"
-    let dimension: (typeof DIMENSIONS)[number] | undefined;
+    let dimension: Dimension | undefined;
     if (op === undefined && qw >= 2 && ws[qw - 1]!.norm === "than") {
       const adj = ws[qw - 2]!.norm;
       const temporal = TEMPORAL.up.includes(adj as never) ? "after" : TEMPORAL.down.includes(adj as never) ? "before" : undefined;
@@ -372,7 +382,7 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
     const n = ws[i]!.norm;
     let order: "max" | "min" | undefined;
     let temporal = false;
-    let dimension: (typeof DIMENSIONS)[number] | undefined;
+    let dimension: Dimension | undefined;
     let span = 1;
     if (n === "most" || n === "least" || n === "fewest") {
       // "most recent" is temporal; "most populous"/"most staff" name the attribute by the next words
@@ -447,6 +457,14 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
     if ((c.kind === "comparison" || c.kind === "superlative") && c.choices.length === 0) {
       notes.push(`"${c.words}": no attribute of the catalog matches these words, so the condition is not applied`);
     }
+  }
+  const direct = directQuestion(analysis, ws, inMention, used, attributes, o);
+  if (direct.value || direct.compare) {
+    // the value or the comparison explains the question: no count, no superlative of its own words
+    const span = direct.value ?? direct.compare!;
+    const rest = conditions.filter((c) => c.kind === "exclusion" || c.end <= span.start || c.start >= span.end);
+    const notesLeft = analysis.notes.filter((n) => !/^"[^"]+" names no type of the catalog|^no question word|^no head noun/.test(n));
+    return { analysis: { ...analysis, notes: notesLeft }, conditions: rest, ...direct };
   }
   if (conditions.length === 0) return { analysis, conditions };
 
@@ -568,7 +586,7 @@ function chooseAttributes(
   attributes: AttributeModel,
   o: Required<ConditionOptions>,
   temporal: boolean,
-  dimension?: (typeof DIMENSIONS)[number],
+  dimension?: Dimension,
 ): AttributeChoice[] {
   const centre = span.length > 0 ? span[0]! : 0;
   const free: number[] = [];
@@ -633,4 +651,89 @@ function chooseAttributes(
   }
   scored.sort((x, y) => y.score - x.score || x.dist - y.dist || (x.a.id < y.a.id ? -1 : x.a.id > y.a.id ? 1 : 0));
   return scored.map(({ a, score, at }) => ({ num: a.num, id: a.id, label: a.label, ...(a.unit !== undefined ? { unit: a.unit } : {}), score, wordIndexes: at }));
+}
+
+/**
+ * A question answered by attribute values of named entities instead of a walk:
+ *
+ * - value: "what is/was the ATTRIBUTE of X", "what is X's ATTRIBUTE", "how ADJECTIVE is X"
+ *   (an adjective of dimension, lexicon.ts) with exactly one clue and every content word
+ *   outside the clue explained by the attribute (so "the area of the country that borders
+ *   X" is no value question: it names a relation too);
+ * - compare: a comparative ("bigger", "older", "more") and two or more clues joined by
+ *   "or"/"and"/commas, every clue in that group, no "than" after the comparative
+ *   ("Which is bigger, A or B?", "Which city has more inhabitants, A or B?").
+ *
+ * The wh-question forms are Quirk et al. 1985 §11.14 (wh-questions with a copula and a
+ * degree adverb "how" + adjective); the attribute is chosen as for every condition
+ * (chooseAttributes: label, alias and unit stems, dimension hints).
+ */
+function directQuestion(
+  analysis: Analysis,
+  ws: readonly Word[],
+  inMention: readonly boolean[],
+  used: ReadonlySet<number>,
+  attributes: AttributeModel,
+  o: Required<ConditionOptions>,
+): { value?: ValueQuestion; compare?: EntityComparison } {
+  const question = analysis.question;
+  const clueMentions = analysis.clues.map((c) => c.mention).sort((a, b) => analysis.mentions[a]!.start - analysis.mentions[b]!.start);
+  if (clueMentions.length === 0 || ws.length === 0) return {};
+  const mentionOf = (k: number) => clueMentions.find((mi) => ws[k]!.start < analysis.mentions[mi]!.end && ws[k]!.end > analysis.mentions[mi]!.start);
+  // --- comparison between named entities -----------------------------------------------
+  if (clueMentions.length >= 2) {
+    const spans = clueMentions.map((mi) => analysis.mentions[mi]!);
+    const coordinated = spans.every((m, k) => k === 0 || /^\s*(?:,|or|and|,\s*or|,\s*and)\s*(?:the\s+)?$/i.test(question.slice(spans[k - 1]!.end, m.start)));
+    if (coordinated) {
+      for (let i = 0; i < ws.length; i++) {
+        if (inMention[i] || ws[i + 1]?.norm === "than") continue;
+        const n = ws[i]!.norm;
+        const g = isComparativeForm(n) ? gradable(n) : QUANTITY_COMPARATIVES[n] !== undefined ? { order: QUANTITY_COMPARATIVES[n]!, temporal: false } : undefined;
+        if (!g) continue;
+        const dimension = "dimension" in g ? g.dimension : undefined;
+        const choices = chooseAttributes(ws, inMention, used, [i], [], attributes, o, g.temporal, dimension);
+        return {
+          compare: {
+            mentions: clueMentions,
+            nodes: clueMentions.map((mi) => analysis.mentions[mi]!.num),
+            order: g.order,
+            temporal: g.temporal,
+            choices,
+            words: ws[i]!.text,
+            start: ws[i]!.start,
+            end: ws[i]!.end,
+          },
+        };
+      }
+    }
+    return {};
+  }
+  // --- value question --------------------------------------------------------------------
+  const wh = ws.findIndex((w, k) => !inMention[k] && VALUE_WH.has(w.norm));
+  if (wh < 0 || ws.slice(0, wh).some((w, k) => !inMention[k] && !isFunctionWord(w.norm))) return {};
+  const mi = clueMentions[0]!;
+  let choices: AttributeChoice[] = [];
+  let from = wh;
+  if (ws[wh]!.norm === "how") {
+    const adj = ws[wh + 1];
+    if (!adj || HOW_AMOUNT.has(adj.norm) || !COPULAS.has(ws[wh + 2]?.norm ?? "")) return {};
+    const g = gradable(adj.norm);
+    if (!g) return {};
+    choices = chooseAttributes(ws, inMention, used, [wh + 1], [], attributes, o, g.temporal, g.dimension);
+  } else {
+    if (!COPULAS.has(ws[wh + 1]?.norm ?? "")) return {};
+    choices = chooseAttributes(ws, inMention, used, [wh + 2], [], attributes, o, false);
+    // every content word outside the clue is a word of the attribute
+    const best = choices[0];
+    if (!best || best.score < 0.75) return {};
+    const free = ws.map((_, k) => k).filter((k) => k > wh + 1 && !inMention[k] && !isFunctionWord(ws[k]!.norm) && ws[k]!.norm !== "s");
+    if (free.some((k) => !best.wordIndexes.includes(k))) return {};
+    from = wh;
+  }
+  if (choices.length === 0) return {};
+  // the clue must be the only name, after the wh-phrase
+  if (ws.some((w, k) => k > wh && inMention[k] && mentionOf(k) === undefined)) return {};
+  const m = analysis.mentions[mi]!;
+  const last = ws.length - 1;
+  return { value: { mention: mi, node: m.num, choices, words: question.slice(ws[from]!.start, ws[last]!.end), start: ws[from]!.start, end: ws[last]!.end } };
 }

@@ -139,6 +139,63 @@ export interface SuggestionDoc {
   readonly verified?: boolean;
 }
 
+/** One attribute value that answers a value or comparison question (`values`, additive; README "JSON"). */
+export interface ValueDoc {
+  /** The entity the value belongs to. */
+  readonly entity: EntityRef;
+  readonly attribute: { readonly id: string; readonly label: string; readonly unit?: string };
+  /** The literal as stored in the catalog. */
+  readonly value: string;
+  /** The value on the catalog's numeric scale (dates as a year with fraction), when it has one. */
+  readonly number?: number;
+  /** The catalog statement it comes from (ids; `object` is the literal). */
+  readonly triple: { readonly subject: string; readonly predicate: string; readonly object: string; readonly literal: true };
+}
+
+/** A node of the question's reading (`reading.nodes`, additive). */
+export interface ReadingNodeDoc {
+  /** "?answer", "?v1", … for variables; the entity id for a constant. */
+  readonly name: string;
+  readonly kind: "answer" | "variable" | "constant";
+  /** Constants: the linked entity, the mention text and the link confidence. */
+  readonly entity?: EntityRef;
+  readonly text?: string;
+  readonly confidence?: number;
+  /** Type ids the node must have (empty: any). */
+  readonly types: readonly string[];
+}
+
+/** An edge of the question's reading (`reading.edges`, additive). */
+export interface ReadingEdgeDoc {
+  /** Indexes into `reading.nodes`: the walk goes from `from` (nearer the clue) to `to` (nearer the answer). */
+  readonly from: number;
+  readonly to: number;
+  /** The relations the words allow (ids), with the stored direction of each: `inverse: false` is the triple `from relation to`. */
+  readonly relations: readonly { readonly id: string; readonly label: string; readonly inverse: boolean }[];
+  /** "forward"/"backward": the sentence says which way (`inverse` above); "either": it does not. "any": no relation word (any relation, the walk decides). */
+  readonly direction: "forward" | "backward" | "either" | "any";
+  /** The question words that named the relation. */
+  readonly words: readonly string[];
+}
+
+/** The question's reading as a query graph (`reading`, additive; README "Reading"). */
+export interface ReadingDoc {
+  /** One line, as printed after "reading:". */
+  readonly text: string;
+  readonly nodes: readonly ReadingNodeDoc[];
+  readonly edges: readonly ReadingEdgeDoc[];
+  /** Conditions on the answer in words ("area > 500000", "largest by area", "count", "not linked to X"). */
+  readonly constraints: readonly string[];
+  /** True when the question asks for a set (a plural head noun, "all", "which are"). */
+  readonly plural: boolean;
+  /** How many entities satisfy the whole structure (null: not evaluated, e.g. no relation word); absent before ranking. */
+  readonly matched?: number | null;
+  /** True when no entity satisfied the structure and the answers come from the PageRank alone. */
+  readonly fallback?: boolean;
+  /** Question words the reading does not use. */
+  readonly ignored: readonly string[];
+}
+
 /** One document of `ask --json`. */
 export interface AskResult {
   readonly question: string;
@@ -156,6 +213,10 @@ export interface AskResult {
   readonly conditions?: readonly ConditionDoc[];
   /** Additive: the answer of a count question ("how many …"). */
   readonly count?: CountDoc;
+  /** Additive: the attribute values that answer a value question ("What is the depth of X?") or decide a comparison ("Which is bigger, A or B?"), best first. */
+  readonly values?: readonly ValueDoc[];
+  /** Additive: how the question was read (a query graph; README "Reading"). */
+  readonly reading?: ReadingDoc;
 }
 
 /** The reminder printed with every answer set. */

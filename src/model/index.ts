@@ -16,6 +16,10 @@ export type {
   ConditionDoc,
   ConditionStepDoc,
   CountDoc,
+  ValueDoc,
+  ReadingDoc,
+  ReadingNodeDoc,
+  ReadingEdgeDoc,
 } from "./answer.js";
 export { DISCLAIMER } from "./answer.js";
 export type { RelationEnd, RelationEnds } from "./relation-ends.js";

@@ -5,7 +5,7 @@
  * "Introduction to Information Retrieval", §8.4): Hits@k = share of questions with an
  * expected answer among the first k; MRR = mean of 1/rank of the best-ranked expected answer
  * (0 when none is returned; Voorhees 1999, TREC-8 QA track). An expected value matches an
- * answer by id or by exact label.
+ * answer by id or by exact label, or (value questions) a value of `values` as written.
  */
 import type { AskResult, CheckItem, CheckReport, VerdictStatus } from "../model/index.js";
 import type { QuestionItem } from "./questions.js";
@@ -24,7 +24,10 @@ export function rankOfExpected(result: AskResult, expected: readonly string[]): 
   if (expected.length === 0) return null;
   const want = new Set(expected);
   const i = result.answers.findIndex((a) => want.has(a.id) || want.has(a.label));
-  return i < 0 ? null : i + 1;
+  if (i >= 0) return i + 1;
+  // a value question: an expected value as written matches a value of `values` (README "Reading")
+  const v = (result.values ?? []).findIndex((x) => want.has(x.value));
+  return v < 0 ? null : v + 1;
 }
 
 /** The expected values of an item that name no entity (neither an id nor an exact label of the catalog): they can never match an answer. */

@@ -8,5 +8,5 @@ export { parseQuestionFile, parseQuestionText, questionLayout, DEFAULTS as QUEST
 export type { QuestionItem, QuestionLayout } from "./questions.js";
 export { runCheck, rankOfExpected, summarise, unknownExpected } from "./check.js";
 export type { CheckOptions } from "./check.js";
-export { basicVerdict, DEFAULTS as VERDICT_DEFAULTS } from "./verdict.js";
-export type { VerdictOptions } from "./verdict.js";
+export { basicVerdict, readingVerdict, DEFAULTS as VERDICT_DEFAULTS, READING_DEFAULTS } from "./verdict.js";
+export type { VerdictOptions, ReadingVerdictOptions } from "./verdict.js";

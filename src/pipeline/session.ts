@@ -6,11 +6,12 @@
  * stage timed. Answers and verdict are made in one place, {@link Session.answersOf}.
  */
 import { Catalog, demoCatalogPath } from "../catalog/index.js";
-import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, type Analysis, type AttributeModel, type QuestionModel } from "../analysis/index.js";
+import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type QueryGraph, type QuestionModel } from "../analysis/index.js";
 import { Linker, linkQuestion, type LinkResult, type Pin } from "../linking/index.js";
 import { DISCLAIMER, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
-import { basicVerdict } from "./verdict.js";
+import { basicVerdict, readingVerdict } from "./verdict.js";
+import { answerComparison, answerValue, type DirectAnswer } from "./direct.js";
 import { conditionDocs, conditionExplanation, conditionSteps, conditionVerdict, countDoc, explain, type Explanation } from "../explain/index.js";
 
 /** A progress event while a session opens. */
@@ -68,6 +69,8 @@ export interface AskOutcome {
   readonly explanation?: Explanation;
   /** The question's conditions as applied to the ranking (absent when it has none). */
   readonly conditions?: ConditionOutcome;
+  /** The question's reading (analysis query-graph.ts). */
+  readonly reading: QueryGraph;
 }
 
 /** One loaded catalog, ready for questions. */
@@ -140,12 +143,17 @@ export class Session {
     };
     const cond = detectConditions(analyze(question, link, this.model), this.model, lazyAttributes);
     const analysis = cond.analysis;
+    const reading = readQuestion(cond, this.model);
     const t2 = performance.now();
+    if (cond.value || cond.compare) {
+      const direct = cond.value ? answerValue(this.catalog, cond.value) : answerComparison(this.catalog, cond.compare!);
+      return this.directOutcome(question, analysis, reading, direct, limitNotes, top, { link: t1 - t0, analyze: t2 - t1 }, t0);
+    }
     const lookup = { numbers: (e: number, p: number) => this.catalog.attributeNumbers(e, p) };
     const withConditions = (r: Ranked) => (cond.conditions.length > 0 ? applyConditions(analysis, r, cond.conditions, this.index, lookup).ranked : r);
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();
-    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
+    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, readingChains: reading.chains, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
     const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup) : undefined;
     const ranked = conditions?.ranked ?? ranked0;
     const t3 = performance.now();
@@ -164,6 +172,10 @@ export class Session {
         made.explanation = conditionExplanation(question, answers, verdict, conditions, this.index, this.catalog, made.explanation);
       }
     }
+    if (!conditions && explanation0(made)) {
+      // the verdict reads the reading: the entities that satisfy its whole structure
+      verdict = readingVerdict(verdict, reading, analysis, ranked, (n) => this.ref(n));
+    }
     let explanation = made.explanation;
     if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {
       const want = answers[0].id;
@@ -174,15 +186,7 @@ export class Session {
       explanation = { ...explanation, suggestions: [...checked.filter((x) => x.verified), ...checked.filter((x) => !x.verified)] };
     }
     const t4 = performance.now();
-    const mentions: Mention[] = analysis.mentions.map((m) => ({
-      text: m.text,
-      start: m.start,
-      end: m.end,
-      entity: { id: m.entity.id, label: m.entity.label },
-      confidence: m.confidence,
-      alternatives: m.alternatives.map((a) => ({ id: a.id, label: a.label, confidence: a.confidence })),
-      ...(m.pinned ? { pinned: true } : {}),
-    }));
+    const mentions = mentionDocs(analysis);
     const result: AskResult = {
       question,
       mentions,
@@ -191,13 +195,48 @@ export class Session {
       verdict,
       notes: [...limitNotes, ...analysis.notes, ...ranked.notes],
       disclaimer: DISCLAIMER,
+      reading: readingDoc(reading, analysis, this.model, ranked.matched !== undefined ? { matched: ranked.matched, fallback: ranked.fallback === true } : { matched: null, fallback: false }),
       ...(conditions ? { conditions: conditionDocs(cond.conditions, conditions) } : {}),
       ...(conditions?.count ? { count: countDoc(conditions, this.catalog)! } : {}),
       ...(explanation && explanation.suggestions.length > 0
         ? { suggestions: explanation.suggestions.map((sg) => ({ text: sg.text, question: sg.question, triple: sg.triple, rulesOut: sg.rulesOut, ...(sg.verified !== undefined ? { verified: sg.verified } : {}) })) }
         : {}),
     };
-    return { result, analysis, ranked, explanation, ...(conditions ? { conditions } : {}), timings: { link: t1 - t0, analyze: t2 - t1, rank: t3 - t2, explain: t4 - t3, total: t4 - t0 } };
+    return { result, analysis, ranked, explanation, reading, ...(conditions ? { conditions } : {}), timings: { link: t1 - t0, analyze: t2 - t1, rank: t3 - t2, explain: t4 - t3, total: t4 - t0 } };
+  }
+
+  /** The outcome of a question answered by attribute values (pipeline/direct.ts): no walk, no paths. */
+  private directOutcome(
+    question: string,
+    analysis: Analysis,
+    reading: QueryGraph,
+    direct: DirectAnswer,
+    limitNotes: readonly string[],
+    top: number,
+    times: { link: number; analyze: number },
+    t0: number,
+  ): AskOutcome {
+    const answers = direct.answers.slice(0, top);
+    const ranked: Ranked = {
+      clues: analysis.clues,
+      candidates: answers.map((a) => ({ node: this.catalog.byLabelOrId(a.id)[0] ?? -1, score: a.score, perClue: [], covered: analysis.clues.length })),
+      typeFiltered: false,
+      relationWeights: new Float64Array(Math.max(this.index.relationCount, 1)).fill(1),
+      notes: [],
+    };
+    const result: AskResult = {
+      question,
+      mentions: mentionDocs(analysis),
+      answerTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
+      answers,
+      verdict: direct.verdict,
+      notes: [...limitNotes, ...analysis.notes, ...direct.notes],
+      disclaimer: DISCLAIMER,
+      values: direct.values,
+      reading: readingDoc(reading, analysis, this.model, { matched: direct.values.length > 0 ? answers.length : 0, fallback: false }),
+    };
+    const total = performance.now() - t0;
+    return { result, analysis, ranked, reading, timings: { link: times.link, analyze: times.analyze, rank: total - times.link - times.analyze, explain: 0, total } };
   }
 
   /**
@@ -275,6 +314,24 @@ export class Session {
     endRead(this.catalog);
     this.catalog.close();
   }
+}
+
+/** The contract's mention documents of an analysis. */
+function mentionDocs(analysis: Analysis): Mention[] {
+  return analysis.mentions.map((m) => ({
+    text: m.text,
+    start: m.start,
+    end: m.end,
+    entity: { id: m.entity.id, label: m.entity.label },
+    confidence: m.confidence,
+    alternatives: m.alternatives.map((a) => ({ id: a.id, label: a.label, confidence: a.confidence })),
+    ...(m.pinned ? { pinned: true } : {}),
+  }));
+}
+
+/** True when the answers came from the explanation stage (clues and candidates present). */
+function explanation0(made: { explanation?: Explanation }): boolean {
+  return made.explanation !== undefined;
 }
 
 /** Ends the session's read transaction (nothing was written in it). */

@@ -47,3 +47,60 @@ export function basicVerdict(ranked: Ranked, idOf: (node: number) => string, opt
   if (margin < weakMargin) return { status: "weak", margin, tiedWith: [], reason: `the lead over the next answer is small (${Math.round(margin * 100)}%)` };
   return { status: "unique", margin, tiedWith: [], reason: all > 1 ? `supported by all ${all} clues, clearly ahead` : "clearly ahead" };
 }
+
+/** Options of {@link readingVerdict}; all optional. */
+export interface ReadingVerdictOptions {
+  /** A clue linked below this confidence leaves the verdict as the scores decided it (link doubt: issue 17's rules). @default 0.5 */
+  readonly minLinkConfidence?: number;
+  /** Longest clue pattern that counts as a constraint (rank's `chainMaxSteps`). @default 3 */
+  readonly maxSteps?: number;
+}
+
+/** Defaults of {@link ReadingVerdictOptions}. */
+export const READING_DEFAULTS = { minLinkConfidence: 0.5, maxSteps: 3 } as const;
+
+/**
+ * The verdict as the question's reading decides it (analysis query-graph.ts, evaluated by
+ * the ranking: `Ranked.matched` entities satisfy every clue's relation-path pattern).
+ * When every clue is constrained by a pattern and linked with confidence:
+ * - several entities satisfy the reading: `tied`, all of them (a plural question asks for
+ *   the set; a singular one has no single answer), whatever evidence along relations the
+ *   question does not name says;
+ * - exactly one: `unique` (rivals off the reading do not tie with it);
+ * - none (`fallback`): the score-based verdict stands (the ranking's note says the answers
+ *   fit only part of the reading).
+ * Otherwise the score-based verdict stands.
+ */
+export function readingVerdict(
+  verdict: Verdict,
+  reading: { readonly chains: readonly { readonly steps: readonly unknown[] }[]; readonly plural: boolean },
+  analysis: { readonly mentions: readonly { readonly confidence: number }[] },
+  ranked: Ranked,
+  refOf: (node: number) => { id: string; label: string },
+  options: ReadingVerdictOptions = {},
+): Verdict {
+  const o = { ...READING_DEFAULTS, ...options };
+  if (ranked.matched === undefined || ranked.candidates.length === 0 || verdict.status === "none") return verdict;
+  // no entity satisfies the whole reading: the reader may have missed the structure, so the
+  // score-based verdict stands (its own pattern check already says weak for a clue off its pattern)
+  if (ranked.fallback) return verdict;
+  const constrained =
+    reading.chains.length === ranked.clues.length &&
+    reading.chains.every((ch) => ch.steps.length > 0 && ch.steps.length <= o.maxSteps) &&
+    ranked.clues.every((c) => (analysis.mentions[c.mention]?.confidence ?? 0) >= o.minLinkConfidence);
+  if (!constrained) return verdict;
+  const set = ranked.candidates.slice(0, ranked.matched);
+  if (set.length >= 2) {
+    const names = set.slice(0, 5).map((c) => refOf(c.node).label).join(", ") + (set.length > 5 ? `, … (${set.length} in all)` : "");
+    return {
+      status: "tied",
+      margin: 0,
+      tiedWith: set.slice(1).map((c) => refOf(c.node).id),
+      reason: `${set.length} entities satisfy the reading${reading.plural ? " (the question asks for all of them)" : ""}: ${names}`,
+    };
+  }
+  if (set.length === 1 && verdict.status !== "unique") {
+    return { status: "unique", margin: verdict.margin, tiedWith: [], reason: `only ${refOf(set[0]!.node).label} satisfies the reading of the question` };
+  }
+  return verdict;
+}

@@ -54,8 +54,17 @@ export function renderAskText(r: AskResult, options: AskTextOptions = {}): strin
   });
   out.push(`expects:  ${r.answerTypes.length > 0 ? r.answerTypes.map((t) => `${t.label} [${t.id}]`).join(" or ") : "any type"}`);
   if (options.relationCues && options.relationCues.length > 0) out.push(`cues:     ${options.relationCues.join(", ")}`);
+  if (r.reading) {
+    const rd = r.reading;
+    const state = rd.matched === undefined || rd.matched === null ? "" : rd.fallback ? "  [no entity fits it all: PageRank order]" : `  [${rd.matched} fit${rd.matched === 1 ? "s" : ""}]`;
+    out.push(`reading:  ${rd.text}${state}`);
+    if (rd.ignored.length > 0) out.push(`ignored:  ${rd.ignored.map((w) => `'${w}'`).join(", ")}`);
+  }
   (r.conditions ?? []).forEach((c, i) => out.push(`${i === 0 ? "if:      " : "         "} ${conditionText(c)}`));
   if (r.count) out.push(`count:    ${r.count.value}`);
+  (r.values ?? []).forEach((x, i) =>
+    out.push(`${i === 0 ? "value:   " : "         "} ${x.entity.label}: ${x.attribute.label} = ${x.value}${x.attribute.unit !== undefined ? ` ${x.attribute.unit}` : ""}  (${x.triple.subject} ${x.triple.predicate} "${x.triple.object}")`),
+  );
   out.push("");
   if (r.answers.length === 0) out.push("answers:  none");
   else {

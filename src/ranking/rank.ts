@@ -119,6 +119,11 @@ export interface RankOptions extends CombineOptions {
   readonly chainMaxSteps?: number;
   /** Options of the pattern attribution (analysis cueChains). */
   readonly chains?: CueChainOptions;
+  /**
+   * The per-clue relation-path patterns of the question's reading (analysis query-graph.ts
+   * `QueryGraph.chains`), so the ranking does not recompute them. @default cueChains(analysis)
+   */
+  readonly readingChains?: readonly CueChain[];
   /** Options of the pattern search (chain-reach.ts). */
   readonly chainReach?: ChainReachOptions;
 }
@@ -170,6 +175,13 @@ export interface Ranked {
    * `node` neither exactly nor loosely; absent when no pattern was checked.
    */
   readonly chainMissOf?: (node: number) => readonly number[];
+  /**
+   * How many candidates satisfy the whole reading (every checked clue pattern reaches them
+   * exactly); they come first. Absent when no pattern was checked.
+   */
+  readonly matched?: number;
+  /** True when some clue's pattern reaches no candidate, so no entity satisfies the whole reading: the order is the PageRank's. */
+  readonly fallback?: boolean;
 }
 
 /** The per-question relation weights: 1 everywhere, the cue weight on cued relations. */
@@ -199,7 +211,7 @@ export function clueSeeds(analysis: Analysis, clue: Clue, index: RelationIndex, 
 /** Ranks the candidate answers of an analysed question. */
 export function rank(analysis: Analysis, index: RelationIndex, options: RankOptions = {}): Ranked {
   const drop = new Set(options.dropClues ?? []);
-  const chainsAll = cueChains(analysis, options.chains);
+  const chainsAll = options.readingChains ?? cueChains(analysis, options.chains);
   if (drop.size > 0) analysis = withoutDroppedCues(analysis, chainsAll, drop);
   const clues = analysis.clues.filter((_, i) => !drop.has(i));
   const chains = chainsAll.filter((_, i) => !drop.has(i));
@@ -336,8 +348,14 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     return { node: v, score: total, perClue: norm, covered };
   });
   candidates.sort((a, b) => b.covered - a.covered || b.score - a.score || a.node - b.node);
-  const out = { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
-  return chainCheck ? { ...out, chainMissOf: chainCheck.misses } : out;
+  if (!chainCheck) return { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
+  // the reading's structure first: the candidates every checked pattern reaches exactly
+  // (a conjunctive path query over the clues' patterns), each group in score order
+  const fits = (c: RankedCandidate) => c.chainFit === 1 && chainCheck.misses(c.node).length === 0;
+  const matched = chainCheck.ignored > 0 ? [] : candidates.filter(fits);
+  const ordered = matched.length > 0 ? [...matched, ...candidates.filter((c) => !fits(c))] : candidates;
+  if (matched.length === 0) notes.push("no entity satisfies the whole reading of the question: the answers are ranked by PageRank alone and fit only part of it");
+  return { clues, candidates: ordered.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes, chainMissOf: chainCheck.misses, matched: matched.length, fallback: matched.length === 0 };
 }
 
 /** One clue's query-time personalized PageRank (push + random walks, ppr-fast.ts). */
@@ -465,7 +483,7 @@ function chainFitOf(
   index: RelationIndex,
   eligible: ReadonlySet<number>,
   options: RankOptions,
-): { fit: (v: number) => number; misses: (v: number) => number[] } | undefined {
+): { fit: (v: number) => number; misses: (v: number) => number[]; ignored: number } | undefined {
   const miss = options.chainMiss ?? DEFAULTS.chainMiss;
   const loose = options.chainLoose ?? DEFAULTS.chainLoose;
   const maxSteps = options.chainMaxSteps ?? DEFAULTS.chainMaxSteps;
@@ -481,6 +499,7 @@ function chainFitOf(
     return chains.findIndex((x) => x.clue === members[0]);
   };
   const empty: { group: number; clue: number }[] = [];
+  let ignored = 0;
   chains.forEach((ch, c) => {
     const group = groupOf(ch, c);
     const clue = clues[c]!;
@@ -498,8 +517,9 @@ function chainFitOf(
     else if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]!, group, clue: c });
     else if (hits(undirected)) checks.push({ exact: undirected!, loose: null, weight: weights[c]!, group, clue: c });
     else if (group >= 0) empty.push({ group, clue: c });
+    else ignored++;
   });
-  if (checks.length === 0) return undefined;
+  if (checks.length === 0) return ignored > 0 ? { fit: () => 1, misses: () => [], ignored } : undefined;
   const total = checks.reduce((a, ch) => a + ch.weight, 0);
   // a coordinated clue whose shared pattern reaches no candidate at all, while another
   // member's does ("borders A, B and C" with C's only neighbours among the clues): it
@@ -520,5 +540,5 @@ function chainFitOf(
     }
     return Math.exp(log);
   };
-  return { fit, misses };
+  return { fit, misses, ignored };
 }

@@ -1,0 +1,396 @@
+/**
+ * The reading of a question: one query graph that says what the question asks.
+ *
+ * Method: staged query-graph generation (Yih, Chang, He & Gao 2015, "Semantic Parsing via
+ * Staged Query Graph Generation: Question Answering with Knowledge Base", ACL), without its
+ * learned scorers: (1) the topic entities are the linked clues (constants); (2) the core
+ * chain runs from each clue outward along the relation words attributed to it
+ * (cue-chains.ts: nearest word first, the head noun's relation last, so "the home port of
+ * the vessel that X commands" reads X —commands→ ?v —home port→ ?answer), with a fresh
+ * variable between two hops, typed by a type noun standing between their words;
+ * coordinated clues ("both A and B") share the chain's variables; (3) constraints and
+ * aggregations are attached to the answer node: literal comparisons, superlatives and
+ * ordinals, counts, exclusions (conditions.ts), a value question or a comparison between
+ * named entities. The candidate relations of each edge are scored by lexical fit against
+ * the catalog's labels and aliases (relation-cues.ts) and the ranking evaluates the graph
+ * over the catalog (a conjunctive regular path query, Mendelzon & Wood 1995): the entities
+ * that satisfy it come first, and a reading with no match falls back to the PageRank alone.
+ *
+ * The graph also lists the question words it does not explain (not a function word, not in
+ * a mention, not the answer type, a relation word, a type noun or a condition), so the
+ * user sees what was ignored.
+ */
+import type { Analysis } from "./analyze.js";
+import type { Condition, ConditionAnalysis, EntityComparison, ValueQuestion } from "./conditions.js";
+import { cueChains, type CueChain, type CueChainOptions, type StepOption } from "./cue-chains.js";
+import { isPluralNoun, PLURAL_COPULAS, SET_WORDS } from "./lexicon.js";
+import type { QuestionModel } from "./question-model.js";
+import type { ReadingDoc } from "../model/index.js";
+import { isFunctionWord, words } from "./words.js";
+import { relationCues, type RelationCue } from "./relation-cues.js";
+
+/** A node of the query graph. */
+export interface QueryNode {
+  /** "?answer", "?v1", …; a constant's entity id. */
+  readonly name: string;
+  readonly kind: "answer" | "variable" | "constant";
+  /** Constants: index into `Analysis.clues`. */
+  readonly clue?: number;
+  /** Type nums the node must have (empty: any). */
+  readonly types: readonly number[];
+}
+
+/** An edge of the query graph, from the clue side (`from`) towards the answer (`to`). */
+export interface QueryEdge {
+  readonly from: number;
+  readonly to: number;
+  /** The relations the words allow, each with its stored direction (cue-chains.ts `StepOption`). */
+  readonly options: readonly StepOption[];
+  /** "forward"/"backward": the sentence says which way; "either": its options disagree; "any": no relation word. */
+  readonly direction: "forward" | "backward" | "either" | "any";
+  /** The question words of the relation. */
+  readonly words: readonly string[];
+}
+
+/** The reading of one question. */
+export interface QueryGraph {
+  /** Node 0 is the answer. */
+  readonly nodes: readonly QueryNode[];
+  readonly edges: readonly QueryEdge[];
+  /** The per-clue relation-path patterns the graph was built from (same order as `Analysis.clues`); the ranking evaluates them. */
+  readonly chains: readonly CueChain[];
+  /** Conditions on the answer (comparisons, superlatives, exclusions, counts). */
+  readonly conditions: readonly Condition[];
+  readonly value?: ValueQuestion;
+  readonly compare?: EntityComparison;
+  /** True when the question asks for a set. */
+  readonly plural: boolean;
+  /**
+   * The relation the answer-type noun names too ("the *home port* of …" in a catalog with a
+   * type "port" and a relation "home port"), when a chain ends short of the answer type and
+   * takes it as its last hop; its steps refer to it by the cue index `relationCues.length`.
+   */
+  readonly headCue?: RelationCue;
+  /** Question words the reading does not use, in question order. */
+  readonly ignored: readonly string[];
+}
+
+/** Options of {@link readQuestion}; all optional. */
+export interface ReadOptions {
+  /** Options of the chain attribution. */
+  readonly chains?: CueChainOptions;
+  /** Share of a relation's edges a type must have at one end to count as found there. @default 0.02 */
+  readonly endShare?: number;
+}
+
+/** Defaults of {@link ReadOptions}. */
+export const DEFAULTS = { endShare: 0.02 } as const;
+
+/** Builds the query graph of an analysed question and its conditions. */
+export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, options: ReadOptions = {}): QueryGraph {
+  const analysis = cond.analysis;
+  const share = options.endShare ?? DEFAULTS.endShare;
+  let chains = model ? orientChains(cueChains(analysis, options.chains), analysis, model, share) : cueChains(analysis, options.chains);
+  const head = model ? headRelation(analysis, model, share) : undefined;
+  let headCue: RelationCue | undefined;
+  if (head && model) {
+    const extended = extendByHead(chains, analysis, model, head, share);
+    if (extended !== chains) {
+      chains = extended;
+      headCue = head.cue;
+    }
+  }
+  const cueOf = (i: number) => analysis.relationCues[i] ?? headCue;
+  const nodes: QueryNode[] = [{ name: "?answer", kind: "answer", types: analysis.answerTypes.map((t) => t.num) }];
+  const edges: QueryEdge[] = [];
+  const constant = analysis.clues.map((c, i) => {
+    nodes.push({ name: c.id, kind: "constant", clue: i, types: [] });
+    return nodes.length - 1;
+  });
+  const edgeOf = (from: number, to: number, opts: readonly StepOption[]): QueryEdge => {
+    const inv = new Set(opts.map((o) => o.inverse));
+    const direction = opts.length === 0 ? "any" : inv.size > 1 ? "either" : inv.has(true) ? "backward" : "forward";
+    const ws = [...new Set(opts.flatMap((o) => cueOf(o.cue)?.words ?? []))];
+    return { from, to, options: opts, direction, words: ws };
+  };
+  // coordinated clues share one chain of variables: build it once per group
+  const done = new Set<number>();
+  chains.forEach((ch, c) => {
+    if (done.has(c)) return;
+    const group = ch.conjuncts ?? [c];
+    for (const g of group) done.add(g);
+    const members = group.map((g) => constant[g]!).filter((x) => x !== undefined);
+    if (ch.steps.length === 0) {
+      for (const m of members) edges.push(edgeOf(m, 0, []));
+      return;
+    }
+    let prev: number[] = members;
+    ch.steps.forEach((st, h) => {
+      const last = h === ch.steps.length - 1;
+      let to = 0;
+      if (!last) {
+        nodes.push({ name: `?v${nodes.filter((n) => n.kind === "variable").length + 1}`, kind: "variable", types: st.types });
+        to = nodes.length - 1;
+      }
+      for (const p of prev) edges.push(edgeOf(p, to, st.options));
+      prev = [to];
+    });
+  });
+  return {
+    nodes,
+    edges,
+    chains,
+    conditions: cond.conditions,
+    ...(cond.value ? { value: cond.value } : {}),
+    ...(cond.compare ? { compare: cond.compare } : {}),
+    plural: asksForSet(analysis),
+    ...(headCue ? { headCue } : {}),
+    ignored: ignoredWords(analysis, cond, chains, headCue?.words),
+  };
+}
+
+/**
+ * Each hop's direction checked against the catalog's relation ends (`relationEnds`: the
+ * types at the subject and the object end of each relation): word order says a clue right
+ * of a relation word is its object ("which country borders *X*"), but an of-phrase after a
+ * relational noun makes it the subject ("the capital of *X*": X —capital→ ?answer). When the
+ * node on the clue side of a hop (the clue's own types, or the type noun of the variable)
+ * is found at only one end of the relation, that end decides; else the node on the answer
+ * side (the expected answer type, or the variable's type) does; else the sentence's
+ * direction stands. A structure the catalog can match beats one it cannot (Yih et al. 2015).
+ */
+function orientChains(chains: readonly CueChain[], analysis: Analysis, model: QuestionModel, share: number): CueChain[] {
+  if (!model.relationEnds) return [...chains];
+  const ends = model.relationEnds();
+  const expand = (types: readonly number[]) => new Set(types.flatMap((t) => model.typeByNum.get(t)?.descendants ?? [t]));
+  // which ends of `rel` hold some type of the set: [subject, object]
+  const at = (rel: number, set: ReadonlySet<number>): [boolean, boolean] => {
+    const total = Math.max(ends.edges(rel), 1);
+    const has = (object: boolean) => ends.types(rel, object).some((e) => set.has(e.type) && e.count / total >= share);
+    return [has(false), has(true)];
+  };
+  const answerSet = expand(analysis.answerTypes.map((t) => t.num));
+  return chains.map((ch) => {
+    const clue = analysis.clues[ch.clue];
+    const clueTypes = new Set(clue && model.typesOf ? model.typesOf(clue.node) : []);
+    const steps = ch.steps.map((st, h) => {
+      const near = h === 0 ? clueTypes : expand(ch.steps[h - 1]!.types);
+      const far = h === ch.steps.length - 1 ? answerSet : expand(st.types);
+      const options = st.options.map((o) => {
+        if (near.size > 0) {
+          const [s, ob] = at(o.relation, near);
+          if (s !== ob) return { ...o, inverse: ob };
+        }
+        if (far.size > 0) {
+          const [s, ob] = at(o.relation, far);
+          if (s !== ob) return { ...o, inverse: s };
+        }
+        return o;
+      });
+      const unique = options.filter((o, i) => options.findIndex((x) => x.relation === o.relation && x.inverse === o.inverse) === i);
+      return { ...st, options: unique };
+    });
+    return { ...ch, steps };
+  });
+}
+
+/** The relation the answer-type words name, with the end of it where the answer types are. */
+interface HeadRelation {
+  readonly cue: RelationCue;
+  /** True: the answer types are at the relation's object end (the hop into the answer walks along the stored triple). */
+  readonly answerAtObject: boolean;
+}
+
+/**
+ * A relation named by the answer-type words themselves ("What is the *home port* of …",
+ * "the *official currency* of …"): their content words matched against relation labels and
+ * aliases as any relation word is (relation-cues.ts, score ≥ 0.75), kept when the catalog
+ * puts the answer types at exactly one end of that relation.
+ */
+function headRelation(analysis: Analysis, model: QuestionModel, share: number): HeadRelation | undefined {
+  if (!model.relationEnds || analysis.answerTypes.length === 0) return undefined;
+  const ws = words(analysis.question);
+  const spans = analysis.answerTypeWords ?? [];
+  const typeIdx = ws.map((_, k) => k).filter((k) => !isFunctionWord(ws[k]!.norm) && spans.some((s) => ws[k]!.start >= s.start && ws[k]!.end <= s.end));
+  if (typeIdx.length === 0) return undefined;
+  // the type noun's pre-modifiers belong to the head phrase too ("*home* port": Quirk et al. 1985 §17.97 ff.)
+  const inMention = (k: number) => analysis.mentions.some((m) => ws[k]!.start < m.end && ws[k]!.end > m.start);
+  const idx = [...typeIdx];
+  for (let k = typeIdx[0]! - 1; k >= 0 && idx.length < typeIdx.length + 2 && !isFunctionWord(ws[k]!.norm) && !inMention(k); k--) idx.unshift(k);
+  const ends = model.relationEnds();
+  const answerSet = new Set(analysis.answerTypes.flatMap((t) => model.typeByNum.get(t.num)?.descendants ?? [t.num]));
+  for (const cue of relationCues(ws, idx, model)) {
+    if (cue.score < 0.75) continue;
+    const total = Math.max(ends.edges(cue.relation), 1);
+    const has = (object: boolean) => ends.types(cue.relation, object).some((e) => answerSet.has(e.type) && e.count / total >= share);
+    const [s, o] = [has(false), has(true)];
+    if (s !== o) return { cue: { ...cue, occurrences: [{ start: cue.start, flip: false }] }, answerAtObject: o };
+  }
+  return undefined;
+}
+
+/**
+ * Each chain whose last hop does not end at the answer types (by the catalog's relation
+ * ends) takes the head relation as its last hop, when its end's types are found at the other
+ * end of that relation: "the home port of the vessel that X commands" = X —commands→ ?v
+ * —home port→ ?answer. A chain already ending with the head relation is left alone.
+ */
+function extendByHead(chains: CueChain[], analysis: Analysis, model: QuestionModel, head: HeadRelation, share: number): CueChain[] {
+  const ends = model.relationEnds!();
+  const expand = (types: Iterable<number>) => new Set([...types].flatMap((t) => model.typeByNum.get(t)?.descendants ?? [t]));
+  const answerSet = expand(analysis.answerTypes.map((t) => t.num));
+  const at = (rel: number, object: boolean, set: ReadonlySet<number>) => {
+    const total = Math.max(ends.edges(rel), 1);
+    return ends.types(rel, object).some((e) => set.has(e.type) && e.count / total >= share);
+  };
+  // types at the far end of a hop, as [types], from the catalog's relation ends
+  const farTypes = (o: StepOption): Set<number> => new Set(ends.types(o.relation, !o.inverse).filter((e) => e.count / Math.max(ends.edges(o.relation), 1) >= share).map((e) => e.type));
+  const cue = analysis.relationCues.length;
+  let changed = false;
+  const out = chains.map((ch) => {
+    const last = ch.steps[ch.steps.length - 1];
+    if (last && last.options.some((o) => o.relation === head.cue.relation)) return ch;
+    let endTypes: Set<number>;
+    if (last) {
+      if (last.options.some((o) => at(o.relation, !o.inverse, answerSet))) return ch;
+      endTypes = new Set(last.options.flatMap((o) => [...farTypes(o)]));
+    } else {
+      const clue = analysis.clues[ch.clue];
+      endTypes = new Set(clue && model.typesOf ? model.typesOf(clue.node) : []);
+    }
+    // the chain's end must stand at the head relation's other end
+    if (endTypes.size === 0 || !at(head.cue.relation, !head.answerAtObject, expand(endTypes))) return ch;
+    changed = true;
+    const lastTypes = last ? [...endTypes].sort((a, b) => a - b) : [];
+    const steps = [...ch.steps.slice(0, -1), ...(last ? [{ ...last, types: last.types.length > 0 ? last.types : lastTypes }] : []), { at: head.cue.start, options: [{ relation: head.cue.relation, inverse: !head.answerAtObject, cue }], types: [] }];
+    return { ...ch, steps };
+  });
+  return changed ? out : chains;
+}
+
+/**
+ * True when the question asks for a set: a plural head noun ("which *countries*"), a plural
+ * copula after the wh-word ("which *are* …", "what *were* …") or a universal determiner
+ * ("list *all*"); lexicon.ts.
+ */
+function asksForSet(analysis: Analysis): boolean {
+  const ws = words(analysis.question);
+  const spans = analysis.answerTypeWords ?? [];
+  const head = ws.filter((w) => spans.some((s) => w.start >= s.start && w.end <= s.end));
+  if (head.slice(1).some((w) => isPluralNoun(w.norm))) return true;
+  const first = head[0] ? ws.findIndex((w) => w.start === head[0]!.start) : -1;
+  if (first >= 0 && (PLURAL_COPULAS.has(ws[first + 1]?.norm ?? "") || SET_WORDS.has(ws[first + 1]?.norm ?? ""))) return true;
+  return false;
+}
+
+/** The question's words that no part of the reading uses (lexicon: function words never count). */
+function ignoredWords(analysis: Analysis, cond: ConditionAnalysis, chains: readonly CueChain[], headWords?: readonly string[]): string[] {
+  const ws = words(analysis.question);
+  const spans: { start: number; end: number }[] = [
+    ...analysis.mentions,
+    ...(analysis.answerTypeWords ?? []),
+    ...(analysis.typeWords ?? []),
+    ...cond.conditions,
+    ...(cond.value ? [cond.value] : []),
+    ...(cond.compare ? [cond.compare] : []),
+  ];
+  const usedWords = new Set<string>();
+  for (const ch of chains) for (const st of ch.steps) for (const o of st.options) for (const w of analysis.relationCues[o.cue]?.words ?? []) usedWords.add(w);
+  for (const w of headWords ?? []) usedWords.add(w);
+  // a cue that made no hop still weighs the walk: its words are used
+  for (const c of analysis.relationCues) for (const w of c.words) usedWords.add(w);
+  const attributeWords = new Set<number>();
+  for (const c of [...cond.conditions, ...(cond.value ? [cond.value] : []), ...(cond.compare ? [cond.compare] : [])]) {
+    if ("choices" in c && c.choices.length > 0) for (const k of c.choices[0]!.wordIndexes) attributeWords.add(k);
+  }
+  const out: string[] = [];
+  ws.forEach((w, k) => {
+    if (isFunctionWord(w.norm) || w.norm === "s" || /^\d/.test(w.norm)) return;
+    if (attributeWords.has(k) || usedWords.has(w.text)) return;
+    if (spans.some((s) => w.start < s.end && w.end > s.start)) return;
+    out.push(w.text);
+  });
+  return out;
+}
+
+/** The one-line rendering of a reading (`reading:` in the text output). */
+export function readingText(g: QueryGraph, analysis: Analysis, model: QuestionModel): string {
+  const typeLabel = (nums: readonly number[]) => (nums.length > 0 ? ` (${nums.map((t) => model.typeByNum.get(t)?.label ?? String(t)).join(" or ")})` : "");
+  const nodeText = (i: number) => {
+    const n = g.nodes[i]!;
+    if (n.kind === "constant") return analysis.clues[n.clue!]?.label ?? n.name;
+    return `${n.name}${typeLabel(n.types)}`;
+  };
+  const relText = (e: QueryEdge) => [...new Set(e.options.map((o) => (analysis.relationCues[o.cue] ?? g.headCue)?.label ?? String(o.relation)))].join("|");
+  // each path is written from the answer back to its clue(s): "?answer ← capital — ?v1 ← borders — A & B"
+  const into = new Map<number, QueryEdge[]>();
+  for (const e of g.edges) into.set(e.to, [...(into.get(e.to) ?? []), e]);
+  const paths: string[] = [];
+  const write = (to: number, seen: Set<number>): string[] => {
+    const incoming = (into.get(to) ?? []).filter((e) => !seen.has(e.from));
+    if (incoming.length === 0) return [nodeText(to)];
+    // edges with the same relation words from several constants: one coordinated group
+    const groups = new Map<string, QueryEdge[]>();
+    for (const e of incoming) {
+      const key = `${relText(e)}|${e.direction}|${g.nodes[e.from]!.kind}`;
+      groups.set(key, [...(groups.get(key) ?? []), e]);
+    }
+    const out: string[] = [];
+    for (const list of groups.values()) {
+      const e = list[0]!;
+      const arrow = e.direction === "any" ? " ~ " : e.direction === "forward" ? ` ← ${relText(e)} — ` : e.direction === "backward" ? ` — ${relText(e)} → ` : ` — ${relText(e)} — `;
+      const from = list.length > 1 && list.every((x) => g.nodes[x.from]!.kind === "constant") ? [list.map((x) => nodeText(x.from)).join(" & ")] : list.flatMap((x) => write(x.from, new Set([...seen, to])));
+      for (const f of from) out.push(`${nodeText(to)}${arrow}${f}`);
+    }
+    return out;
+  };
+  if (g.edges.length > 0) {
+    paths.push(...write(0, new Set()));
+  } else paths.push(nodeText(0));
+  const extras = constraintTexts(g, analysis);
+  return [paths.join("; "), ...extras].join("; ");
+}
+
+/** The conditions of a reading in words ("area > 500000", "largest by area", …). */
+export function constraintTexts(g: QueryGraph, analysis: Analysis): string[] {
+  const out: string[] = [];
+  for (const c of g.conditions) {
+    const attr = "choices" in c ? (c.choices[0]?.label ?? "no attribute") : "";
+    if (c.kind === "comparison") out.push(`${attr} ${c.operator} ${c.values.join(" and ")}`);
+    else if (c.kind === "superlative") out.push(`${c.position > 1 ? `place ${c.position} ` : ""}${c.order === "max" ? "largest" : "smallest"} by ${attr}`);
+    else if (c.kind === "exclusion") out.push(`not ${c.label}${c.mode === "not" ? " (nor what is linked to it)" : ""}`);
+    else out.push("count");
+  }
+  if (g.value) out.push(`value: ${g.value.choices[0]?.label ?? "no attribute"} of ${analysis.mentions[g.value.mention]?.entity.label ?? "?"}`);
+  if (g.compare) out.push(`compare: ${g.compare.mentions.map((m) => analysis.mentions[m]?.entity.label ?? "?").join(" vs ")} by ${g.compare.choices[0]?.label ?? "no attribute"} (${g.compare.order === "max" ? "larger" : "smaller"} wins)`);
+  if (g.plural) out.push("all that fit");
+  return out;
+}
+
+/** The JSON document of a reading (`ask --json` `reading`; README "Reading"); `matched`/`fallback` come from the ranking. */
+export function readingDoc(g: QueryGraph, analysis: Analysis, model: QuestionModel, evaluated?: { matched: number | null; fallback: boolean }): ReadingDoc {
+  const typeIds = (nums: readonly number[]) => nums.map((t) => model.typeByNum.get(t)?.id ?? String(t));
+  return {
+    text: readingText(g, analysis, model),
+    nodes: g.nodes.map((n) => {
+      if (n.kind !== "constant") return { name: n.name, kind: n.kind, types: typeIds(n.types) };
+      const clue = analysis.clues[n.clue!]!;
+      const m = analysis.mentions[clue.mention];
+      return { name: n.name, kind: n.kind, entity: { id: clue.id, label: clue.label }, ...(m ? { text: m.text, confidence: m.confidence } : {}), types: [] };
+    }),
+    edges: g.edges.map((e) => ({
+      from: e.from,
+      to: e.to,
+      relations: e.options.map((o) => {
+        const c = analysis.relationCues[o.cue] ?? g.headCue;
+        return { id: c?.id ?? String(o.relation), label: c?.label ?? String(o.relation), inverse: o.inverse };
+      }),
+      direction: e.direction,
+      words: e.words,
+    })),
+    constraints: constraintTexts(g, analysis),
+    plural: g.plural,
+    ...(evaluated ? { matched: evaluated.matched, fallback: evaluated.fallback } : {}),
+    ignored: g.ignored,
+  };
+}
