@@ -11,6 +11,7 @@ import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { Catalog, SCHEMA_VERSION, cacheDir, loadFiles } from "../catalog/index.js";
 import { TiepointError } from "../model/index.js";
+import { DEFAULTS as DEBIAN_DEFAULTS, readPackagesText, stanzasToNTriples } from "./debian-packages.js";
 import { readQuestionSet, type EvalQuestion, type SplitFile } from "./question-set.js";
 import { WORLD_PREFIXES, buildWorldCatalog, worldCountriesVersion, type EvalCatalogSource } from "./world-catalog.js";
 
@@ -36,6 +37,21 @@ export const SPLIT_FILE = "test/fixtures/eval/split.json";
 /** The seed of the committed split (the date the world set was written, 4 December 2026). */
 export const SPLIT_SEED = 20261204;
 
+/** The committed Debian slice the debian set is asked over (test/fixtures/debian/README.md). */
+export const DEBIAN_SLICE = "test/fixtures/debian/packages-slice.txt.gz";
+
+/** SPARQL prefixes declared before every query of the debian question set (IRIs of src/eval/debian-packages.ts). */
+export const DEBIAN_PREFIXES: Readonly<Record<string, string>> = {
+  ds: `${DEBIAN_DEFAULTS.base}schema:`,
+  pkg: `${DEBIAN_DEFAULTS.base}package:`,
+  sec: `${DEBIAN_DEFAULTS.base}section:`,
+  pri: `${DEBIAN_DEFAULTS.base}priority:`,
+  mnt: `${DEBIAN_DEFAULTS.base}maintainer:`,
+  arch: `${DEBIAN_DEFAULTS.base}architecture:`,
+  xsd: "http://www.w3.org/2001/XMLSchema#",
+  rdfs: "http://www.w3.org/2000/01/rdf-schema#",
+};
+
 /** Every set, by name. */
 export const SETS: readonly SetSpec[] = [
   {
@@ -44,6 +60,16 @@ export const SETS: readonly SetSpec[] = [
     prefixes: WORLD_PREFIXES,
     source: () => `world-countries ${worldCountriesVersion()} (npm; mledoze/countries, ODbL)`,
     build: buildWorldCatalog,
+  },
+  {
+    name: "debian",
+    file: "test/fixtures/eval/debian.tsv",
+    prefixes: DEBIAN_PREFIXES,
+    source: () => `Debian 12 "bookworm" binary package index, amd64 main, 3,044-stanza slice (${DEBIAN_SLICE}; converter src/eval/debian-packages.ts)`,
+    build: () => {
+      const c = stanzasToNTriples(readPackagesText(join(repoRoot(), DEBIAN_SLICE)));
+      return { triples: c.nt, schema: c.declarations };
+    },
   },
 ];
 

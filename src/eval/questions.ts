@@ -1,5 +1,5 @@
 /**
- * `npm run eval:questions -- [--set world|all] [--split dev|holdout|both] [--json]
+ * `npm run eval:questions -- [--set world|debian|all] [--split dev|holdout|both] [--json]
  * [--holdout-misses]`: the natural-question evaluation of issue 16.
  *
  * For each set: builds (or reuses) the catalog, computes every question's gold with oxigraph
