@@ -10,3 +10,4 @@ export { catalogStats, nearestRank, unionFindComponents } from "./stats.js";
 export type { CatalogStats, Hub } from "./stats.js";
 export { demoCatalogPath, demoSourceFiles, demoDataDir, cacheDir, DEMO_SOURCES } from "./demo.js";
 export type { DemoCatalogOptions } from "./demo.js";
+export { NumericColumn, NumericColumns, readNumericColumn } from "./numeric-column.js";

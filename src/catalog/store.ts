@@ -490,9 +490,14 @@ export class Catalog {
     });
   }
 
-  /** The numeric values (see `AttributeInfo.num`) of one entity's attribute, smallest first. */
+  /**
+   * The numeric values (see `AttributeInfo.num`) of one entity's attribute, smallest first.
+   * For one entity; conditions over many entities read whole columns (numeric-column.ts).
+   */
   attributeNumbers(entity: number, predicate: number): number[] {
-    return (this.stmt("SELECT num FROM attribute WHERE entity = ? AND predicate = ? AND num IS NOT NULL ORDER BY num").all(entity, predicate) as { num: number }[]).map((r) => r.num);
+    // no ORDER BY num: it would lead SQLite to the (predicate, num) index and a walk over every
+    // value of the predicate; the primary key (entity, predicate, …) finds the few rows
+    return (this.stmt("SELECT num FROM attribute WHERE entity = ? AND predicate = ? AND num IS NOT NULL").pluck().all(entity, predicate) as number[]).sort((a, b) => a - b);
   }
 
   /** Counts for `stats`. */

@@ -5,7 +5,7 @@
  * ask(question) = linkQuestion → analyze → rank → answers + verdict (+ explanation), each
  * stage timed. Answers and verdict are made in one place, {@link Session.answersOf}.
  */
-import { Catalog, demoCatalogPath } from "../catalog/index.js";
+import { Catalog, NumericColumns, demoCatalogPath } from "../catalog/index.js";
 import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type QueryGraph, type QuestionModel } from "../analysis/index.js";
 import { Linker, linkQuestion, type LinkResult, type Pin } from "../linking/index.js";
 import { DISCLAIMER, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
@@ -84,6 +84,8 @@ export class Session {
   /** Entities per label (explain's suggested clues), kept like `idCache`. */
   private readonly labelCounts = new Map<string, number>();
   private attributeModel?: AttributeModel;
+  /** Numeric attribute values by predicate, read once per predicate in this session's snapshot. */
+  private readonly numericColumns: NumericColumns;
 
   private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions) {
     this.catalog = catalog;
@@ -91,6 +93,7 @@ export class Session {
     this.linker = linker;
     this.model = model;
     this.rankOptions = rankOptions;
+    this.numericColumns = new NumericColumns(catalog);
   }
 
   /** Opens the catalog (read-only), its relation index (snapshot or rebuilt), linker and question model. */
@@ -149,7 +152,8 @@ export class Session {
       const direct = cond.value ? answerValue(this.catalog, cond.value) : answerComparison(this.catalog, cond.compare!);
       return this.directOutcome(question, analysis, reading, direct, limitNotes, top, { link: t1 - t0, analyze: t2 - t1 }, t0);
     }
-    const lookup = { numbers: (e: number, p: number) => this.catalog.attributeNumbers(e, p) };
+    // numeric values through per-predicate columns (one statement per attribute, kept by the session)
+    const lookup = { numbers: (e: number, p: number) => this.numericColumns.numbers(e, p) };
     const withConditions = (r: Ranked) => (cond.conditions.length > 0 ? applyConditions(analysis, r, cond.conditions, this.index, lookup).ranked : r);
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();

@@ -165,16 +165,8 @@ export function applyConditions(
   };
   const applied: AppliedCondition[] = [];
   const removed: { node: number; condition: number }[] = [];
-  const valuesCache = new Map<string, readonly number[]>();
-  const values = (node: number, attr: number) => {
-    const key = `${node}:${attr}`;
-    let v = valuesCache.get(key);
-    if (!v) {
-      v = lookup.numbers(node, attr);
-      valuesCache.set(key, v);
-    }
-    return v;
-  };
+  // the lookup is the cache (the session's per-predicate columns): one call per candidate and attribute
+  const values = (node: number, attr: number) => lookup.numbers(node, attr);
   const pick = (choices: readonly AttributeChoice[]): AttributeChoice | null => {
     const pool = cands.filter((c) => fit.has(c.node));
     const scope = pool.length > 0 ? pool : cands;
@@ -253,24 +245,30 @@ export function applyConditions(
     const order = orderOf(c, attr);
     const inFit = fitOrder();
     const rest = cands.filter((x) => !fit.has(x.node));
-    const key = (node: number) => {
-      const vs = values(node, attr.num);
-      return vs.length === 0 ? null : order === "max" ? vs[vs.length - 1]! : vs[0]!;
-    };
-    const withValue = inFit.filter((x) => key(x.node) !== null);
-    const without = inFit.filter((x) => key(x.node) === null);
-    // stable sort keeps the ranking order among equal values
-    withValue.sort((a, b) => (order === "max" ? key(b.node)! - key(a.node)! : key(a.node)! - key(b.node)!));
+    // one key per fit candidate (largest value for "max", smallest for "min"), NaN: none
+    const keys = new Float64Array(inFit.length);
+    const withIdx: number[] = [];
+    const without: RankedCandidate[] = [];
+    inFit.forEach((x, i) => {
+      const vs = values(x.node, attr.num);
+      keys[i] = vs.length === 0 ? NaN : order === "max" ? vs[vs.length - 1]! : vs[0]!;
+      if (vs.length === 0) without.push(x);
+      else withIdx.push(i);
+    });
+    // stable: ties of value keep the ranking order (by index)
+    withIdx.sort((i, j) => (order === "max" ? keys[j]! - keys[i]! : keys[i]! - keys[j]!) || i - j);
+    const withValue = withIdx.map((i) => inFit[i]!);
     const pos = Math.min(c.position, withValue.length) - 1;
     const ordered = pos > 0 ? [withValue[pos]!, ...withValue.slice(0, pos), ...withValue.slice(pos + 1)] : withValue;
-    ordered.forEach((x) => {
-      const place = withValue.indexOf(x) + 1;
+    const placeOf = (k: number) => (pos > 0 ? (k === 0 ? pos + 1 : k <= pos ? k : k + 1) : k + 1);
+    ordered.forEach((x, k) => {
+      const place = placeOf(k);
       addCheck(x.node, { condition: ci, attribute: attr.num, values: values(x.node, attr.num), satisfied: place === c.position, place });
     });
     for (const x of without) addCheck(x.node, { condition: ci, attribute: attr.num, values: [], satisfied: false });
     if (ordered.length > 0) {
-      const top = key(ordered[0]!.node)!;
-      tiedWith = ordered.slice(1).filter((x) => key(x.node) === top).map((x) => x.node);
+      const top = keys[withIdx[pos > 0 ? pos : 0]!]!;
+      tiedWith = ordered.slice(1).filter((_, k) => keys[withIdx[placeOf(k + 1) - 1]!] === top).map((x) => x.node);
     }
     cands = [...ordered, ...without, ...rest];
     applied.push({ condition: c, attribute: attr, before, after: cands.length });
