@@ -6,6 +6,7 @@ export { fnv1a32 } from "./intern.js";
 export { SCHEMA_VERSION } from "./schema.js";
 export { loadFiles, formatOf } from "./load.js";
 export type { LoadOptions, LoadReport, FileReport, ImportFormat, LoadProgress, LoadWarning, WarningKind } from "./load.js";
+export type { LoadSink, PreparedFiles } from "./load-sink.js";
 export { catalogStats, nearestRank, unionFindComponents } from "./stats.js";
 export type { CatalogStats, Hub } from "./stats.js";
 export { demoCatalogPath, demoSourceFiles, demoDataDir, cacheDir, DEMO_SOURCES } from "./demo.js";

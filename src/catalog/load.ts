@@ -16,6 +16,7 @@ import { importJsonl } from "./import/jsonl.js";
 import { importCsv } from "./import/csv.js";
 import { importRdf } from "./import/rdf.js";
 import { finishLoad } from "./import/finish.js";
+import type { LoadSink, PreparedFiles } from "./load-sink.js";
 
 export type { LoadProgress, LoadWarning, WarningKind };
 
@@ -47,6 +48,11 @@ export interface LoadOptions {
   readonly maxErrors?: number;
   /** Every warning is an error: nothing is written when there is one. @default false */
   readonly strict?: boolean;
+  /**
+   * Receives every row written when the catalog is empty at the start (or `replace`), and
+   * builds derived files before the commit (load-sink.ts); told to `abort` otherwise.
+   */
+  readonly sink?: LoadSink;
 }
 
 /** What one file contributed. */
@@ -70,6 +76,8 @@ export interface LoadReport {
   /** Warnings, in file and line order (each `FILE:LINE`). */
   readonly warnings: readonly LoadWarning[];
   readonly seconds: number;
+  /** True when the sink's files were built and published with the commit. */
+  readonly prepared: boolean;
 }
 
 /** The import format of a file name, or undefined. */
@@ -144,9 +152,15 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
   const reports: FileReport[] = [];
   const order = new Map(files.map((f, i) => [f, i]));
   let ctx: LoadContext | undefined;
+  let sink: LoadSink | undefined;
+  let prepared: PreparedFiles | undefined;
   try {
     if (options.replace) writer.clear();
-    if (writer.startedEmpty) writer.deferIndexes();
+    if (writer.startedEmpty) {
+      writer.deferIndexes();
+      sink = options.sink;
+    } else options.sink?.abort();
+    writer.sink = sink;
     ctx = new LoadContext(writer, { maxErrors: options.maxErrors, onProgress: options.onProgress });
     let rdf = false;
     try {
@@ -195,13 +209,29 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
       else more.push(new TiepointError("catalog/parse", `${errs.length} error${errs.length === 1 ? "" : "s"}; nothing was loaded`));
       throw new TiepointError(errs[0]!.code, errs[0]!.message, { file: errs[0]!.file, line: errs[0]!.line, more });
     }
+    // the commit bumps the generation by one: derived files are stamped with the new one
+    prepared = sink?.finish(cat, { uid: cat.version().uid, generation: cat.version().generation + 1 });
+    writer.sink = undefined;
     writer.commit();
   } catch (e) {
+    writer.sink = undefined;
     writer.rollback();
+    prepared?.discard();
+    sink?.abort();
     const code = (e as { code?: string }).code;
     if (code === "SQLITE_FULL") throw new TiepointError("catalog/full", "the disk is full (or the catalog reached its size limit); nothing was loaded", { file: cat.path });
     if (typeof code === "string" && code.startsWith("SQLITE_IOERR")) throw new TiepointError("catalog/io", `cannot write the catalog (${code}); nothing was loaded`, { file: cat.path });
     throw e;
+  }
+  let published = false;
+  if (prepared) {
+    try {
+      prepared.publish();
+      published = true;
+    } catch {
+      // the catalog is committed; without its derived files the first question builds them
+      prepared.discard();
+    }
   }
   const after = counts(cat);
   return {
@@ -217,6 +247,7 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
     generation: cat.version().generation,
     warnings: inFileOrder(ctx.warnings, order).map((x) => ({ kind: x.kind, file: x.file, line: x.line, message: x.message })),
     seconds: (Date.now() - t0) / 1000,
+    prepared: published,
   };
 }
 

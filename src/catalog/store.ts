@@ -400,16 +400,19 @@ export class Catalog {
       .sort((a, b) => a.num - b.num);
   }
 
-  /** Iterates all relation edges as [src, rel, dst] nums (for the relation index). */
+  /**
+   * Iterates all relation edges as [src, rel, dst] nums, ordered by (dst, rel, src): the
+   * relation index's canonical order (read straight from the `edge_by_dst` index, no sort).
+   */
   *edges(): IterableIterator<[number, number, number]> {
-    const s = this.db.prepare("SELECT src, rel, dst FROM edge").raw(true);
+    const s = this.db.prepare("SELECT src, rel, dst FROM edge ORDER BY dst, rel, src").raw(true);
     for (const row of s.iterate()) yield row as [number, number, number];
   }
 
-  /** Iterates all aliases (labels included) as [entity, text, norm, kind]. */
-  *aliases(): IterableIterator<[number, string, string, number]> {
-    const s = this.db.prepare("SELECT entity, text, norm, kind FROM alias").raw(true);
-    for (const row of s.iterate()) yield row as [number, string, string, number];
+  /** Iterates all aliases (labels included) as [entity, norm, stem] (for the linker's lexical snapshot). */
+  *aliases(): IterableIterator<[number, string, string]> {
+    const s = this.db.prepare("SELECT entity, norm, stem FROM alias").raw(true);
+    for (const row of s.iterate()) yield row as [number, string, string];
   }
 
   /** Iterates all (entity, type) pairs as [entity, type] nums, ordered by entity then type (for the relation index). */

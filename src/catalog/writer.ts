@@ -12,6 +12,7 @@ import { labelFromId } from "./store.js";
 import type { Catalog } from "./store.js";
 import { PendingEntities, RowBatch, SortedEdges } from "./rows.js";
 import { IdTable } from "./intern.js";
+import type { LoadSink } from "./load-sink.js";
 
 /** Parses a literal as a number for attribute comparisons: plain numbers, years and ISO dates. */
 export function literalNumber(value: string, datatype: string | null): number | null {
@@ -95,6 +96,8 @@ export class CatalogWriter {
   onFirstUse?: (kind: "type" | "relation", id: string) => void;
   /** Called when a write deserves a warning (an existing entity's label kept, a second value), with the entity's id. */
   onNotice?: (kind: "label kept" | "second value", message: string, id: string) => void;
+  /** Receives every row written (set by `loadFiles` for a load into an empty catalog). */
+  sink: LoadSink | undefined;
 
   constructor(cat: Catalog) {
     this.cat = cat;
@@ -288,6 +291,7 @@ export class CatalogWriter {
   }
 
   private setLabelOf(n: number, text: string): void {
+    this.sink?.label(n, text);
     if (this.entities.has(n)) this.entities.setLabel(n, text);
     else this.s.setLabel!.run(text, n);
   }
@@ -297,6 +301,7 @@ export class CatalogWriter {
   }
 
   private setDescriptionOf(n: number, text: string): void {
+    this.sink?.description(n, text);
     if (this.entities.has(n)) this.entities.setDescription(n, text);
     else this.s.setDesc!.run(text, n);
   }
@@ -317,7 +322,7 @@ export class CatalogWriter {
     const f = this.flag(n);
     if ((f & HAS_LABEL) === 0) {
       this.setLabelOf(n, text);
-      this.aliases.add(n, text, ...forms(text), 0);
+      this.addAlias(n, text, 0);
       this.flags[n] = f | HAS_LABEL;
       return;
     }
@@ -327,11 +332,20 @@ export class CatalogWriter {
       this.aliases.flush();
       if (cur !== text) this.s.demoteLabel!.run(n);
       this.setLabelOf(n, text);
-      this.s.insAlias!.run(n, text, ...forms(text), 0);
+      const [norm, stem] = forms(text);
+      this.sink?.alias(n, norm, stem);
+      this.s.insAlias!.run(n, text, norm, stem, 0);
       this.s.promoteAlias!.run(n, text);
     } else if (cur !== text) {
-      this.aliases.add(n, text, ...forms(text), 1);
+      this.addAlias(n, text, 1);
     }
+  }
+
+  /** Buffers an alias row (kind 0 = label, 1 = alias). */
+  private addAlias(n: number, text: string, kind: number): void {
+    const [norm, stem] = forms(text);
+    this.sink?.alias(n, norm, stem);
+    this.aliases.add(n, text, norm, stem, kind);
   }
 
   /** True when entity `id` has a label already. */
@@ -341,8 +355,7 @@ export class CatalogWriter {
 
   /** Adds an alias. */
   alias(id: string, text: string): void {
-    const n = this.entity(id);
-    this.aliases.add(n, text, ...forms(text), 1);
+    this.addAlias(this.entity(id), text, 1);
   }
 
   /** Sets the description (the first one wins; later ones are appended after a blank line). */
@@ -364,6 +377,7 @@ export class CatalogWriter {
     const e = this.entity(id);
     const t = this.entity(type);
     this.useType(t, type);
+    this.sink?.type(e, t);
     this.types.add(e, t);
   }
 
@@ -373,6 +387,7 @@ export class CatalogWriter {
     const b = this.entity(sup);
     this.useType(a, sub);
     this.useType(b, sup);
+    this.sink?.subclass(a, b);
     this.s.insSub!.run(a, b);
   }
 
@@ -386,7 +401,9 @@ export class CatalogWriter {
       this.relUses = bigger;
     }
     if (this.relUses[r]++ === 0) this.onFirstUse?.("relation", rel);
-    this.edges.add(s, r, this.entity(dst));
+    const d = this.entity(dst);
+    this.sink?.edge(s, r, d);
+    this.edges.add(s, r, d);
   }
 
   /**
@@ -463,8 +480,14 @@ export class CatalogWriter {
           // (the end of the load: no id is looked up through the writer after this)
           const types = this.db.prepare("SELECT type FROM entity_type WHERE entity = ?").pluck().all(e.num) as number[];
           for (const d of drops) d.run(e.num);
+          this.removedEntity(e.num);
           // a type only the unit had (qudt:Unit) goes with it
-          for (const t of types) if (this.isNewEntity(t) && !inGraph.get({ n: t }) && !this.db.prepare("SELECT 1 FROM edge WHERE src = ? LIMIT 1").get(t)) for (const d of drops) d.run(t);
+          for (const t of types) {
+            if (this.isNewEntity(t) && !inGraph.get({ n: t }) && !this.db.prepare("SELECT 1 FROM edge WHERE src = ? LIMIT 1").get(t)) {
+              for (const d of drops) d.run(t);
+              this.removedEntity(t);
+            }
+          }
         }
       }
       put.run(`unit:${id}`, text);
@@ -475,6 +498,11 @@ export class CatalogWriter {
   /** A relation's alias phrasing. */
   predicateAlias(id: string, text: string): void {
     this.s.insPredAlias!.run(this.predicate(id), text, ...forms(text));
+  }
+
+  /** Entity `num` was deleted with its rows (end-of-load steps, import/finish.ts). */
+  removedEntity(num: number): void {
+    this.sink?.removed(num);
   }
 
   /** The catalog written to. */

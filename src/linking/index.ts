@@ -7,6 +7,7 @@ export type { Pin, LinkedMention, UnlinkedSpan, LinkResult, LinkOptions, LinkerO
 export { DEFAULTS as SCORING_DEFAULTS } from "./collective-disambiguation.js";
 export type { ScoringOptions } from "./collective-disambiguation.js";
 export { LexicalSnapshot } from "./lexical-snapshot.js";
+export { LexicalBuilder } from "./lexical-builder.js";
 export { questionTokens } from "./text-spans.js";
 export type { QuestionToken } from "./text-spans.js";
 export { jaroWinkler, jaro } from "./jaro-winkler.js";

@@ -15,19 +15,19 @@
  *   neighbour part of df is counted without materialising documents: a label or description
  *   term of entity e is credited to deg(e) further documents (an upper bound that ignores two
  *   neighbours sharing a term), capped at N.
- * Building reads the edge, alias and entity tables once each (no per-question scans).
+ * Building reads the edge, alias and entity tables once each (no per-question scans), or takes
+ * the rows a load writes (lexical-builder.ts: the same builder either way).
  */
 import { readFileSync, renameSync, writeFileSync, unlinkSync } from "node:fs";
 import type { Catalog } from "../catalog/index.js";
-import { fnv1a32, stemToken, tokens } from "../catalog/index.js";
-import { isStopWord } from "./stopwords.js";
+import { fnv1a32 } from "../catalog/index.js";
 import { sortedIndexOf } from "./sorted-search.js";
+import { LexicalBuilder, NEIGHBOUR_DESCRIPTION_WEIGHT, type LexicalParts } from "./lexical-builder.js";
 
 /** Format tag written at the start of the snapshot file. */
 const MAGIC = "tiepoint-link-3";
 
-/** Weight of a neighbour's description in an entity's context document (see linker.ts). */
-export const NEIGHBOUR_DESCRIPTION_WEIGHT = 0.5;
+export { NEIGHBOUR_DESCRIPTION_WEIGHT };
 
 /** FNV-1a 32-bit hash of a string's UTF-16 code units (Fowler–Noll–Vo; common practice). */
 export function fnv1a(s: string): number {
@@ -42,19 +42,6 @@ class HashSet32 {
     this.table = table;
     this.mask = table.length - 1;
   }
-  static withCapacity(n: number): HashSet32 {
-    let size = 16;
-    while (size < n * 2) size *= 2;
-    return new HashSet32(new Uint32Array(size));
-  }
-  add(h: number): void {
-    let i = h & this.mask;
-    while (this.table[i] !== 0) {
-      if (this.table[i] === h) return;
-      i = (i + 1) & this.mask;
-    }
-    this.table[i] = h;
-  }
   has(h: number): boolean {
     let i = h & this.mask;
     for (;;) {
@@ -63,20 +50,6 @@ class HashSet32 {
       if (v === h) return true;
       i = (i + 1) & this.mask;
     }
-  }
-}
-
-/** A growable Int32 array. */
-class IntList {
-  data = new Int32Array(1024);
-  length = 0;
-  push(v: number): void {
-    if (this.length === this.data.length) {
-      const d = new Int32Array(this.data.length * 2);
-      d.set(this.data);
-      this.data = d;
-    }
-    this.data[this.length++] = v;
   }
 }
 
@@ -150,101 +123,44 @@ export class LexicalSnapshot {
   /** Builds the snapshot from the catalog's tables (one pass over edges, aliases, entities). */
   static build(cat: Catalog): LexicalSnapshot {
     const { uid, generation } = cat.version();
-    const maxNum = cat.maxEntityNum();
-    const degree = new Int32Array(maxNum + 1);
+    const degree = new Int32Array(cat.maxEntityNum() + 1);
     for (const [s, , d] of cat.edges()) {
       degree[s]!++;
       degree[d]!++;
     }
-    const vocabMap = new Map<string, number>();
-    const pairTok = new IntList();
-    const pairEnt = new IntList();
-    const keyHashes = new IntList();
-    let maxAliasTokens = 1;
-    for (const [entity, , norm] of cat.aliases()) {
-      if (norm === "") continue;
-      const toks = norm.split(" ");
-      if (toks.length > maxAliasTokens) maxAliasTokens = toks.length;
-      keyHashes.push(fnv1a(norm));
-      keyHashes.push(fnv1a(toks.map(stemToken).join(" ")));
-      for (const t of toks) {
-        let id = vocabMap.get(t);
-        if (id === undefined) {
-          id = vocabMap.size;
-          vocabMap.set(t, id);
-        }
-        pairTok.push(id);
-        pairEnt.push(entity);
-      }
-    }
-    // sort the vocabulary and remap ids so the file and iteration order are deterministic
-    const vocab = [...vocabMap.keys()].sort();
-    const remap = new Int32Array(vocabMap.size);
-    vocab.forEach((t, i) => (remap[vocabMap.get(t)!] = i));
-    const counts = new Int32Array(vocab.length + 1);
-    for (let i = 0; i < pairTok.length; i++) counts[remap[pairTok.data[i]!]! + 1]!++;
-    for (let i = 0; i < vocab.length; i++) counts[i + 1]! += counts[i]!;
-    const fill = counts.slice(0, vocab.length);
-    const raw = new Int32Array(pairTok.length);
-    for (let i = 0; i < pairTok.length; i++) raw[fill[remap[pairTok.data[i]!]!]!++] = pairEnt.data[i]!;
-    // sort + dedupe each posting list
-    const offsets = new Int32Array(vocab.length + 1);
-    let w = 0;
-    for (let t = 0; t < vocab.length; t++) {
-      const list = raw.subarray(counts[t]!, counts[t + 1]!).sort();
-      offsets[t] = w;
-      let last = -1;
-      for (const e of list) if (e !== last) raw[w++] = last = e;
-    }
-    offsets[vocab.length] = w;
-    const postings = raw.slice(0, w);
-    const keys = HashSet32.withCapacity(keyHashes.length);
-    for (let i = 0; i < keyHashes.length; i++) keys.add(keyHashes.data[i]! >>> 0);
-
-    // context-term document frequencies
-    const df = new Map<string, number>();
+    const builder = LexicalSnapshot.builder();
+    for (const [entity, norm, stem] of cat.aliases()) builder.alias(entity, norm, stem);
     let entityCount = 0;
-    let totalLength = 0;
     for (const [num, label, description] of cat.entityTexts()) {
       entityCount++;
-      const deg = degree[num] ?? 0;
-      if (description) {
-        // own document (weight 1) and, at half weight, the documents of its deg neighbours
-        const seen = new Set<string>();
-        for (const t of tokens(description)) {
-          if (isStopWord(t)) continue;
-          totalLength += 1 + NEIGHBOUR_DESCRIPTION_WEIGHT * deg;
-          const s = stemToken(t);
-          if (!seen.has(s)) {
-            seen.add(s);
-            df.set(s, (df.get(s) ?? 0) + 1 + deg);
-          }
-        }
-      }
-      if (label && deg > 0) {
-        const seen = new Set<string>();
-        for (const t of tokens(label)) {
-          if (isStopWord(t)) continue;
-          totalLength += deg;
-          const s = stemToken(t);
-          if (!seen.has(s)) {
-            seen.add(s);
-            df.set(s, (df.get(s) ?? 0) + deg);
-          }
-        }
-      }
+      if (label) builder.label(num, label);
+      if (description) builder.description(num, description);
     }
-    const terms = [...df.keys()].sort();
-    const dfArr = new Int32Array(terms.length);
-    terms.forEach((t, i) => (dfArr[i] = Math.min(entityCount, df.get(t)!)));
-    return new LexicalSnapshot({
-      uid, generation, entityCount, degree, vocab, offsets, postings, keys: keys.table, maxAliasTokens,
-      terms, df: dfArr, avgDocLength: entityCount > 0 ? totalLength / entityCount : 0,
-    });
+    return LexicalSnapshot.fromParts(uid, generation, builder.finish(degree, entityCount));
+  }
+
+  /** A builder for this snapshot's contents from a stream of rows (lexical-builder.ts). */
+  static builder(): LexicalBuilder {
+    return new LexicalBuilder(fnv1a);
+  }
+
+  /** The snapshot file beside a catalog file. */
+  static pathFor(catalogPath: string): string {
+    return `${catalogPath}.link`;
+  }
+
+  /** The snapshot of catalog `uid` at `generation` from a builder's parts (lexical-builder.ts). */
+  static fromParts(uid: string, generation: number, p: LexicalParts): LexicalSnapshot {
+    return new LexicalSnapshot({ uid, generation, ...p });
   }
 
   /** Serialises to `path` (written to a temporary file, then renamed into place). */
   save(path: string): void {
+    renameSync(this.saveTemp(path), path);
+  }
+
+  /** Serialises to a temporary file beside `path` and returns its name (the caller renames or deletes it). */
+  saveTemp(path: string): string {
     const vocabBuf = Buffer.from(this.vocab.join("\n"), "utf8");
     const termBuf = Buffer.from(this.terms.join("\n"), "utf8");
     const parts: [string, Buffer][] = [
@@ -277,7 +193,6 @@ export class LexicalSnapshot {
     const tmp = `${path}.${process.pid}.tmp`;
     try {
       writeFileSync(tmp, out);
-      renameSync(tmp, path);
     } catch (e) {
       try {
         unlinkSync(tmp);
@@ -286,6 +201,7 @@ export class LexicalSnapshot {
       }
       throw e;
     }
+    return tmp;
   }
 
   /** Loads a snapshot saved for exactly this uid and generation; undefined when missing or stale. */
@@ -335,7 +251,7 @@ export class LexicalSnapshot {
   static forCatalog(cat: Catalog): LexicalSnapshot {
     const { uid, generation } = cat.version();
     if (cat.path === ":memory:" || cat.path === "") return LexicalSnapshot.build(cat);
-    const path = `${cat.path}.link`;
+    const path = LexicalSnapshot.pathFor(cat.path);
     const found = LexicalSnapshot.load(path, uid, generation);
     if (found) return found;
     const built = LexicalSnapshot.build(cat);

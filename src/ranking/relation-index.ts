@@ -21,9 +21,9 @@
  *     bit 0       inverse flag: 0 = the stored triple is `u rel target` (walked forwards),
  *                 1 = the stored triple is `target rel u` (walked against its direction);
  *     bits 1..31  the relation id (so relation ids must be < 2^31).
- *   Within a node, entries keep the order in which edges were given (the catalog yields them
- *   ordered by (src, rel, dst), so the layout is deterministic). A self-loop `u rel u` gives
- *   two entries at u, one per direction.
+ *   Within a node, entries keep the order in which edges were given; a catalog's edges are
+ *   given in (dst, rel, src) order (`Catalog.edges`, and index-builder.ts for a load), so the
+ *   layout is deterministic. A self-loop `u rel u` gives two entries at u, one per direction.
  * - `typeOffsets: Uint32Array(n + 1)`, `typeList: Int32Array` — direct types of node u are
  *   `typeList[typeOffsets[u] .. typeOffsets[u + 1] - 1]`, ascending.
  * - `superOffsets: Uint32Array(n + 1)`, `superList: Int32Array` — direct supertypes of type t,
@@ -73,8 +73,8 @@ export function csrOf(index: RelationIndex): Csr {
   return c;
 }
 
-/** Growable Int32 buffer (amortised doubling), so a scan needs no per-edge objects. */
-class IntBuffer {
+/** Growable Int32 buffer (amortised doubling), so a scan needs no per-edge objects. @internal */
+export class IntBuffer {
   data: Int32Array;
   length = 0;
   constructor(capacity = 1024) {
@@ -153,6 +153,7 @@ export class RelationIndex {
     const rel = new IntBuffer(1 << 16);
     const dst = new IntBuffer(1 << 16);
     let n = 0;
+    // (dst, rel, src) order: the canonical order of the fill (index-builder.ts sorts a load's edges the same way)
     for (const [s, r, d] of cat.edges()) {
       src.push(s);
       rel.push(r);
@@ -161,7 +162,6 @@ export class RelationIndex {
       if (onProgress && (n & 0xfffff) === 0) onProgress({ phase: "scan", done: n });
     }
     onProgress?.({ phase: "fill", done: n, total: n });
-    const csr = buildCsr(nodeCount, relationCount, src.data, rel.data, dst.data, n);
     onProgress?.({ phase: "types" });
     const te = new IntBuffer(1 << 12);
     const tt = new IntBuffer(1 << 12);
@@ -169,7 +169,6 @@ export class RelationIndex {
       te.push(e);
       tt.push(t);
     }
-    const types = csrFromPairs(nodeCount, te.data, tt.data, te.length);
     const subs = cat.subclassPairs();
     const sk = new Int32Array(subs.length);
     const sv = new Int32Array(subs.length);
@@ -177,8 +176,25 @@ export class RelationIndex {
       sk[i] = a;
       sv[i] = b;
     });
-    const sup = csrFromPairs(nodeCount, sk, sv, subs.length);
-    return new RelationIndex({ ...csr, typeOffsets: types.offsets, typeList: types.list, superOffsets: sup.offsets, superList: sup.list });
+    return RelationIndex.fromColumns(nodeCount, relationCount, { src: src.data, rel: rel.data, dst: dst.data, n }, { keys: te.data, values: tt.data, n: te.length }, { keys: sk, values: sv, n: subs.length });
+  }
+
+  /**
+   * Builds the index from columns already in canonical order: edges by (dst, rel, src), type
+   * pairs by (entity, type), subtype pairs by (sub, sup), without duplicates (as the catalog
+   * yields them, and as index-builder.ts sorts a load's rows). @internal
+   */
+  static fromColumns(
+    nodeCount: number,
+    relationCount: number,
+    edges: { readonly src: Int32Array; readonly rel: Int32Array; readonly dst: Int32Array; readonly n: number },
+    types: { readonly keys: Int32Array; readonly values: Int32Array; readonly n: number },
+    subclasses: { readonly keys: Int32Array; readonly values: Int32Array; readonly n: number },
+  ): RelationIndex {
+    const csr = buildCsr(nodeCount, relationCount, edges.src, edges.rel, edges.dst, edges.n);
+    const t = csrFromPairs(nodeCount, types.keys, types.values, types.n);
+    const sup = csrFromPairs(nodeCount, subclasses.keys, subclasses.values, subclasses.n);
+    return new RelationIndex({ ...csr, typeOffsets: t.offsets, typeList: t.list, superOffsets: sup.offsets, superList: sup.list });
   }
 
   /**

@@ -95,6 +95,14 @@ function sections(c: Csr, w: WalkTables, e: RelationEndTable): ArrayBufferView[]
 
 /** Writes the snapshot of `index` for the catalog stamp `(uid, generation)` atomically to `file`. */
 export function writeSnapshot(file: string, index: RelationIndex, stamp: { uid: string; generation: number }): void {
+  renameSync(writeSnapshotTemp(file, index, stamp), file);
+}
+
+/**
+ * Writes the snapshot of `index` to a temporary file beside `file` (fsynced) and returns its
+ * path: the caller renames it over `file` when it should take effect, or deletes it.
+ */
+export function writeSnapshotTemp(file: string, index: RelationIndex, stamp: { uid: string; generation: number }): string {
   if (endianness() !== "LE") throw new RangeError("ranking/snapshot: snapshots are little-endian; this machine is big-endian");
   const c = csrOf(index);
   const ends = index.endTable();
@@ -148,7 +156,7 @@ export function writeSnapshot(file: string, index: RelationIndex, stamp: { uid: 
     }
     throw e;
   }
-  renameSync(tmp, file);
+  return tmp;
 }
 
 /**

@@ -40,7 +40,13 @@ export function finishLoad(writer: CatalogWriter, options: { rdf: boolean }): vo
     const around = [...(typesOf.all(e) as number[]), ...(ends.all({ e }) as number[])];
     delEdges.run({ e });
     for (const d of dels) d.run(e);
+    writer.removedEntity(e);
     // what only this property mentioned (rdf:Property, an unlabelled domain class) goes too
-    for (const t of new Set(around)) if (t !== e && orphan.get({ e: t })) dels[3]!.run(t);
+    for (const t of new Set(around)) {
+      if (t !== e && orphan.get({ e: t })) {
+        dels[3]!.run(t);
+        writer.removedEntity(t);
+      }
+    }
   }
 }

@@ -9,7 +9,7 @@ import type { Command } from "commander";
 import { Catalog, loadFiles } from "../../catalog/index.js";
 import type { LoadProgress, LoadReport, LoadWarning } from "../../catalog/index.js";
 import { TiepointError } from "../../model/index.js";
-import { Session } from "../../pipeline/index.js";
+import { LoadPreparation, Session } from "../../pipeline/index.js";
 import { reportError } from "../run.js";
 
 /** Progress display settings. */
@@ -119,10 +119,19 @@ export function registerLoad(program: Command): void {
         : undefined;
       const existed = existsSync(opts.db);
       let ok = false;
+      // the question indexes are built from the rows as they are written (pipeline/prepare.ts)
+      const sink =
+        opts.prepare !== false
+          ? new LoadPreparation((message) => {
+              if (!tty || opts.quiet) return;
+              process.stderr.write(`\r${`preparing the question indexes: ${message}…`.slice(0, (process.stderr.columns ?? 100) - 1)}\x1b[K`);
+              drawn = true;
+            })
+          : undefined;
       try {
         checkFolder(opts.db);
         cat = Catalog.open(opts.db, { create: true });
-        const report = loadFiles(cat, files, { replace: opts.replace === true, strict: opts.strict === true, onProgress });
+        const report = loadFiles(cat, files, { replace: opts.replace === true, strict: opts.strict === true, onProgress, ...(sink ? { sink } : {}) });
         if (drawn) process.stderr.write("\r\x1b[K");
         ok = true;
         // warnings print even with --quiet: they are about the data just loaded
@@ -130,7 +139,8 @@ export function registerLoad(program: Command): void {
         if (!opts.quiet) process.stderr.write(summary(report, opts.db) + "\n");
         cat.close();
         cat = undefined;
-        if (opts.prepare !== false) prepare(opts.db, opts.quiet === true);
+        if (report.prepared && !opts.quiet) process.stderr.write(`prepared the question indexes during the load (${(sink!.finishMs / 1000).toFixed(2)} s after the last row)\n`);
+        if (!report.prepared && opts.prepare !== false) prepare(opts.db, opts.quiet === true);
       } catch (e) {
         if (drawn) process.stderr.write("\r\x1b[K");
         if (e instanceof TiepointError && e.file !== undefined && e.line !== undefined) {
