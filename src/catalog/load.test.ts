@@ -176,3 +176,25 @@ describe("readBlocks", () => {
     expect(got.bad).toEqual([[2, "too-long"]]);
   });
 });
+
+describe("planner statistics after a load", () => {
+  // ANALYZE fills sqlite_stat1 (https://www.sqlite.org/lang_analyze.html): one row per index
+  // with the row count first; a failed load rolls its statistics back with its rows
+  it("a committed load leaves statistics counting its rows; a failed one changes nothing", () => {
+    const d = tmp();
+    const a = join(d, "a.jsonl");
+    writeFileSync(a, Array.from({ length: 50 }, (_, i) => JSON.stringify({ id: `e${i}`, label: `Item ${i}`, attributes: { weight: i } })).join("\n") + "\n");
+    const cat = Catalog.open(join(d, "c.db"), { create: true });
+    loadFiles(cat, [a]);
+    const stat = () => cat.db.prepare("SELECT idx, stat FROM sqlite_stat1 WHERE tbl = 'attribute' ORDER BY idx").raw(true).all() as [string, string][];
+    const first = stat();
+    expect(first.map(([i]) => i)).toEqual(["attribute", "attribute_by_predicate"]);
+    for (const [, s] of first) expect(s.split(" ")[0]).toBe("50");
+    const bad = join(d, "bad.jsonl");
+    writeFileSync(bad, Array.from({ length: 50 }, (_, i) => JSON.stringify({ id: `f${i}`, label: `Other ${i}`, attributes: { weight: i } })).join("\n") + "\n{not json\n");
+    expect(() => loadFiles(cat, [bad])).toThrow(TiepointError);
+    expect(stat()).toEqual(first);
+    expect(cat.db.pragma("analysis_limit", { simple: true })).toBe(0); // the handle's setting restored (SQLite default 0)
+    cat.close();
+  });
+});

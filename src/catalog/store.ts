@@ -12,6 +12,9 @@ import { SCHEMA_SQL, SCHEMA_VERSION } from "./schema.js";
 
 type DB = Database.Database;
 
+/** The `meta` key of the stored attribute summary. */
+const ATTRIBUTE_SUMMARY_KEY = "attribute_summary";
+
 /** Options of {@link Catalog.open}; all optional. */
 export interface OpenOptions {
   /** Create the file when it does not exist. @default false */
@@ -483,14 +486,32 @@ export class Catalog {
     return new Map(rows.map((r) => [r.key.slice(5), r.value]));
   }
 
-  /** Per predicate used with literals: how many values, how many read as numbers, and how many of those look like years or dates. */
+  /**
+   * Per predicate used with literals: how many values, how many read as numbers, and how many
+   * of those look like years or dates. Read from the copy every load stores in `meta`
+   * ({@link Catalog.storeAttributeSummary}); a catalog written before that is summarised now
+   * (a scan of every literal).
+   */
   attributeSummary(): AttributeSummary[] {
+    const stored = this.meta(ATTRIBUTE_SUMMARY_KEY);
+    if (stored !== undefined) return (JSON.parse(stored) as [number, number, number, number][]).map(([num, values, numeric, dateLike]) => ({ num, values, numeric, dateLike }));
+    return this.summariseAttributes();
+  }
+
+  /** The attribute summary computed from the attribute table (one scan of every literal). */
+  private summariseAttributes(): AttributeSummary[] {
     return this.stmt(
       "SELECT predicate AS num, count(*) AS values_, count(num) AS numeric, sum(CASE WHEN num IS NOT NULL AND (datatype LIKE '%date%' OR datatype LIKE '%year%' OR value GLOB '[0-9][0-9][0-9][0-9]' OR value GLOB '[0-9][0-9][0-9][0-9]-[0-9][0-9]*') THEN 1 ELSE 0 END) AS dateLike FROM attribute GROUP BY predicate ORDER BY predicate",
     ).all().map((r) => {
       const x = r as { num: number; values_: number; numeric: number; dateLike: number };
       return { num: x.num, values: x.values_, numeric: x.numeric, dateLike: x.dateLike };
     });
+  }
+
+  /** Stores the attribute summary in `meta` (at the end of a load, inside its transaction), so questions need no scan. */
+  storeAttributeSummary(): void {
+    const rows = this.summariseAttributes().map((x) => [x.num, x.values, x.numeric, x.dateLike]);
+    this.stmt("INSERT OR REPLACE INTO meta(key, value) VALUES (?, ?)").run(ATTRIBUTE_SUMMARY_KEY, JSON.stringify(rows));
   }
 
   /**
