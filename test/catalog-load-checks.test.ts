@@ -182,3 +182,76 @@ describe("load: attribute units in every format", () => {
     expect(tp("show", "metre", "--db", "units-ttl.db").status).toBe(1);
   });
 });
+
+describe("load: re-loading a corrected file (the re-load rule, --update)", () => {
+  const FIRST = [
+    '{"kind":"attribute","id":"depth","label":"depth","unit":"metres"}',
+    '{"kind":"attribute","id":"tag","label":"tag"}',
+    '{"kind":"relation","id":"near","label":"near"}',
+    '{"id":"s:1","label":"Harl Trench","aliases":["the Harl"],"description":"A trench.","attributes":{"depth":4200,"tag":["a","b"]},"relations":{"near":["s:2"]}}',
+    '{"id":"s:2","label":"Osk Shoal","attributes":{"depth":30}}',
+    '{"id":"s:3","label":"Vey Reef","attributes":{"depth":12}}',
+    "",
+  ].join("\n");
+  const CORRECTED = [
+    '{"id":"s:1","label":"Harle Trench","description":"A deep trench.","attributes":{"depth":4300,"tag":"c"},"relations":{"near":["s:3"]}}',
+    '{"id":"s:2","label":"Osk Shoal","attributes":{"depth":30}}',
+    "",
+  ].join("\n");
+
+  it("without --update: the old label stays and values pile up, each reported once with FILE:LINE", () => {
+    write("first.jsonl", FIRST);
+    write("corrected.jsonl", CORRECTED);
+    expect(tp("load", "first.jsonl", "--db", "keep.db", "--no-prepare").status).toBe(0);
+    const again = tp("load", "first.jsonl", "--db", "keep.db", "--no-prepare");
+    expect(again.stderr).not.toMatch(/warning/); // the same file again changes nothing and says nothing
+    // --strict refuses the corrected file (the warnings below are errors)
+    expect(tp("load", "corrected.jsonl", "--db", "keep.db", "--strict", "--no-prepare").status).toBe(1);
+    const r = tp("load", "corrected.jsonl", "--db", "keep.db", "--no-prepare");
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stderr.split("\n").filter((l) => l.includes(": warning: "))).toEqual([
+      'corrected.jsonl:1: warning: entity "s:1" already has the label "Harl Trench"; "Harle Trench" was added as an alias (load with --update to replace the label)',
+      // depth holds one value per entity: a second one is reported; tag already holds two on s:1, so a third is not
+      'corrected.jsonl:1: warning: entity "s:1" already has depth "4200"; "4300" was added as a second value (load with --update to replace it)',
+    ]);
+    expect(r.stderr).toMatch(/2 warnings \(1 label kept, 1 second value\)/);
+    const show = tp("show", "s:1", "--db", "keep.db").stdout;
+    expect(show).toMatch(/^Harl Trench {2}\[s:1\]/);
+    expect(show).toContain("depth [depth]: 4200\n    depth [depth]: 4300");
+  });
+
+  it("with --update: label, description, attribute values and the relation's edges are replaced, with a summary", () => {
+    expect(tp("load", "first.jsonl", "--db", "upd.db", "--no-prepare").status).toBe(0);
+    const r = tp("load", "corrected.jsonl", "--db", "upd.db", "--update", "--no-prepare");
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stderr).not.toMatch(/warning/);
+    // hand-counted from the two files: s:1 changes label, description, depth 4200→4300,
+    // tag a,b→c (2 values), near s:2→s:3 (1 edge); s:2 is restated unchanged
+    expect(r.stderr).toContain("updated 1 entity: 1 label changed, 1 description replaced, 3 attribute values replaced, 1 edge removed\n");
+    const show = tp("show", "s:1", "--db", "upd.db").stdout;
+    expect(show).toMatch(/^Harle Trench {2}\[s:1\]/);
+    expect(show).toContain("aliases:     the Harl\n"); // aliases not restated stay; the old label does not
+    expect(show).toContain("description: A deep trench.\n");
+    expect(show).toContain("depth [depth]: 4300\n    tag [tag]: c\n");
+    expect(show).not.toContain("4200");
+    expect(show).toContain("—near→ Vey Reef [s:3]");
+    expect(show).not.toContain("Osk Shoal");
+    // the edge into s:1's old target is gone from both ends
+    expect(tp("show", "s:2", "--db", "upd.db").stdout).toContain("(no relations)");
+    const same = tp("load", "corrected.jsonl", "--db", "upd.db", "--update", "--no-prepare");
+    expect(same.stderr).toContain("updated 0 entities (the files matched the catalog)");
+  });
+
+  it("--update in RDF: the first preferred label replaces the old one; a restated file changes nothing", () => {
+    const ttl = (label: string, len: number) => ["@prefix x: <urn:x:> .", "@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .", `x:wren rdfs:label "${label}" ; x:len ${len} .`, ""].join("\n");
+    write("w1.ttl", ttl("Wren", 12));
+    write("w2.ttl", ttl("Wren II", 14));
+    expect(tp("load", "w1.ttl", "--db", "w.db", "--no-prepare").status).toBe(0);
+    const r = tp("load", "w2.ttl", "--db", "w.db", "--update", "--no-prepare");
+    expect(r.stderr).toContain("updated 1 entity: 1 label changed, 1 attribute value replaced\n");
+    const show = tp("show", "urn:x:wren", "--db", "w.db").stdout;
+    expect(show).toMatch(/^Wren II {2}\[urn:x:wren\]/);
+    expect(show).not.toContain("aliases");
+    expect(show).toContain("len [urn:x:len]: 14\n");
+  });
+});

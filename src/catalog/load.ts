@@ -20,13 +20,14 @@ import { CatalogWriter } from "./writer.js";
 import { LoadContext, TooManyErrors, DEFAULTS as CONTEXT_DEFAULTS } from "./import/context.js";
 import type { LoadProgress, LoadWarning, WarningKind } from "./import/context.js";
 import { checkNames, locateWarnings } from "./import/names.js";
+import type { UpdateSummary } from "./reload.js";
 import { importJsonl } from "./import/jsonl.js";
 import { importCsv } from "./import/csv.js";
 import { importRdf } from "./import/rdf.js";
 import { finishLoad } from "./import/finish.js";
 import type { LoadSink, PreparedFiles } from "./load-sink.js";
 
-export type { LoadProgress, LoadWarning, WarningKind };
+export type { LoadProgress, LoadWarning, WarningKind, UpdateSummary };
 
 /** Defaults of {@link loadFiles}. */
 export const DEFAULTS = {
@@ -67,6 +68,12 @@ export interface LoadOptions {
    * builds derived files before the commit (load-sink.ts); told to `abort` otherwise.
    */
   readonly sink?: LoadSink;
+  /**
+   * Replace what the files state about entities already in the catalog (label, aliases,
+   * description, types, each attribute's values, each relation's outgoing edges) instead of
+   * adding to it; see reload.ts. @default false
+   */
+  readonly update?: boolean;
 }
 
 /** What one file contributed. */
@@ -89,6 +96,8 @@ export interface LoadReport {
   readonly generation: number;
   /** Warnings, in file and line order (each `FILE:LINE`). */
   readonly warnings: readonly LoadWarning[];
+  /** What `update` replaced (only with that option). */
+  readonly updated?: UpdateSummary;
   readonly seconds: number;
   /** True when the sink's files were built and published with the commit. */
   readonly prepared: boolean;
@@ -158,7 +167,7 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
   const before = counts(cat);
   const writer = new CatalogWriter(cat);
   try {
-    writer.begin();
+    writer.begin({ update: options.update === true });
   } catch (e) {
     if ((e as { code?: string }).code === "SQLITE_BUSY") throw new TiepointError("catalog/busy", "another load is writing this catalog; run this one when it has finished", { file: cat.path });
     throw e;
@@ -168,6 +177,7 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
   let ctx: LoadContext | undefined;
   let sink: LoadSink | undefined;
   let prepared: PreparedFiles | undefined;
+  let updated: UpdateSummary | undefined;
   try {
     if (options.replace) writer.clear();
     if (writer.startedEmpty) {
@@ -205,6 +215,7 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
       ctx.checkPending();
       if (ctx.errors.length === 0) {
         writer.restoreIndexes();
+        updated = writer.applyReload();
         writer.writeUnits();
         finishLoad(writer, { rdf });
         checkNames(ctx);
@@ -263,6 +274,7 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
     },
     generation: cat.version().generation,
     warnings: inFileOrder(ctx.warnings, order).map((x) => ({ kind: x.kind, file: x.file, line: x.line, message: x.message })),
+    ...(updated ? { updated } : {}),
     seconds: (Date.now() - t0) / 1000,
     prepared: published,
   };

@@ -13,6 +13,8 @@ import type { Catalog } from "./store.js";
 import { PendingEntities, RowBatch, SortedEdges } from "./rows.js";
 import { IdTable } from "./intern.js";
 import type { LoadSink } from "./load-sink.js";
+import { ReloadTracker } from "./reload.js";
+import type { UpdateSummary } from "./reload.js";
 
 /** Parses a literal as a number for attribute comparisons: plain numbers, years and ISO dates. */
 export function literalNumber(value: string, datatype: string | null): number | null {
@@ -134,11 +136,28 @@ export class CatalogWriter {
     return this.edges.changes;
   }
 
-  /** Starts the transaction (`BEGIN IMMEDIATE`, so a concurrent writer waits). */
-  begin(): void {
+  /**
+   * Starts the transaction (`BEGIN IMMEDIATE`, so a concurrent writer waits). With `update`,
+   * the load replaces what it states about entities that existed before (reload.ts).
+   */
+  begin(options: { update?: boolean } = {}): void {
     this.db.exec("BEGIN IMMEDIATE");
     this.open = true;
+    this.updating = options.update === true;
     this.resetState();
+  }
+
+  private updating = false;
+  /** The re-load rule's bookkeeping, when the catalog held entities before the load. */
+  private reload: ReloadTracker | undefined;
+
+  /**
+   * Applies the re-load rule at the end of the load (removes what `update` replaced) and
+   * returns what changed; undefined without `update`.
+   */
+  applyReload(): UpdateSummary | undefined {
+    this.flush();
+    return this.reload?.apply() ?? (this.updating ? { entities: 0, labels: 0, descriptions: 0, values: 0, aliases: 0, types: 0, edges: 0 } : undefined);
   }
 
   private resetState(): void {
@@ -153,6 +172,7 @@ export class CatalogWriter {
     this.relUses = new Int32Array(64);
     this.typeUseCount.clear();
     this.units.clear();
+    this.reload = this.maxNumBefore > 0 ? new ReloadTracker(this.db, this.maxNumBefore, this.updating, (kind, message, id) => this.onNotice?.(kind, message, id)) : undefined;
   }
 
   /** True when entity `num` was made in this transaction. */
@@ -320,6 +340,7 @@ export class CatalogWriter {
   label(id: string, text: string, preferred = false): void {
     const n = this.entity(id);
     const f = this.flag(n);
+    if (this.reload !== undefined && n <= this.maxNumBefore && this.reload.label(n, id, (f & HAS_LABEL) !== 0 ? this.labelOf(n) : null, text)) preferred = true;
     if ((f & HAS_LABEL) === 0) {
       this.setLabelOf(n, text);
       this.addAlias(n, text, 0);
@@ -355,13 +376,20 @@ export class CatalogWriter {
 
   /** Adds an alias. */
   alias(id: string, text: string): void {
-    this.addAlias(this.entity(id), text, 1);
+    const n = this.entity(id);
+    if (this.reload !== undefined && n <= this.maxNumBefore) this.reload.alias(n, text);
+    this.addAlias(n, text, 1);
   }
 
   /** Sets the description (the first one wins; later ones are appended after a blank line). */
   description(id: string, text: string): void {
     const n = this.entity(id);
     const f = this.flag(n);
+    if (this.reload !== undefined && n <= this.maxNumBefore && this.reload.description(n)) {
+      this.setDescriptionOf(n, text);
+      this.flags[n] = f | HAS_DESC;
+      return;
+    }
     if ((f & HAS_DESC) === 0) {
       this.setDescriptionOf(n, text);
       this.flags[n] = f | HAS_DESC;
@@ -378,6 +406,7 @@ export class CatalogWriter {
     const t = this.entity(type);
     this.useType(t, type);
     this.sink?.type(e, t);
+    if (this.reload !== undefined && e <= this.maxNumBefore) this.reload.type(e, t);
     this.types.add(e, t);
   }
 
@@ -403,6 +432,7 @@ export class CatalogWriter {
     if (this.relUses[r]++ === 0) this.onFirstUse?.("relation", rel);
     const d = this.entity(dst);
     this.sink?.edge(s, r, d);
+    if (this.reload !== undefined && s <= this.maxNumBefore) this.reload.edge(s, r, d);
     this.edges.add(s, r, d);
   }
 
@@ -428,7 +458,10 @@ export class CatalogWriter {
 
   /** A literal attribute. */
   attribute(id: string, predicate: string, value: string, datatype: string | null = null, lang: string | null = null): void {
-    this.attributes.add(this.entity(id), this.predicate(predicate), value, datatype, lang, literalNumber(value, datatype));
+    const n = this.entity(id);
+    const p = this.predicate(predicate);
+    if (this.reload !== undefined && n <= this.maxNumBefore) this.reload.attribute(n, id, p, predicate, value);
+    this.attributes.add(n, p, value, datatype, lang, literalNumber(value, datatype));
   }
 
   /** A relation's (predicate's) label; the first one wins, later ones become aliases. */

@@ -46,7 +46,22 @@ export function summary(r: LoadReport, db: string): string {
     `loaded ${count(r.files.length, "file")} into ${db}: ${count(r.statements, "statement")} in ${r.seconds.toFixed(2)} s (${rate.toLocaleString("en-US")}/s); ` +
     `${signed(a.entities, "entity", "entities")}, ${signed(a.edges, "edge")}, ${signed(a.attributes, "attribute")}`;
   if (r.warnings.length > 0) line += `; ${warningCounts(r.warnings)}`;
+  if (r.updated) line += `\n${updateLine(r.updated)}`;
   return line;
+}
+
+/** "updated 2 entities: 1 label changed, 1 attribute value replaced, …" (only the non-zero parts). */
+export function updateLine(u: NonNullable<LoadReport["updated"]>): string {
+  const parts = [
+    [u.labels, "label changed", "labels changed"],
+    [u.aliases, "alias removed", "aliases removed"],
+    [u.descriptions, "description replaced", "descriptions replaced"],
+    [u.types, "type removed", "types removed"],
+    [u.values, "attribute value replaced", "attribute values replaced"],
+    [u.edges, "edge removed", "edges removed"],
+  ] as const;
+  const changed = parts.filter(([n]) => n > 0).map(([n, one, many]) => count(n, one, many));
+  return `updated ${count(u.entities, "entity", "entities")}${changed.length ? `: ${changed.join(", ")}` : " (the files matched the catalog)"}`;
 }
 
 /** "3 warnings (2 undeclared types, 1 ignored column)". */
@@ -102,10 +117,11 @@ export function registerLoad(program: Command): void {
     .argument("<files...>", "files to import")
     .requiredOption("--db <path>", "the catalog file (created when missing)")
     .option("--replace", "empty the catalog first (in the same transaction)")
+    .option("--update", "replace what the files state about entities already in the catalog (label, aliases, description, types, each attribute's values, each relation's edges from the entity) instead of adding to it")
     .option("--strict", "treat warnings (undeclared or unlabelled types and relations, ignored columns, kept labels, second values, empty files) as errors: nothing is written")
     .option("--quiet", "print nothing on success")
     .option("--no-prepare", "skip building the question indexes (relation index, name index) after the load; the first question builds them instead")
-    .action((files: string[], opts: { db: string; replace?: boolean; strict?: boolean; quiet?: boolean; prepare?: boolean }) => {
+    .action((files: string[], opts: { db: string; replace?: boolean; update?: boolean; strict?: boolean; quiet?: boolean; prepare?: boolean }) => {
       let cat: Catalog | undefined;
       const tty = process.stderr.isTTY === true;
       let drawn = false;
@@ -131,7 +147,7 @@ export function registerLoad(program: Command): void {
       try {
         checkFolder(opts.db);
         cat = Catalog.open(opts.db, { create: true });
-        const report = loadFiles(cat, files, { replace: opts.replace === true, strict: opts.strict === true, onProgress, ...(sink ? { sink } : {}) });
+        const report = loadFiles(cat, files, { replace: opts.replace === true, strict: opts.strict === true, update: opts.update === true, onProgress, ...(sink ? { sink } : {}) });
         if (drawn) process.stderr.write("\r\x1b[K");
         ok = true;
         // warnings print even with --quiet: they are about the data just loaded
