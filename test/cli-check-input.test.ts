@@ -7,6 +7,7 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { orchardSeed } from "./helpers/catalog-files.js";
 import { ensureBuilt, tp } from "./reliability-cli.js";
 
 ensureBuilt();
@@ -16,19 +17,7 @@ const db = join(dir, "orchards.db");
 const write = (name: string, text: string) => writeFileSync(join(dir, name), text);
 
 beforeAll(() => {
-  write(
-    "orchards.jsonl",
-    [
-      '{"kind":"type","id":"t:Orchard","label":"orchard"}',
-      '{"kind":"type","id":"t:Grower","label":"grower"}',
-      '{"kind":"relation","id":"r:tends","label":"tends"}',
-      '{"id":"o:fenwold","label":"Fenwold Orchard","types":["t:Orchard"]}',
-      '{"id":"o:brisk","label":"Briskmere Orchard","types":["t:Orchard"]}',
-      '{"id":"g:alia","label":"Alia Tormund","types":["t:Grower"],"relations":{"r:tends":["o:fenwold"]}}',
-      '{"id":"g:bren","label":"Bren Osk","types":["t:Grower"],"relations":{"r:tends":["o:brisk"]}}',
-      "",
-    ].join("\n"),
-  );
+  write("orchards.jsonl", orchardSeed());
   expect(tp(dir, "load", "orchards.jsonl", "--db", db).status).toBe(0);
 });
 
@@ -49,12 +38,12 @@ describe("check: expected values not in the catalog", () => {
 
 describe("check: bad lines", () => {
   it("reports every bad line, not only the first, and runs nothing", () => {
-    write("bad.tsv", "a?\tb\tc\n\tg:alia\nWho tends Fenwold Orchard?\n" + "x".repeat(2001) + "\n");
+    write("bad.tsv", "a?\tb\tunique\td\n\tg:alia\nWho tends Fenwold Orchard?\n" + "x".repeat(2001) + "\n");
     const r = tp(dir, "check", "bad.tsv", "--db", db);
     expect(r.status).toBe(1);
     expect(r.stdout).toBe("");
     const lines = r.stderr.trim().split("\n");
-    expect(lines[0]).toMatch(/^tiepoint: bad\.tsv:1: more than two tab-separated fields/);
+    expect(lines[0]).toMatch(/^tiepoint: bad\.tsv:1: more than three tab-separated fields/);
     expect(lines[1]).toMatch(/^tiepoint: bad\.tsv:2: empty question before the tab/);
     expect(lines[2]).toMatch(/^tiepoint: bad\.tsv:4: the question is 2001 characters long/);
     expect(lines[3]).toBe("tiepoint: bad.tsv: 3 bad lines; no question was run");
@@ -89,7 +78,7 @@ describe("check: a CSV question file", () => {
     expect(doc.results[2].expectedVerdict).toBeUndefined();
     expect(doc.summary.withExpected).toBe(2);
     // a verdict other than the file's is a reason to look
-    expect(tp(dir, "check", "q.csv", "--db", db).stdout).toMatch(/line 5: verdict: unique, the file expects tied/);
+    expect(tp(dir, "check", "q.csv", "--db", db).stdout).toMatch(/line 5: verdict: verdict unique, but 2 answers were expected/);
   });
   it("refuses a header that does not name the columns, a bad verdict and an unclosed quote, each with its line", () => {
     write("noheader.csv", "Who tends Fenwold Orchard?,g:alia\n");

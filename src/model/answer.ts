@@ -237,8 +237,20 @@ export interface CheckItem {
   readonly answer: AskResult;
   /** Expected values that are neither an entity id nor an exact label of the catalog (absent when none); they can never match. */
   readonly unknownExpected?: readonly string[];
-  /** The verdict the question file expects (a CSV `verdict` column), when given. */
+  /** The verdict the question file expects (a TSV third column or a CSV `verdict` column), when given. */
   readonly expectedVerdict?: VerdictStatus;
+  /** Additive: whether the verdict is the expected one (present when `expectedVerdict` is). */
+  readonly verdictMatch?: boolean;
+}
+
+/** Additive: verdict accuracy of the questions that carry an expected verdict (`check` summary). */
+export interface VerdictCheck {
+  /** Questions with an expected verdict. */
+  readonly questions: number;
+  /** Share of them whose verdict is the expected one. */
+  readonly accuracy: number;
+  /** Counts by expected verdict (rows), then verdict given (columns); every status is present. */
+  readonly confusion: Readonly<Record<VerdictStatus, Readonly<Record<VerdictStatus, number>>>>;
 }
 
 /** The summary of `check --json`. */
@@ -250,6 +262,8 @@ export interface CheckSummary {
   readonly mrr: number;
   readonly verdicts: Readonly<Record<VerdictStatus, number>>;
   readonly seconds: number;
+  /** Additive: verdict accuracy and the confusion matrix, when some question carries an expected verdict. */
+  readonly verdictCheck?: VerdictCheck;
 }
 
 /** The one document of `check --json`. */

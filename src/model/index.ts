@@ -12,6 +12,7 @@ export type {
   SuggestionDoc,
   CheckItem,
   CheckSummary,
+  VerdictCheck,
   CheckReport,
   ConditionDoc,
   ConditionStepDoc,

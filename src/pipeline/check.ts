@@ -7,7 +7,7 @@
  * (0 when none is returned; Voorhees 1999, TREC-8 QA track). An expected value matches an
  * answer by id or by exact label, or (value questions) a value of `values` as written.
  */
-import type { AskResult, CheckItem, CheckReport, VerdictStatus } from "../model/index.js";
+import type { AskResult, CheckItem, CheckReport, VerdictCheck, VerdictStatus } from "../model/index.js";
 import type { QuestionItem } from "./questions.js";
 import type { AskOptions, Session } from "./session.js";
 
@@ -52,7 +52,7 @@ export function runCheck(session: Session, items: readonly QuestionItem[], optio
       hit: rank === 1,
       answer,
       ...(unknown.length > 0 ? { unknownExpected: unknown } : {}),
-      ...(item.verdict ? { expectedVerdict: item.verdict } : {}),
+      ...(item.verdict ? { expectedVerdict: item.verdict, verdictMatch: item.verdict === answer.verdict.status } : {}),
     };
     results.push(r);
     options.onProgress?.(results.length, items.length, r);
@@ -78,5 +78,25 @@ export function summarise(results: readonly CheckItem[], seconds: number): Check
     }
   }
   const share = (x: number) => (withExpected === 0 ? 0 : x / withExpected);
-  return { questions: results.length, withExpected, hits1: share(h1), hits5: share(h5), mrr: share(rr), verdicts, seconds };
+  const verdictCheck = verdictCheckOf(results);
+  return { questions: results.length, withExpected, hits1: share(h1), hits5: share(h5), mrr: share(rr), verdicts, seconds, ...(verdictCheck ? { verdictCheck } : {}) };
+}
+
+const STATUSES: readonly VerdictStatus[] = ["unique", "tied", "weak", "none"];
+
+/**
+ * Verdict accuracy and the confusion matrix (expected × given; Stehman 1997, "Selecting and
+ * interpreting measures of thematic classification accuracy") over the results that carry an
+ * expected verdict; undefined when none does.
+ */
+export function verdictCheckOf(results: readonly CheckItem[]): VerdictCheck | undefined {
+  const rows = results.filter((r) => r.expectedVerdict !== undefined);
+  if (rows.length === 0) return undefined;
+  const confusion = Object.fromEntries(STATUSES.map((e) => [e, Object.fromEntries(STATUSES.map((g) => [g, 0]))])) as Record<VerdictStatus, Record<VerdictStatus, number>>;
+  let right = 0;
+  for (const r of rows) {
+    confusion[r.expectedVerdict!][r.answer.verdict.status]++;
+    if (r.expectedVerdict === r.answer.verdict.status) right++;
+  }
+  return { questions: rows.length, accuracy: right / rows.length, confusion };
 }

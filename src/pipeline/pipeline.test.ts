@@ -38,7 +38,8 @@ describe("question files", () => {
     } catch (e) {
       expect((e as TiepointError).format()).toBe("q.tsv:2: empty question before the tab");
     }
-    expect(() => parseQuestionText("a?\tb\tc\n", "q.tsv")).toThrow(/more than two tab-separated fields/);
+    expect(() => parseQuestionText("a?\tb\tc\n", "q.tsv")).toThrow(/verdict "c": expected one of/);
+    expect(() => parseQuestionText("a?\tb\ttied\td\n", "q.tsv")).toThrow(/more than three tab-separated fields/);
   });
 
   it("reports a missing file, a directory and a binary file in one line", () => {

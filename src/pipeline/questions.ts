@@ -2,8 +2,10 @@
  * Question files (contract.md, `check`), in two layouts chosen by the file name:
  *
  * - **lines** (any name but `*.csv`): one question per line, or TSV `question<TAB>expected`
- *   with expected `id1|id2|…` (entity ids or exact labels). Blank lines and lines whose first
- *   non-blank character is `#` are skipped.
+ *   with expected `id1|id2|…` (entity ids or exact labels), optionally a third field, the
+ *   expected verdict (`question<TAB>expected<TAB>verdict`; an empty expected field with verdict
+ *   `none` means "no answer expected"). Blank lines and lines whose first non-blank character
+ *   is `#` are skipped.
  * - **CSV** (`*.csv`, RFC 4180 via csv-parse): a header row naming the columns `question`
  *   (required), `expected` (optional, `id1|id2|…` as above) and `verdict` (optional: unique,
  *   tied, weak or none, the verdict the question should get); other columns are refused.
@@ -68,6 +70,15 @@ const splitExpected = (cell: string): string[] =>
     .map((s) => s.trim())
     .filter((s) => s !== "");
 
+/** An expected-verdict cell: the status, undefined when empty, null (reported) when not a status. */
+function verdictCell(cell: string, line: number, problems: Problems): VerdictStatus | undefined | null {
+  const v = cell.trim().toLowerCase();
+  if (v === "") return undefined;
+  if ((VERDICTS as readonly string[]).includes(v)) return v as VerdictStatus;
+  problems.add(line, `verdict ${JSON.stringify(cell)}: expected one of ${VERDICTS.join(", ")} (or an empty cell)`);
+  return null;
+}
+
 /** Checks one question and adds it (or its problem). */
 function take(items: QuestionItem[], problems: Problems, line: number, question: string, expected: readonly string[], empty: string, verdict?: VerdictStatus): void {
   if (question === "") {
@@ -93,11 +104,13 @@ function parseLines(text: string, problems: Problems): QuestionItem[] {
     const line = i + 1;
     if (raw.trim() === "" || raw.trimStart().startsWith("#")) return;
     const fields = raw.split("\t");
-    if (fields.length > 2) {
-      problems.add(line, "more than two tab-separated fields (expected: question<TAB>id1|id2|…)");
+    if (fields.length > 3) {
+      problems.add(line, "more than three tab-separated fields (expected: question<TAB>id1|id2|…<TAB>verdict)");
       return;
     }
-    take(items, problems, line, fields[0]!.trim(), splitExpected(fields[1] ?? ""), "empty question before the tab");
+    const v = verdictCell(fields[2] ?? "", line, problems);
+    if (v === null) return;
+    take(items, problems, line, fields[0]!.trim(), splitExpected(fields[1] ?? ""), "empty question before the tab", v);
   });
   return items;
 }
@@ -152,12 +165,9 @@ function csvRows(records: readonly { record: string[]; info: { lines: number } }
       problems.add(line, `${r.record.length} cells, but the header names ${names.length} columns (quote a cell that holds a comma: "…, …")`);
       continue;
     }
-    const v = vd !== undefined ? (r.record[vd] ?? "").trim().toLowerCase() : "";
-    if (v !== "" && !(VERDICTS as readonly string[]).includes(v)) {
-      problems.add(line, `verdict ${JSON.stringify(r.record[vd!])}: expected one of ${VERDICTS.join(", ")} (or an empty cell)`);
-      continue;
-    }
-    take(items, problems, line, (r.record[q] ?? "").trim(), splitExpected(ex !== undefined ? (r.record[ex] ?? "") : ""), "the question cell is empty", v === "" ? undefined : (v as VerdictStatus));
+    const v = verdictCell(vd !== undefined ? (r.record[vd] ?? "") : "", line, problems);
+    if (v === null) continue;
+    take(items, problems, line, (r.record[q] ?? "").trim(), splitExpected(ex !== undefined ? (r.record[ex] ?? "") : ""), "the question cell is empty", v);
   }
   return items;
 }

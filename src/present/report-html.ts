@@ -18,7 +18,7 @@ import { labelFromId } from "../catalog/index.js";
 import type { ReportComparison } from "./compare.js";
 import { evidenceDot, NO_LABELS, type LabelBook } from "./dot.js";
 import { dotToSvg } from "./graph-svg.js";
-import { outcomeWord, reviewItem, reviewReport, weakestLink } from "./report-review.js";
+import { confusionRows, outcomeWord, reviewItem, reviewReport, weakestLink } from "./report-review.js";
 import { outcomePhrase, rate, REPORT_DEFAULTS, timing, type ReportOptions } from "./report-text.js";
 
 /** Options of {@link renderCheckHtml} and {@link checkHtml}; all optional. */
@@ -186,8 +186,20 @@ function summaryHtml(report: CheckReport): string {
     tile("Hits@5", rate(s.hits5)) +
     tile("MRR", rate(s.mrr)) +
     tile("questions", String(s.questions), `${s.withExpected} with expected answers`) +
+    (s.verdictCheck ? tile("verdict accuracy", rate(s.verdictCheck.accuracy), `${s.verdictCheck.questions} with an expected verdict`) : "") +
     tile("time", `${s.seconds.toFixed(2)} s`, h(timing(report))) +
-    `</div><div class="verdicts"><div class="bar">${bar}</div><p>${VERDICT_NAMES.map((k) => `${badge(k)} ${s.verdicts[k]}`).join(" ")}</p></div></section>`
+    `</div><div class="verdicts"><div class="bar">${bar}</div><p>${VERDICT_NAMES.map((k) => `${badge(k)} ${s.verdicts[k]}`).join(" ")}</p></div>${confusionHtml(report)}</section>`
+  );
+}
+
+/** The confusion matrix of expected × given verdicts (empty when no question expects one). */
+function confusionHtml(report: CheckReport): string {
+  const vc = report.summary.verdictCheck;
+  if (!vc) return "";
+  const [head, ...rows] = confusionRows(vc);
+  return (
+    `<table class="confusion"><caption>Verdicts: expected (rows) × got (columns)</caption><thead><tr>${head!.map((c) => `<th>${h(c)}</th>`).join("")}</tr></thead>` +
+    `<tbody>${rows.map((r) => `<tr><th>${h(r[0]!)}</th>${r.slice(1).map((c) => `<td class="num">${h(c)}</td>`).join("")}</tr>`).join("")}</tbody></table>`
   );
 }
 
@@ -233,7 +245,7 @@ function tableHtml(report: CheckReport, options: HtmlOptions): string {
         `<tr><td class="num" data-key="${it.line}">${it.line}</td><td data-key="${h(it.question.toLowerCase())}"><a href="#q-${it.line}">${h(it.question)}</a></td>` +
         `<td data-key="${w === "hit" ? 0 : w === "miss" ? 1 : 2}">${outcomeBadge(it)}</td>` +
         `<td class="num" data-key="${it.rank ?? 1e9}">${it.rank ?? "–"}</td>` +
-        `<td data-key="${order[a.verdict.status]}">${badge(a.verdict.status)}</td>` +
+        `<td data-key="${order[a.verdict.status]}">${badge(a.verdict.status)}${it.expectedVerdict !== undefined && it.expectedVerdict !== a.verdict.status ? ` <span class="flag">expected ${h(it.expectedVerdict)}</span>` : ""}</td>` +
         `<td class="num" data-key="${a.verdict.margin}">${a.verdict.margin.toFixed(2)}</td>` +
         `<td data-key="${h((top?.label ?? "").toLowerCase())}">${top ? h(top.label) : "–"}</td>` +
         `<td class="num" data-key="${top?.score ?? -1}">${top ? top.score.toFixed(3) : "–"}</td>` +
@@ -303,6 +315,8 @@ a { color: var(--accent); }
 .tile-name { font-size: 13px; color: var(--muted); }
 .tile-note { font-size: 12px; color: var(--muted); }
 .verdicts { margin-top: 12px; }
+.confusion { margin-top: 12px; border-collapse: collapse; }
+.confusion th, .confusion td { padding: 2px 8px; border: 1px solid var(--rule); }
 .bar { display: flex; height: 22px; border-radius: 5px; overflow: hidden; border: 1px solid var(--rule); max-width: 760px; }
 .seg { color: #fff; font-size: 12px; line-height: 22px; padding: 0 6px; white-space: nowrap; overflow: hidden; }
 .seg.v-unique, .badge.v-unique { background: var(--unique); }

@@ -7,7 +7,7 @@
 import type { CheckReport } from "../model/index.js";
 import { DISCLAIMER } from "../model/index.js";
 import type { ReportComparison } from "./compare.js";
-import { outcomeWord, reviewReport } from "./report-review.js";
+import { confusionRows, outcomeWord, reviewReport } from "./report-review.js";
 import { rate, REPORT_DEFAULTS, timing, type ReportOptions } from "./report-text.js";
 
 /** Escapes text for a Markdown paragraph or table cell (one line, no markup). */
@@ -64,6 +64,12 @@ export function renderCheckMd(report: CheckReport, options: ReportOptions = {}):
       [[String(s.questions), String(s.withExpected), rate(s.hits1), rate(s.hits5), rate(s.mrr), String(s.verdicts.unique), String(s.verdicts.tied), String(s.verdicts.weak), String(s.verdicts.none), timing(report)]],
     ),
   );
+  const vc = s.verdictCheck;
+  if (vc) {
+    const [head, ...rows] = confusionRows(vc);
+    parts.push(`Verdict accuracy **${rate(vc.accuracy)}** over ${vc.questions} questions with an expected verdict (rows: expected, columns: got):`);
+    parts.push(table(head!.map(mdText), rows.map((r) => r.map(mdText))));
+  }
   const review = reviewReport(report, options);
   parts.push(`## Needs a look (${review.length})`);
   parts.push(review.length ? review.map((e) => `- line ${e.item.line}: ${mdText(e.item.question)} — ${e.flags.map((f) => `**${f.kind}**: ${mdText(f.detail)}`).join("; ")}`).join("\n") : "Nothing to look at.");
@@ -77,7 +83,7 @@ export function renderCheckMd(report: CheckReport, options: ReportOptions = {}):
         mdText(it.question),
         outcomeWord(it) === "-" ? "–" : outcomeWord(it),
         it.rank === null ? "–" : String(it.rank),
-        it.answer.verdict.status,
+        it.expectedVerdict !== undefined && it.expectedVerdict !== it.answer.verdict.status ? `${it.answer.verdict.status} (expected ${it.expectedVerdict})` : it.answer.verdict.status,
         it.answer.verdict.margin.toFixed(2),
         it.answer.answers.slice(0, n).map((a) => `${mdText(a.label)} ${a.score.toFixed(3)}`).join("; ") || "–",
       ]),

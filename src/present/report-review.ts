@@ -6,7 +6,7 @@
  * be reviewed again. The low-confidence threshold is a choice of ours (an even-odds link,
  * 0.5), configurable.
  */
-import type { CheckItem, CheckReport } from "../model/index.js";
+import type { CheckItem, CheckReport, VerdictCheck, VerdictStatus } from "../model/index.js";
 
 /** Options of {@link reviewItem}; all optional. */
 export interface ReviewOptions {
@@ -47,7 +47,8 @@ export function reviewItem(item: CheckItem, options: ReviewOptions = {}): readon
     });
   }
   const v = a.verdict;
-  if (item.expectedVerdict !== undefined && item.expectedVerdict !== v.status) flags.push({ kind: "verdict", detail: `${v.status}, the file expects ${item.expectedVerdict}` });
+  const mismatch = verdictMismatch(item);
+  if (mismatch !== null) flags.push({ kind: "verdict", detail: mismatch });
   if (v.status === "tied") {
     const named = v.tiedWith.map((id) => {
       const x = a.answers.find((y) => y.id === id);
@@ -84,4 +85,31 @@ export function weakestLink(item: CheckItem): number | null {
 export function outcomeWord(item: CheckItem): "hit" | "miss" | "-" {
   if (item.expected.length === 0) return "-";
   return item.hit ? "hit" : "miss";
+}
+
+/**
+ * The verdict mismatch of a question in words ("verdict unique, but 2 answers were
+ * expected"), or null when the file expects no verdict or the verdict is the expected one.
+ */
+export function verdictMismatch(item: CheckItem): string | null {
+  const want = item.expectedVerdict;
+  const got = item.answer.verdict.status;
+  if (want === undefined || want === got) return null;
+  const n = item.expected.length;
+  const expectation =
+    want === "tied" ? (n >= 2 ? `${n} answers were expected` : "a tie was expected") : want === "unique" ? "one answer was expected" : want === "none" ? "no answer was expected" : "a weak verdict was expected";
+  return `verdict ${got}, but ${expectation}`;
+}
+
+/** The verdict statuses in report order (rows and columns of the confusion matrix). */
+export const VERDICT_ORDER: readonly VerdictStatus[] = ["unique", "tied", "weak", "none"];
+
+/** The confusion matrix as rows of cells: a header row (`expected \ got`, the statuses, `total`), then one row per expected status. */
+export function confusionRows(vc: VerdictCheck): string[][] {
+  const rows = [["expected \\ got", ...VERDICT_ORDER, "total"]];
+  for (const e of VERDICT_ORDER) {
+    const r = vc.confusion[e];
+    rows.push([e, ...VERDICT_ORDER.map((g) => String(r[g])), String(VERDICT_ORDER.reduce((a, g) => a + r[g], 0))]);
+  }
+  return rows;
 }

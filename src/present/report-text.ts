@@ -6,7 +6,7 @@
 import type { CheckItem, CheckReport } from "../model/index.js";
 import { DISCLAIMER } from "../model/index.js";
 import type { ReportComparison } from "./compare.js";
-import { outcomeWord, reviewReport, type ReviewOptions } from "./report-review.js";
+import { confusionRows, outcomeWord, reviewReport, verdictMismatch, type ReviewOptions } from "./report-review.js";
 
 /** Options of the text, Markdown and HTML check reports; all optional. */
 export interface ReportOptions extends ReviewOptions {
@@ -49,6 +49,8 @@ export function renderItemText(item: CheckItem, options: ReportOptions = {}): st
   if (shown.length === 0) lines.push("  no answers");
   shown.forEach((a, i) => lines.push(`  ${i + 1}. ${a.label} (${a.id})  ${a.score.toFixed(3)}`));
   if (item.expected.length > 0 && !item.hit) lines.push(`  expected: ${item.expected.join(" | ")}`);
+  const mismatch = verdictMismatch(item);
+  if (mismatch !== null) lines.push(`  verdict mismatch: ${mismatch}`);
   return lines.join("\n");
 }
 
@@ -61,8 +63,21 @@ export function renderSummaryText(report: CheckReport): string {
     `  questions   ${s.questions} (${s.withExpected} with expected answers)`,
     `  Hits@1 ${rate(s.hits1)}   Hits@5 ${rate(s.hits5)}   MRR ${rate(s.mrr)}`,
     `  verdicts    unique ${v.unique}   tied ${v.tied}   weak ${v.weak}   none ${v.none}`,
+    ...verdictCheckText(report),
     `  time        ${timing(report)}`,
   ].join("\n");
+}
+
+/** The verdict accuracy line and confusion matrix (none when no question expects a verdict). */
+function verdictCheckText(report: CheckReport): string[] {
+  const vc = report.summary.verdictCheck;
+  if (!vc) return [];
+  const rows = confusionRows(vc);
+  const widths = rows[0]!.map((_, i) => Math.max(...rows.map((r) => r[i]!.length)));
+  return [
+    `  verdict accuracy ${rate(vc.accuracy)} (${vc.questions} questions with an expected verdict); expected × got:`,
+    ...rows.map((r) => `    ${r.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join("  ")}`),
+  ];
 }
 
 /** The differences from an earlier run as text lines (no trailing newline). */

@@ -3,7 +3,8 @@
  * question. Tabs and line breaks inside a value become spaces; a text value that a spreadsheet
  * would read as a formula (starting with `=`, `+`, `-`, `@`) gets a leading `'`
  * (OWASP, "CSV Injection", from memory). Lists inside a cell are `|`-separated, as in the
- * question file. Numbers are plain decimals; an absent rank is an empty cell.
+ * question file. Numbers are plain decimals; an absent rank is an empty cell. `expected_verdict`
+ * and `verdict_match` (yes/no) are empty when the question file gives no expected verdict.
  */
 import type { CheckItem, CheckReport } from "../model/index.js";
 import { outcomeWord, reviewItem, weakestLink, type ReviewOptions } from "./report-review.js";
@@ -33,6 +34,8 @@ export const TSV_COLUMNS = [
   "tied_with",
   "weakest_link",
   "needs_look",
+  "expected_verdict",
+  "verdict_match",
 ] as const;
 
 /** A text cell: one line, no tabs, no formula start. */
@@ -64,6 +67,8 @@ function row(item: CheckItem, options: TsvOptions): string[] {
     tsvText(a.verdict.tiedWith.join("|")),
     num(weakestLink(item), 3),
     tsvText(reviewItem(item, options).map((f) => f.kind).join("|")),
+    item.expectedVerdict ?? "",
+    item.expectedVerdict === undefined ? "" : item.expectedVerdict === a.verdict.status ? "yes" : "no",
   ];
 }
 

@@ -18,6 +18,21 @@ export const BOAT_SEED = [
   "",
 ].join("\n");
 
+/** An invented orchard cooperative (JSONL text, trailing newline): two orchards, growers tending them; `extra` lines are added before the end. */
+export function orchardSeed(extra: readonly string[] = []): string {
+  return [
+    '{"kind":"type","id":"t:Orchard","label":"orchard"}',
+    '{"kind":"type","id":"t:Grower","label":"grower"}',
+    '{"kind":"relation","id":"r:tends","label":"tends"}',
+    '{"id":"o:fenwold","label":"Fenwold Orchard","types":["t:Orchard"]}',
+    '{"id":"o:brisk","label":"Briskmere Orchard","types":["t:Orchard"]}',
+    '{"id":"g:alia","label":"Alia Tormund","types":["t:Grower"],"relations":{"r:tends":["o:fenwold"]}}',
+    '{"id":"g:bren","label":"Bren Osk","types":["t:Grower"],"relations":{"r:tends":["o:brisk"]}}',
+    ...extra,
+    "",
+  ].join("\n");
+}
+
 /**
  * Writes `n` entities `<k:eI>` with an rdfs:label "Entity number I" and 4 edges each
  * (`<k:r1>`…`<k:r4>` to `<k:e((I·31 + J·977) mod n)>`) as N-Triples to `file`, in 1 MiB chunks.

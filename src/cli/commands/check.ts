@@ -2,7 +2,8 @@
  * `tiepoint check FILE [--db PATH] [--json] [--top N] [--format text|json|tsv|md|html] [--out FILE]
  * [--compare OLD.json]`: every question of a question file
  * through one loaded session; one result per question and the summary (Hits@1, Hits@5, MRR,
- * verdict counts, seconds).
+ * verdict counts, seconds; verdict accuracy and the confusion matrix when the file gives
+ * expected verdicts).
  */
 import type { Command } from "commander";
 import { parseQuestionFile, QUESTION_FILE_DEFAULTS, runCheck, Session, unknownExpected, type QuestionItem } from "../../pipeline/index.js";
@@ -58,7 +59,9 @@ export function registerCheck(program: Command): void {
       `
 Question file:
   one question per line, or question<TAB>expected with expected = id1|id2|… (entity ids or
-  exact labels; any of them at rank 1 is a hit). Blank lines and lines starting with # are
+  exact labels; any of them at rank 1 is a hit), optionally question<TAB>expected<TAB>verdict
+  (unique, tied, weak or none; an empty expected with none: no answer expected; the summary
+  then adds verdict accuracy and the confusion matrix, expected × got). Blank lines and lines starting with # are
   skipped. A file named *.csv is read as CSV (RFC 4180) with a header row naming its columns:
   question (required), expected (optional, id1|id2|…), verdict (optional: unique, tied, weak
   or none). Every bad line is reported (up to ${QUESTION_FILE_DEFAULTS.maxErrors}) and nothing is run; an expected
