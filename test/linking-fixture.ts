@@ -4,34 +4,41 @@
  */
 import { Catalog, CatalogWriter } from "../src/catalog/index.js";
 
+/** Shorthands for writing a small catalog: a type, a relation, an entity. */
+export function catalogShorthands(w: CatalogWriter) {
+  return {
+    type(id: string, label: string, aliases: string[] = [], sup?: string): void {
+      w.label(id, label);
+      for (const a of aliases) w.alias(id, a);
+      if (sup) w.subclass(id, sup);
+    },
+    rel(id: string, label: string, aliases: string[] = []): void {
+      w.predicateLabel(id, label);
+      for (const a of aliases) w.predicateAlias(id, a);
+    },
+    ent(id: string, label: string, types: string[], description?: string, aliases: string[] = []): void {
+      w.label(id, label);
+      for (const a of aliases) w.alias(id, a);
+      for (const t of types) w.type(id, t);
+      if (description) w.description(id, description);
+    },
+  };
+}
+
 /** Writes the fixture into `cat` (one committed transaction). */
 export function writeLinkingFixture(cat: Catalog): void {
   const w = new CatalogWriter(cat);
   w.begin();
-  const type = (id: string, label: string, aliases: string[] = [], sup?: string) => {
-    w.label(id, label);
-    for (const a of aliases) w.alias(id, a);
-    if (sup) w.subclass(id, sup);
-  };
+  const { type, rel, ent } = catalogShorthands(w);
   type("t:Person", "person", ["people"]);
   type("t:Researcher", "researcher", ["scientist"], "t:Person");
   type("t:Lab", "laboratory", ["lab"]);
   type("t:Ship", "ship", ["vessel"]);
   type("t:Town", "town");
-  const rel = (id: string, label: string, aliases: string[] = []) => {
-    w.predicateLabel(id, label);
-    for (const a of aliases) w.predicateAlias(id, a);
-  };
   rel("r:memberOf", "member of", ["works in", "belongs to"]);
   rel("r:locatedIn", "located in");
   rel("r:captainOf", "captain of", ["commands"]);
   rel("r:homePort", "home port");
-  const ent = (id: string, label: string, types: string[], description?: string, aliases: string[] = []) => {
-    w.label(id, label);
-    for (const a of aliases) w.alias(id, a);
-    for (const t of types) w.type(id, t);
-    if (description) w.description(id, description);
-  };
   ent("p:ada", "Ada Quell", ["t:Researcher"], "A researcher who studies tidal engines.", ["A. Quell"]);
   ent("p:morrow", "Ada Morrow", ["t:Person"], "A glass blower from the valley.");
   ent("p:jon", "Jon Varga", ["t:Person"], "A sailor and harbour pilot.");

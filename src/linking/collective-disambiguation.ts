@@ -9,10 +9,11 @@
  * mentions under their current confidences), `iterations` rounds.
  *
  * The combination, per candidate c of a mention m (all features in [0, 1]; the prior's log is ≤ 0):
- *   z(c) = wPrior·ln prior(c) + wString·sim(c) + wContext·ctx(c) + wType·type(c) + wRelation·rel(c) + wCoherence·coh(c)
+ *   z(c) = wPrior·ln prior(c) + wString·sim(c) + wContext·ctx(c) + wType·type(c) + wRelation·rel(c) + wModifier·mod(c) + wCoherence·coh(c)
  *   prior(c) = k(c)·(1 + ln(1 + degree(c)))^γ / Σ_{c'} k(c')·(1 + ln(1 + degree(c')))^γ   (k = 1 label, 0.85 alias)
  *   ctx(c)   = bm25(c) / (bm25(c) + ctxHalf)        (question words outside the mention vs c's document)
  *   type(c)  = [c has (a subtype of) a type named in the question];  rel(c) = [c has an edge of a relation named in it]
+ *   mod(c)   = [the mention pre-modifies a type noun ("a Braskian port") and c has a neighbour of that type]
  *   coh(c)   = mean over other mentions m' of Σ_{c'∈m'} p(c')·rel(c, c')
  *   p(c)     = exp z(c) / (exp θ + Σ_{c'} exp z(c'))   — a softmax with a "none of these" option of
  *              logit θ, so one exact label match without other evidence gets 1/(1+e^(θ−wString)) ≈ 0.9
@@ -27,6 +28,8 @@ export const DEFAULTS = {
   wContext: 3,
   wType: 1,
   wRelation: 2,
+  /** Weight of mod(c): a name modifying a type noun names something joined to things of that type. */
+  wModifier: 1.5,
   wCoherence: 3,
   /** BM25 score at which ctx = ½. */
   ctxHalf: 4,
@@ -55,6 +58,8 @@ export interface CandidateEvidence {
   readonly typeCompat: number;
   /** 1 when the candidate has an edge of a relation named in the question, else 0. */
   readonly relationCompat: number;
+  /** 1 when the mention modifies a type noun and the candidate has a neighbour of that type, else 0. */
+  readonly modifierCompat?: number;
 }
 
 /** A scored candidate. */
@@ -82,7 +87,7 @@ export function disambiguate(
     return cands.map((c, i) => {
       const prior = raw[i]! / total;
       const context = c.bm25 > 0 ? c.bm25 / (c.bm25 + o.ctxHalf) : 0;
-      const z = o.wPrior * Math.log(prior) + o.wString * c.similarity + o.wContext * context + o.wType * c.typeCompat + o.wRelation * c.relationCompat;
+      const z = o.wPrior * Math.log(prior) + o.wString * c.similarity + o.wContext * context + o.wType * c.typeCompat + o.wRelation * c.relationCompat + o.wModifier * (c.modifierCompat ?? 0);
       return { prior, context, z };
     });
   });

@@ -2,8 +2,10 @@
  * Entity linking: question text → catalog entities with calibrated confidences.
  * See README "How mentions are linked" for the confidence combination.
  */
-export { Linker, linkQuestion, parsePin, rankSpanCandidates, DEFAULTS as LINK_DEFAULTS } from "./linker.js";
-export type { Pin, LinkedMention, UnlinkedSpan, LinkResult, LinkOptions, LinkerOptions } from "./linker.js";
+export { Linker, linkQuestion, notFoundNote, parsePin, rankSpanCandidates, DEFAULTS as LINK_DEFAULTS } from "./linker.js";
+export type { Pin, LinkedMention, UnlinkedSpan, LinkResult, LinkOptions, LinkerOptions, NotFound } from "./linker.js";
+export { derivedTokens, labelRoot, wordRoots, DEFAULTS as DERIVATION_DEFAULTS } from "./derivation.js";
+export type { DerivedToken } from "./derivation.js";
 export { DEFAULTS as SCORING_DEFAULTS } from "./collective-disambiguation.js";
 export type { ScoringOptions } from "./collective-disambiguation.js";
 export { LexicalSnapshot } from "./lexical-snapshot.js";

@@ -95,10 +95,13 @@ describe("linkQuestion on the fixture catalog", () => {
     const r = link("Where is Zzyzx?");
     expect(r.mentions).toEqual([]);
     expect(r.unlinked).toEqual([{ text: "Zzyzx", start: 9, end: 14, suggestions: [] }]);
-    // a name found inside a longer run leaves the rest of the run unlinked
+    // a capitalised name phrase whose best name matches only partly and whose other word no
+    // name holds ("Harbour" is only in descriptions) names something the catalog does not hold:
+    // not found, the partly matching name as the nearest
     const r3 = link("Where is Tidewater Harbour?");
-    expect(r3.mentions.map((m) => [m.text, m.entity.id])).toEqual([["Tidewater", "o:lab1"]]);
-    expect(r3.unlinked.map((u) => u.text)).toEqual(["Harbour"]);
+    expect(r3.mentions).toEqual([]);
+    expect(r3.unlinked.map((u) => [u.text, u.suggestions[0]?.id])).toEqual([["Tidewater Harbour", "o:lab1"]]);
+    expect(r3.notFound).toMatchObject([{ text: "Tidewater Harbour", linked: false, nearest: { id: "o:lab1" } }]);
     // nothing name-like links: the content words still get the nearest catalog names
     const r2 = link("where is the glass blower from the valley");
     expect(r2.mentions).toEqual([]);

@@ -15,15 +15,17 @@
  */
 import type { AliasHit, Catalog } from "../catalog/index.js";
 import { normalize, stemKey, stemToken, tokens } from "../catalog/index.js";
-import type { Alternative, EntityRef, Mention } from "../model/index.js";
+import type { Alternative, EntityRef, MatchKind, Mention, NotFoundDoc } from "../model/index.js";
 import { TiepointError } from "../model/index.js";
 import { bm25 } from "./bm25.js";
 import type { CandidateEvidence, ScoringOptions } from "./collective-disambiguation.js";
 import { disambiguate } from "./collective-disambiguation.js";
+import type { DerivedToken } from "./derivation.js";
+import { derivedTokens } from "./derivation.js";
 import { FuzzyTokenIndex } from "./fuzzy-index.js";
 import { LexicalSnapshot, NEIGHBOUR_DESCRIPTION_WEIGHT } from "./lexical-snapshot.js";
-import type { AliasLexicon, DetectedSpan, SpanCandidate } from "./mention-detection.js";
-import { detectMentions, DEFAULTS as DETECTION_DEFAULTS } from "./mention-detection.js";
+import type { AliasLexicon, DetectedSpan, SpanCandidate, Weights } from "./mention-detection.js";
+import { detectMentions, DEFAULTS as DETECTION_DEFAULTS, tokenWeights } from "./mention-detection.js";
 import { milneWitten } from "./relatedness.js";
 import { isStopWord } from "./stopwords.js";
 import type { QuestionToken } from "./text-spans.js";
@@ -47,6 +49,13 @@ export const DEFAULTS = {
   maxCoherentMentions: 16,
   /** Entries kept in each per-linker cache. */
   cacheSize: 20_000,
+  /**
+   * A mention whose best candidate has a lower confidence than this is reported as not found
+   * (`LinkResult.notFound`, with that candidate as the nearest). 0.2: below what one fuzzy
+   * candidate at the lowest accepted similarity gets alone (1/(1 + e^(3.8 − 6·0.5)) ≈ 0.31), so
+   * only a name split over many weak candidates or matching none well falls under it.
+   */
+  notFoundBelow: 0.2,
 } as const;
 
 /** A user's override of one link: `text` in the question is `entity` (an id or an exact label). */
@@ -59,6 +68,16 @@ export interface Pin {
 export interface LinkedMention extends Mention {
   readonly num: number;
   readonly alternatives: readonly (Alternative & { readonly num: number })[];
+}
+
+/** Words that name something the catalog does not hold (see {@link NotFoundDoc}). */
+export type NotFound = NotFoundDoc;
+
+/** The user-facing line for a not-found name: "no catalog entity matches 'KX-999'; nearest: KX-114, 6 %". */
+export function notFoundNote(nf: NotFound): string {
+  const near = nf.nearest;
+  const how = !near ? "" : near.confidence !== undefined ? `${Math.round(near.confidence * 100)} %` : near.similarity !== undefined ? `similarity ${near.similarity.toFixed(2)}` : "";
+  return `no catalog entity matches '${nf.text}'${near ? `; nearest: ${near.label}${how ? `, ${how}` : ""}` : ""}`;
 }
 
 /** A span of content words that nothing linked to, with the nearest catalog names. */
@@ -75,6 +94,8 @@ export interface UnlinkedSpan {
 export interface LinkResult {
   readonly mentions: readonly LinkedMention[];
   readonly unlinked: readonly UnlinkedSpan[];
+  /** Names the catalog does not hold (see {@link NotFound}), by position. */
+  readonly notFound: readonly NotFound[];
 }
 
 /** Options of {@link linkQuestion}. */
@@ -116,6 +137,24 @@ function namedOutside(occ: readonly VocabularyOccurrence[], first: number, last:
   return { types, relations };
 }
 
+/** Content words that may stand between a modifier and its type noun ("a Braskian deep-water port"). */
+const MODIFIER_GAP = 2;
+
+/**
+ * Types of the noun a mention pre-modifies: a type phrase starting within {@link MODIFIER_GAP}
+ * content words after the mention, none of them a stop word ("Braskian towns", "a Braskian
+ * research port"). Attributive use of a proper name or its adjective before a head noun:
+ * Quirk et al. 1985, ch. 17 (premodification), from memory.
+ */
+function modifiedTypes(occ: readonly VocabularyOccurrence[], toks: readonly QuestionToken[], span: { first: number; last: number }): Set<number> | undefined {
+  for (let k = span.last; k < toks.length && k <= span.last + MODIFIER_GAP; k++) {
+    const o = occ.find((x) => x.first === k && x.types.length > 0);
+    if (o) return new Set(o.types);
+    if (isStopWord(toks[k]!.norm)) return undefined;
+  }
+  return undefined;
+}
+
 /** A small bounded cache (drops everything when full; simple and deterministic). */
 class Bounded<K, V> {
   private readonly map = new Map<K, V>();
@@ -147,6 +186,8 @@ export class Linker implements AliasLexicon {
   private readonly phraseWords = new Set<string>();
   /** Porter stems of the content words (not stop words) of every relation label and alias. */
   private readonly relationStems = new Set<string>();
+  /** Last words (normalised and stemmed) of every type label and alias: the types' head nouns. */
+  private readonly typeHeads = new Set<string>();
   /** Longest type or relation phrase, in tokens. */
   private readonly maxPhrase: number;
   private fuzzyIndex: FuzzyTokenIndex | undefined;
@@ -156,6 +197,9 @@ export class Linker implements AliasLexicon {
   private readonly refs = new Bounded<number, EntityRef>(DEFAULTS.cacheSize);
   private readonly aliasHits = new Bounded<string, readonly AliasHit[]>(DEFAULTS.cacheSize);
   private readonly relationEdges = new Bounded<string, boolean>(DEFAULTS.cacheSize);
+  private readonly neighbourTypes = new Bounded<string, boolean>(DEFAULTS.cacheSize);
+  private readonly derivedCache = new Bounded<string, readonly DerivedToken[]>(DEFAULTS.cacheSize);
+  private tokenWeights: Weights | undefined;
 
   private constructor(cat: Catalog, snapshot: LexicalSnapshot) {
     this.catalog = cat;
@@ -178,6 +222,11 @@ export class Linker implements AliasLexicon {
       parents.set(t.num, t.parents);
       add(this.phraseTypes, t.label, t.num);
       for (const a of t.aliases) add(this.phraseTypes, a, t.num);
+      for (const text of [t.label, ...t.aliases]) {
+        const words = tokens(text);
+        const head = words[words.length - 1];
+        if (head !== undefined) this.typeHeads.add(head).add(stemToken(head));
+      }
     }
     for (const t of types) {
       const seen = new Set<number>([t.num]);
@@ -238,6 +287,11 @@ export class Linker implements AliasLexicon {
   }
 
   /** @internal */
+  isTypeHead(norm: string, stem: string): boolean {
+    return this.typeHeads.has(norm) || this.typeHeads.has(stem);
+  }
+
+  /** @internal */
   isRelationWord(norm: string, stem: string): boolean {
     return this.relationStems.has(stem) || this.relationStems.has(norm);
   }
@@ -245,6 +299,16 @@ export class Linker implements AliasLexicon {
   /** @internal */
   fuzzy(): FuzzyTokenIndex {
     return (this.fuzzyIndex ??= new FuzzyTokenIndex(this.snapshot.vocab));
+  }
+
+  /** @internal vocabulary tokens a word may be derived from (derivation.ts; cached). */
+  derived(norm: string): readonly DerivedToken[] {
+    return this.derivedCache.get(norm, () => (this.phraseWords.has(norm) ? [] : derivedTokens(norm, this.snapshot.vocab)));
+  }
+
+  /** @internal IDF weights of alias tokens. */
+  weights(): Weights {
+    return (this.tokenWeights ??= tokenWeights(this.snapshot));
   }
 
   /** Type and relation phrases in the question: each n-gram (normalised or stemmed) naming some, as a token range. */
@@ -318,8 +382,18 @@ export class Linker implements AliasLexicon {
     return { documents: s.entityCount, avgLength: s.avgDocLength, documentFrequency: (t: string) => s.documentFrequency(t) };
   }
 
-  /** @internal evidence for one candidate. */
-  evidence(c: SpanCandidate, query: readonly string[], named: { types: Set<number>; relations: Set<number> }, withContext: boolean): CandidateEvidence {
+  /** @internal true when the entity has a neighbour of (a subtype of) one of `types`. */
+  hasNeighbourOfType(num: number, types: ReadonlySet<number>): boolean {
+    return this.neighbourTypes.get(`${num} ${[...types].sort((a, b) => a - b).join(",")}`, () => {
+      for (const n of this.linkSet(num)) {
+        for (const t of this.typesOf(n)) for (const s of this.supertypes.get(t) ?? [t]) if (types.has(s)) return true;
+      }
+      return false;
+    });
+  }
+
+  /** @internal evidence for one candidate; `modified`: the types of the noun the mention pre-modifies. */
+  evidence(c: SpanCandidate, query: readonly string[], named: { types: Set<number>; relations: Set<number> }, withContext: boolean, modified?: ReadonlySet<number>): CandidateEvidence {
     let score = 0;
     if (withContext && query.length > 0) {
       const doc = this.contextDoc(c.num);
@@ -338,7 +412,8 @@ export class Linker implements AliasLexicon {
         break;
       }
     }
-    return { num: c.num, similarity: c.similarity, kind: c.kind, degree: this.snapshot.degreeOf(c.num), bm25: score, typeCompat: typeOk, relationCompat: relOk };
+    const modOk = withContext && modified && modified.size > 0 && this.hasNeighbourOfType(c.num, modified) ? 1 : 0;
+    return { num: c.num, similarity: c.similarity, kind: c.kind, degree: this.snapshot.degreeOf(c.num), bm25: score, typeCompat: typeOk, relationCompat: relOk, modifierCompat: modOk };
   }
 }
 
@@ -424,7 +499,7 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     for (let k = lo; k < hi; k++) if (contentStems[k] !== "" && (k < span.first || k >= span.last)) query.push(contentStems[k]!);
     const named = vocabulary.some((o) => o.relations.length > 0 && o.last > span.first && o.first < span.last) ? namedOutside(vocabulary, span.first, span.last) : namedAll;
     // context only decides between candidates; an unambiguous span skips it
-    return cands.map((c) => linker.evidence(c, query, named, cands.length > 1));
+    return cands.map((c) => linker.evidence(c, query, named, cands.length > 1, modifiedTypes(vocabulary, toks, span)));
   });
   // coherence is joint over the question's mentions; a very long text is scored mention by mention
   const coherent = evidence.length <= DEFAULTS.maxCoherentMentions;
@@ -439,13 +514,18 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     const ref = linker.ref(p.num);
     mentions.push({ ...spanText(p.first, p.last), entity: ref, num: p.num, confidence: 1, alternatives: [], pinned: true });
   }
+  const notFound: NotFound[] = [];
   det.spans.forEach((span, m) => {
     const withRefs = scored[m]!.map((c) => ({ ...c, ref: linker.ref(c.num) }));
     withRefs.sort((a, b) => b.confidence - a.confidence || (a.ref.id < b.ref.id ? -1 : a.ref.id > b.ref.id ? 1 : 0));
     const best = withRefs[0];
     if (!best) return;
+    const how = new Map(spans[m]!.map((c) => [c.num, c]));
+    const bestHow = how.get(best.num)!;
+    const text = spanText(span.first, span.last);
+    const compound = compoundAfter(question, toks, span.last);
     mentions.push({
-      ...spanText(span.first, span.last),
+      ...text,
       entity: best.ref,
       num: best.num,
       confidence: round(best.confidence),
@@ -453,8 +533,12 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
         .slice(1)
         .filter((a) => a.confidence >= DEFAULTS.minAlternative)
         .slice(0, maxAlt)
-        .map((a) => ({ id: a.ref.id, label: a.ref.label, confidence: round(a.confidence), num: a.num })),
+        .map((a) => ({ id: a.ref.id, label: a.ref.label, confidence: round(a.confidence), num: a.num, match: matchOf(how.get(a.num)!) })),
+      match: matchOf(bestHow),
+      ...(bestHow.derivation ? { derivation: bestHow.derivation } : {}),
+      ...(compound ? { compound } : {}),
     });
+    if (best.confidence < DEFAULTS.notFoundBelow) notFound.push({ ...text, linked: true, nearest: { ...best.ref, confidence: round(best.confidence) } });
   });
   mentions.sort((a, b) => a.start - b.start);
   let unlinked: UnlinkedSpan[] = det.unmatched
@@ -481,7 +565,26 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
       return { ...spanText(a, b), suggestions: near.slice(0, 3).map((s) => cat.ref(s.num)) };
     });
   }
-  return { mentions, unlinked };
+  for (const u of det.unmatched) {
+    if (u.relationWord) continue;
+    const near = u.suggestions[0];
+    notFound.push({ ...spanText(u.first, u.last), linked: false, nearest: near ? { ...cat.ref(near.num), similarity: round(near.similarity) } : null });
+  }
+  notFound.sort((a, b) => a.start - b.start);
+  return { mentions, unlinked, notFound };
+}
+
+/** How a candidate matched: its own match kind, else its label or alias (exact or by stem). */
+function matchOf(c: SpanCandidate): MatchKind {
+  return c.match ?? (c.kind === 0 ? "label" : "alias");
+}
+
+/** The second element of a hyphenated compound right after token `last` ("based" in "Vask-based"), if any. */
+function compoundAfter(question: string, toks: readonly QuestionToken[], last: number): string | undefined {
+  const prev = toks[last - 1];
+  const next = toks[last];
+  if (!prev || !next || !/^[-‐‑]$/u.test(question.slice(prev.end, next.start)) || !/^\p{L}+$/u.test(next.norm)) return undefined;
+  return next.norm;
 }
 
 function round(x: number): number {

@@ -28,7 +28,10 @@
  * non-code match keeps a relation word linked.
  */
 import type { AliasHit } from "../catalog/index.js";
+import type { MatchKind } from "../model/index.js";
+import type { DerivedToken } from "./derivation.js";
 import type { FuzzyTokenIndex } from "./fuzzy-index.js";
+import { DEFAULTS as FUZZY_DEFAULTS } from "./fuzzy-index.js";
 import { jaroWinkler } from "./jaro-winkler.js";
 import type { LexicalSnapshot } from "./lexical-snapshot.js";
 import { isStopWord } from "./stopwords.js";
@@ -71,8 +74,14 @@ export interface AliasLexicon {
   isTypeEntity(num: number): boolean;
   /** True when the word's stem is a content word of some relation label or alias. */
   isRelationWord(norm: string, stem: string): boolean;
+  /** True when the word (normalised or stemmed) is the last word of some type label or alias (a type's head noun). */
+  isTypeHead(norm: string, stem: string): boolean;
   /** The lazily built fuzzy index over the alias token vocabulary. */
   fuzzy(): FuzzyTokenIndex;
+  /** Vocabulary tokens a normalised word may be derived from (derivation.ts), best first. */
+  derived(norm: string): readonly DerivedToken[];
+  /** IDF weights of alias tokens over the catalog's names. */
+  weights(): Weights;
 }
 
 /** A candidate entity for a span. */
@@ -82,6 +91,10 @@ export interface SpanCandidate {
   readonly similarity: number;
   /** 0 when the best alias is the entity's label, 1 for another alias. */
   readonly kind: number;
+  /** How the span matched the entity's name (absent: label or alias, by `kind`). */
+  readonly match?: MatchKind;
+  /** For a derived form: the suffix stripped from the question word and the name it was derived from. */
+  readonly derivation?: { readonly suffix: string; readonly base: string };
 }
 
 /** A candidate as found, with the stored text of the alias it matched (for the relation-word rule). */
@@ -111,6 +124,16 @@ export interface UnmatchedRun {
 export interface Detection {
   readonly spans: readonly DetectedSpan[];
   readonly unmatched: readonly UnmatchedRun[];
+}
+
+/** A found candidate without its alias text. */
+function plainCandidate(c: SpanCandidate): SpanCandidate {
+  return { num: c.num, similarity: c.similarity, kind: c.kind, ...(c.match ? { match: c.match } : {}), ...(c.derivation ? { derivation: c.derivation } : {}) };
+}
+
+/** A candidate whose name is wholly or partly present inside a longer name phrase: `partialFactor` × its similarity. */
+function absorbedCandidate(c: SpanCandidate, o: typeof DEFAULTS): SpanCandidate {
+  return { ...plainCandidate(c), similarity: c.similarity * o.partialFactor, match: c.match === "derived" || c.match === "fuzzy" ? c.match : "partial" };
 }
 
 function hitsToCandidates(hits: readonly AliasHit[], similarity: number): SpanCandidate[] {
@@ -184,6 +207,37 @@ export function detectMentions(
     unmatched.push({ first: k, last: k + 1, suggestions: asSuggestions(cands, lex), relationWord: true });
     covered[k] = true;
   };
+  /**
+   * A one-word name that is also a derived form of other names ("Ostrelian", a language's label,
+   * and an adjective of Ostrelia) keeps those as candidates too, at the derived similarity: the
+   * question's other words decide. Only for a word written like a name (capitalised, unless the
+   * question is case-blind) with a real suffix, used attributively (before a type noun:
+   * "Ostrelian ports", not "speak Ostrelian"), and only names that are that one base word.
+   */
+  /** True when a type's head noun follows within 2 words, neither a stop word ("Braskian towns", "a Braskian research port"). */
+  const modifiesTypeNoun = (k0: number) => {
+    for (let k = k0; k < n && k < k0 + 2; k++) {
+      const t = toks[k]!;
+      if (isStopWord(t.norm) || !LETTER.test(t.norm)) return false;
+      if (lex.isTypeHead(t.norm, t.stem)) return true;
+    }
+    return false;
+  };
+  const withDerived = (span: DetectedSpan): DetectedSpan => {
+    const tok = toks[span.first]!;
+    if ((!caseBlind() && !tok.marked) || !modifiesTypeNoun(span.last)) return span;
+    const have = new Set(span.candidates.map((c) => c.num));
+    const extra: SpanCandidate[] = [];
+    for (const d of lex.derived(tok.norm)) {
+      if (d.suffix === "") continue;
+      for (const h of lex.byNorm(lex.snapshot.vocab[d.token]!)) {
+        if (have.has(h.entity) || lex.isTypeEntity(h.entity)) continue;
+        have.add(h.entity);
+        extra.push({ num: h.entity, similarity: d.similarity, kind: h.kind, match: "derived", derivation: { suffix: d.suffix, base: h.text } });
+      }
+    }
+    return extra.length === 0 ? span : { ...span, candidates: [...span.candidates, ...extra] };
+  };
   // 1. leftmost-longest exact (normalised) or stemmed match
   let i = 0;
   while (i < n) {
@@ -231,6 +285,7 @@ export function detectMentions(
       }
     }
     if (found) {
+      if (found.last - found.first === 1) found = withDerived(found);
       spans.push(found);
       for (let k = found.first; k < found.last; k++) covered[k] = true;
       i = found.last;
@@ -244,32 +299,84 @@ export function detectMentions(
   const vocabularyWord = (k: number) => lex.isVocabularyPhrase(toks[k]!.norm, toks[k]!.stem);
   // a fuzzy name needs a word with a letter that is not a type or relation word ("20,000" is not one)
   const nameWord = (k: number) => /\p{L}/u.test(toks[k]!.norm) && !vocabularyWord(k);
-  /** Fuzzy-matches tokens [a, b); what the found name leaves on either side is tried again. */
+  const hasNameIn = (a: number, b: number) => {
+    for (let k = a; k < b; k++) if (nameWord(k)) return true;
+    return false;
+  };
+  /**
+   * True when tokens [a, b) match catalog names only weakly (a best similarity below
+   * `mergeSimilarity`, as a generic word matches one word of a longer name: "Kingdom" of
+   * "Tarn Kingdom"): next to a name in the same name phrase they are part of that name's
+   * long form, not a name of their own.
+   */
+  const weakOnly = (a: number, b: number, allowUnknown = false) => {
+    if (caseBlind() || !hasNameIn(a, b) || (!allowUnknown && unknownIn(a, b))) return false;
+    for (let k = a; k < b; k++) if (relationWord(k) || vocabularyWord(k)) return false;
+    const r = fuzzySpan(toks.slice(a, b), lex, o);
+    return r.candidates.length === 0 || r.candidates[0]!.similarity < o.mergeSimilarity;
+  };
+  /**
+   * True when some word of [a, b) is in no catalog name: a number no name holds ("999" of
+   * "KX-999"), or a word no name holds even misspelt or derived (words shorter than the fuzzy
+   * index corrects are never called unknown).
+   */
+  const unknownIn = (a: number, b: number) => {
+    for (let k = a; k < b; k++) {
+      const t = toks[k]!;
+      if (isStopWord(t.norm) || lex.snapshot.tokenId(t.norm) >= 0) continue;
+      if (/^\p{N}+$/u.test(t.norm)) return true;
+      if (t.norm.length >= FUZZY_DEFAULTS.minLength && LETTER.test(t.norm) && lex.fuzzy().nearest(t.norm).length === 0 && lex.derived(t.norm).length === 0) return true;
+    }
+    return false;
+  };
+  /** Fuzzy-matches tokens [a, b); what the found name leaves on either side is absorbed (weak) or tried again. */
   const piece = (a: number, b: number, depth: number): void => {
-    let hasName = false;
-    for (let k = a; k < b && !hasName; k++) hasName = nameWord(k);
-    if (!hasName) return;
+    if (!hasNameIn(a, b)) return;
     const result = fuzzySpan(toks.slice(a, b), lex, o);
     if (result.candidates.length === 0) {
       unmatched.push({ first: a, last: b, suggestions: result.suggestions });
       return;
     }
-    const first = a + result.first;
-    const last = a + result.last;
+    let first = a + result.first;
+    let last = a + result.last;
     let candidates: readonly SpanCandidate[] = result.candidates;
     if (last - first === 1 && relationWord(first)) {
       // only an exact alias written like the name keeps a relation word linked
       candidates = result.candidates.filter((c) => c.similarity === 1 && writtenAs(toks[first]!, c.alias, caseBlind()));
       if (candidates.length === 0) explained(first, result.candidates);
     }
+    // a weak name inside a capitalised phrase whose other words no catalog name holds
+    // ("Zorblax Institute"): the phrase names something the catalog does not hold
+    if (candidates.length > 0 && !caseBlind() && candidates[0]!.similarity < o.mergeSimilarity && (unknownIn(a, first) || unknownIn(last, b))) {
+      unmatched.push({ first: a, last: b, suggestions: result.suggestions });
+      return;
+    }
     if (candidates.length > 0) {
-      spans.push({ first, last, match: "fuzzy", candidates: candidates.map((c) => ({ num: c.num, similarity: c.similarity, kind: c.kind })) });
+      const before = first > a && weakOnly(a, first);
+      const after = last < b && weakOnly(last, b);
+      if (before) first = a;
+      if (after) last = b;
+      spans.push({ first, last, match: "fuzzy", candidates: candidates.map((c) => (before || after ? absorbedCandidate(c, o) : plainCandidate(c))) });
       for (let k = first; k < last; k++) covered[k] = true;
     }
     if (depth < 3) {
       if (first > a) piece(a, first, depth + 1);
       if (last < b) piece(last, b, depth + 1);
     }
+  };
+  /** English connectors inside a name phrase ("Kingdom of Brask", "Republic of the Velm"); common practice. */
+  const connector = (k: number) => toks[k]!.norm === "of" || toks[k]!.norm === "the";
+  /** An exact span that ends at `a` or starts at `j`, directly or across connectors. */
+  const hostOf = (a: number, j: number): DetectedSpan | undefined => {
+    let k = j;
+    while (k < n && k - j < 2 && connector(k) && !covered[k]) k++;
+    const after = startsAt.get(k);
+    if (after && (k === j || toks.slice(j, k).some((t) => t.norm === "of"))) return after;
+    k = a;
+    while (k > 0 && a - k < 2 && connector(k - 1) && !covered[k - 1]) k--;
+    const before = endsAt.get(k);
+    if (before && (k === a || toks.slice(k, a).some((t) => t.norm === "of"))) return before;
+    return undefined;
   };
   i = 0;
   let runs = 0;
@@ -279,7 +386,15 @@ export function detectMentions(
       continue;
     }
     let j = i;
-    while (j < n && j - i < o.maxTokens && free(j) && (!vocabularyWord(j) || toks[j]!.marked)) j++;
+    const inRun = (k: number) => k < n && free(k) && (!vocabularyWord(k) || toks[k]!.marked);
+    for (;;) {
+      while (j < n && j - i < o.maxTokens && inRun(j)) j++;
+      // a capitalised name phrase goes on across "of" / "of the" ("Republic of Kessia")
+      if (caseBlind() || j >= n || toks[j]!.norm !== "of" || covered[j]) break;
+      const next = toks[j + 1]?.norm === "the" && !covered[j + 1] ? j + 2 : j + 1;
+      if (next - i >= o.maxTokens || !inRun(next)) break;
+      j = next;
+    }
     const a = i;
     let hasName = false;
     for (let k = a; k < j && !hasName; k++) hasName = nameWord(k);
@@ -310,13 +425,29 @@ export function detectMentions(
             startsAt.delete(sp.first);
           }
         }
-        spans.push({ first, last, match: "fuzzy", candidates: merged.candidates.map((c) => ({ num: c.num, similarity: c.similarity, kind: c.kind })) });
+        spans.push({ first, last, match: "fuzzy", candidates: merged.candidates.map(plainCandidate) });
         for (let k = first; k < last; k++) covered[k] = true;
         if (first > a) piece(a, first, 0);
         if (last < j) piece(last, j, 0);
         i = Math.max(i + 1, j);
         continue;
       }
+    }
+    // a run matching other names only weakly, joined to an exact name ("the Kingdom of Brask",
+    // "Federal Republic of Velmarra"): one name phrase, linked as that name, partially
+    const host = hostOf(a, j);
+    if (host && weakOnly(a, j, true)) {
+      const first = Math.min(a, host.first);
+      const last = Math.max(j, host.last);
+      const grown: DetectedSpan = { first, last, match: "fuzzy", candidates: host.candidates.map((c) => absorbedCandidate(c, o)) };
+      spans.splice(spans.indexOf(host), 1, grown);
+      startsAt.delete(host.first);
+      endsAt.delete(host.last);
+      startsAt.set(first, grown);
+      endsAt.set(last, grown);
+      for (let k = first; k < last; k++) covered[k] = true;
+      i = Math.max(i + 1, j);
+      continue;
     }
     piece(a, j, 0);
     i = Math.max(i + 1, j);
@@ -332,45 +463,154 @@ interface FuzzyResult {
   suggestions: SpanCandidate[];
 }
 
-/** Similarity of a token list to an alias's tokens: Dice over exact-or-close token matches. */
-function spanSimilarity(run: readonly string[], alias: readonly string[], tokenMatch: number): { sim: number; used: boolean[] } {
+/** How one run token matched an alias token: exactly, by a close spelling, or as a derived form. */
+type TokenMatch = "exact" | "fuzzy" | "derived";
+
+/** Per run token: the alias tokens it may stand for, with similarity and how (besides exact equality). */
+type TokenAlternatives = ReadonlyMap<string, { readonly sim: number; readonly how: TokenMatch; readonly suffix?: string }>;
+
+/** IDF weights of alias tokens (see {@link tokenWeight}). */
+export interface Weights {
+  of(token: string): number;
+}
+
+/**
+ * Weight of an alias token: its inverse document frequency over the catalog's names,
+ * ln(1 + N/df) (N entities, df entities whose label or alias holds the token; K. Spärck Jones,
+ * "A statistical interpretation of term specificity", J. Documentation 28, 1972); stop words 0;
+ * a word no name holds counts as the rarest (df = 1).
+ */
+export function tokenWeights(snap: LexicalSnapshot): Weights {
+  const n = Math.max(1, snap.entityCount);
+  const cache = new Map<string, number>();
+  return {
+    of(token: string): number {
+      let w = cache.get(token);
+      if (w === undefined) {
+        if (isStopWord(token)) w = 0;
+        else {
+          const id = snap.tokenId(token);
+          const df = id >= 0 ? Math.max(1, snap.entitiesWithToken(id).length) : 1;
+          w = Math.log(1 + n / df);
+        }
+        cache.set(token, w);
+      }
+      return w;
+    },
+  };
+}
+
+/** Result of {@link spanSimilarity}: the weighted Dice and, per run token, whether and how it matched. */
+interface SpanMatch {
+  readonly sim: number;
+  readonly used: boolean[];
+  /** The least exact way a matched token matched ("exact" when all did). */
+  readonly how: TokenMatch;
+  readonly suffix?: string;
+}
+
+/**
+ * Similarity of a token list to an alias's tokens: Dice's coefficient (L. R. Dice, Ecology 26,
+ * 1945) over IDF-weighted tokens, each run token matched to at most one alias token exactly,
+ * as a derived form, or with Jaro–Winkler ≥ `tokenMatch` (so word order does not matter). A
+ * matched pair counts its similarity × the alias token's weight on both sides; an unmatched
+ * token counts its own weight. Rare words carry a name, generic ones ("republic", "institute"
+ * in a catalog with many of them) little. Falls back to unweighted counts when every token
+ * weighs 0 (only stop words).
+ */
+function spanSimilarity(run: readonly string[], alias: readonly string[], tokenMatch: number, weights: Weights, alts?: readonly (TokenAlternatives | undefined)[]): SpanMatch {
   const used = run.map(() => false);
   const taken = alias.map(() => false);
   let matched = 0;
+  let runWeight = 0;
+  let plainMatched = 0;
+  let how: TokenMatch = "exact";
+  let suffix: string | undefined;
   for (let r = 0; r < run.length; r++) {
     let best = 0;
     let at = -1;
+    let bestHow: TokenMatch = "exact";
+    let bestSuffix: string | undefined;
     for (let a = 0; a < alias.length; a++) {
       if (taken[a]) continue;
-      const s = run[r] === alias[a] ? 1 : jaroWinkler(run[r]!, alias[a]!);
+      let s: number;
+      let h: TokenMatch = "exact";
+      let sx: string | undefined;
+      if (run[r] === alias[a]) s = 1;
+      else {
+        // a derived form is read as one even when its spelling is also close ("Tarnuvian" ~ Tarnu)
+        const alt = alts?.[r]?.get(alias[a]!);
+        if (alt) {
+          s = alt.sim;
+          h = alt.how;
+          sx = alt.suffix;
+        } else {
+          const jw = jaroWinkler(run[r]!, alias[a]!);
+          s = jw >= tokenMatch ? jw : 0;
+          h = "fuzzy";
+        }
+      }
       if (s > best) {
         best = s;
         at = a;
+        bestHow = h;
+        bestSuffix = sx;
       }
     }
-    if (at >= 0 && best >= tokenMatch) {
+    if (at >= 0 && best > 0) {
       taken[at] = true;
       used[r] = true;
-      matched += best;
-    }
+      const w = weights.of(alias[at]!);
+      matched += best * w;
+      runWeight += w;
+      plainMatched += best;
+      if (bestHow === "derived" || (bestHow === "fuzzy" && how === "exact")) {
+        how = bestHow;
+        suffix = bestSuffix;
+      }
+    } else runWeight += weights.of(run[r]!);
   }
-  return { sim: (2 * matched) / (run.length + alias.length), used };
+  let aliasWeight = 0;
+  for (const t of alias) aliasWeight += weights.of(t);
+  const total = runWeight + aliasWeight;
+  const sim = total > 0 ? (2 * matched) / total : (2 * plainMatched) / (run.length + alias.length);
+  return { sim, used, how, ...(suffix !== undefined ? { suffix } : {}) };
 }
 
 function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: typeof DEFAULTS): FuzzyResult {
   const snap = lex.snapshot;
-  // token alternatives: the token itself when known, else close vocabulary tokens
+  const weights = lex.weights();
+  // token alternatives: the token itself when known, else close vocabulary tokens; and the
+  // vocabulary tokens the word may be derived from (derivation.ts)
   const lists: Int32Array[] = [];
+  const alts: (Map<string, { sim: number; how: TokenMatch; suffix?: string }> | undefined)[] = [];
   for (const t of run) {
     const id = snap.tokenId(t.norm);
-    if (id >= 0) lists.push(snap.entitiesWithToken(id));
-    else {
-      const near = lex.fuzzy().nearest(t.norm);
-      if (near.length === 0) continue;
-      const merged = new Set<number>();
-      for (const h of near) for (const e of snap.entitiesWithToken(h.token)) merged.add(e);
-      lists.push(Int32Array.from([...merged].sort((a, b) => a - b)));
+    const alt = new Map<string, { sim: number; how: TokenMatch; suffix?: string }>();
+    const merged = new Set<number>();
+    const near = new Set<number>();
+    if (id < 0) {
+      for (const h of lex.fuzzy().nearest(t.norm)) {
+        near.add(h.token);
+        for (const e of snap.entitiesWithToken(h.token)) merged.add(e);
+      }
     }
+    // a spelling within the edit budget is read as a misspelling, not as a derived form
+    for (const d of lex.derived(t.norm)) {
+      if (near.has(d.token)) continue;
+      alt.set(snap.vocab[d.token]!, { sim: d.similarity, how: "derived", suffix: d.suffix });
+      for (const e of snap.entitiesWithToken(d.token)) merged.add(e);
+    }
+    alts.push(alt.size > 0 ? alt : undefined);
+    if (id >= 0) {
+      const own = snap.entitiesWithToken(id);
+      if (merged.size === 0) {
+        lists.push(own);
+        continue;
+      }
+      for (const e of own) merged.add(e);
+    }
+    if (merged.size > 0) lists.push(Int32Array.from([...merged].sort((a, b) => a - b)));
   }
   const empty: FuzzyResult = { first: 0, last: run.length, candidates: [], suggestions: [] };
   if (lists.length === 0) return empty;
@@ -381,26 +621,33 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: typeof D
   // keep the entities sharing the most tokens with the run (bounded work per question)
   const ranked = [...votes].sort((a, b) => b[1] - a[1] || a[0] - b[0]).slice(0, 200);
   const runNorms = run.map((t) => t.norm);
-  // each entity keeps its best alias by sim·(1 + covered)/(1 + |run|): a longer name that
-  // covers more of the run beats a short alias matching one word of it exactly
-  const scored: { num: number; sim: number; key: number; kind: number; used: boolean[]; alias: string }[] = [];
+  const runStop = runNorms.map(isStopWord);
+  const runContent = runStop.filter((x) => !x).length;
+  // each entity keeps its best alias by sim·(1 + covered)/(1 + |run|), counting content words:
+  // a longer name that covers more of the run beats a short alias matching one word of it exactly
+  const scored: { num: number; sim: number; key: number; kind: number; used: boolean[]; alias: string; match: MatchKind; suffix?: string; base?: string }[] = [];
   for (const [num] of ranked) {
     if (lex.isTypeEntity(num)) continue;
-    let best = { sim: 0, key: 0, kind: 1, used: [] as boolean[], alias: "" };
+    let best: (typeof scored)[number] | undefined;
     for (const [text, norm, kind] of lex.aliasRows(num)) {
       const at = norm.split(" ");
-      const s = spanSimilarity(runNorms, at, o.tokenMatch);
+      const s = spanSimilarity(runNorms, at, o.tokenMatch, weights, alts);
       // score only the covered part of the run: the span shrinks to the matched tokens
       const first = s.used.indexOf(true);
       if (first < 0) continue;
       const last = s.used.lastIndexOf(true) + 1;
-      const sub = spanSimilarity(runNorms.slice(first, last), at, o.tokenMatch);
+      const sub = spanSimilarity(runNorms.slice(first, last), at, o.tokenMatch, weights, alts.slice(first, last));
       const exact = runNorms.slice(first, last).join(" ") === norm;
       const sim = exact ? 1 : sub.sim * o.partialFactor;
-      const key = (sim * (1 + last - first)) / (1 + runNorms.length);
-      if (key > best.key || (key === best.key && kind < best.kind)) best = { sim, key, kind, used: s.used, alias: text };
+      let covered = 0;
+      for (let k = first; k < last; k++) if (!runStop[k]) covered++;
+      const key = (sim * (1 + covered)) / (1 + runContent);
+      const match: MatchKind = exact ? (kind === 0 ? "label" : "alias") : sub.how === "exact" ? "partial" : sub.how;
+      if (!best || key > best.key || (key === best.key && kind < best.kind)) {
+        best = { num, sim, key, kind, used: s.used, alias: text, match, ...(match === "derived" ? { suffix: sub.suffix ?? "", base: text } : {}) };
+      }
     }
-    if (best.sim > 0) scored.push({ num, sim: best.sim, key: best.key, kind: best.kind, used: best.used, alias: best.alias });
+    if (best && best.sim > 0) scored.push(best);
   }
   scored.sort((a, b) => b.key - a.key || b.sim - a.sim || a.num - b.num);
   const suggestions = scored.filter((s) => s.sim >= o.minSuggestion).slice(0, 3).map((s) => ({ num: s.num, similarity: s.sim, kind: s.kind }));
@@ -412,6 +659,6 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: typeof D
   const candidates = scored
     .filter((s) => s.sim >= o.minSimilarity && s.used.indexOf(true) >= first && s.used.lastIndexOf(true) + 1 <= last)
     .slice(0, o.maxFuzzyCandidates)
-    .map((s) => ({ num: s.num, similarity: s.sim, kind: s.kind, alias: s.alias }));
+    .map((s) => ({ num: s.num, similarity: s.sim, kind: s.kind, alias: s.alias, match: s.match, ...(s.suffix !== undefined ? { derivation: { suffix: s.suffix, base: s.base! } } : {}) }));
   return { first, last, candidates, suggestions };
 }

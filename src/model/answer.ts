@@ -9,10 +9,26 @@ export interface EntityRef {
   readonly label: string;
 }
 
+/**
+ * How a mention's words matched an entity (additive): its label or another alias (exactly or by
+ * stem), a derived form of one of its name's words ("Braskian" ~ Brask), part of a longer name
+ * phrase or some of its name's words ("the Kingdom of Brask", "Quell"), a misspelling, or the
+ * entity's description ("the survey ship built in 1994").
+ */
+export type MatchKind = "label" | "alias" | "derived" | "partial" | "fuzzy" | "description";
+
+/** A derived form's morphology (additive): the suffix stripped from the word and the name it came from. */
+export interface Derivation {
+  readonly suffix: string;
+  readonly base: string;
+}
+
 /** A ranked alternative for a mention. */
 export interface Alternative extends EntityRef {
   /** Calibrated probability that the mention names this entity, 0..1. */
   readonly confidence: number;
+  /** Additive: how the mention's words matched this entity. */
+  readonly match?: MatchKind;
 }
 
 /** A span of the question linked to a catalog entity. */
@@ -31,6 +47,12 @@ export interface Mention {
   readonly alternatives: readonly Alternative[];
   /** True when the user pinned this link (`--pin`). */
   readonly pinned?: boolean;
+  /** Additive: how the words matched the chosen entity (see {@link MatchKind}). */
+  readonly match?: MatchKind;
+  /** Additive: for `match: "derived"`, the morphology. */
+  readonly derivation?: Derivation;
+  /** Additive: the second element of a hyphenated compound the name heads ("based" in "Vask-based"). */
+  readonly compound?: string;
 }
 
 /** One walked edge of a path. */
@@ -196,6 +218,21 @@ export interface ReadingDoc {
   readonly ignored: readonly string[];
 }
 
+/**
+ * Additive (`ask --json` `notFound`): words that name something the catalog does not hold — a
+ * linked mention whose best confidence is below the linker's floor (`linked: true`; it stays in
+ * `mentions`), or a name-like span nothing matched (`linked: false`). `nearest` is the closest
+ * catalog name with the mention's confidence for it, or (unlinked) its string similarity; null
+ * when there is none.
+ */
+export interface NotFoundDoc {
+  readonly text: string;
+  readonly start: number;
+  readonly end: number;
+  readonly linked: boolean;
+  readonly nearest: (EntityRef & { readonly confidence?: number; readonly similarity?: number }) | null;
+}
+
 /** One document of `ask --json`. */
 export interface AskResult {
   readonly question: string;
@@ -217,6 +254,8 @@ export interface AskResult {
   readonly values?: readonly ValueDoc[];
   /** Additive: how the question was read (a query graph; README "Reading"). */
   readonly reading?: ReadingDoc;
+  /** Additive: names the catalog does not hold (see {@link NotFoundDoc}). */
+  readonly notFound?: readonly NotFoundDoc[];
 }
 
 /** The reminder printed with every answer set. */

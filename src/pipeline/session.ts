@@ -7,7 +7,7 @@
  */
 import { Catalog, NumericColumns, demoCatalogPath } from "../catalog/index.js";
 import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type QueryGraph, type QuestionModel } from "../analysis/index.js";
-import { Linker, linkQuestion, type LinkResult, type Pin } from "../linking/index.js";
+import { Linker, linkQuestion, notFoundNote, type LinkResult, type Pin } from "../linking/index.js";
 import { DISCLAIMER, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { basicVerdict, readingVerdict } from "./verdict.js";
@@ -197,7 +197,8 @@ export class Session {
       answerTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
       answers,
       verdict,
-      notes: [...limitNotes, ...analysis.notes, ...ranked.notes],
+      notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...analysis.notes, ...ranked.notes],
+      ...(link.notFound.length > 0 ? { notFound: link.notFound } : {}),
       disclaimer: DISCLAIMER,
       reading: readingDoc(reading, analysis, this.model, ranked.matched !== undefined ? { matched: ranked.matched, fallback: ranked.fallback === true } : { matched: null, fallback: false }),
       ...(conditions ? { conditions: conditionDocs(cond.conditions, conditions) } : {}),
@@ -328,8 +329,11 @@ function mentionDocs(analysis: Analysis): Mention[] {
     end: m.end,
     entity: { id: m.entity.id, label: m.entity.label },
     confidence: m.confidence,
-    alternatives: m.alternatives.map((a) => ({ id: a.id, label: a.label, confidence: a.confidence })),
+    alternatives: m.alternatives.map((a) => ({ id: a.id, label: a.label, confidence: a.confidence, ...(a.match ? { match: a.match } : {}) })),
     ...(m.pinned ? { pinned: true } : {}),
+    ...(m.match && !m.pinned ? { match: m.match } : {}),
+    ...(m.derivation ? { derivation: m.derivation } : {}),
+    ...(m.compound ? { compound: m.compound } : {}),
   }));
 }
 
