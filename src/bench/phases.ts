@@ -3,12 +3,13 @@
  * maxrss) is its own: load, index, ask, ppr. Each returns a JSON-shaped record.
  */
 import { spawnSync } from "node:child_process";
+import { createHash } from "node:crypto";
 import { appendFileSync, existsSync, mkdirSync, rmSync, writeFileSync, readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { loadavg } from "node:os";
 import { Catalog, loadFiles } from "../catalog/index.js";
 import { generateCatalog } from "../gen/index.js";
-import { parseQuestionFile, rankOfExpected, Session } from "../pipeline/index.js";
+import { LoadPreparation, parseQuestionFile, rankOfExpected, Session } from "../pipeline/index.js";
 import {
   clueSeeds,
   mulberry32,
@@ -25,7 +26,7 @@ import {
 } from "../ranking/index.js";
 import { IGRAPH_SCRIPT, findIgraph } from "./igraph.js";
 import { powerLawEdges } from "./graph.js";
-import { linkQuestion } from "../linking/index.js";
+import { LexicalSnapshot, linkQuestion } from "../linking/index.js";
 import { analyze } from "../analysis/index.js";
 
 /** Peak resident set size of this process so far, in MiB. */
@@ -69,18 +70,34 @@ export function phaseGenerate(work: string, entities: number, edges: number, que
   return { seconds: (performance.now() - t0) / 1000, files: r.files, edgeLines: r.edges, questions: r.questionCount, maxDegree: r.maxDegree };
 }
 
-/** Loads the generated files into a fresh catalog: throughput and peak memory. */
+/**
+ * Loads the generated files into a fresh catalog as `tiepoint load DIR/*.nt` does (files in
+ * name order, so edges.nt comes before the entities it names), with the question indexes
+ * prepared from the rows as they are written: throughput including preparation, and peak memory.
+ */
 export function phaseLoad(work: string): Record<string, unknown> {
   const p = workPaths(work);
-  for (const f of [p.db, p.db + "-wal", p.db + "-shm", snapshotPath(p.db)]) rmSync(f, { force: true });
-  const files = JSON.parse(readFileSync(join(p.gen, readdirDone(p.gen)), "utf8")) as string[];
+  for (const f of [p.db, p.db + "-wal", p.db + "-shm", snapshotPath(p.db), LexicalSnapshot.pathFor(p.db)]) rmSync(f, { force: true });
+  const files = (JSON.parse(readFileSync(join(p.gen, readdirDone(p.gen)), "utf8")) as string[]).sort();
   const cat = Catalog.open(p.db, { create: true });
+  const sink = new LoadPreparation();
   const t0 = performance.now();
-  const report = loadFiles(cat, files);
+  const report = loadFiles(cat, files, { sink });
   const seconds = (performance.now() - t0) / 1000;
   const counts = cat.counts();
   cat.close();
-  return { seconds, statements: report.statements, triplesPerSecond: report.statements / seconds, edges: counts.edges, entities: counts.entities, peakMiB: peakMiB(), dbMiB: statSync(p.db).size / 2 ** 20 };
+  return {
+    seconds,
+    statements: report.statements,
+    triplesPerSecond: report.statements / seconds,
+    prepared: report.prepared,
+    prepareFinishSeconds: sink.finishMs / 1000,
+    edges: counts.edges,
+    entities: counts.entities,
+    peakMiB: peakMiB(),
+    dbMiB: statSync(p.db).size / 2 ** 20,
+    loadAverage: loadAverage(),
+  };
 }
 
 function readdirDone(dir: string): string {
@@ -90,7 +107,10 @@ function readdirDone(dir: string): string {
   return done;
 }
 
-/** Index build from SQLite, snapshot write and snapshot load times. */
+/**
+ * The old way of preparing, for comparison: index build from SQLite (read back), snapshot
+ * write, name index build from SQLite; then snapshot load times.
+ */
 export function phaseIndex(work: string): Record<string, unknown> {
   const p = workPaths(work);
   const cat = Catalog.open(p.db, { readonly: true });
@@ -101,6 +121,9 @@ export function phaseIndex(work: string): Record<string, unknown> {
   const t1 = performance.now();
   writeSnapshot(file, index, cat.version());
   const save = (performance.now() - t1) / 1000;
+  const t3 = performance.now();
+  LexicalSnapshot.build(cat);
+  const lexical = (performance.now() - t3) / 1000;
   const loads: number[] = [];
   for (let i = 0; i < 3; i++) {
     const t2 = performance.now();
@@ -110,7 +133,7 @@ export function phaseIndex(work: string): Record<string, unknown> {
   }
   const peak = peakMiB();
   cat.close();
-  return { buildSeconds: build, saveSeconds: save, snapshotLoadSeconds: quantiles(loads).median, snapshotMiB: statSync(file).size / 2 ** 20, nodes: index.nodeCount, edges: index.edgeCount, peakMiB: peak };
+  return { buildSeconds: build, saveSeconds: save, lexicalBuildSeconds: lexical, readBackSeconds: build + save + lexical, snapshotLoadSeconds: quantiles(loads).median, snapshotMiB: statSync(file).size / 2 ** 20, nodes: index.nodeCount, edges: index.edgeCount, peakMiB: peak };
 }
 
 /** Per-question latency, Hits@1 and peak memory over the generated questions, through one Session. */
@@ -130,7 +153,8 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
   const totals: number[] = [];
   const cpu: number[] = [];
   const loadBefore = loadAverage();
-  const stages = { link: [] as number[], analyze: [] as number[], rank: [] as number[], explain: [] as number[] };
+  const stages = { link: [] as number[], analyze: [] as number[], rank: [] as number[], explain: [] as number[], serialise: [] as number[] };
+  const digest = createHash("sha256");
   let hits = 0;
   let withExpected = 0;
   if (warmUp.length > 0) for (const w of warmUp) session.ask(w.question);
@@ -139,9 +163,14 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
     const t = performance.now();
     const c = process.cpuUsage();
     const out = session.ask(item.question);
-    totals.push(performance.now() - t);
+    const ts = performance.now();
+    const json = JSON.stringify(out.result);
+    const te = performance.now();
+    totals.push(te - t);
     cpu.push(cpuMs(c));
-    for (const k of Object.keys(stages) as (keyof typeof stages)[]) stages[k].push(out.timings[k]);
+    stages.serialise.push(te - ts);
+    for (const k of ["link", "analyze", "rank", "explain"] as const) stages[k].push(out.timings[k]);
+    digest.update(resultDigestText(json));
     if (item.expected.length > 0) {
       withExpected++;
       if (rankOfExpected(out.result, item.expected) === 1) hits++;
@@ -157,28 +186,47 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
     latencyMs: quantiles(totals),
     cpuMs: quantiles(cpu),
     loadAverage: [loadBefore, loadAverage()],
-    stageMedianMs: { link: med(stages.link), analyze: med(stages.analyze), rank: med(stages.rank), explain: med(stages.explain) },
+    stageMedianMs: { link: med(stages.link), analyze: med(stages.analyze), rank: med(stages.rank), explain: med(stages.explain), serialise: med(stages.serialise) },
+    stageP95Ms: Object.fromEntries(Object.entries(stages).map(([k, xs]) => [k, quantiles(xs).p95])),
+    digest: digest.digest("hex").slice(0, 16),
     hits1: withExpected > 0 ? hits / withExpected : null,
     withExpected,
     peakMiB: peak,
   };
 }
 
-/** Process start to first answer: the real CLI, spawned, timed to exit (warm snapshot). */
+/**
+ * A question's result as digested by the bench: its JSON with every fractional number
+ * rounded to 9 decimals (scores equal to 1e-9 digest alike), so two builds can be compared.
+ */
+export function resultDigestText(json: string): string {
+  return JSON.stringify(JSON.parse(json), (_k, v: unknown) => (typeof v === "number" && !Number.isInteger(v) ? v.toFixed(9) : v)) + "\n";
+}
+
+/**
+ * Start-up, the real CLI spawned and timed to exit (warm snapshot): process start to first
+ * answer (`ask --json`), and `show` of one entity (median of 3 runs each).
+ */
 export function phaseReady(work: string, cli: string): Record<string, unknown> {
   const p = workPaths(work);
   const q = parseQuestionFile(p.questions)[0];
   if (!q) return { skipped: "no question" };
-  const times: number[] = [];
-  let status: number | null = null;
-  for (let i = 0; i < 3; i++) {
-    const t = performance.now();
-    const r = spawnSync(process.execPath, [cli, "ask", q.question, "--db", p.db, "--json"], { encoding: "utf8", maxBuffer: 1 << 26 });
-    times.push((performance.now() - t) / 1000);
-    status = r.status;
-    if (r.status !== 0) return { error: (r.stderr ?? "").split("\n")[0], status };
-  }
-  return { seconds: quantiles(times).median, runs: times, status };
+  const timed = (args: string[]): { seconds: number; runs: number[] } | { error: string; status: number | null } => {
+    const times: number[] = [];
+    for (let i = 0; i < 3; i++) {
+      const t = performance.now();
+      const r = spawnSync(process.execPath, [cli, ...args], { encoding: "utf8", maxBuffer: 1 << 26 });
+      times.push((performance.now() - t) / 1000);
+      if (r.status !== 0) return { error: (r.stderr ?? "").split("\n")[0]!, status: r.status };
+    }
+    return { seconds: quantiles(times).median, runs: times };
+  };
+  const cat = Catalog.open(p.db, { readonly: true });
+  const entity = cat.ref(Math.max(1, Math.floor(cat.maxEntityNum() / 2))).id;
+  cat.close();
+  const ask = timed(["ask", q.question, "--db", p.db, "--json"]);
+  const show = timed(["show", entity, "--db", p.db]);
+  return { ...ask, show };
 }
 
 /** Top-k nodes (seeds excluded), best first, ties by node. */
