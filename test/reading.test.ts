@@ -22,11 +22,13 @@ const LINES = [
   { kind: "relation", id: "r:homePort", label: "home port" },
   { kind: "attribute", id: "a:depth", label: "depth", unit: "m" },
   { kind: "attribute", id: "a:length", label: "length", unit: "m" },
+  { kind: "attribute", id: "a:callSign", label: "call sign" },
+  { kind: "attribute", id: "a:retired", label: "decommissioned" },
   { id: "p:ada", label: "Ada Quell", types: ["t:Person"], relations: { "r:commands": ["v:skell"] } },
   { id: "p:bo", label: "Bo Tarrant", types: ["t:Person"], relations: { "r:commands": ["v:morrow"] } },
-  { id: "v:skell", label: "Skell", types: ["t:Vessel"], relations: { "r:homePort": ["port:brask"] }, attributes: { "a:length": 41 } },
-  { id: "v:morrow", label: "Morrow", types: ["t:Vessel"], relations: { "r:homePort": ["port:brask"] }, attributes: { "a:length": 63 } },
-  { id: "v:lune", label: "Lune", types: ["t:Vessel"], relations: { "r:homePort": ["port:ottery"] }, attributes: { "a:length": 28 } },
+  { id: "v:skell", label: "Skell", types: ["t:Vessel"], relations: { "r:homePort": ["port:brask"] }, attributes: { "a:length": 41, "a:callSign": "QX-41", "a:retired": "false" } },
+  { id: "v:morrow", label: "Morrow", types: ["t:Vessel"], relations: { "r:homePort": ["port:brask"] }, attributes: { "a:length": 63, "a:callSign": "QX-63", "a:retired": "true" } },
+  { id: "v:lune", label: "Lune", types: ["t:Vessel"], relations: { "r:homePort": ["port:ottery"] }, attributes: { "a:length": 28, "a:callSign": "RL-28", "a:retired": "true" } },
   { id: "port:brask", label: "Brask", types: ["t:Port"] },
   { id: "port:ottery", label: "Ottery", types: ["t:Port"] },
   { id: "tr:harrow", label: "Harrow Trench", types: ["t:Trench"], attributes: { "a:depth": 7410 } },
@@ -96,6 +98,21 @@ describe("the reading of a question", () => {
     expect(r.reading!.fallback).toBe(true);
     expect(r.reading!.matched).toBe(0);
     expect(r.notes!.some((n) => /PageRank alone/.test(n))).toBe(true);
+  });
+
+  it("reads a text value and a boolean attribute as literal conditions (phenomenon 8)", () => {
+    // call signs: Skell QX-41, Morrow QX-63, Lune RL-28; decommissioned: Morrow and Lune
+    const r = session.ask("Which vessel has the call sign QX-41?").result;
+    expect(r.answers[0]!.id).toBe("v:skell");
+    expect(r.conditions![0]).toMatchObject({ kind: "literal", attribute: { id: "a:callSign" }, operator: "=", values: ["QX-41"] });
+    expect(r.verdict.status).toBe("unique");
+    const set = session.ask("Which vessels are decommissioned?").result;
+    expect(set.answers.slice(0, 2).map((a) => a.id).sort()).toEqual(["v:lune", "v:morrow"]);
+    expect(set.verdict.status).toBe("tied");
+    const not = session.ask("Which vessels based in Brask are not decommissioned?").result;
+    expect(not.answers[0]!.id).toBe("v:skell");
+    // the value question reads text attributes too
+    expect(session.ask("What is the call sign of the Lune?").result.values!.map((v) => v.value)).toEqual(["RL-28"]);
   });
 
   it("lists the words it did not use (phenomenon 12)", () => {

@@ -79,6 +79,10 @@ export interface ModelAttribute {
 /** The catalog's attribute vocabulary (attributes with numeric values), built once per session. */
 export interface AttributeModel {
   readonly attributes: readonly ModelAttribute[];
+  /** Attributes with text (non-numeric) values: codes, names, symbols, booleans. @default none */
+  readonly textAttributes?: readonly ModelAttribute[];
+  /** The stored values of a text attribute equal to one of `texts` (ignoring case). @default none */
+  readonly textValues?: (predicate: number, texts: readonly string[]) => readonly string[];
 }
 
 /** The chosen attribute of a condition (JSON-shaped). */
@@ -152,13 +156,23 @@ export interface ExclusionCondition extends ConditionBase {
   readonly relations: readonly number[];
 }
 
+/** A literal condition on a text attribute: keep candidates whose value equals `value` (negated: differs). */
+export interface LiteralCondition extends ConditionBase {
+  readonly kind: "literal";
+  /** The stored value to match (as stored). */
+  readonly value: string;
+  readonly negated: boolean;
+  /** The attribute (one choice). */
+  readonly choices: readonly AttributeChoice[];
+}
+
 /** A count question: the answer is the number of entities that fit. */
 export interface CountCondition extends ConditionBase {
   readonly kind: "count";
 }
 
 /** One recognised condition. */
-export type Condition = ComparisonCondition | SuperlativeCondition | ExclusionCondition | CountCondition;
+export type Condition = ComparisonCondition | SuperlativeCondition | ExclusionCondition | CountCondition | LiteralCondition;
 
 /** The result of {@link detectConditions}. */
 export interface ConditionAnalysis {
@@ -203,8 +217,17 @@ export function buildAttributeModel(cat: Catalog): AttributeModel {
   const summary = new Map(cat.attributeSummary().map((s) => [s.num, s]));
   const units = cat.predicateUnits();
   const attributes: ModelAttribute[] = [];
+  const textAttributes: ModelAttribute[] = [];
   for (const p of cat.predicates()) {
     const s = summary.get(p.num);
+    if (s && s.values > s.numeric) {
+      const surfaces: string[][] = [];
+      for (const t of [p.label, ...p.aliases]) {
+        const st = surfaceStems(t);
+        if (st.length > 0 && !surfaces.some((o) => o.join(" ") === st.join(" "))) surfaces.push(st);
+      }
+      textAttributes.push({ num: p.num, id: p.id, label: p.label, surfaces, unitStems: [], temporal: false });
+    }
     if (!s || s.numeric === 0) continue;
     const unit = units.get(p.id);
     const surfaces: string[][] = [];
@@ -216,7 +239,7 @@ export function buildAttributeModel(cat: Catalog): AttributeModel {
     const temporal = s.dateLike * 2 > s.numeric || (unit !== undefined && /^(year|years|date|yr)$/i.test(unit.trim()));
     attributes.push({ num: p.num, id: p.id, label: p.label, ...(unit !== undefined ? { unit } : {}), surfaces, unitStems, temporal });
   }
-  return { attributes };
+  return { attributes, textAttributes, textValues: (predicate, texts) => cat.attributeValuesIn(predicate, texts) };
 }
 
 /** Operator phrases right before a quantity (normalised words, longest first). */
@@ -450,6 +473,11 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
     }
   }
 
+  // --- literal conditions on text attributes ----------------------------------------------
+  const literal = detectLiterals(analysis, ws, inMention, used, attributes, o);
+  for (const c of literal.conditions) conditions.push(c);
+  for (const mi of literal.mentions) numeric.add(mi);
+
   for (const c of conditions) {
     if ((c.kind === "comparison" || c.kind === "superlative") && c.choices.length > 0) for (const k of c.choices[0]!.wordIndexes) used.add(k);
   }
@@ -472,7 +500,10 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   const usedText = new Set([...used].map((k) => ws[k]!.text));
   const relationCues = analysis.relationCues.filter((c) => !c.words.every((w) => usedText.has(w)));
   const clues = analysis.clues.filter((c) => !excluded.has(c.mention) && !numeric.has(c.mention));
-  for (const mi of numeric) notes.push(`"${analysis.mentions[mi]!.text}" is read as part of a number, not as ${analysis.mentions[mi]!.entity.label}`);
+  for (const mi of numeric) {
+    const asValue = literal.mentions.has(mi);
+    notes.push(`"${analysis.mentions[mi]!.text}" is read as ${asValue ? "an attribute value" : "part of a number"}, not as ${analysis.mentions[mi]!.entity.label}`);
+  }
   // notes about words the conditions explain ("1980" matched no entity) are dropped
   const usedSpans = [...used].map((k) => ws[k]!);
   const explained = (text: string) =>
@@ -722,7 +753,10 @@ function directQuestion(
     choices = chooseAttributes(ws, inMention, used, [wh + 1], [], attributes, o, g.temporal, g.dimension);
   } else {
     if (!COPULAS.has(ws[wh + 1]?.norm ?? "")) return {};
-    choices = chooseAttributes(ws, inMention, used, [wh + 2], [], attributes, o, false);
+    // text attributes answer value questions too ("what is the demonym of X")
+    const numeric = new Set(attributes.attributes.map((a) => a.num));
+    const all: AttributeModel = { attributes: [...attributes.attributes, ...(attributes.textAttributes ?? []).filter((a) => !numeric.has(a.num))] };
+    choices = chooseAttributes(ws, inMention, used, [wh + 2], [], all, o, false);
     // every content word outside the clue is a word of the attribute
     const best = choices[0];
     if (!best || best.score < 0.75) return {};
@@ -736,4 +770,120 @@ function directQuestion(
   const m = analysis.mentions[mi]!;
   const last = ws.length - 1;
   return { value: { mention: mi, node: m.num, choices, words: question.slice(ws[from]!.start, ws[last]!.end), start: ws[from]!.start, end: ws[last]!.end } };
+}
+
+/** Negation words before a predicate adjective or a value (Quirk et al. 1985 §10.54 ff.; contractions normalised without the apostrophe). */
+const NEGATIONS: ReadonlySet<string> = new Set(["not", "never", "isnt", "arent", "wasnt", "werent", "dont", "doesnt", "didnt", "no"]);
+
+/** Stored values that read as booleans (xsd:boolean's lexical forms, W3C XML Schema 1.1 Part 2 §3.3.2). */
+const BOOLEAN_TRUE: ReadonlySet<string> = new Set(["true", "1"]);
+
+/**
+ * Literal conditions on text attributes: an attribute named by its label, alias (stems,
+ * score ≥ 0.75 as for relation cues) and either (a) a value written in the question that is
+ * one of the attribute's stored values ("whose demonym is *Motswana*", "the internet domain
+ * *.ly*", "the symbol *₪*": the question's whitespace-separated tokens, 1 to 4 in a row,
+ * stripped of sentence punctuation, looked up among the stored values ignoring case), or (b)
+ * a boolean attribute used as a predicate adjective ("which countries are *landlocked*"):
+ * value true, false after a negation word within two words before it. A mention over the
+ * value stops being a clue (it is the value).
+ */
+function detectLiterals(
+  analysis: Analysis,
+  ws: readonly Word[],
+  inMention: readonly boolean[],
+  used: ReadonlySet<number>,
+  attributes: AttributeModel,
+  o: Required<ConditionOptions>,
+): { conditions: LiteralCondition[]; mentions: Set<number> } {
+  const out: LiteralCondition[] = [];
+  const mentions = new Set<number>();
+  const lookup = attributes.textValues;
+  const texts = attributes.textAttributes ?? [];
+  if (!lookup || texts.length === 0) return { conditions: out, mentions };
+  const question = analysis.question;
+  // whitespace tokens with offsets, sentence punctuation stripped at both ends (a leading "." stays: ".ly")
+  const toks: { text: string; start: number; end: number }[] = [];
+  for (const m of question.matchAll(/\S+/g)) {
+    let t = m[0];
+    let start = m.index!;
+    const lead = /^["'“‘(\[]+/.exec(t)?.[0].length ?? 0;
+    t = t.slice(lead);
+    start += lead;
+    t = t.replace(/["'”’)\]]+$/, "").replace(/[?!,;:]+$/, "").replace(/["'”’)\]]+$/, "");
+    if (t !== "") toks.push({ text: t, start, end: start + t.length });
+  }
+  const taken: { start: number; end: number }[] = [];
+  for (const a of texts) {
+    // the attribute's words among the free words
+    let best = 0;
+    let at: number[] = [];
+    for (const surface of a.surfaces) {
+      let sum = 0;
+      const hit: number[] = [];
+      for (const st of surface) {
+        let c = 0;
+        let ck = -1;
+        ws.forEach((w, k) => {
+          if (inMention[k] || used.has(k) || isFunctionWord(w.norm)) return;
+          const x = credit(st, w.stem, o);
+          if (x > c) {
+            c = x;
+            ck = k;
+          }
+        });
+        sum += c;
+        if (ck >= 0) hit.push(ck);
+      }
+      const sc = surface.length > 0 ? sum / surface.length : 0;
+      if (sc > best) {
+        best = sc;
+        at = hit;
+      }
+    }
+    if (best < 0.75 || at.length === 0) continue;
+    const first = Math.min(...at);
+    const last = Math.max(...at);
+    if (taken.some((t) => ws[first]!.start < t.end && ws[last]!.end > t.start)) continue;
+    const choice: AttributeChoice = { num: a.num, id: a.id, label: a.label, score: best, wordIndexes: at };
+    const negatedBefore = (k: number) => [k - 1, k - 2].some((j) => j >= 0 && NEGATIONS.has(ws[j]!.norm));
+    // (a) a stored value written in the question, outside the attribute's words
+    const grams: { text: string; start: number; end: number }[] = [];
+    for (let i = 0; i < toks.length; i++) {
+      for (let n = 1; n <= 4 && i + n <= toks.length; n++) {
+        const g = { text: question.slice(toks[i]!.start, toks[i + n - 1]!.end), start: toks[i]!.start, end: toks[i + n - 1]!.end };
+        if (g.end > ws[first]!.start && g.start < ws[last]!.end) continue;
+        grams.push(g);
+        if (g.text.endsWith(".")) grams.push({ ...g, text: g.text.slice(0, -1), end: g.end - 1 });
+      }
+    }
+    const found = new Set(lookup(a.num, grams.map((g) => g.text)).map((v) => v.toLowerCase()));
+    const stored = lookup(a.num, grams.map((g) => g.text));
+    const matches = grams.filter((g) => found.has(g.text.toLowerCase())).sort((x, y) => y.text.length - x.text.length || x.start - y.start);
+    const boolValues = lookup(a.num, ["true", "false"]);
+    const isBoolean = boolValues.length > 0;
+    if (matches.length > 0 && !(isBoolean && /^(true|false)$/i.test(matches[0]!.text))) {
+      const g = matches[0]!;
+      const value = stored.find((v) => v.toLowerCase() === g.text.toLowerCase())!;
+      const valueWord = ws.findIndex((w) => w.start >= g.start);
+      const negated = valueWord >= 0 && negatedBefore(valueWord) && valueWord - 2 >= last;
+      const start = Math.min(ws[first]!.start, g.start);
+      const end = Math.max(ws[last]!.end, g.end);
+      analysis.mentions.forEach((m, mi) => {
+        if (m.start < g.end && m.end > g.start) mentions.add(mi);
+      });
+      taken.push({ start, end });
+      out.push({ kind: "literal", value, negated, choices: [choice], words: question.slice(start, end), start, end });
+      continue;
+    }
+    // (b) a boolean attribute as a predicate adjective
+    if (isBoolean) {
+      const trueValue = boolValues.find((v) => BOOLEAN_TRUE.has(v.toLowerCase())) ?? "true";
+      const negated = negatedBefore(first);
+      const from = negated ? ws.slice(0, first).map((w, j) => j).filter((j) => j >= first - 2 && NEGATIONS.has(ws[j]!.norm))[0]! : first;
+      taken.push({ start: ws[from]!.start, end: ws[last]!.end });
+      out.push({ kind: "literal", value: trueValue, negated, choices: [choice], words: question.slice(ws[from]!.start, ws[last]!.end), start: ws[from]!.start, end: ws[last]!.end });
+    }
+  }
+  return { conditions: out, mentions };
 }

@@ -359,6 +359,7 @@ export function constraintTexts(g: QueryGraph, analysis: Analysis): string[] {
     if (c.kind === "comparison") out.push(`${attr} ${c.operator} ${c.values.join(" and ")}`);
     else if (c.kind === "superlative") out.push(`${c.position > 1 ? `place ${c.position} ` : ""}${c.order === "max" ? "largest" : "smallest"} by ${attr}`);
     else if (c.kind === "exclusion") out.push(`not ${c.label}${c.mode === "not" ? " (nor what is linked to it)" : ""}`);
+    else if (c.kind === "literal") out.push(`${attr} ${c.negated ? "!=" : "="} ${c.value}`);
     else out.push("count");
   }
   if (g.value) out.push(`value: ${g.value.choices[0]?.label ?? "no attribute"} of ${analysis.mentions[g.value.mention]?.entity.label ?? "?"}`);

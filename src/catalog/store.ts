@@ -486,6 +486,30 @@ export class Catalog {
     return new Map(rows.map((r) => [r.key.slice(5), r.value]));
   }
 
+  /** The stored values of `predicate` equal to one of `texts`, ignoring case (as stored, distinct). */
+  attributeValuesIn(predicate: number, texts: readonly string[]): string[] {
+    const want = [...new Set(texts.map((t) => t.toLowerCase()))];
+    if (want.length === 0) return [];
+    const out: string[] = [];
+    // bounded batches of bound parameters (SQLite's default limit is 32,766; common practice to stay far below)
+    for (let i = 0; i < want.length; i += 200) {
+      const part = want.slice(i, i + 200);
+      const rows = this.db.prepare(`SELECT DISTINCT value FROM attribute WHERE predicate = ? AND lower(value) IN (${part.map(() => "?").join(",")})`).all(predicate, ...part) as { value: string }[];
+      for (const r of rows) out.push(r.value);
+    }
+    return out;
+  }
+
+  /** Entities with the literal `value` (exact, as stored) of `predicate`. */
+  entitiesWithValue(predicate: number, value: string): number[] {
+    return (this.stmt("SELECT entity FROM attribute WHERE predicate = ? AND value = ? ORDER BY entity").all(predicate, value) as { entity: number }[]).map((r) => r.entity);
+  }
+
+  /** The literal values of `predicate` on `entity`, as stored. */
+  attributeTexts(entity: number, predicate: number): string[] {
+    return (this.stmt("SELECT value FROM attribute WHERE entity = ? AND predicate = ? ORDER BY value").all(entity, predicate) as { value: string }[]).map((r) => r.value);
+  }
+
   /**
    * Per predicate used with literals: how many values, how many read as numbers, and how many
    * of those look like years or dates. Read from the copy every load stores in `meta`

@@ -61,6 +61,8 @@ export function conditionDocs(conditions: readonly Condition[], outcome: Conditi
         return { kind: c.kind, ...base, attribute, order: c.order, position: c.position, applied: attribute !== null, ...counts };
       case "exclusion":
         return { kind: c.kind, ...base, entity: { id: c.id, label: c.label }, mode: c.mode, applied: true, ...counts };
+      case "literal":
+        return { kind: c.kind, ...base, attribute: { id: c.choices[0]!.id, label: c.choices[0]!.label }, operator: c.negated ? "!=" : "=", values: [c.value], applied: true, ...counts };
       default:
         return { kind: c.kind, ...base, applied: true, ...counts };
     }
@@ -81,12 +83,14 @@ export function conditionSteps(node: number, conditions: readonly Condition[], o
       text = ch.values.length === 0 ? `${a?.label ?? "attribute"}: no value, so not ${c.operator} ${c.values.join(" and ")}` : `${a?.label}: ${shown}${unit} ${ch.satisfied ? "satisfies" : "fails"} ${c.operator} ${c.values.join(" and ")}`;
     } else if (c.kind === "superlative") {
       text = ch.values.length === 0 ? `${a?.label ?? "attribute"}: no value, so not ordered` : `${a?.label}: ${shown}${unit}, place ${ch.place} by ${c.order === "max" ? "largest" : "smallest"} first`;
+    } else if (c.kind === "literal") {
+      text = `${c.choices[0]!.label}: ${ch.texts?.join(", ") || "no value"} ${ch.satisfied ? "satisfies" : "fails"} ${c.negated ? "!=" : "="} ${c.value}`;
     } else if (c.kind === "exclusion") {
       text = ch.satisfied ? `not ${c.label} and not linked to it` : `excluded: ${ch.excludedBy === node ? "is" : "is linked to"} ${c.label}`;
     } else text = "counted";
     return {
       condition: ch.condition,
-      ...(a ? { attribute: a.id, label: a.label } : {}),
+      ...(a ? { attribute: a.id, label: a.label } : c.kind === "literal" ? { attribute: c.choices[0]!.id, label: c.choices[0]!.label } : {}),
       values: ch.values,
       text,
       satisfied: ch.satisfied,

@@ -143,6 +143,10 @@ export class Session {
       get attributes() {
         return session.attributes().attributes;
       },
+      get textAttributes() {
+        return session.attributes().textAttributes;
+      },
+      textValues: (p: number, texts: readonly string[]) => session.catalog.attributeValuesIn(p, texts),
     };
     const cond = detectConditions(analyze(question, link, this.model), this.model, lazyAttributes);
     const analysis = cond.analysis;
@@ -153,7 +157,11 @@ export class Session {
       return this.directOutcome(question, analysis, reading, direct, limitNotes, top, { link: t1 - t0, analyze: t2 - t1 }, t0);
     }
     // numeric values through per-predicate columns (one statement per attribute, kept by the session)
-    const lookup = { numbers: (e: number, p: number) => this.numericColumns.numbers(e, p) };
+    const lookup = {
+      numbers: (e: number, p: number) => this.numericColumns.numbers(e, p),
+      texts: (e: number, p: number) => this.catalog.attributeTexts(e, p),
+      entitiesWith: (p: number, v: string) => this.catalog.entitiesWithValue(p, v),
+    };
     const withConditions = (r: Ranked) => (cond.conditions.length > 0 ? applyConditions(analysis, r, cond.conditions, this.index, lookup).ranked : r);
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();

@@ -36,6 +36,8 @@ function conditionText(c: ConditionDoc): string {
       return `${c.attribute ? attr : "(" + attr + ")"} ${c.operator} ${(c.values ?? []).join(" and ")}  ["${c.words}"]`;
     case "superlative":
       return `${c.position !== undefined && c.position > 1 ? `place ${c.position} ` : ""}${c.order === "min" ? "smallest" : "largest"} ${c.attribute ? attr : "(" + attr + ")"}  ["${c.words}"]`;
+    case "literal":
+      return `${c.attribute?.label ?? ""} ${c.operator ?? "="} ${(c.values ?? []).join(", ")}  ["${c.words}"]`;
     case "exclusion":
       return `not ${c.entity?.label ?? ""} [${c.entity?.id ?? ""}]${c.mode === "not" ? " nor what is linked to it" : ""}  ["${c.words}"]`;
     default:

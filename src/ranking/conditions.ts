@@ -44,6 +44,10 @@ export const DEFAULTS = { maxHops: 3, maxVisits: 200000 } as const;
 export interface AttributeLookup {
   /** Numeric values of `predicate` on `entity`, smallest first. */
   numbers(entity: number, predicate: number): readonly number[];
+  /** Text values of `predicate` on `entity`, as stored (literal conditions). @default none */
+  texts?(entity: number, predicate: number): readonly string[];
+  /** Entities with the literal `value` of `predicate` (a literal condition without a clue). @default none */
+  entitiesWith?(predicate: number, value: string): readonly number[];
 }
 
 /** How one condition went for one candidate. */
@@ -60,6 +64,8 @@ export interface ConditionCheck {
   readonly place?: number;
   /** For exclusions: the excluded entity it is, or is linked to. */
   readonly excludedBy?: number;
+  /** For literal conditions: the text values read. */
+  readonly texts?: readonly string[];
 }
 
 /** A condition after the attribute was chosen. */
@@ -148,7 +154,14 @@ export function applyConditions(
   let cands: RankedCandidate[] = [...ranked.candidates];
   let fit: Set<number>;
   const usable = conditions.some((c) => c.kind === "count" || c.kind === "exclusion" || c.choices.length > 0);
-  if (ranked.clues.length === 0 && typeSet.size > 0 && usable) {
+  const literalSeed = conditions.find((c) => c.kind === "literal" && !c.negated);
+  if (ranked.clues.length === 0 && literalSeed?.kind === "literal" && lookup.entitiesWith) {
+    // no clue: the entities that carry the asked value (of the expected type) are the candidates
+    const with_ = lookup.entitiesWith(literalSeed.choices[0]!.num, literalSeed.value).filter((v) => typeSet.size === 0 || index.isA(v, typeSet));
+    cands = with_.map((v) => ({ node: v, score: 1, perClue: [], covered: 0 }));
+    fit = new Set(with_);
+    notes.push(`no clue entity: the entities whose ${literalSeed.choices[0]!.label} is ${literalSeed.value} are the candidates (${cands.length})`);
+  } else if (ranked.clues.length === 0 && typeSet.size > 0 && usable) {
     cands = [];
     for (let v = 0; v < index.nodeCount; v++) if (!typeSet.has(v) && index.isA(v, typeSet)) cands.push({ node: v, score: 1, perClue: [], covered: 0 });
     fit = new Set(cands.map((c) => c.node));
@@ -203,6 +216,25 @@ export function applyConditions(
       });
       applied.push({ condition: c, attribute: null, before, after: cands.length });
       notes.push(`${c.words}: ${before - cands.length} candidate${before - cands.length === 1 ? "" : "s"} excluded (${selfOnly ? `${c.label} itself` : `${c.label} and what is linked to it${c.relations.length > 0 ? " by the cued relation" : ""}`})`);
+    } else if (c.kind === "literal") {
+      const attr = c.choices[0]!;
+      const before = cands.length;
+      const want = c.value.toLowerCase();
+      // an attribute no candidate carries describes another node of the question ("the capital of the *landlocked* country"): not applied here
+      if (!cands.some((x) => (lookup.texts ? lookup.texts(x.node, attr.num) : []).length > 0)) {
+        applied.push({ condition: c, attribute: null, before, after: before });
+        notes.push(`"${c.words}": no candidate has ${attr.label}, so the condition is not applied`);
+        return;
+      }
+      cands = cands.filter((x) => {
+        const ts = lookup.texts ? lookup.texts(x.node, attr.num) : [];
+        const ok = ts.some((t) => t.toLowerCase() === want) !== c.negated;
+        addCheck(x.node, { condition: ci, attribute: attr.num, values: [], texts: ts, satisfied: ok });
+        if (!ok) removed.push({ node: x.node, condition: ci });
+        return ok;
+      });
+      applied.push({ condition: c, attribute: attr, before, after: cands.length });
+      notes.push(`${attr.label} ${c.negated ? "!=" : "="} ${c.value}: ${cands.length} of ${before} candidates kept`);
     } else if (c.kind === "comparison") {
       const attr = pick(c.choices);
       const before = cands.length;
