@@ -25,7 +25,7 @@ import { matchPattern } from "./relation-pattern.js";
 import { suggestClues, type FactLookup, type SuggestedClue, type SuggestOptions } from "./suggest.js";
 import type { ExplainAnalysis, ExplainClue, ExplainRanked } from "./types.js";
 import { decideVerdict, type VerdictCandidate, type VerdictOptions } from "./verdict.js";
-import { whyNotReasons, DEFAULTS as WHY_NOT_DEFAULTS, type WhyNot, type WhyNotClue, type WhyNotOptions } from "./why-not.js";
+import { whyNotFigures, whyNotReasons, DEFAULTS as WHY_NOT_DEFAULTS, type WhyNot, type WhyNotClue, type WhyNotOptions } from "./why-not.js";
 
 /** Options of {@link explain}; all optional. */
 export interface ExplainOptions<A extends ExplainAnalysis = ExplainAnalysis> {
@@ -377,7 +377,6 @@ function whyNotOf<A extends ExplainAnalysis>(
   const longHops = options.whyNotOptions?.longHops ?? WHY_NOT_DEFAULTS.longHops;
   const maxHops = options.paths?.maxHops ?? PATH_DEFAULTS.maxHops;
   const clues = ranked.clues;
-  const entity = names.ref(num);
   const pos = ranked.candidates.findIndex((c) => c.node === num);
   let parts: readonly number[] | null = pos >= 0 ? ranked.candidates[pos]!.perClue : null;
   if (parts === null && options.rerank) {
@@ -387,24 +386,15 @@ function whyNotOf<A extends ExplainAnalysis>(
   const best = ranked.candidates[0];
   const mine = findPaths(index, cost, clueSeeds, [num], { ...options.paths, alternatives: 0 }).answers[0]!;
   const cells: readonly CoverageCell[] = coverageTable([], [mine], (x) => names.ref(x), (r) => names.relation(r), maxHops).rows[0]!.cells;
-  const typeSet = new Set(analysis.answerTypes.map((t) => t.num));
   const perClue: WhyNotClue[] = clues.map((c, i) => {
     const cell = cells[i]!;
     const bestHops = bestPaths?.byClue[i]?.[0]?.steps.length;
     const weak = !cell.reached || cell.hops! > longHops || (bestHops !== undefined && cell.hops! > bestHops);
     return { clue: { id: c.id, label: c.label }, score: parts ? (parts[i] ?? null) : null, bestScore: best ? (best.perClue[i] ?? null) : null, cell, weak };
   });
+  const source = { candidates: ranked.candidates, answerTypes: analysis.answerTypes, typesOf: (n: number) => index.typesOf(n), isA: (n: number, t: ReadonlySet<number>) => index.isA(n, t), ref: (n: number) => names.ref(n) };
   const base: Omit<WhyNot, "reasons"> = {
-    entity,
-    rank: pos >= 0 ? pos + 1 : null,
-    candidates: ranked.candidates.length,
-    score: pos >= 0 ? ranked.candidates[pos]!.score : null,
-    best: best ? names.ref(best.node) : null,
-    bestScore: best ? best.score : null,
-    types: index.typesOf(num).map((t) => names.ref(t)),
-    expectedTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
-    excludedByType: typeSet.size > 0 && !index.isA(num, typeSet),
-    isClue: clueSeeds.some((ss) => ss.some((x) => x.node === num)),
+    ...whyNotFigures(num, source, clueSeeds.some((ss) => ss.some((x) => x.node === num))),
     perClue,
   };
   return { ...base, reasons: whyNotReasons(base, maxHops, longHops) };

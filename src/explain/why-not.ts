@@ -57,6 +57,34 @@ export interface WhyNot {
   readonly reasons: readonly string[];
 }
 
+/** What {@link whyNotFigures} reads: the ranking's candidates, the expected types and the type relation. */
+export interface WhyNotSource {
+  readonly candidates: readonly { readonly node: number; readonly score: number }[];
+  readonly answerTypes: readonly { readonly num: number; readonly id: string; readonly label: string }[];
+  typesOf(num: number): readonly number[];
+  isA(num: number, types: ReadonlySet<number>): boolean;
+  ref(num: number): EntityRef;
+}
+
+/** The ranking and type figures of a why-not report: everything but the per-clue view and the reasons. */
+export function whyNotFigures(num: number, src: WhyNotSource, isClue: boolean): Omit<WhyNot, "reasons" | "perClue"> {
+  const pos = src.candidates.findIndex((c) => c.node === num);
+  const best = src.candidates[0];
+  const typeSet = new Set(src.answerTypes.map((t) => t.num));
+  return {
+    entity: src.ref(num),
+    rank: pos >= 0 ? pos + 1 : null,
+    candidates: src.candidates.length,
+    score: pos >= 0 ? src.candidates[pos]!.score : null,
+    best: best ? src.ref(best.node) : null,
+    bestScore: best ? best.score : null,
+    types: src.typesOf(num).map((t) => src.ref(t)),
+    expectedTypes: src.answerTypes.map((t) => ({ id: t.id, label: t.label })),
+    excludedByType: typeSet.size > 0 && !src.isA(num, typeSet),
+    isClue,
+  };
+}
+
 /** Writes the reasons of a why-not report from its figures. */
 export function whyNotReasons(r: Omit<WhyNot, "reasons">, maxHops: number, longHops: number): string[] {
   const out: string[] = [];
@@ -71,8 +99,13 @@ export function whyNotReasons(r: Omit<WhyNot, "reasons">, maxHops: number, longH
   else if (r.rank !== null) out.push(`${name} ranks ${r.rank} of ${r.candidates} (score ${r.score?.toPrecision(3)} against ${r.bestScore?.toPrecision(3)} for ${r.best?.label})`);
   else if (!r.excludedByType && !r.isClue) out.push(`${name} is not among the ${r.candidates} ranked candidates`);
   for (const c of r.perClue) {
-    if (!c.cell.reached) out.push(`"${c.clue.label}" does not reach ${name} within ${maxHops} hops`);
-    else if (c.weak) out.push(`"${c.clue.label}" reaches ${name} only through a long path (${c.cell.hops} hops${c.cell.hops! > longHops ? "" : ", longer than to the best answer"})`);
+    // the entity itself as a clue is said above; a clue of the same name is told apart by ids
+    if (c.clue.id === r.entity.id) continue;
+    const twins = c.clue.label === name;
+    const clue = twins ? `"${c.clue.label}" [${c.clue.id}]` : `"${c.clue.label}"`;
+    const it = twins ? `${name} [${r.entity.id}]` : name;
+    if (!c.cell.reached) out.push(`${clue} does not reach ${it} within ${maxHops} hops`);
+    else if (c.weak) out.push(`${clue} reaches ${it} only through a long path (${c.cell.hops} hops${c.cell.hops! > longHops ? "" : ", longer than to the best answer"})`);
   }
   return out;
 }

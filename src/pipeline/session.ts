@@ -5,14 +5,14 @@
  * ask(question) = linkQuestion → analyze → rank → answers + verdict (+ explanation), each
  * stage timed. Answers and verdict are made in one place, {@link Session.answersOf}.
  */
-import { Catalog, NumericColumns, demoCatalogPath } from "../catalog/index.js";
+import { Catalog, NumericColumns, demoCatalogPath, normalize } from "../catalog/index.js";
 import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type QueryGraph, type QuestionModel } from "../analysis/index.js";
 import { Linker, linkQuestion, notFoundNote, type LinkResult, type Pin } from "../linking/index.js";
 import { DISCLAIMER, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { basicVerdict, readingVerdict } from "./verdict.js";
 import { answerComparison, answerValue, type DirectAnswer } from "./direct.js";
-import { conditionDocs, conditionExplanation, conditionSteps, conditionVerdict, countDoc, explain, type Explanation } from "../explain/index.js";
+import { conditionDocs, conditionExplanation, conditionSteps, conditionVerdict, countDoc, explain, whyNotFigures, whyNotReasons, PATH_DEFAULTS, WHY_NOT_DEFAULTS, type Explanation, type WhyNot } from "../explain/index.js";
 
 /** A progress event while a session opens. */
 export interface SessionProgress {
@@ -47,7 +47,13 @@ export interface AskOptions {
 }
 
 /** Defaults of {@link AskOptions}. */
-export const DEFAULTS = { top: 10 } as const;
+export const DEFAULTS = {
+  top: 10,
+  /** Entities explained for one `--why-not` name that several share. */
+  maxWhyNotPerName: 5,
+  /** Nearest names offered for an unknown `--why-not` name. */
+  didYouMean: 3,
+} as const;
 
 /** Milliseconds per stage of one question. */
 export interface AskTimings {
@@ -169,7 +175,9 @@ export class Session {
     const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup) : undefined;
     const ranked = conditions?.ranked ?? ranked0;
     const t3 = performance.now();
-    const whyNot = (options.whyNot ?? []).map((e) => this.resolveEntity(e));
+    const asked = (options.whyNot ?? []).map((e) => ({ name: e, nums: this.whyNotEntities(e) }));
+    const whyNot = [...new Set(asked.flatMap((x) => x.nums))];
+    const sharedNotes = asked.filter((x) => x.nums.length > 1).map((x) => this.sharedNameNote(x.name, x.nums));
     const made = this.answersOf(analysis, ranked, top, { dropClues: options.dropClues ?? [], whyNot, pprMemo, ...(conditions ? { rerankWith: withConditions } : {}) });
     let { answers, verdict } = made;
     if (conditions) {
@@ -188,7 +196,7 @@ export class Session {
       // the verdict reads the reading: the entities that satisfy its whole structure
       verdict = readingVerdict(verdict, reading, analysis, ranked, (n) => this.ref(n));
     }
-    let explanation = made.explanation;
+    let explanation = whyNot.length > 0 ? this.completeWhyNot(whyNot, made.explanation, answers, verdict, analysis, ranked, conditions ? { list: cond.conditions, outcome: conditions } : undefined) : made.explanation;
     if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {
       const want = answers[0].id;
       const checked = explanation.suggestions.map((sg) => {
@@ -205,7 +213,7 @@ export class Session {
       answerTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
       answers,
       verdict,
-      notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...analysis.notes, ...ranked.notes],
+      notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...analysis.notes, ...ranked.notes, ...sharedNotes],
       ...(link.notFound.length > 0 ? { notFound: link.notFound } : {}),
       disclaimer: DISCLAIMER,
       reading: readingDoc(reading, analysis, this.model, ranked.matched !== undefined ? { matched: ranked.matched, fallback: ranked.fallback === true } : { matched: null, fallback: false }),
@@ -299,11 +307,76 @@ export class Session {
     return { answers: [...explanation.answers], verdict: explanation.verdict, explanation };
   }
 
-  /** The entity num of an id or exact label (`--why-not`); a one-line error when there is none. */
-  resolveEntity(text: string): number {
-    const nums = this.catalog.byLabelOrId(text);
-    if (nums.length === 0) throw new TiepointError("pipeline/entity", `no entity with id or label "${text}" in the catalog (try: tiepoint show "${text}")`);
-    return nums[0]!;
+  /**
+   * Every asked why-not entity gets a report, also when the explanation stage did not run
+   * (no clue linked: the ranking is by type and conditions alone), and each report lists the
+   * conditions the entity fails.
+   */
+  private completeWhyNot(
+    nums: readonly number[],
+    made: Explanation | undefined,
+    answers: readonly Answer[],
+    verdict: Verdict,
+    analysis: Analysis,
+    ranked: Ranked,
+    conditions: { readonly list: Parameters<typeof conditionSteps>[1]; readonly outcome: ConditionOutcome } | undefined,
+  ): Explanation {
+    const source = { candidates: ranked.candidates, answerTypes: analysis.answerTypes, typesOf: (n: number) => this.index.typesOf(n), isA: (n: number, t: ReadonlySet<number>) => this.index.isA(n, t), ref: (n: number) => this.ref(n) };
+    const reports = nums.map((num): WhyNot => {
+      const entity = this.ref(num);
+      let w = made?.whyNot.find((x) => x.entity.id === entity.id);
+      if (!w) {
+        const base = { ...whyNotFigures(num, source, analysis.clues.some((c) => c.node === num)), perClue: [] };
+        const why = whyNotReasons(base, PATH_DEFAULTS.maxHops, WHY_NOT_DEFAULTS.longHops);
+        if (ranked.clues.length === 0) why.push("no clue entity was linked, so no path or clue score compares it with the best answer");
+        w = { ...base, reasons: why };
+      }
+      const failed = conditions ? conditionSteps(num, conditions.list, conditions.outcome).filter((x) => !x.satisfied) : [];
+      return failed.length > 0 ? { ...w, reasons: [...w.reasons, ...failed.map((x) => `fails a condition of the question: ${x.text}`)] } : w;
+    });
+    const base: Explanation = made ?? { answers, verdict, coverage: { clues: [], rows: [], maxHops: PATH_DEFAULTS.maxHops }, ablation: [], suggestions: [], whyNot: [], labels: {} };
+    return { ...base, whyNot: reports };
+  }
+
+  /**
+   * The entities a `--why-not` name stands for: an id; else every entity with that exact
+   * label; else every entity whose label, then alias, matches it after normalisation (case,
+   * accents, punctuation). A shared name gives them all (each is explained, none picked
+   * silently), at most {@link DEFAULTS}.maxWhyNotPerName. No match: a one-line error with the
+   * nearest names the linker finds for the text ("did you mean").
+   */
+  whyNotEntities(text: string): number[] {
+    let nums = this.catalog.byLabelOrId(text);
+    if (nums.length === 0) {
+      const norm = normalize(text);
+      const hits = norm === "" ? [] : this.catalog.byNorm(norm);
+      const labels = hits.filter((h) => h.kind === 0).map((h) => h.entity);
+      nums = [...new Set(labels.length > 0 ? labels : hits.map((h) => h.entity))].sort((a, b) => a - b);
+    }
+    if (nums.length === 0) {
+      const near = this.nearestNames(text);
+      const hint = near.length > 0 ? `; did you mean ${near.map((r) => `${r.label} [${r.id}]`).join(", or ")}?` : "; no label of the catalog comes close";
+      throw new TiepointError("pipeline/entity", `no entity with id or label ${JSON.stringify(text)} in the catalog${hint}`);
+    }
+    return nums.slice(0, DEFAULTS.maxWhyNotPerName);
+  }
+
+  /** Up to {@link DEFAULTS}.didYouMean entities the linker reads into `text` (its best readings and their alternatives). */
+  private nearestNames(text: string): { id: string; label: string }[] {
+    const link = linkQuestion(text.slice(0, LIMITS.maxQuestionChars), this.linker);
+    const ids = new Map<string, { id: string; label: string }>();
+    for (const m of link.mentions) for (const r of [m.entity, ...m.alternatives]) if (!ids.has(r.id)) ids.set(r.id, { id: r.id, label: r.label });
+    return [...ids.values()].slice(0, DEFAULTS.didYouMean);
+  }
+
+  /** The note for a `--why-not` name that several entities share. */
+  private sharedNameNote(name: string, nums: readonly number[]): string {
+    const list = nums.map((n) => {
+      const r = this.ref(n);
+      const types = this.index.typesOf(n).map((t) => this.ref(t).label);
+      return `${r.id}${types.length > 0 ? ` (${types.join(", ")})` : ""}`;
+    });
+    return `--why-not ${JSON.stringify(name)}: ${nums.length} entities have this name (${list.join("; ")}); each is explained, give an id to explain one`;
   }
 
   /** Id and label of an entity num (cached). */

@@ -98,11 +98,15 @@ export function renderWhyNotText(w: WhyNot, options: ExplainTextOptions = {}): s
   const out = [`why not ${w.entity.label} [${w.entity.id}]?`];
   for (const r of w.reasons) out.push(`  - ${r}`);
   for (const c of w.perClue) {
+    if (c.clue.id === w.entity.id) {
+      out.push(`  "${c.clue.label}": this entity itself (a clue of the question)`);
+      continue;
+    }
     const part = c.score === null ? "not scored" : `score part ${c.score.toFixed(3)}${c.bestScore !== null ? ` (best answer ${c.bestScore.toFixed(3)})` : ""}`;
     const how = c.cell.reached
       ? `${c.cell.hops} hop${c.cell.hops === 1 ? "" : "s"} via ${c.cell.relations.map((x) => (x.inverse ? (ascii ? `<${x.label}` : `←${x.label}`) : ascii ? `${x.label}>` : `${x.label}→`)).join(" ")}`
       : "not reached";
-    out.push(`  "${c.clue.label}": ${part}; ${how}`);
+    out.push(`  "${c.clue.label}"${c.clue.label === w.entity.label ? ` [${c.clue.id}]` : ""}: ${part}; ${how}`);
   }
   return out.join("\n") + "\n";
 }

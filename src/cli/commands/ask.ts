@@ -28,7 +28,7 @@ export function registerAsk(program: Command): void {
     .option("--dot", "print the evidence graph (clues, answers, their paths) as Graphviz DOT on stdout")
     .option("--top <n>", "how many answers to return", "10")
     .option("--pin <text=entity>", "fix a link: the question words TEXT name ENTITY (id or exact label); repeatable", (v: string, prev: string[]) => [...prev, v], [] as string[])
-    .option("--why-not <entity>", "explain why ENTITY (id or exact label) is not the best answer; repeatable", (v: string, prev: string[]) => [...prev, v], [] as string[])
+    .option("--why-not <entity>", "explain why ENTITY (an id or a label; a shared label explains each entity of that name) is not the best answer; repeatable", (v: string, prev: string[]) => [...prev, v], [] as string[])
     .action((question: string, opts: { db?: string; json?: boolean; dot?: boolean; top?: string; pin: string[]; whyNot: string[] }) =>
       guarded(() => {
         const top = parseTop(opts.top);
@@ -38,7 +38,7 @@ export function registerAsk(program: Command): void {
         try {
           const out = session.ask(question, { top, ...(pins.length > 0 ? { pins } : {}), ...(opts.whyNot.length > 0 ? { whyNot: opts.whyNot } : {}), verifySuggestions: !opts.dot });
           if (opts.dot) process.stdout.write(evidenceDot(out.result, { labels: catalogLabels(session.catalog) }));
-          else if (opts.json) process.stdout.write(askJson(out.result));
+          else if (opts.json) process.stdout.write(askJson(out.result, out));
           else
             process.stdout.write(
               renderAskText(out.result, {
