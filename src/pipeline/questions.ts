@@ -178,7 +178,9 @@ export function parseQuestionText(text: string, file: string, layout: QuestionLa
   const body = text.replace(/^\uFEFF/, "");
   const items = layout === "csv" ? parseCsvText(body, problems) : parseLines(body, problems);
   const n = problems.list.length;
-  if (n > 0) problems.fail(`${n} bad line${n === 1 ? "" : "s"}; no question was run`);
+  // one bad line is one line of output; several get a count after them
+  if (n === 1) throw problems.list[0]!;
+  if (n > 1) problems.fail(`${n} bad lines; no question was run`);
   if (items.length === 0)
     throw new TiepointError(
       "pipeline/questions",
