@@ -195,12 +195,19 @@ describe("tiepoint show and stats", () => {
     // entities: t:Boat, b:wren, q:east, q:west, p:lamp = 5; one edge wren→east
     expect(s.counts.entities).toBe(5);
     expect(s.counts.edges).toBe(1);
-    // degrees sorted: 0,0,0,1,1 → min 0, median (nearest rank 3) 0, p99 (rank 5) 1, max 1
-    expect(s.degree).toMatchObject({ min: 0, median: 0, p99: 1, max: 1 });
-    // components: {wren, east}, {boat}, {west}, {lamp} = 4 (type links are not edges)
-    expect(s.components).toBe(4);
+    // the type t:Boat has no edges: not a node of the relation graph (issue 18)
+    // degrees of wren, east, west, lamp sorted: 0,0,1,1 → min 0, median (nearest rank 2) 0, p99 (rank 4) 1, max 1
+    expect(s.degree).toMatchObject({ min: 0, median: 0, p99: 1, max: 1, mean: 0.5 });
+    // components: {wren, east}, {west}, {lamp} = 3 (type links are not edges); without edges: west, lamp
+    expect(s.components).toBe(3);
     expect(s.largestComponent).toBe(2);
+    expect(s.isolated).toBe(2);
     expect(s.hubs.map((h: { id: string }) => h.id)).toEqual(["b:wren", "q:east"]);
+    // per type, per relation, shared names (East Quay: q:east and p:lamp), no empty type
+    expect(s.types).toEqual([{ id: "t:Boat", label: "boat", members: 1, withSubtypes: 1 }]);
+    expect(s.relations).toEqual([{ id: "r:dockedAt", label: "docked at", edges: 1 }]);
+    expect(s.sharedNames).toEqual({ count: 1, top: [{ name: "East Quay", entities: 2 }] });
+    expect(s.emptyTypes).toEqual([]);
   });
 });
 

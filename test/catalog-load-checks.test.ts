@@ -255,3 +255,46 @@ describe("load: re-loading a corrected file (the re-load rule, --update)", () =>
     expect(show).toContain("len [urn:x:len]: 14\n");
   });
 });
+
+describe("stats: per type, per relation, shared names, types with no members", () => {
+  it("counts hand-checked against a small hierarchy", () => {
+    const lines = [
+      '{"kind":"type","id":"t:Site","label":"site"}',
+      '{"kind":"type","id":"t:Reef","label":"reef","subClassOf":["t:Site"]}',
+      '{"kind":"type","id":"t:Shoal","label":"shoal","subClassOf":["t:Site"]}',
+      // a type is known as one by its members or its place in the hierarchy (a JSON Lines
+      // "type" record is an entity record): t:Wreck has no members but a parent
+      '{"kind":"type","id":"t:Wreck","label":"wreck","subClassOf":["t:Site"]}',
+      '{"kind":"relation","id":"r:near","label":"near"}',
+      '{"id":"s:1","label":"Vey","types":["t:Reef"],"relations":{"r:near":["s:2","s:3"]}}',
+      '{"id":"s:2","label":"Vey","types":["t:Shoal"]}',
+      '{"id":"s:3","label":"Osk","types":["t:Reef","t:Site"]}',
+      '{"id":"s:4","label":"Tarn"}',
+      "",
+    ];
+    const r0 = tp("load", write("stats.jsonl", lines.join("\n")), "--db", "stats.db", "--no-prepare");
+    expect(r0.status, r0.stderr).toBe(0);
+    const r = tp("stats", "--db", "stats.db", "--json");
+    expect(r.status, r.stderr).toBe(0);
+    const s = JSON.parse(r.stdout);
+    // site: direct s:3; with subtypes (reef, shoal, wreck) s:1, s:2, s:3 = 3; reef: s:1, s:3; shoal: s:2; wreck: none
+    expect(s.types).toEqual([
+      { id: "t:Site", label: "site", members: 1, withSubtypes: 3 },
+      { id: "t:Reef", label: "reef", members: 2, withSubtypes: 2 },
+      { id: "t:Shoal", label: "shoal", members: 1, withSubtypes: 1 },
+      { id: "t:Wreck", label: "wreck", members: 0, withSubtypes: 0 },
+    ]);
+    expect(s.emptyTypes).toEqual([{ id: "t:Wreck", label: "wreck" }]);
+    expect(s.relations).toEqual([{ id: "r:near", label: "near", edges: 2 }]);
+    expect(s.sharedNames).toEqual({ count: 1, top: [{ name: "Vey", entities: 2 }] });
+    // the four types have no edges: not counted as entities without edges (only s:4 is)
+    expect(s.isolated).toBe(1);
+    expect(s.components).toBe(2);
+    const text = tp("stats", "--db", "stats.db").stdout;
+    expect(text).toContain("  types (members with subtypes, direct members):\n           3        1  site [t:Site]\n");
+    expect(text).toContain("  relations (edges):\n           2  near [r:near]\n");
+    expect(text).toContain("  shared names: 1 name carried by several entities (a question using one needs other clues to tell them apart):\n           2  Vey\n");
+    expect(text).toContain("  types with no members (1):\n              wreck [t:Wreck]\n");
+    expect(text).toContain("1 entities without edges; types without edges are not counted");
+  });
+});

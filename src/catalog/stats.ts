@@ -4,7 +4,12 @@
  * connected components of the relation graph taken as undirected, found with union-find
  * (disjoint-set forest with path halving and union by size; Tarjan 1975, "Efficiency of a
  * Good But Not Linear Set Union Algorithm", J. ACM 22(2)). Every entity counts as a node,
- * so an entity without edges is a component of its own.
+ * so an entity without edges is a component of its own — except a type without edges
+ * (`t:Boat`): type links are not edges, so such types are left out of the degrees, the
+ * components and the entities without edges, and counted per type instead. Also: members
+ * per type (direct, and with subtypes), edges per relation, names shared by several entities
+ * (labels and aliases by normalised form: the ones a question must disambiguate), and types
+ * without members.
  */
 import type { Catalog, CatalogCounts } from "./store.js";
 
@@ -12,7 +17,33 @@ import type { Catalog, CatalogCounts } from "./store.js";
 export const DEFAULTS = {
   /** How many hubs to list. */
   hubs: 10,
+  /** How many shared names to list (all are counted). */
+  sharedNames: 10,
 };
+
+/** Members of one type. */
+export interface TypeCount {
+  readonly id: string;
+  readonly label: string;
+  /** Entities with this type as a direct type. */
+  readonly members: number;
+  /** Entities with this type or one of its subtypes (transitively). */
+  readonly withSubtypes: number;
+}
+
+/** Edges of one relation. */
+export interface RelationCount {
+  readonly id: string;
+  readonly label: string;
+  readonly edges: number;
+}
+
+/** A name (label or alias, by normalised form) that several entities carry. */
+export interface SharedName {
+  /** The name as written on the first of them. */
+  readonly name: string;
+  readonly entities: number;
+}
 
 /** One hub: an entity with many edges. */
 export interface Hub {
@@ -31,8 +62,16 @@ export interface CatalogStats {
   /** Connected components (undirected), isolated entities included. */
   readonly components: number;
   readonly largestComponent: number;
-  /** Entities without any edge. */
+  /** Entities without any edge (types without edges are not counted). */
   readonly isolated: number;
+  /** Types by members (most first, then id). */
+  readonly types: readonly TypeCount[];
+  /** Relations by edges (most first, then id). */
+  readonly relations: readonly RelationCount[];
+  /** How many names are shared by two or more entities, and the most shared ones. */
+  readonly sharedNames: { readonly count: number; readonly top: readonly SharedName[] };
+  /** Types that no entity has, directly or through a subtype. */
+  readonly emptyTypes: readonly { readonly id: string; readonly label: string }[];
 }
 
 /** Nearest-rank percentile of an ascending sorted array (NIST/common practice definition). */
@@ -70,7 +109,7 @@ export function unionFindComponents(n: number, forEachPair: (visit: (a: number, 
 }
 
 /** Computes the statistics of a catalog (one pass over the entity and edge tables). */
-export function catalogStats(cat: Catalog, options: { hubs?: number } = {}): CatalogStats {
+export function catalogStats(cat: Catalog, options: { hubs?: number; sharedNames?: number } = {}): CatalogStats {
   const hubCount = options.hubs ?? DEFAULTS.hubs;
   const counts = cat.counts();
   const nums = cat.db.prepare("SELECT num FROM entity ORDER BY num").pluck().all() as number[];
@@ -78,23 +117,38 @@ export function catalogStats(cat: Catalog, options: { hubs?: number } = {}): Cat
   nums.forEach((num, i) => index.set(num, i));
   const n = nums.length;
   const degree = new Int32Array(n);
-  const edgeStmt = cat.db.prepare("SELECT src, dst FROM edge").raw(true);
+  const perRelation = new Map<number, number>();
+  const edgeStmt = cat.db.prepare("SELECT src, rel, dst FROM edge").raw(true);
   const cc = unionFindComponents(n, (visit) => {
-    for (const row of edgeStmt.iterate() as IterableIterator<[number, number]>) {
+    for (const row of edgeStmt.iterate() as IterableIterator<[number, number, number]>) {
       const a = index.get(row[0])!;
-      const b = index.get(row[1])!;
+      const b = index.get(row[2])!;
       degree[a]!++;
       degree[b]!++;
+      perRelation.set(row[1], (perRelation.get(row[1]) ?? 0) + 1);
       visit(a, b);
     }
   });
-  const sorted = Int32Array.from(degree).sort();
+  // types without edges are no nodes of the relation graph
+  const typeNums = new Set(cat.db.prepare("SELECT type FROM entity_type UNION SELECT sub FROM subclass UNION SELECT sup FROM subclass").pluck().all() as number[]);
+  const node = new Uint8Array(n);
+  let nodes = 0;
+  for (let i = 0; i < n; i++) {
+    if (degree[i]! > 0 || !typeNums.has(nums[i]!)) {
+      node[i] = 1;
+      nodes++;
+    }
+  }
+  const nodeDegrees = new Int32Array(nodes);
   let sum = 0;
   let isolated = 0;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0, k = 0; i < n; i++) {
+    if (!node[i]) continue;
+    nodeDegrees[k++] = degree[i]!;
     sum += degree[i]!;
     if (degree[i] === 0) isolated++;
   }
+  const sorted = nodeDegrees.sort();
   const order = Array.from({ length: n }, (_, i) => i)
     .filter((i) => degree[i]! > 0)
     .sort((a, b) => degree[b]! - degree[a]! || a - b)
@@ -104,14 +158,60 @@ export function catalogStats(cat: Catalog, options: { hubs?: number } = {}): Cat
       const r = cat.ref(nums[i]!);
       return { id: r.id, label: r.label, degree: degree[i]! };
     })
-    .sort((a, b) => b.degree - a.degree || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0))
+    .sort((a, b) => b.degree - a.degree || byId(a, b))
     .slice(0, hubCount);
+  const types = typeCounts(cat, typeNums);
   return {
     counts,
-    degree: { min: n ? sorted[0]! : 0, median: nearestRank(sorted, 50), p99: nearestRank(sorted, 99), max: n ? sorted[n - 1]! : 0, mean: n ? sum / n : 0 },
+    degree: { min: nodes ? sorted[0]! : 0, median: nearestRank(sorted, 50), p99: nearestRank(sorted, 99), max: nodes ? sorted[nodes - 1]! : 0, mean: nodes ? sum / nodes : 0 },
     hubs,
-    components: cc.components,
+    components: cc.components - (n - nodes),
     largestComponent: cc.largest,
     isolated,
+    types,
+    relations: cat
+      .predicates()
+      .filter((p) => perRelation.has(p.num))
+      .map((p) => ({ id: p.id, label: p.label, edges: perRelation.get(p.num)! }))
+      .sort((a, b) => b.edges - a.edges || byId(a, b)),
+    sharedNames: sharedNames(cat, options.sharedNames ?? DEFAULTS.sharedNames),
+    emptyTypes: types.filter((t) => t.withSubtypes === 0).map((t) => ({ id: t.id, label: t.label })),
   };
+}
+
+const byId = (a: { readonly id: string }, b: { readonly id: string }): number => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
+
+/** Direct members per type, and members of the type or any of its subtypes (distinct entities). */
+function typeCounts(cat: Catalog, typeNums: ReadonlySet<number>): TypeCount[] {
+  const direct = new Map<number, number>();
+  for (const r of cat.db.prepare("SELECT type, count(*) AS n FROM entity_type GROUP BY type").all() as { type: number; n: number }[]) direct.set(r.type, r.n);
+  const children = new Map<number, number[]>();
+  for (const [sub, sup] of cat.subclassPairs()) children.set(sup, [...(children.get(sup) ?? []), sub]);
+  const distinct = cat.db.prepare("SELECT count(DISTINCT entity) FROM entity_type WHERE type IN (SELECT value FROM json_each(?))").pluck();
+  const out: TypeCount[] = [];
+  for (const t of typeNums) {
+    // the type and its subtypes, transitively (a cycle in the hierarchy is walked once)
+    const seen = new Set<number>([t]);
+    const stack = [t];
+    while (stack.length > 0) {
+      for (const c of children.get(stack.pop()!) ?? []) {
+        if (seen.has(c)) continue;
+        seen.add(c);
+        stack.push(c);
+      }
+    }
+    const members = direct.get(t) ?? 0;
+    const withSubtypes = seen.size === 1 ? members : (distinct.get(JSON.stringify([...seen])) as number);
+    const r = cat.ref(t);
+    out.push({ id: r.id, label: r.label, members, withSubtypes });
+  }
+  return out.sort((a, b) => b.withSubtypes - a.withSubtypes || b.members - a.members || byId(a, b));
+}
+
+/** Names (normalised labels and aliases) that two or more entities carry: how many, and the most shared. */
+function sharedNames(cat: Catalog, top: number): { count: number; top: SharedName[] } {
+  const rows = cat.db
+    .prepare("SELECT min(text) AS name, count(DISTINCT entity) AS n FROM alias WHERE norm <> '' GROUP BY norm HAVING count(DISTINCT entity) > 1 ORDER BY n DESC, norm")
+    .all() as { name: string; n: number }[];
+  return { count: rows.length, top: rows.slice(0, top).map((r) => ({ name: r.name, entities: r.n })) };
 }
