@@ -92,6 +92,7 @@ export function phaseLoad(work: string): Record<string, unknown> {
     triplesPerSecond: report.statements / seconds,
     prepared: report.prepared,
     prepareFinishSeconds: sink.finishMs / 1000,
+    prepareStepMs: sink.stepMs,
     edges: counts.edges,
     entities: counts.entities,
     peakMiB: peakMiB(),

@@ -249,9 +249,8 @@ export class LexicalBuilder {
         }
       }
     }
-    const termOrder = [...Array(T).keys()].filter((id) => seen[id] === 1).sort((a, b) => (this.termList[a]! < this.termList[b]! ? -1 : this.termList[a]! > this.termList[b]! ? 1 : 0));
-    const terms = termOrder.map((id) => this.termList[id]!);
-    const df = Int32Array.from(termOrder, (id) => Math.min(entityCount, dfSum[id]!));
+    const terms = this.termList.filter((_, id) => seen[id] === 1).sort();
+    const df = Int32Array.from(terms, (t) => Math.min(entityCount, dfSum[this.termIds.get(t)!]!));
     return { entityCount, degree, vocab, offsets, postings, keys, maxAliasTokens, terms, df, avgDocLength: entityCount > 0 ? totalLength / entityCount : 0 };
   }
 }

@@ -18,7 +18,7 @@
  * Building reads the edge, alias and entity tables once each (no per-question scans), or takes
  * the rows a load writes (lexical-builder.ts: the same builder either way).
  */
-import { readFileSync, renameSync, writeFileSync, unlinkSync } from "node:fs";
+import { closeSync, fstatSync, openSync, readSync, renameSync, writeFileSync, unlinkSync } from "node:fs";
 import type { Catalog } from "../catalog/index.js";
 import { fnv1a32 } from "../catalog/index.js";
 import { sortedIndexOf } from "./sorted-search.js";
@@ -50,6 +50,23 @@ class HashSet32 {
       if (v === h) return true;
       i = (i + 1) & this.mask;
     }
+  }
+}
+
+/** The whole file in a buffer of its own, starting at offset 0 (so 8-aligned sections can be viewed as typed arrays). */
+function readAligned(path: string): Buffer {
+  const fd = openSync(path, "r");
+  try {
+    const size = fstatSync(fd).size;
+    const bytes = new Uint8Array(new ArrayBuffer(size));
+    for (let off = 0; off < size; ) {
+      const got = readSync(fd, bytes, off, Math.min(size - off, 1 << 26), off);
+      if (got === 0) throw new RangeError("linking/lexical-snapshot: file ended early");
+      off += got;
+    }
+    return Buffer.from(bytes.buffer, 0, size);
+  } finally {
+    closeSync(fd);
   }
 }
 
@@ -208,7 +225,7 @@ export class LexicalSnapshot {
   static load(path: string, uid: string, generation: number): LexicalSnapshot | undefined {
     let buf: Buffer;
     try {
-      buf = readFileSync(path);
+      buf = readAligned(path);
     } catch {
       return undefined;
     }
@@ -224,15 +241,13 @@ export class LexicalSnapshot {
         const [o, n] = h.sections[name]!;
         return buf.subarray(base + o, base + o + n);
       };
+      // sections start at multiples of 8 in a buffer of their own: views, no copies
       const ints = (name: string) => {
         const b = sec(name);
-        const copy = new Int32Array(b.length / 4);
-        new Uint8Array(copy.buffer).set(b);
-        return copy;
+        return new Int32Array(b.buffer, b.byteOffset, b.length / 4);
       };
       const keysB = sec("keys");
-      const keys = new Uint32Array(keysB.length / 4);
-      new Uint8Array(keys.buffer).set(keysB);
+      const keys = new Uint32Array(keysB.buffer, keysB.byteOffset, keysB.length / 4);
       const vocabText = sec("vocab").toString("utf8");
       const termText = sec("terms").toString("utf8");
       const vocab = h.vocabSize === 0 ? [] : vocabText.split("\n");

@@ -37,8 +37,9 @@ export class LoadPreparation implements LoadSink {
   private readonly onProgress: PrepareProgressFn | undefined;
   /** Why the files were not built (after `finish` returned undefined), for the caller's message. */
   reason: string | undefined;
-  /** Milliseconds spent in `finish`. */
+  /** Milliseconds spent in `finish`, and per step of it. */
   finishMs = 0;
+  readonly stepMs: Record<string, number> = {};
 
   constructor(onProgress?: PrepareProgressFn) {
     this.onProgress = onProgress;
@@ -84,23 +85,33 @@ export class LoadPreparation implements LoadSink {
       return undefined;
     }
     const temps: string[] = [];
+    let last = t0;
+    const step = (name: string) => {
+      const now = performance.now();
+      this.stepMs[name] = now - last;
+      last = now;
+    };
     try {
       this.onProgress?.(`sorting ${this.index.edgeRows.toLocaleString("en-US")} edges`);
       const { index, edges } = this.index.build(cat.maxEntityNum(), cat.maxPredicateNum());
+      step("sort");
       const rows = (cat.db.prepare("SELECT count(*) AS n FROM edge").get() as { n: number }).n;
       if (rows !== edges) {
         this.reason = `the load's rows (${edges} edges) do not match the catalog (${rows} edge rows)`;
         return undefined;
       }
       const entityCount = (cat.db.prepare("SELECT count(*) AS n FROM entity").get() as { n: number }).n;
+      step("count");
       this.onProgress?.("writing the relation index");
       const idx = snapshotPath(cat.path);
       temps.push(writeSnapshotTemp(idx, index, stamp));
+      step("relationIndex");
       this.onProgress?.("writing the name index");
       const degree = new Int32Array(index.nodeCount);
       for (let u = 0; u < degree.length; u++) degree[u] = index.degree(u);
       const link = LexicalSnapshot.pathFor(cat.path);
       temps.push(LexicalSnapshot.fromParts(stamp.uid, stamp.generation, this.lexical.finish(degree, entityCount)).saveTemp(link));
+      step("nameIndex");
       const [idxTemp, linkTemp] = temps as [string, string];
       return {
         publish: () => {
