@@ -5,7 +5,8 @@
  *
  * Method: a selection and an ordering over the named entities' attribute values (the
  * relational reading of a comparative question, Codd 1970; Androutsopoulos et al. 1995 §4).
- * The attribute is the first of the condition's choices that some named entity carries.
+ * The attribute is the first of the condition's choices that some named entity carries; when
+ * the words name none, the one numeric attribute all compared entities carry, if exactly one.
  * Value question: the answer is the entity, its values (with unit and source triple) are
  * listed in `values`; verdict `unique` for one stated value, `tied` for several, `none` for
  * none. Comparison: the named entities ordered by the value (the `order` of the comparative;
@@ -67,9 +68,11 @@ export function answerValue(catalog: Catalog, v: ValueQuestion): DirectAnswer {
 }
 
 /** Answers a comparison between named entities. */
-export function answerComparison(catalog: Catalog, c: EntityComparison): DirectAnswer {
+export function answerComparison(catalog: Catalog, c: EntityComparison, numeric: readonly AttributeChoice[] = []): DirectAnswer {
   const nodes = [...new Set(c.nodes)];
-  const attr = pickAttribute(catalog, nodes, c.choices);
+  // no attribute named ("which takes more disk space"): the one numeric attribute every compared entity carries, if there is exactly one
+  const shared = numeric.filter((a) => nodes.every((n) => catalog.attributeNumbers(n, a.num).length > 0));
+  const attr = pickAttribute(catalog, nodes, c.choices) ?? (shared.length === 1 ? shared[0] : undefined);
   const names = nodes.map((n) => catalog.ref(n).label);
   if (!attr) {
     const asked = c.choices.length > 0 ? c.choices.map((a) => a.label).join(" or ") : `an attribute for "${c.words}"`;

@@ -159,7 +159,7 @@ export class Session {
     const reading = readQuestion(cond, this.model);
     const t2 = performance.now();
     if (cond.value || cond.compare) {
-      const direct = cond.value ? answerValue(this.catalog, cond.value) : answerComparison(this.catalog, cond.compare!);
+      const direct = cond.value ? answerValue(this.catalog, cond.value) : answerComparison(this.catalog, cond.compare!, this.attributes().attributes.map((a) => ({ ...a, score: 0, wordIndexes: [] })));
       return this.directOutcome(question, analysis, reading, direct, limitNotes, top, { link: t1 - t0, analyze: t2 - t1 }, t0);
     }
     // numeric values through per-predicate columns (one statement per attribute, kept by the session)

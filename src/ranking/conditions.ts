@@ -12,7 +12,9 @@
  * at each clue's smallest hop distance among them (breadth-first search up to `maxHops`);
  * at one hop, those linked to the clue by a relation the question's words cue, when there are any.
  * "Which country in R has the largest area" then compares the countries one hop from R, not
- * the ones reached through a neighbour. A question with no clue left (all of its mentions
+ * the ones reached through a neighbour. When the question's reading has a structure that some
+ * candidates satisfy (rank.ts `Ranked.matched`: every clue's relation-path pattern reaches
+ * them), those candidates are the fit set instead. A question with no clue left (all of its mentions
  * excluded, or none linked) but an expected answer type takes every entity of that type as
  * candidates, all equally fit.
  *
@@ -166,6 +168,9 @@ export function applyConditions(
     for (let v = 0; v < index.nodeCount; v++) if (!typeSet.has(v) && index.isA(v, typeSet)) cands.push({ node: v, score: 1, perClue: [], covered: 0 });
     fit = new Set(cands.map((c) => c.node));
     if (cands.length > 0) notes.push(`no clue entity: every ${analysis.answerTypes.map((t) => t.label).join(" or ")} of the catalog is a candidate (${cands.length})`);
+  } else if (ranked.matched !== undefined && ranked.matched > 0) {
+    // the reading's structure decides which candidates fit the clues (rank.ts: every clue's pattern reaches them)
+    fit = new Set(ranked.candidates.slice(0, ranked.matched).map((c) => c.node));
   } else {
     fit = fitSet(analysis, ranked, index, maxHops, maxVisits);
   }
