@@ -85,9 +85,9 @@ export function questionsOf(spec: SetSpec): EvalQuestion[] {
   return readQuestionSet(join(repoRoot(), spec.file), spec.name);
 }
 
-/** The committed split. */
-export function readSplit(): SplitFile {
-  return JSON.parse(readFileSync(join(repoRoot(), SPLIT_FILE), "utf8")) as SplitFile;
+/** A committed split file (default: the question sets'). */
+export function readSplit(file: string = SPLIT_FILE): SplitFile {
+  return JSON.parse(readFileSync(join(repoRoot(), file), "utf8")) as SplitFile;
 }
 
 /** A built set catalog: the SQLite file and the N-Triples text both engines read. */

@@ -63,11 +63,20 @@ export type Gold = { readonly kind: "entities"; readonly ids: readonly string[] 
 /** The verdicts a question may expect (contract.md statuses). */
 export type ExpectedVerdict = "unique" | "tied" | "none";
 
-/** Reads a question set file; a bad line is a one-line error naming the file and line. */
-export function readQuestionSet(file: string, set: string): EvalQuestion[] {
+/** The tag column of a question set file: its name and allowed values. */
+export interface TagVocabulary {
+  readonly column: string;
+  readonly keys: ReadonlySet<string>;
+}
+
+/** The tags of issue 16's sets: the phenomena. */
+export const PHENOMENON_TAGS: TagVocabulary = { column: "phenomena", keys: PHENOMENON_KEYS };
+
+/** Reads a question set file; a bad line is a one-line error naming the file and line. `phenomena` holds the tags of `tags`' column. */
+export function readQuestionSet(file: string, set: string, tags: TagVocabulary = PHENOMENON_TAGS): EvalQuestion[] {
   const lines = readFileSync(file, "utf8").split("\n");
   const header = lines[0]?.split("\t") ?? [];
-  const want = ["id", "phenomena", "question", "sparql", "note"];
+  const want = ["id", tags.column, "question", "sparql", "note"];
   if (header.join("\t") !== want.join("\t")) throw new TiepointError("eval/questions", `header must be ${want.join(" TAB ")}`, { file, line: 1 });
   const out: EvalQuestion[] = [];
   const ids = new Set<string>();
@@ -81,7 +90,7 @@ export function readQuestionSet(file: string, set: string): EvalQuestion[] {
     if (ids.has(id)) throw new TiepointError("eval/questions", `duplicate id "${id}"`, { file, line });
     ids.add(id);
     const phenomena = ph.split(",").map((s) => s.trim());
-    for (const p of phenomena) if (!PHENOMENON_KEYS.has(p)) throw new TiepointError("eval/questions", `unknown phenomenon "${p}"`, { file, line });
+    for (const p of phenomena) if (!tags.keys.has(p)) throw new TiepointError("eval/questions", `unknown ${tags.column} value "${p}"`, { file, line });
     if (question.trim() === "" || sparql.trim() === "") throw new TiepointError("eval/questions", "empty question or sparql", { file, line });
     out.push({ set, id, phenomena, question, sparql, note, file, line });
   });
