@@ -16,16 +16,14 @@
  * column of a table the plan visits earlier (the outer loop of a join).
  */
 import Database from "better-sqlite3";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { gunzipSync } from "node:zlib";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Catalog, loadFiles } from "../src/catalog/index.js";
-import { stanzasToNTriples } from "../src/eval/debian-packages.js";
+import { Catalog } from "../src/catalog/index.js";
 import { Session } from "../src/pipeline/index.js";
+import { buildDebianSliceCatalog } from "./helpers/debian-catalog.js";
 
-const SLICE = new URL("./fixtures/debian/packages-slice.txt.gz", import.meta.url);
 const GROWING = new Set(["entity", "alias", "edge", "attribute", "entity_type"]);
 
 /** Questions that walk every stage of `ask` (their answers do not matter here). */
@@ -47,13 +45,7 @@ const recorded = new Set<string>();
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), "tp-plans-"));
-  const c = stanzasToNTriples(gunzipSync(readFileSync(SLICE)).toString("utf8"));
-  writeFileSync(join(dir, "p.nt"), c.nt);
-  writeFileSync(join(dir, "d.jsonl"), c.declarations);
-  db = join(dir, "c.db");
-  const cat = Catalog.open(db, { create: true });
-  loadFiles(cat, [join(dir, "p.nt"), join(dir, "d.jsonl")]);
-  cat.close();
+  db = buildDebianSliceCatalog(dir);
   // record every statement prepared or fetched from the Catalog's cache while questions are answered
   const session = Session.open({ db });
   const stmt = Catalog.prototype.stmt;

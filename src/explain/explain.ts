@@ -15,7 +15,7 @@
  */
 import type { Catalog } from "../catalog/index.js";
 import { normalize } from "../catalog/index.js";
-import type { Answer, AnswerPath, EntityRef, Verdict } from "../model/index.js";
+import type { Answer, AnswerPath, Deadline, EntityRef, Verdict } from "../model/index.js";
 import { RANK_DEFAULTS, TRANSITION_DEFAULTS, transition, type RelationIndex } from "../ranking/index.js";
 import { clueRole, preferredByClue, type AblationEntry } from "./ablation.js";
 import { coverageTable, type CoverageCell, type CoverageTable } from "./coverage.js";
@@ -49,6 +49,8 @@ export interface ExplainOptions<A extends ExplainAnalysis = ExplainAnalysis> {
   readonly whyNotOptions?: WhyNotOptions;
   /** Re-ranks `analysis` without the clues `dropClues`; enables ablation and why-not score parts. */
   readonly rerank?: (analysis: A, dropClues: readonly number[]) => ExplainRanked;
+  /** The question's time budget: paths, ablation, suggestions and why-not stop early once it is spent, recording what they cut. */
+  readonly deadline?: Deadline;
   /** Run clue ablation (needs `rerank`). @default true */
   readonly ablation?: boolean;
   /** Entity nums to report on ("why not this one?"). */
@@ -242,7 +244,8 @@ export function explain<A extends ExplainAnalysis>(
   const clueRefs = clues.map((c): EntityRef => ({ id: c.id, label: c.label }));
   const n = Math.min(ranked.candidates.length, Math.max(top, rows));
   const shown = ranked.candidates.slice(0, n);
-  const pathSet = findPaths(index, cost, clueSeeds, shown.map((c) => c.node), options.paths);
+  const deadline = options.deadline;
+  const pathSet = findPaths(index, cost, clueSeeds, shown.map((c) => c.node), options.paths, deadline);
   const byNode = new Map(pathSet.answers.map((a) => [a.answer, a]));
 
   const answers: Answer[] = shown.slice(0, top).map((c, i) => {
@@ -299,7 +302,9 @@ export function explain<A extends ExplainAnalysis>(
   // the re-rankings of the clue ablation (one per clue), done first: the relation patterns
   // are only ever asked about the candidates of the ranking and of these re-rankings
   const ablate = options.rerank !== undefined && (options.ablation ?? DEFAULTS.ablation) && shown.length > 0;
-  const withouts = ablate ? clues.map((_, i) => options.rerank!(analysis, [i])) : [];
+  // the time budget: the re-rankings stop once it is spent, and the ablation then covers the clues done
+  const withouts: ExplainRanked[] = [];
+  if (ablate) for (let i = 0; i < clues.length && !deadline?.stop("ablation"); i++) withouts.push(options.rerank!(analysis, [i]));
   const asked = new Set<number>(ranked.candidates.map((c) => c.node));
   for (const w of withouts) for (const c of w.candidates) asked.add(c.node);
   const patterns = patternSets(index, cost, clues.length, topPaths, cued, asked);
@@ -312,7 +317,7 @@ export function explain<A extends ExplainAnalysis>(
   const ablation: AblationEntry[] = [];
   if (ablate) {
     const topRef = names.ref(shown[0]!.node);
-    clues.forEach((clue, i) => {
+    clues.slice(0, withouts.length).forEach((clue, i) => {
       const without = withouts[i]!;
       const first = without.candidates[0];
       const topWithout = first ? names.ref(first.node) : null;
@@ -339,7 +344,7 @@ export function explain<A extends ExplainAnalysis>(
 
   // suggested clues
   let suggestions: SuggestedClue[] = [];
-  if ((verdict.status === "tied" || verdict.status === "weak") && shown.length > 1) {
+  if ((verdict.status === "tied" || verdict.status === "weak") && shown.length > 1 && !deadline?.stop("suggestions")) {
     const s1 = shown[0]!.score;
     // the tied ids were read by the verdict through `names`, so the cached ids are enough
     // (reading every candidate's id would cost one catalog row each)
@@ -356,7 +361,11 @@ export function explain<A extends ExplainAnalysis>(
   }
 
   // why not
-  const whyNot = (options.whyNot ?? []).map((num) => whyNotOf(num, analysis, ranked, clueSeeds, index, cost, names, pathSet.answers[0], options));
+  const whyNot: WhyNot[] = [];
+  for (const num of options.whyNot ?? []) {
+    if (deadline?.stop("why-not")) break;
+    whyNot.push(whyNotOf(num, analysis, ranked, clueSeeds, index, cost, names, pathSet.answers[0], options));
+  }
   for (const w of whyNot) names.used.set(w.entity.id, w.entity.label);
   for (const c of clueRefs) names.used.set(c.id, c.label);
   for (const a of answers) names.used.set(a.id, a.label);

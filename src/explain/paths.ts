@@ -18,6 +18,7 @@
  * (dijkstra.ts, on the compact evidence subgraph); Yen 1971 (yen.ts, yenOnArcs); Pohl 1971
  * (bidirectional-bfs.ts).
  */
+import type { Deadline } from "../model/index.js";
 import { bidirectionalBfs, type NumStep } from "./bidirectional-bfs.js";
 import { arcsTo, dijkstra, type ShortestPathTree } from "./dijkstra.js";
 import { evidenceSubgraph, type EvidenceSubgraph } from "./evidence-graph.js";
@@ -103,7 +104,14 @@ export interface PathSet {
  * Finds the paths from each clue (a list of seeds per clue, in clue order; a single seed
  * of weight 1 is the plain case) to each answer (best first).
  */
-export function findPaths(graph: WalkGraph, cost: PathCostModel, clues: readonly (readonly ClueSeed[])[], answers: readonly number[], options: PathOptions = {}): PathSet {
+export function findPaths(
+  graph: WalkGraph,
+  cost: PathCostModel,
+  clues: readonly (readonly ClueSeed[])[],
+  answers: readonly number[],
+  options: PathOptions = {},
+  deadline?: Deadline,
+): PathSet {
   const o = { ...DEFAULTS, ...options };
   const ev = evidenceSubgraph(graph, cost, clues, answers, {
     maxHops: o.evidenceHops,
@@ -130,6 +138,8 @@ export function findPaths(graph: WalkGraph, cost: PathCostModel, clues: readonly
     return { clue: ci, start, answer: a, steps, cost: sum(steps) + offset, via: "evidence" };
   };
   const out: AnswerPaths[] = answers.map((a, ai) => {
+    // the time budget: the best answer always gets its paths, later ones none once it is spent
+    if (ai > 0 && deadline?.stop("paths")) return { answer: a, byClue: clues.map(() => []) };
     const target = ev.localOf(a);
     const byClue = clues.map((seeds, ci): NumPath[] => {
       if (seeds.some((s) => s.node === a)) return [];

@@ -255,6 +255,15 @@ export interface AskResult {
   readonly reading?: ReadingDoc;
   /** Additive: names the catalog does not hold (see {@link NotFoundDoc}). */
   readonly notFound?: readonly NotFoundDoc[];
+  /** Additive: present when the question's time budget was spent and stages were cut (README "Time budget"). */
+  readonly budget?: BudgetDoc;
+}
+
+/** The time budget of a question that hit it: the limit, and the stages stopped early, in the order they run. */
+export interface BudgetDoc {
+  readonly limitMs: number;
+  readonly hit: true;
+  readonly cut: readonly string[];
 }
 
 /** The reminder printed with every answer set. */
@@ -302,6 +311,10 @@ export interface CheckSummary {
   readonly seconds: number;
   /** Additive: verdict accuracy and the confusion matrix, when some question carries an expected verdict. */
   readonly verdictCheck?: VerdictCheck;
+  /** Additive: questions whose time budget was spent (their `budget` field says what was cut); absent in reports written before it. */
+  readonly budgetHit?: number;
+  /** Additive: the time budget per question in milliseconds (0: none). */
+  readonly timeLimitMs?: number;
 }
 
 /** The one document of `check --json`. */

@@ -24,7 +24,10 @@ export type {
   ReadingDoc,
   ReadingNodeDoc,
   ReadingEdgeDoc,
+  BudgetDoc,
 } from "./answer.js";
 export { DISCLAIMER } from "./answer.js";
 export type { RelationEnd, RelationEnds } from "./relation-ends.js";
 export { LIMITS, checkQuestionLength, checkTop } from "./limits.js";
+export { Deadline, DEFAULTS as DEADLINE_DEFAULTS } from "./deadline.js";
+export type { CutStage } from "./deadline.js";

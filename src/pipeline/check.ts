@@ -7,7 +7,7 @@
  * (0 when none is returned; Voorhees 1999, TREC-8 QA track). An expected value matches an
  * answer by id or by exact label, or (value questions) a value of `values` as written.
  */
-import type { AskResult, CheckItem, CheckReport, VerdictCheck, VerdictStatus } from "../model/index.js";
+import { DEADLINE_DEFAULTS, type AskResult, type CheckItem, type CheckReport, type VerdictCheck, type VerdictStatus } from "../model/index.js";
 import type { QuestionItem } from "./questions.js";
 import type { AskOptions, Session } from "./session.js";
 
@@ -15,6 +15,8 @@ import type { AskOptions, Session } from "./session.js";
 export interface CheckOptions {
   /** Answers per question. @default 10 */
   readonly top?: number;
+  /** Time budget per question in milliseconds (0: none). @default 3000 (Session.ask) */
+  readonly timeLimitMs?: number;
   /** Called after each question with its result. */
   readonly onProgress?: (done: number, total: number, item: CheckItem) => void;
 }
@@ -38,7 +40,7 @@ export function unknownExpected(session: Session, item: QuestionItem): string[] 
 /** Runs every question and summarises (contract.md, `check --json`). */
 export function runCheck(session: Session, items: readonly QuestionItem[], options: CheckOptions = {}): CheckReport {
   const t0 = performance.now();
-  const ask: AskOptions = options.top !== undefined ? { top: options.top } : {};
+  const ask: AskOptions = { ...(options.top !== undefined ? { top: options.top } : {}), ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}) };
   const results: CheckItem[] = [];
   for (const item of items) {
     const answer = session.ask(item.question, ask).result;
@@ -57,11 +59,11 @@ export function runCheck(session: Session, items: readonly QuestionItem[], optio
     results.push(r);
     options.onProgress?.(results.length, items.length, r);
   }
-  return { results, summary: summarise(results, (performance.now() - t0) / 1000) };
+  return { results, summary: summarise(results, (performance.now() - t0) / 1000, options.timeLimitMs ?? DEADLINE_DEFAULTS.timeLimitMs) };
 }
 
 /** The summary of a list of results. */
-export function summarise(results: readonly CheckItem[], seconds: number): CheckReport["summary"] {
+export function summarise(results: readonly CheckItem[], seconds: number, timeLimitMs: number = DEADLINE_DEFAULTS.timeLimitMs): CheckReport["summary"] {
   const verdicts: Record<VerdictStatus, number> = { unique: 0, tied: 0, weak: 0, none: 0 };
   let withExpected = 0;
   let h1 = 0;
@@ -79,7 +81,8 @@ export function summarise(results: readonly CheckItem[], seconds: number): Check
   }
   const share = (x: number) => (withExpected === 0 ? 0 : x / withExpected);
   const verdictCheck = verdictCheckOf(results);
-  return { questions: results.length, withExpected, hits1: share(h1), hits5: share(h5), mrr: share(rr), verdicts, seconds, ...(verdictCheck ? { verdictCheck } : {}) };
+  const budgetHit = results.filter((r) => r.answer.budget !== undefined).length;
+  return { questions: results.length, withExpected, hits1: share(h1), hits5: share(h5), mrr: share(rr), verdicts, seconds, budgetHit, timeLimitMs, ...(verdictCheck ? { verdictCheck } : {}) };
 }
 
 const STATUSES: readonly VerdictStatus[] = ["unique", "tied", "weak", "none"];

@@ -8,7 +8,7 @@
 import { Catalog, NumericColumns, demoCatalogPath, normalize } from "../catalog/index.js";
 import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type QueryGraph, type QuestionModel } from "../analysis/index.js";
 import { Linker, linkQuestion, notFoundNote, type LinkResult, type Pin } from "../linking/index.js";
-import { DISCLAIMER, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
+import { DEADLINE_DEFAULTS, DISCLAIMER, Deadline, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { basicVerdict, readingVerdict } from "./verdict.js";
 import { answerComparison, answerValue, type DirectAnswer } from "./direct.js";
@@ -44,6 +44,13 @@ export interface AskOptions {
   readonly whyNot?: readonly string[];
   /** Re-ask each suggested clue's question and mark it `verified` when it comes out unique with the same answer (verified ones first). @default false */
   readonly verifySuggestions?: boolean;
+  /**
+   * The question's time budget in milliseconds (0: none): once spent, the long stages
+   * (conditions over every entity of a type, paths of later answers, clue ablation,
+   * suggestions, why-not, suggestion checks) stop early, and the result says what was cut
+   * (`budget`, a note). @default 3000 (model DEADLINE_DEFAULTS.timeLimitMs)
+   */
+  readonly timeLimitMs?: number;
 }
 
 /** Defaults of {@link AskOptions}. */
@@ -136,6 +143,7 @@ export class Session {
     if (question.trim() === "") throw new TiepointError("pipeline/question", "the question is empty");
     checkQuestionLength(question);
     const t0 = performance.now();
+    const deadline = new Deadline(options.timeLimitMs ?? DEADLINE_DEFAULTS.timeLimitMs);
     const linked = linkQuestion(question, this.linker, options.pins !== undefined ? { pins: options.pins } : {});
     const link = capMentions(linked);
     const limitNotes =
@@ -172,13 +180,13 @@ export class Session {
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();
     const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, readingChains: reading.chains, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
-    const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup) : undefined;
+    const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup, { deadline }) : undefined;
     const ranked = conditions?.ranked ?? ranked0;
     const t3 = performance.now();
     const asked = (options.whyNot ?? []).map((e) => ({ name: e, nums: this.whyNotEntities(e) }));
     const whyNot = [...new Set(asked.flatMap((x) => x.nums))];
     const sharedNotes = asked.filter((x) => x.nums.length > 1).map((x) => this.sharedNameNote(x.name, x.nums));
-    const made = this.answersOf(analysis, ranked, top, { dropClues: options.dropClues ?? [], whyNot, pprMemo, ...(conditions ? { rerankWith: withConditions } : {}) });
+    const made = this.answersOf(analysis, ranked, top, { dropClues: options.dropClues ?? [], whyNot, pprMemo, deadline, ...(conditions ? { rerankWith: withConditions } : {}) });
     let { answers, verdict } = made;
     if (conditions) {
       const nodeOf = new Map(ranked.candidates.slice(0, top).map((c) => [this.ref(c.node).id, c.node]));
@@ -199,8 +207,11 @@ export class Session {
     let explanation = whyNot.length > 0 ? this.completeWhyNot(whyNot, made.explanation, answers, verdict, analysis, ranked, conditions ? { list: cond.conditions, outcome: conditions } : undefined) : made.explanation;
     if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {
       const want = answers[0].id;
+      // each re-ask gets what is left of the budget; once it is spent the rest stay unchecked
       const checked = explanation.suggestions.map((sg) => {
-        const again = this.ask(sg.question, { top: 3, ...(options.pins !== undefined ? { pins: options.pins } : {}) }).result;
+        if (deadline.stop("suggestion checks")) return sg;
+        const left = deadline.remaining();
+        const again = this.ask(sg.question, { top: 3, timeLimitMs: left === Infinity ? 0 : Math.max(1, left), ...(options.pins !== undefined ? { pins: options.pins } : {}) }).result;
         return { ...sg, verified: again.verdict.status === "unique" && again.answers[0]?.id === want };
       });
       explanation = { ...explanation, suggestions: [...checked.filter((x) => x.verified), ...checked.filter((x) => !x.verified)] };
@@ -213,7 +224,7 @@ export class Session {
       answerTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
       answers,
       verdict,
-      notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...analysis.notes, ...ranked.notes, ...sharedNotes],
+      notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...analysis.notes, ...ranked.notes, ...sharedNotes, ...budgetNotes(deadline)],
       ...(link.notFound.length > 0 ? { notFound: link.notFound } : {}),
       disclaimer: DISCLAIMER,
       reading: readingDoc(reading, analysis, this.model, ranked.matched !== undefined ? { matched: ranked.matched, fallback: ranked.fallback === true } : { matched: null, fallback: false }),
@@ -222,6 +233,7 @@ export class Session {
       ...(explanation && explanation.suggestions.length > 0
         ? { suggestions: explanation.suggestions.map((sg) => ({ text: sg.text, question: sg.question, triple: sg.triple, rulesOut: sg.rulesOut, ...(sg.verified !== undefined ? { verified: sg.verified } : {}) })) }
         : {}),
+      ...(deadline.hit ? { budget: { limitMs: deadline.limitMs, hit: true as const, cut: deadline.cuts } } : {}),
     };
     return { result, analysis, ranked, explanation, reading, ...(conditions ? { conditions } : {}), timings: { link: t1 - t0, analyze: t2 - t1, rank: t3 - t2, explain: t4 - t3, total: t4 - t0 } };
   }
@@ -275,6 +287,8 @@ export class Session {
       readonly rerankWith?: (r: Ranked) => Ranked;
       /** Per-clue PageRank vectors of this analysis (rank's `pprMemo`), shared by the re-rankings. */
       readonly pprMemo?: Map<string, SparseScores>;
+      /** The question's time budget (explain's long stages stop early once it is spent). */
+      readonly deadline?: Deadline;
     } = {},
   ): { answers: Answer[]; verdict: Verdict; explanation?: Explanation } {
     if (ranked.clues.length === 0 || ranked.candidates.length === 0) {
@@ -299,6 +313,7 @@ export class Session {
         return extra.rerankWith ? extra.rerankWith(r) : r;
       },
       whyNot: extra.whyNot ?? [],
+      ...(extra.deadline ? { deadline: extra.deadline } : {}),
       // the session reads one committed catalog state (one read transaction), so ids and labels can be kept across questions
       refs: this.idCache,
       labelCounts: this.labelCounts,
@@ -400,6 +415,12 @@ export class Session {
     endRead(this.catalog);
     this.catalog.close();
   }
+}
+
+/** The note of a question whose time budget was spent: what was cut (README "Time budget"). */
+function budgetNotes(deadline: Deadline): string[] {
+  if (!deadline.hit) return [];
+  return [`time limit of ${deadline.limitMs} ms reached: ${deadline.cuts.join(", ")} stopped early; the answers found so far are shown (raise it with --time-limit; README "Time budget")`];
 }
 
 /** The contract's mention documents of an analysis. */

@@ -65,6 +65,7 @@ export function renderSummaryText(report: CheckReport): string {
     `  verdicts    unique ${v.unique}   tied ${v.tied}   weak ${v.weak}   none ${v.none}`,
     ...verdictCheckText(report),
     `  time        ${timing(report)}`,
+    ...(s.budgetHit !== undefined ? [`  time limit  ${s.budgetHit} of ${s.questions} question${s.questions === 1 ? "" : "s"} hit the ${s.timeLimitMs ? `${s.timeLimitMs} ms` : "time"} budget${s.budgetHit > 0 ? " (stages cut: see their notes)" : ""}`] : []),
   ].join("\n");
 }
 

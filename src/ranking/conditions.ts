@@ -26,6 +26,7 @@
  * order (score, then node). Where the conditions change the order, each candidate's score is
  * capped at the one before it (a running minimum), so scores stay best first.
  */
+import type { Deadline } from "../model/index.js";
 import type { AttributeChoice, Analysis, Condition, ComparisonCondition, SuperlativeCondition } from "../analysis/index.js";
 import { words } from "../analysis/index.js";
 import type { Ranked, RankedCandidate } from "./rank.js";
@@ -37,6 +38,8 @@ export interface ApplyConditionsOptions {
   readonly maxHops?: number;
   /** Node visits per clue of that search. @default 200000 */
   readonly maxVisits?: number;
+  /** The question's time budget: the enumeration of every entity of the expected type (no clue left) stops once it is spent. */
+  readonly deadline?: Deadline;
 }
 
 /** Defaults of {@link ApplyConditionsOptions}. */
@@ -104,16 +107,23 @@ export function satisfies(c: ComparisonCondition, v: number): boolean {
   return c.negated ? !inRange : inRange;
 }
 
-/** Hop distances from `start` (both directions), up to `maxHops`, at most `maxVisits` nodes. */
-function hopDistances(index: RelationIndex, start: number, maxHops: number, maxVisits: number): Map<number, number> {
-  const dist = new Map<number, number>([[start, 0]]);
+/**
+ * Hop distances from `start` (both directions), up to `maxHops`, at most `maxVisits` nodes:
+ * a dense array over the index's nodes (-1: not reached), so a search that visits 10^5
+ * nodes costs no map of 10^5 entries.
+ */
+function hopDistances(index: RelationIndex, start: number, maxHops: number, maxVisits: number): Int8Array {
+  const dist = new Int8Array(index.nodeCount).fill(-1);
+  dist[start] = 0;
+  let visited = 1;
   let frontier = [start];
-  for (let d = 1; d <= maxHops && frontier.length > 0 && dist.size < maxVisits; d++) {
+  for (let d = 1; d <= maxHops && frontier.length > 0 && visited < maxVisits; d++) {
     const next: number[] = [];
     for (const u of frontier) {
       index.forEach(u, (v) => {
-        if (!dist.has(v) && dist.size < maxVisits) {
-          dist.set(v, d);
+        if (dist[v] === -1 && visited < maxVisits) {
+          dist[v] = d;
+          visited++;
           next.push(v);
         }
       });
@@ -165,7 +175,14 @@ export function applyConditions(
     notes.push(`no clue entity: the entities whose ${literalSeed.choices[0]!.label} is ${literalSeed.value} are the candidates (${cands.length})`);
   } else if (ranked.clues.length === 0 && typeSet.size > 0 && usable) {
     cands = [];
-    for (let v = 0; v < index.nodeCount; v++) if (!typeSet.has(v) && index.isA(v, typeSet)) cands.push({ node: v, score: 1, perClue: [], covered: 0 });
+    for (let v = 0; v < index.nodeCount; v++) {
+      // the time budget, looked at every 4,096 nodes: the candidates enumerated so far are kept
+      if ((v & 4095) === 0 && v > 0 && options.deadline?.stop("conditions")) {
+        notes.push(`time limit reached: only the entities numbered below ${v} of ${index.nodeCount} were considered`);
+        break;
+      }
+      if (!typeSet.has(v) && index.isA(v, typeSet)) cands.push({ node: v, score: 1, perClue: [], covered: 0 });
+    }
     fit = new Set(cands.map((c) => c.node));
     if (cands.length > 0) notes.push(`no clue entity: every ${analysis.answerTypes.map((t) => t.label).join(" or ")} of the catalog is a candidate (${cands.length})`);
   } else if (ranked.matched !== undefined && ranked.matched > 0) {
@@ -358,7 +375,7 @@ function fitSet(analysis: Analysis, ranked: Ranked, index: RelationIndex, maxHop
   for (const clue of ranked.clues) {
     if (clue.node < 0 || clue.node >= index.nodeCount) continue;
     const dist = hopDistances(index, clue.node, maxHops, maxVisits);
-    const d = (n: number) => dist.get(n) ?? Infinity;
+    const d = (n: number) => (n >= 0 && n < dist.length && dist[n]! >= 0 ? dist[n]! : Infinity);
     const min = Math.min(...pool.map((c) => d(c.node)));
     if (min === Infinity) continue;
     pool = pool.filter((c) => d(c.node) === min);

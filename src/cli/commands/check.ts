@@ -9,7 +9,7 @@ import type { Command } from "commander";
 import { parseQuestionFile, QUESTION_FILE_DEFAULTS, runCheck, Session, unknownExpected, type QuestionItem } from "../../pipeline/index.js";
 import { guarded } from "../run.js";
 import { checkOutTarget, emit, progressReporter, readEarlierReport, renderReport, reportFormat, suggestionsBySession } from "../report-output.js";
-import { parseTop } from "./ask.js";
+import { parseTimeLimit, parseTop, TIME_LIMIT_HELP } from "./ask.js";
 
 /** The options of `check`, in one place. */
 export interface CheckCommandOptions {
@@ -22,6 +22,8 @@ export interface CheckCommandOptions {
   readonly out?: string;
   /** An earlier `check --json` document to compare with. */
   readonly compare?: string;
+  /** Time budget per question, milliseconds (0: none). */
+  readonly timeLimit?: string;
 }
 
 /**
@@ -54,6 +56,7 @@ export function registerCheck(program: Command): void {
     .option("--format <kind>", "report format: text, json, tsv, md or html")
     .option("--out <file>", "write the report to FILE instead of stdout")
     .option("--compare <old.json>", "show what changed since an earlier `check --json` report")
+    .option("--time-limit <ms>", TIME_LIMIT_HELP)
     .addHelpText(
       "after",
       `
@@ -70,6 +73,7 @@ Question file:
     .action((file: string, opts: CheckCommandOptions) =>
       guarded(async () => {
         const top = parseTop(opts.top);
+        const timeLimitMs = parseTimeLimit(opts.timeLimit);
         const format = reportFormat(opts.format, opts.json);
         const earlier = opts.compare !== undefined ? readEarlierReport(opts.compare) : undefined;
         if (opts.out !== undefined) checkOutTarget(opts.out);
@@ -78,7 +82,7 @@ Question file:
         try {
           warnUnknownExpected(session, items, file);
           const progress = progressReporter();
-          const report = runCheck(session, items, { top, ...(progress.onProgress ? { onProgress: progress.onProgress } : {}) });
+          const report = runCheck(session, items, { top, timeLimitMs, ...(progress.onProgress ? { onProgress: progress.onProgress } : {}) });
           progress.finish();
           const doc = await renderReport(report, {
             format,

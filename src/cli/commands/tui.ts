@@ -12,7 +12,7 @@ import { distance } from "fastest-levenshtein";
 import { missingCatalog } from "../../catalog/index.js";
 import { TiepointError } from "../../model/index.js";
 import { guarded } from "../run.js";
-import { parseTop } from "./ask.js";
+import { parseTimeLimit, parseTop, TIME_LIMIT_HELP } from "./ask.js";
 
 const ALT_SCREEN_ON = "\x1b[?1049h";
 const ALT_SCREEN_OFF = "\x1b[?1049l";
@@ -21,10 +21,12 @@ const ALT_SCREEN_OFF = "\x1b[?1049l";
 interface TuiOptions {
   readonly db?: string;
   readonly top?: string;
+  readonly timeLimit?: string;
 }
 
 async function runScreen(opts: TuiOptions): Promise<void> {
   const top = parseTop(opts.top);
+  const timeLimitMs = parseTimeLimit(opts.timeLimit);
   if (opts.db !== undefined && !existsSync(opts.db)) {
     throw missingCatalog(opts.db);
   }
@@ -34,7 +36,7 @@ async function runScreen(opts: TuiOptions): Promise<void> {
   delete process.env["CONTINUOUS_INTEGRATION"];
   const [{ render }, { createElement }, tui] = await Promise.all([import("ink"), import("react"), import("../../present/tui/index.js")]);
   let failure: Error | undefined;
-  const source = opts.db !== undefined ? { db: opts.db } : {};
+  const source = { ...(opts.db !== undefined ? { db: opts.db } : {}), timeLimitMs };
   const open = (onProgress: Parameters<typeof tui.workerEngine>[1]) =>
     tui.workerEngine(source, onProgress).catch((e: unknown) => {
       failure = e instanceof Error ? e : new Error(String(e));
@@ -82,6 +84,7 @@ export function registerTui(program: Command): void {
   program
     .option("--db <path>", "the catalog for the terminal screen (default: the bundled demo catalog)")
     .option("--top <n>", "answers per question on the terminal screen", "10")
+    .option("--time-limit <ms>", TIME_LIMIT_HELP)
     // words after `tiepoint` that name no command reach this action: say so (not "too many arguments")
     .allowExcessArguments(true)
     .action((opts: TuiOptions) =>

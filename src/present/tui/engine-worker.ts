@@ -14,11 +14,11 @@ if (!port) throw new TypeError("present/tui/engine-worker: must run as a worker 
 const send = (m: WorkerReply) => port.postMessage(m);
 const messageOf = (e: unknown) => (e instanceof TiepointError ? e.format() : e instanceof Error ? e.message : String(e));
 
-const db = (workerData as { db?: string } | undefined)?.db;
+const { db, timeLimitMs } = (workerData as { db?: string; timeLimitMs?: number } | undefined) ?? {};
 let core: SessionEngineCore | undefined;
 try {
   const session = Session.open({ ...(db !== undefined ? { db } : {}), onProgress: (p) => send({ type: "progress", progress: progressOf(p) }) });
-  core = new SessionEngineCore(session, titleOf(session, db));
+  core = new SessionEngineCore(session, titleOf(session, db), timeLimitMs);
   send({ type: "ready", title: core.title });
 } catch (e) {
   send({ type: "open-failed", message: messageOf(e) });

@@ -210,13 +210,18 @@ export function titleOf(session: Session, db: string | undefined): string {
 /** Session-backed engine operations, shared by the in-process and the worker engines. */
 export class SessionEngineCore {
   private readonly labels: Labels;
-  constructor(readonly session: Session, readonly title: string) {
+  constructor(
+    readonly session: Session,
+    readonly title: string,
+    /** Time budget per question in milliseconds (0: none; absent: Session.ask's default). */
+    readonly timeLimitMs?: number,
+  ) {
     this.labels = new Labels(session.catalog);
   }
   /** Answers a question (synchronously). */
   ask(question: string, pins: readonly PinView[], top: number): TuiResult {
     const t0 = performance.now();
-    const outcome = this.session.ask(question, { top, pins });
+    const outcome = this.session.ask(question, { top, pins, ...(this.timeLimitMs !== undefined ? { timeLimitMs: this.timeLimitMs } : {}) });
     return buildTuiResult(this.session, outcome, this.labels, performance.now() - t0);
   }
   /** An entity card (synchronously). */
@@ -231,13 +236,15 @@ const tick = () => new Promise<void>((resolve) => setImmediate(resolve));
 export interface EngineSource {
   /** Catalog file; the demo catalog when absent. */
   readonly db?: string;
+  /** Time budget per question in milliseconds (`--time-limit`; 0: none). */
+  readonly timeLimitMs?: number;
 }
 
 /** Opens a Session in this thread, after letting the screen paint once. */
 export async function inProcessEngine(source: EngineSource, onProgress?: (p: OpenProgress) => void): Promise<TuiEngine> {
   await tick();
   const session = Session.open({ ...(source.db !== undefined ? { db: source.db } : {}), onProgress: (p) => onProgress?.(progressOf(p)) });
-  const core = new SessionEngineCore(session, titleOf(session, source.db));
+  const core = new SessionEngineCore(session, titleOf(session, source.db), source.timeLimitMs);
   return {
     title: core.title,
     async ask(question, pins, top) {

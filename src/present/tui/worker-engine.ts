@@ -10,7 +10,7 @@ import type { WorkerReply, WorkerRequest } from "./worker-protocol.js";
 
 /** Opens the engine in a worker thread; resolves when the catalog is open. */
 export function workerEngine(source: EngineSource, onProgress?: (p: OpenProgress) => void): Promise<TuiEngine> {
-  const worker = new Worker(new URL("./engine-worker.js", import.meta.url), { workerData: { db: source.db } });
+  const worker = new Worker(new URL("./engine-worker.js", import.meta.url), { workerData: { db: source.db, timeLimitMs: source.timeLimitMs } });
   const pending = new Map<number, { resolve: (v: TuiResult | EntityCard | null) => void; reject: (e: Error) => void }>();
   let next = 1;
   const call = (req: WorkerRequest & { id: number }) =>
