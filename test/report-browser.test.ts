@@ -73,6 +73,40 @@ describe.skipIf(!HAVE)("HTML report of a hand-written report, in Chromium", () =
   });
 });
 
+describe.skipIf(!HAVE)("the verdict bar with a small share, in Chromium", () => {
+  it("keeps every segment inside the bar, side by side, with no label running over its segment", async () => {
+    // one verdict holds 97 of 100 questions, the other three 1 each (issue 18: labels overlapped)
+    const skewed = { ...REPORT, summary: { ...REPORT.summary, questions: 100, verdicts: { unique: 97, tied: 1, weak: 1, none: 1 } } };
+    const dir = mkdtempSync(join(tmpdir(), "tiepoint-report-"));
+    const file = join(dir, "skewed.html");
+    writeFileSync(file, await checkHtml(skewed));
+    for (const width of [1400, 500]) {
+      const { ctx, page } = await openInChromium(file, width);
+      try {
+        const m = await page.evaluate(() => {
+          const bar = document.querySelector(".bar")!.getBoundingClientRect();
+          const segs = [...document.querySelectorAll(".bar .seg")].map((e) => {
+            const r = e.getBoundingClientRect();
+            return { left: r.left, right: r.right, width: r.width, overflow: (e as HTMLElement).scrollWidth > (e as HTMLElement).clientWidth + 0.5, text: e.textContent };
+          });
+          return { bar: { left: bar.left, right: bar.right, width: bar.width }, segs };
+        });
+        expect(m.segs).toHaveLength(4);
+        for (let i = 0; i < m.segs.length; i++) {
+          const sg = m.segs[i]!;
+          expect(sg.overflow, `segment ${i} (${sg.text}) at ${width} px`).toBe(false);
+          expect(sg.right).toBeLessThanOrEqual(m.bar.right + 0.5);
+          if (i > 0) expect(sg.left).toBeGreaterThanOrEqual(m.segs[i - 1]!.right - 0.5);
+        }
+        // each segment keeps its share of the bar (inner width: the bar has a 1 px border)
+        expect(m.segs[1]!.width / (m.bar.width - 2)).toBeCloseTo(0.01, 2);
+      } finally {
+        await ctx.close();
+      }
+    }
+  });
+});
+
 describe.skipIf(!HAVE)("HTML report of the demo question set, in Chromium", () => {
   let ctx: BrowserContext;
   let page: Page;

@@ -51,6 +51,24 @@ describe("HTML report", async () => {
     expect(new Set(ids).size).toBe(ids.length);
   });
 
+  it("prints a weak verdict's reason once in its question (not again as a flag)", () => {
+    // the fixture's weak question (test/fixtures/report-fixtures.ts): reason "small lead <b>"
+    const weak = REPORT.results.find((r) => r.answer.verdict.status === "weak")!;
+    const article = new RegExp(`<article class="question" id="q-${weak.line}">[\\s\\S]*?</article>`).exec(html)![0];
+    expect(article.match(/small lead &lt;b&gt;/g)).toHaveLength(1);
+    expect(article).toContain('<p class="reason">small lead &lt;b&gt;</p>');
+  });
+
+  it("labels a verdict-bar segment only when its label fits; the counts below name every verdict", async () => {
+    const skewed = { ...REPORT, summary: { ...REPORT.summary, questions: 100, verdicts: { unique: 97, tied: 1, weak: 1, none: 1 } } };
+    const page = await checkHtml(skewed);
+    const bar = /<div class="bar">([\s\S]*?)<\/div>/.exec(page)![1]!;
+    expect(bar).toContain(">unique 97</span>");
+    // 1 % of 760 px is 7.6 px: no room for "tied 1" (6 characters)
+    expect(bar).toMatch(/<span class="seg v-tied bare" style="width:1\.00%" title="tied: 1"><\/span>/);
+    expect(page).toMatch(/<p><span class="badge v-unique">unique<\/span> 97 <span class="badge v-tied">tied<\/span> 1/);
+  });
+
   it("shows suggested clues when the answer document carries them", async () => {
     const withSugg = { ...REPORT, results: [{ ...REPORT.results[1]!, answer: { ...REPORT.results[1]!.answer, suggestions: [{ text: "that is funded by Tallow Fund" }] } }] };
     const page = renderCheckHtml(withSugg, [null]);

@@ -41,7 +41,17 @@ export interface HtmlOptions extends ReportOptions {
 }
 
 /** Defaults of {@link HtmlOptions}. */
-export const HTML_DEFAULTS = { title: "tiepoint check report", drawAnswers: 3, sideBySideWidth: 540 } as const;
+export const HTML_DEFAULTS = {
+  title: "tiepoint check report",
+  drawAnswers: 3,
+  sideBySideWidth: 540,
+  /** The verdict bar's full width (CSS max-width), in CSS pixels. */
+  barWidthPx: 760,
+  /** Width allowed per label character in the bar (12 px sans-serif: ~7 px, common practice, with room). */
+  barCharPx: 7.5,
+  /** Horizontal padding of a bar segment, each side. */
+  barPaddingPx: 6,
+} as const;
 
 /** Escapes text for HTML content and quoted attribute values. */
 export function escapeHtml(s: string): string {
@@ -161,12 +171,14 @@ function questionHtml(item: CheckItem, svg: string | null, options: HtmlOptions)
   const drawing = svg
     ? `<figure class="evidence"><div class="drawing">${svg}</div><figcaption><span class="key k-clue">clue</span><span class="key k-answer">answer</span><span class="key k-rival">rival</span><span class="key k-path">on a path</span> arrows follow the stored relation direction</figcaption></figure>`
     : `<p class="muted">Nothing to draw.</p>`;
+  // the verdict's reason is printed once, above the flags; a flag that only repeats it is left out
+  const shownFlags = flags.filter((f) => !(v.reason !== undefined && (f.kind === "weak" || f.kind === "none") && f.detail === v.reason));
   return (
     `<article class="question" id="q-${item.line}">` +
     `<h3><span class="line">line ${item.line}</span> ${h(item.question)}</h3>` +
     `<p class="facts">${outcomeBadge(item)} ${h(outcomePhrase(item))} · ${badge(v.status)} margin ${v.margin.toFixed(2)}${tied}` +
     `${item.expected.length ? ` · expected <code>${h(item.expected.join(" | "))}</code>` : ""}</p>` +
-    `${v.reason ? `<p class="reason">${h(v.reason)}</p>` : ""}${flags.length ? `<p class="flags">${flags.map((f) => `<span class="flag">${h(f.kind)}: ${h(f.detail)}</span>`).join(" ")}</p>` : ""}` +
+    `${v.reason ? `<p class="reason">${h(v.reason)}</p>` : ""}${shownFlags.length ? `<p class="flags">${shownFlags.map((f) => `<span class="flag">${h(f.kind)}: ${h(f.detail)}</span>`).join(" ")}</p>` : ""}` +
     `<div class="cols${wide ? " wide" : ""}"><div class="col-text"><h4>Linked mentions</h4>${mentions}${a.answerTypes.length ? `<p>Expected type: ${a.answerTypes.map((t) => `<strong>${h(t.label)}</strong>`).join(", ")}</p>` : ""}` +
     `<h4>Answers and paths</h4>${answers}${suggestions}${notes}</div>` +
     `<div class="col-draw"><h4>Evidence graph</h4>${drawing}</div></div></article>`
@@ -177,8 +189,16 @@ function summaryHtml(report: CheckReport): string {
   const s = report.summary;
   const tile = (name: string, value: string, note = "") => `<div class="tile"><div class="tile-value">${value}</div><div class="tile-name">${name}</div>${note ? `<div class="tile-note">${note}</div>` : ""}</div>`;
   const total = Math.max(1, VERDICT_NAMES.reduce((x, k) => x + s.verdicts[k], 0));
+  // a segment holds its label only when the label fits its width at the bar's full width;
+  // the counts below the bar name every verdict, so a narrow segment stays a plain colour
+  // (flex-shrink 0 and min-width 0: segments keep exactly their share and never push or overlap)
   const bar = VERDICT_NAMES.filter((k) => s.verdicts[k] > 0)
-    .map((k) => `<span class="seg v-${k}" style="width:${((100 * s.verdicts[k]) / total).toFixed(2)}%" title="${k}: ${s.verdicts[k]}">${k} ${s.verdicts[k]}</span>`)
+    .map((k) => {
+      const share = s.verdicts[k] / total;
+      const label = `${k} ${s.verdicts[k]}`;
+      const fits = share * HTML_DEFAULTS.barWidthPx >= label.length * HTML_DEFAULTS.barCharPx + 2 * HTML_DEFAULTS.barPaddingPx;
+      return `<span class="seg v-${k}${fits ? "" : " bare"}" style="width:${(100 * share).toFixed(2)}%" title="${k}: ${s.verdicts[k]}">${fits ? label : ""}</span>`;
+    })
     .join("");
   return (
     `<section id="summary"><h2>Summary</h2><div class="tiles">` +
@@ -317,8 +337,9 @@ a { color: var(--accent); }
 .verdicts { margin-top: 12px; }
 .confusion { margin-top: 12px; border-collapse: collapse; }
 .confusion th, .confusion td { padding: 2px 8px; border: 1px solid var(--rule); }
-.bar { display: flex; height: 22px; border-radius: 5px; overflow: hidden; border: 1px solid var(--rule); max-width: 760px; }
-.seg { color: #fff; font-size: 12px; line-height: 22px; padding: 0 6px; white-space: nowrap; overflow: hidden; }
+.bar { display: flex; height: 22px; border-radius: 5px; overflow: hidden; border: 1px solid var(--rule); max-width: ${HTML_DEFAULTS.barWidthPx}px; }
+.seg { flex: 0 0 auto; min-width: 0; box-sizing: border-box; color: #fff; font-size: 12px; line-height: 22px; padding: 0 6px; white-space: nowrap; overflow: hidden; }
+.seg.bare { padding: 0; }
 .seg.v-unique, .badge.v-unique { background: var(--unique); }
 .seg.v-tied, .badge.v-tied { background: var(--tied); }
 .seg.v-weak, .badge.v-weak { background: var(--weak); }
