@@ -298,3 +298,24 @@ describe("stats: per type, per relation, shared names, types with no members", (
     expect(text).toContain("1 entities without edges; types without edges are not counted");
   });
 });
+
+describe("show: a type's place in the hierarchy; did you mean for an unknown name", () => {
+  it("a type shows its parents, subtypes and member count", () => {
+    // stats.db from the test above: site ⊃ reef, shoal, wreck; s:3 is a site directly
+    const r = tp("show", "t:Site", "--db", "stats.db");
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout).toContain("  a type with 3 members (1 direct, 2 through subtypes)\n  parents:     (none)\n  subtypes:    reef [t:Reef], shoal [t:Shoal], wreck [t:Wreck]\n");
+    const reef = JSON.parse(tp("show", "reef", "--db", "stats.db", "--json").stdout);
+    expect(reef.type).toEqual({ parents: [{ id: "t:Site", label: "site" }], children: [], members: 2, withSubtypes: 2 });
+    // an entity that is no type has no type part
+    expect(JSON.parse(tp("show", "s:4", "--db", "stats.db", "--json").stdout).type).toBeUndefined();
+  });
+
+  it("an unknown name gets the nearest names, never the same unknown name back", () => {
+    const r = tp("show", "Tarnn", "--db", "stats.db");
+    expect(r.status).toBe(1);
+    expect(r.stderr).toBe('tiepoint: no entity with id or label "Tarnn"; did you mean Tarn [s:4]?\n');
+    const id = tp("show", "s:44", "--db", "stats.db");
+    expect(id.stderr).toMatch(/^tiepoint: no entity with id or label "s:44"; did you mean Tarn \[s:4\]/);
+  });
+});

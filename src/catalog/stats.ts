@@ -181,29 +181,40 @@ export function catalogStats(cat: Catalog, options: { hubs?: number; sharedNames
 
 const byId = (a: { readonly id: string }, b: { readonly id: string }): number => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
 
-/** Direct members per type, and members of the type or any of its subtypes (distinct entities). */
-function typeCounts(cat: Catalog, typeNums: ReadonlySet<number>): TypeCount[] {
-  const direct = new Map<number, number>();
-  for (const r of cat.db.prepare("SELECT type, count(*) AS n FROM entity_type GROUP BY type").all() as { type: number; n: number }[]) direct.set(r.type, r.n);
+/** Members of type `t`: direct, and of the type or any of its subtypes, transitively (distinct entities). */
+export function typeMembers(cat: Catalog, t: number): { members: number; withSubtypes: number } {
+  return membersOf(cat, t, childMap(cat));
+}
+
+function childMap(cat: Catalog): Map<number, number[]> {
   const children = new Map<number, number[]>();
   for (const [sub, sup] of cat.subclassPairs()) children.set(sup, [...(children.get(sup) ?? []), sub]);
-  const distinct = cat.db.prepare("SELECT count(DISTINCT entity) FROM entity_type WHERE type IN (SELECT value FROM json_each(?))").pluck();
+  return children;
+}
+
+function membersOf(cat: Catalog, t: number, children: ReadonlyMap<number, readonly number[]>): { members: number; withSubtypes: number } {
+  // the type and its subtypes, transitively (a cycle in the hierarchy is walked once)
+  const seen = new Set<number>([t]);
+  const stack = [t];
+  while (stack.length > 0) {
+    for (const c of children.get(stack.pop()!) ?? []) {
+      if (seen.has(c)) continue;
+      seen.add(c);
+      stack.push(c);
+    }
+  }
+  const members = cat.stmt("SELECT count(*) FROM entity_type WHERE type = ?").pluck().get(t) as number;
+  const withSubtypes = seen.size === 1 ? members : (cat.stmt("SELECT count(DISTINCT entity) FROM entity_type WHERE type IN (SELECT value FROM json_each(?))").pluck().get(JSON.stringify([...seen])) as number);
+  return { members, withSubtypes };
+}
+
+/** Members per type (see {@link typeMembers}). */
+function typeCounts(cat: Catalog, typeNums: ReadonlySet<number>): TypeCount[] {
+  const children = childMap(cat);
   const out: TypeCount[] = [];
   for (const t of typeNums) {
-    // the type and its subtypes, transitively (a cycle in the hierarchy is walked once)
-    const seen = new Set<number>([t]);
-    const stack = [t];
-    while (stack.length > 0) {
-      for (const c of children.get(stack.pop()!) ?? []) {
-        if (seen.has(c)) continue;
-        seen.add(c);
-        stack.push(c);
-      }
-    }
-    const members = direct.get(t) ?? 0;
-    const withSubtypes = seen.size === 1 ? members : (distinct.get(JSON.stringify([...seen])) as number);
     const r = cat.ref(t);
-    out.push({ id: r.id, label: r.label, members, withSubtypes });
+    out.push({ id: r.id, label: r.label, ...membersOf(cat, t, children) });
   }
   return out.sort((a, b) => b.withSubtypes - a.withSubtypes || b.members - a.members || byId(a, b));
 }

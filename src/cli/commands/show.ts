@@ -1,13 +1,17 @@
 /**
  * `tiepoint show ENTITY [--db PATH] [--json]`: one entity — label, aliases, types,
- * description, attributes, relations in and out. ENTITY is an id or an exact label; when no
- * label matches exactly, the normalised form is tried. An ambiguous label lists the
- * candidates (ids and types) and exits 1.
+ * description, attributes, relations in and out; for a type also its parents, subtypes and
+ * member count. ENTITY is an id or an exact label; when no label matches exactly, the
+ * normalised form is tried. An ambiguous label lists the candidates (ids and types) and
+ * exits 1; an unknown one names the nearest entities ("did you mean").
  */
 import type { Command } from "commander";
-import { Catalog, demoCatalogPath, normalize } from "../../catalog/index.js";
+import { distance } from "fastest-levenshtein";
+import { Catalog, demoCatalogPath, normalize, typeMembers } from "../../catalog/index.js";
 import type { EntityInfo, NeighbourInfo } from "../../catalog/index.js";
+import { Linker, linkQuestion } from "../../linking/index.js";
 import { TiepointError } from "../../model/index.js";
+import type { EntityRef } from "../../model/index.js";
 import { guarded } from "../run.js";
 
 /** Limits of `show`. */
@@ -16,7 +20,74 @@ export const DEFAULTS = {
   maxRelations: 200,
   /** Candidates listed for an ambiguous name. */
   maxCandidates: 20,
+  /** Names offered for an unknown one ("did you mean"). */
+  suggestions: 5,
+  /** Catalogs up to this many entities are also searched by edit distance (ids first for an id-like name; otherwise when the linker finds nothing). */
+  editScanLimit: 200_000,
 };
+
+/** What `show` adds for a type: its place in the hierarchy and how many entities it has. */
+export interface TypeSummary {
+  readonly parents: readonly EntityRef[];
+  readonly children: readonly EntityRef[];
+  /** Entities with it as a direct type. */
+  readonly members: number;
+  /** Entities with it or one of its subtypes. */
+  readonly withSubtypes: number;
+}
+
+/** The type summary of entity `num`, or undefined when it is no type (no members, no place in the hierarchy). */
+export function typeSummary(cat: Catalog, num: number): TypeSummary | undefined {
+  const parents = cat.db.prepare("SELECT sup FROM subclass WHERE sub = ? ORDER BY sup").pluck().all(num) as number[];
+  const children = cat.db.prepare("SELECT sub FROM subclass WHERE sup = ? ORDER BY sub").pluck().all(num) as number[];
+  const m = typeMembers(cat, num);
+  if (parents.length === 0 && children.length === 0 && m.members === 0) return undefined;
+  return { parents: parents.map((n) => cat.ref(n)), children: children.map((n) => cat.ref(n)), ...m };
+}
+
+/**
+ * Names near an unknown one, for "did you mean": what the linker makes of it read as a
+ * question (its fuzzy candidates and suggestions: trigram-corrected words, Jaro–Winkler,
+ * see README "How mentions are linked"); when that finds nothing, the labels and ids nearest
+ * by Levenshtein distance (at most a third of the name's length) in a catalog small enough to scan.
+ */
+export function nearNames(cat: Catalog, name: string, max = DEFAULTS.suggestions): EntityRef[] {
+  const found = new Map<string, EntityRef>();
+  const add = (r: EntityRef | null | undefined): void => {
+    if (r && !found.has(r.id) && found.size < max) found.set(r.id, { id: r.id, label: r.label });
+  };
+  // a name written like an id (`f:p:19`, an IRI) is compared with the ids first
+  const idLike = /^\S+$/.test(name) && /[:/#]/.test(name);
+  if (idLike) for (const r of nearestByEdits(cat, name, max)) add(r);
+  try {
+    const res = linkQuestion(name, Linker.fromCatalog(cat));
+    for (const m of res.mentions) {
+      add(m.entity);
+      for (const a of m.alternatives) add(a);
+    }
+    for (const u of res.unlinked) for (const x of u.suggestions) add(x);
+    for (const nf of res.notFound) add(nf.nearest);
+  } catch {
+    // no snapshot could be built (e.g. an empty catalog): the scan below still runs
+  }
+  if (found.size === 0 && !idLike) for (const r of nearestByEdits(cat, name, max)) add(r);
+  return [...found.values()];
+}
+
+/** Entities whose id or label is within a third of the name's length in Levenshtein distance (small catalogs only). */
+function nearestByEdits(cat: Catalog, name: string, max: number): EntityRef[] {
+  const labelled = cat.db.prepare("SELECT count(*) FROM entity").pluck().get() as number;
+  if (labelled > DEFAULTS.editScanLimit) return [];
+  const want = name.toLowerCase();
+  const limit = Math.max(1, Math.floor(want.length / 3));
+  const scored: { r: EntityRef; d: number }[] = [];
+  for (const row of cat.db.prepare("SELECT id, label FROM entity").iterate() as IterableIterator<{ id: string; label: string | null }>) {
+    const d = Math.min(distance(want, row.id.toLowerCase()), row.label === null ? Infinity : distance(want, row.label.toLowerCase()));
+    if (d <= limit) scored.push({ r: { id: row.id, label: row.label ?? row.id }, d });
+  }
+  scored.sort((a, b) => a.d - b.d || (a.r.id < b.r.id ? -1 : a.r.id > b.r.id ? 1 : 0));
+  return scored.slice(0, max).map((x) => x.r);
+}
 
 /** The catalog path: `--db`, else the demo catalog (built on first use). */
 export function catalogPath(db: string | undefined): string {
@@ -41,11 +112,17 @@ function describe(cat: Catalog, num: number): string {
   return `${r.id}  ${r.label}${types.length ? `  (${types.join(", ")})` : ""}`;
 }
 
-/** Renders an entity as text lines. */
-export function renderEntity(e: EntityInfo, rels: readonly NeighbourInfo[]): string {
+/** Renders an entity as text lines (with its type summary when it is a type). */
+export function renderEntity(e: EntityInfo, rels: readonly NeighbourInfo[], type?: TypeSummary): string {
   const out: string[] = [];
+  const refs = (list: readonly EntityRef[]) => list.map((t) => `${t.label} [${t.id}]`).join(", ");
   out.push(`${e.label}  [${e.id}]`);
-  if (e.types.length) out.push(`  types:       ${e.types.map((t) => `${t.label} [${t.id}]`).join(", ")}`);
+  if (e.types.length) out.push(`  types:       ${refs(e.types)}`);
+  if (type) {
+    out.push(`  a type with ${type.withSubtypes} member${type.withSubtypes === 1 ? "" : "s"} (${type.members} direct${type.withSubtypes > type.members ? `, ${type.withSubtypes - type.members} through subtypes` : ""})`);
+    out.push(`  parents:     ${type.parents.length ? refs(type.parents) : "(none)"}`);
+    out.push(`  subtypes:    ${type.children.length ? refs(type.children) : "(none)"}`);
+  }
   if (e.aliases.length) out.push(`  aliases:     ${e.aliases.join("; ")}`);
   if (e.description) out.push(`  description: ${e.description.replace(/\s*\n\s*/g, " ")}`);
   if (e.attributes.length) {
@@ -79,7 +156,10 @@ export function registerShow(program: Command): void {
         const cat = Catalog.open(catalogPath(opts.db), { readonly: true });
         try {
           const nums = resolveEntity(cat, name);
-          if (nums.length === 0) throw new TiepointError("catalog/unknown-entity", `no entity with id or label ${JSON.stringify(name)}`);
+          if (nums.length === 0) {
+            const near = nearNames(cat, name);
+            throw new TiepointError("catalog/unknown-entity", `no entity with id or label ${JSON.stringify(name)}${near.length ? `; did you mean ${near.map((r) => `${r.label} [${r.id}]`).join(", ")}?` : ""}`);
+          }
           if (nums.length > 1) {
             const list = nums.slice(0, DEFAULTS.maxCandidates).map((n) => `  ${describe(cat, n)}`);
             if (nums.length > DEFAULTS.maxCandidates) list.push(`  … and ${nums.length - DEFAULTS.maxCandidates} more`);
@@ -89,8 +169,9 @@ export function registerShow(program: Command): void {
           }
           const info = cat.entity(nums[0]!);
           const rels = cat.neighbours(nums[0]!, DEFAULTS.maxRelations);
-          if (opts.json) process.stdout.write(JSON.stringify({ ...info, relations: rels }, null, 2) + "\n");
-          else process.stdout.write(renderEntity(info, rels) + "\n");
+          const type = typeSummary(cat, nums[0]!);
+          if (opts.json) process.stdout.write(JSON.stringify({ ...info, relations: rels, ...(type ? { type } : {}) }, null, 2) + "\n");
+          else process.stdout.write(renderEntity(info, rels, type) + "\n");
         } finally {
           cat.close();
         }
