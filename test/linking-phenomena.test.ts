@@ -92,6 +92,15 @@ describe("names not written as the catalog writes them (issue 16, phenomenon 4)"
   it("links a single-word misspelling", () => {
     expect(one("Which port is in Ostrelai?")).toMatchObject({ entity: { id: "c:ostrelia" }, match: "fuzzy" });
   });
+
+  it("reads a question capitalised only at its first word as typed without capitals", () => {
+    // names written in lower case (as package names are) are found, misspelt too ...
+    expect(one("Which port is in ostrelai?")).toMatchObject({ entity: { id: "c:ostrelia" }, match: "fuzzy" });
+    // ... but a word matching one word of a name only loosely is no name, and no "not found"
+    const r = linkQuestion("Which port has the deeper tarns?", linker);
+    expect(r.mentions).toEqual([]);
+    expect(r.notFound).toEqual([]);
+  });
 });
 
 describe("names not found (issue 17)", () => {

@@ -484,7 +484,9 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     for (let k = range[0]; k < range[1]; k++) blocked[k] = true;
     pinned.push({ first: range[0], last: range[1], num: nums[0]! });
   }
-  const allEligible = !/\p{Lu}/u.test(question);
+  // capitals mark names only when some word besides the first has one: the first word of a
+  // sentence is capitalised by orthography, not because it is a name (common practice)
+  const allEligible = !toks.some((t, k) => k > 0 && t.upper > 0);
   const det = detectMentions(toks, linker, blocked, allEligible);
   const vocabulary = linker.vocabularyOccurrences(toks);
   const namedAll = namedOutside(vocabulary, 0, 0);
@@ -566,7 +568,8 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     });
   }
   for (const u of det.unmatched) {
-    if (u.relationWord) continue;
+    // a run is name-like when written like one: a capital beyond the first word, or a digit
+    if (u.relationWord || !toks.slice(u.first, u.last).some((t, k) => (t.marked && u.first + k > 0) || /\p{N}/u.test(t.norm))) continue;
     const near = u.suggestions[0];
     notFound.push({ ...spanText(u.first, u.last), linked: false, nearest: near ? { ...cat.ref(near.num), similarity: round(near.similarity) } : null });
   }

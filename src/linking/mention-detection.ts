@@ -49,6 +49,12 @@ export const DEFAULTS = {
   tokenMatch: 0.88,
   /** Lowest span similarity for a fuzzy candidate. */
   minSimilarity: 0.5,
+  /**
+   * Lowest similarity for a fuzzy name in a case-blind question (no capitals beyond the first
+   * word): there any content word may start a span, so a word matching a name only in part or
+   * loosely ("tarns" ~ one word of "Tarn Kingdom") is no name; a misspelt whole name still is.
+   */
+  blindSimilarity: 0.75,
   /** Lowest similarity for a fuzzy name that absorbs a neighbouring exact span. */
   mergeSimilarity: 0.8,
   /** Lowest similarity for a suggestion on an unlinked span. */
@@ -60,6 +66,9 @@ export const DEFAULTS = {
   /** Posting lists longer than this only filter, they never generate candidates. */
   maxGenerator: 5000,
 } as const;
+
+/** {@link DEFAULTS} with any values. */
+type Options = { -readonly [K in keyof typeof DEFAULTS]: number };
 
 /** What mention detection needs from the catalog (the Linker implements it). */
 export interface AliasLexicon {
@@ -132,7 +141,7 @@ function plainCandidate(c: SpanCandidate): SpanCandidate {
 }
 
 /** A candidate whose name is wholly or partly present inside a longer name phrase: `partialFactor` × its similarity. */
-function absorbedCandidate(c: SpanCandidate, o: typeof DEFAULTS): SpanCandidate {
+function absorbedCandidate(c: SpanCandidate, o: Options): SpanCandidate {
   return { ...plainCandidate(c), similarity: c.similarity * o.partialFactor, match: c.match === "derived" || c.match === "fuzzy" ? c.match : "partial" };
 }
 
@@ -192,7 +201,7 @@ export function detectMentions(
   allEligible: boolean,
   options: Partial<typeof DEFAULTS> = {},
 ): Detection {
-  const o = { ...DEFAULTS, ...options };
+  const o: Options = { ...DEFAULTS, ...options };
   const n = toks.length;
   const maxLen = Math.min(o.maxTokens, lex.snapshot.maxAliasTokens);
   const spans: DetectedSpan[] = [];
@@ -332,9 +341,10 @@ export function detectMentions(
   /** Fuzzy-matches tokens [a, b); what the found name leaves on either side is absorbed (weak) or tried again. */
   const piece = (a: number, b: number, depth: number): void => {
     if (!hasNameIn(a, b)) return;
-    const result = fuzzySpan(toks.slice(a, b), lex, o);
+    const result = fuzzySpan(toks.slice(a, b), lex, caseBlind() ? { ...o, minSimilarity: Math.max(o.minSimilarity, o.blindSimilarity) } : o);
     if (result.candidates.length === 0) {
-      unmatched.push({ first: a, last: b, suggestions: result.suggestions });
+      if (b - a === 1 && relationWord(a) && result.suggestions.length > 0) explained(a, result.suggestions);
+      else unmatched.push({ first: a, last: b, suggestions: result.suggestions });
       return;
     }
     let first = a + result.first;
@@ -577,7 +587,7 @@ function spanSimilarity(run: readonly string[], alias: readonly string[], tokenM
   return { sim, used, how, ...(suffix !== undefined ? { suffix } : {}) };
 }
 
-function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: typeof DEFAULTS): FuzzyResult {
+function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: Options): FuzzyResult {
   const snap = lex.snapshot;
   const weights = lex.weights();
   // token alternatives: the token itself when known, else close vocabulary tokens; and the
