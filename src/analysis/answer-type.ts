@@ -77,6 +77,11 @@ export function detectAnswerType(ws: readonly Word[], blocked: readonly boolean[
   // the head noun phrase window
   let i = wh + 1;
   while (i < ws.length && !blocked[i] && SKIP.has(ws[i]!.norm)) i++;
+  // a linked name pre-modifying the head noun ("which *Norwegian* ports", "which *French*-speaking
+  // countries"; Quirk et al. 1985 §17.97 ff.): skipped when unblocked words follow it
+  let k = i;
+  while (k < ws.length && k - i < 4 && blocked[k]) k++;
+  if (k > i && k < ws.length && !CLAUSE.has(ws[k]!.norm) && ws.slice(k, k + model.maxTypeWords + 1).some((_, j) => model.typesByKey.has(ws[k + j]!.stem))) i = k;
   const phrase: number[] = [];
   for (; i < ws.length && phrase.length < window; i++) {
     if (blocked[i] || CLAUSE.has(ws[i]!.norm)) break;

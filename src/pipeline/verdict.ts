@@ -86,7 +86,8 @@ export function readingVerdict(
   if (ranked.fallback) return verdict;
   const constrained =
     reading.chains.length === ranked.clues.length &&
-    reading.chains.every((ch) => ch.steps.length > 0 && ch.steps.length <= o.maxSteps) &&
+    (ranked.open ?? 0) === 0 &&
+    reading.chains.every((ch) => ch.steps.length <= o.maxSteps) &&
     ranked.clues.every((c) => (analysis.mentions[c.mention]?.confidence ?? 0) >= o.minLinkConfidence);
   if (!constrained) return verdict;
   const set = ranked.candidates.slice(0, ranked.matched);

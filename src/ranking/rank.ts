@@ -115,6 +115,11 @@ export interface RankOptions extends CombineOptions {
   readonly chainMiss?: number;
   /** Factor of a candidate the pattern reaches only with some hop walked the other way. @default 0.6 */
   readonly chainLoose?: number;
+  /**
+   * A clue with no relation word constrains the answers to its neighbours only when it has at
+   * most this many edges (a hub's neighbours say little, and reading them all costs). @default 20000
+   */
+  readonly anyMaxDegree?: number;
   /** Longest pattern checked, in hops (longer chains are left to the cue check). @default 3 */
   readonly chainMaxSteps?: number;
   /** Options of the pattern attribution (analysis cueChains). */
@@ -136,6 +141,7 @@ export const DEFAULTS = {
   chainMiss: 0.05,
   chainLoose: 0.6,
   chainMaxSteps: 3,
+  anyMaxDegree: 20000,
   prune: 0.01,
   spreadBelow: 0.6,
   maxAlternatives: 3,
@@ -182,6 +188,8 @@ export interface Ranked {
   readonly matched?: number;
   /** True when some clue's pattern reaches no candidate, so no entity satisfies the whole reading: the order is the PageRank's. */
   readonly fallback?: boolean;
+  /** Clues the reading does not constrain by a relation word (their neighbours may order the answers, never decide the verdict); absent when no pattern was checked. */
+  readonly open?: number;
 }
 
 /** The per-question relation weights: 1 everywhere, the cue weight on cued relations. */
@@ -348,14 +356,34 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     return { node: v, score: total, perClue: norm, covered };
   });
   candidates.sort((a, b) => b.covered - a.covered || b.score - a.score || a.node - b.node);
-  if (!chainCheck) return { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
+  // a clue with no relation word ("~" in the reading: "*Nordic* towns", "in *Africa*") is a
+  // one-hop constraint of any relation, kept only when some eligible candidate is its
+  // neighbour (else it says nothing about this catalog) and the clue has at most `anyMaxDegree` edges
+  const eligibleSet = new Set(eligible.map((slot) => poolNodes[slot]!));
+  const adjacency: Set<number>[] = [];
+  let open = 0;
+  chains.forEach((ch, c) => {
+    const node = clues[c]!.node;
+    if (ch.steps.length > 0) return;
+    if (!(node >= 0 && node < index.nodeCount) || index.degree(node) > (options.anyMaxDegree ?? DEFAULTS.anyMaxDegree)) {
+      open++;
+      return;
+    }
+    const adj = new Set<number>();
+    index.forEach(node, (v) => adj.add(v));
+    if ([...adj].some((v) => eligibleSet.has(v))) adjacency.push(adj);
+    // a neighbour constraint orders the answers but does not decide the verdict: the
+    // question may mean a longer path its words did not name ("the town of the lab of X")
+    open++;
+  });
   // the reading's structure first: the candidates every checked pattern reaches exactly
   // (a conjunctive path query over the clues' patterns), each group in score order
-  const fits = (c: RankedCandidate) => c.chainFit === 1 && chainCheck.misses(c.node).length === 0;
-  const matched = chainCheck.ignored > 0 ? [] : candidates.filter(fits);
+  if (!chainCheck && adjacency.length === 0) return { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
+  const fits = (c: RankedCandidate) => (!chainCheck || (c.chainFit === 1 && chainCheck.misses(c.node).length === 0)) && adjacency.every((a) => a.has(c.node));
+  const matched = (chainCheck?.ignored ?? 0) > 0 ? [] : candidates.filter(fits);
   const ordered = matched.length > 0 ? [...matched, ...candidates.filter((c) => !fits(c))] : candidates;
   if (matched.length === 0) notes.push("no entity satisfies the whole reading of the question: the answers are ranked by PageRank alone and fit only part of it");
-  return { clues, candidates: ordered.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes, chainMissOf: chainCheck.misses, matched: matched.length, fallback: matched.length === 0 };
+  return { clues, candidates: ordered.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes, ...(chainCheck ? { chainMissOf: chainCheck.misses } : {}), matched: matched.length, fallback: matched.length === 0, open };
 }
 
 /** One clue's query-time personalized PageRank (push + random walks, ppr-fast.ts). */
