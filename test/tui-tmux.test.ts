@@ -7,30 +7,18 @@
  * installs it); skipped with a message only when tmux is absent.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { execFileSync, spawnSync } from "node:child_process";
+import { execFileSync } from "node:child_process";
 import { existsSync, readFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import type { AskResult } from "../src/model/index.js";
+import { HAVE_TMUX, tmuxPane } from "./helpers/tmux-pane.js";
 
 const ROOT = resolve(__dirname, "..");
 const CLI = join(ROOT, "dist/cli/main.js");
-const hasTmux = spawnSync("tmux", ["-V"]).status === 0;
+const hasTmux = HAVE_TMUX;
 if (!hasTmux) console.warn("test/tui-tmux.test.ts: SKIPPED — tmux is not installed (apt-get install -y tmux); the real-terminal test did not run");
 
-// a private tmux server (own socket), so a user's sessions are never touched
-const SOCKET = `tiepoint-test-${process.pid}`;
-const tmux = (...args: string[]) => execFileSync("tmux", ["-L", SOCKET, ...args], { encoding: "utf8" });
-const capture = () => tmux("capture-pane", "-p", "-t", "tp");
-const captureEscapes = () => tmux("capture-pane", "-p", "-e", "-t", "tp");
-
-async function paneWhere(ok: (pane: string) => boolean, what: string): Promise<string> {
-  for (let i = 0; i < 300; i++) {
-    const p = capture();
-    if (ok(p)) return p;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`the terminal never showed ${what}; pane:\n${capture()}`);
-}
+const { tmux, capture, captureEscapes, paneWhere, kill } = tmuxPane("tiepoint-test", "tp");
 
 function demoQuestion(): { question: string; expected: string } {
   const line = readFileSync(join(ROOT, "data/demo-questions.tsv"), "utf8").split("\n").find((l) => l.trim() !== "" && !l.startsWith("#"))!;
@@ -49,7 +37,7 @@ describe.skipIf(!hasTmux)("terminal screen in a real terminal (tmux)", () => {
     tmux("new-session", "-d", "-s", "tp", "-x", "80", "-y", "24", `cd '${ROOT}' && env ${env} '${process.execPath}' '${CLI}'; echo "[exit $?]"; sleep 60`);
   });
   afterAll(() => {
-    if (hasTmux) spawnSync("tmux", ["-L", SOCKET, "kill-server"]);
+    if (hasTmux) kill();
   });
 
   it("shows the answers, the verdict and the marked mentions of a typed demo question at 80×24", async () => {

@@ -3,7 +3,7 @@ import { Box, Text } from "ink";
 import { useContext } from "react";
 import { ThemeContext } from "./ThemeContext.js";
 import type { HintItem } from "../keymap.js";
-import { fit } from "../text-width.js";
+import { displayWidth, fit } from "../text-width.js";
 import { DISCLAIMER } from "../../../model/index.js";
 
 /** Props of {@link HelpView}. */
@@ -24,18 +24,20 @@ export function HelpView(props: HelpViewProps) {
     lines.push({ key: s.title, title: s.title });
     for (const k of s.keys) lines.push({ key: `${s.title}.${k.key}`, item: k });
   }
-  const keyW = 18;
   const twoCols = props.width >= 150 && lines.length > props.rows - 1;
   const perCol = twoCols ? Math.ceil(lines.length / 2) : lines.length;
   const colW = twoCols ? Math.floor(props.width / 2) : props.width;
+  // the key column is as wide as its widest key, plus the indent and a gap, so a key never runs into its text
+  const widest = Math.max(0, ...lines.map((l) => (l.item ? displayWidth(l.item.key) : 0)));
+  const keyW = Math.min(Math.max(8, Math.floor(colW / 2)), 2 + widest + 2);
   const render = (ls: typeof lines) =>
     ls.map((l) =>
       l.title ? (
         <Text key={l.key} bold color={theme.accent} wrap="truncate">{`» ${l.title}`}</Text>
       ) : (
         <Text key={l.key} wrap="truncate">
-          <Text bold>{fit(`  ${l.item!.key}`, keyW)}</Text>
-          {l.item!.what}
+          <Text bold>{fit(`  ${l.item!.key}`, keyW - 1)}</Text>
+          {` ${l.item!.what}`}
         </Text>
       ),
     );
