@@ -159,9 +159,16 @@ export class LoadContext {
 
   /** Reports the edges whose endpoints are still unknown at the end of the load. */
   checkPending(): void {
+    if (this.pending.length === 0) return;
+    // an entity an RDF file of this load describes (a label, description or type) counts as
+    // declared too, so Turtle entities and CSV edges can be loaded together
+    this.writer.flush();
+    const described = this.writer.catalog.db
+      .prepare("SELECT 1 FROM entity e WHERE e.id = ? AND (e.label IS NOT NULL OR e.description IS NOT NULL OR EXISTS(SELECT 1 FROM entity_type t WHERE t.entity = e.num))")
+      .pluck();
     for (const p of this.pending) {
       for (const id of p.ids) {
-        if (!this.isKnown(id)) this.error(p.file, p.line, `unknown entity ${JSON.stringify(id)} (declare it as an entity in this load or an earlier one)`);
+        if (!this.isKnown(id) && described.get(id) === undefined) this.error(p.file, p.line, `unknown entity ${JSON.stringify(id)} (declare it as an entity in this load or an earlier one)`);
       }
     }
     this.pending.length = 0;
