@@ -154,7 +154,8 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
   const totals: number[] = [];
   const cpu: number[] = [];
   const loadBefore = loadAverage();
-  const stages = { link: [] as number[], analyze: [] as number[], rank: [] as number[], explain: [] as number[], serialise: [] as number[] };
+  const stages: Record<string, number[]> = { link: [], analyze: [], rank: [], explain: [], paths: [], verdict: [], ablation: [], suggestions: [], serialise: [] };
+  const parts = ["paths", "verdict", "ablation", "suggestions"] as const;
   const digest = createHash("sha256");
   let hits = 0;
   let withExpected = 0;
@@ -163,14 +164,18 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
   for (const item of items) {
     const t = performance.now();
     const c = process.cpuUsage();
+    const phaseMs: Record<string, number> = {};
+    session.explainPhaseMs = phaseMs;
     const out = session.ask(item.question);
+    session.explainPhaseMs = undefined;
+    for (const k of parts) stages[k]!.push(phaseMs[k] ?? 0);
     const ts = performance.now();
     const json = JSON.stringify(out.result);
     const te = performance.now();
     totals.push(te - t);
     cpu.push(cpuMs(c));
-    stages.serialise.push(te - ts);
-    for (const k of ["link", "analyze", "rank", "explain"] as const) stages[k].push(out.timings[k]);
+    stages.serialise!.push(te - ts);
+    for (const k of ["link", "analyze", "rank", "explain"] as const) stages[k]!.push(out.timings[k]);
     digest.update(resultDigestText(json));
     if (item.expected.length > 0) {
       withExpected++;
@@ -187,7 +192,7 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
     latencyMs: quantiles(totals),
     cpuMs: quantiles(cpu),
     loadAverage: [loadBefore, loadAverage()],
-    stageMedianMs: { link: med(stages.link), analyze: med(stages.analyze), rank: med(stages.rank), explain: med(stages.explain), serialise: med(stages.serialise) },
+    stageMedianMs: Object.fromEntries(Object.entries(stages).map(([k, xs]) => [k, med(xs)])),
     stageP95Ms: Object.fromEntries(Object.entries(stages).map(([k, xs]) => [k, quantiles(xs).p95])),
     digest: digest.digest("hex").slice(0, 16),
     hits1: withExpected > 0 ? hits / withExpected : null,

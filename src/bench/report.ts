@@ -57,8 +57,8 @@ const ROWS: Row[] = [
   { label: "whole question, median (ms)", target: "≤ 8 (M), ≤ 15 (L)", value: (r) => num(r, "ask.latencyMs.median", 1) },
   { label: "whole question, p95 (ms)", target: "≤ 50 (L)", value: (r) => num(r, "ask.latencyMs.p95", 1) },
   { label: "whole question, CPU time median / p95 (ms)", target: "", value: (r) => `${num(r, "ask.cpuMs.median", 1)} / ${num(r, "ask.cpuMs.p95", 1)}` },
-  ...(["link", "analyze", "rank", "explain", "serialise"] as const).map((k) => ({
-    label: `  ${k === "analyze" ? "read (analyze)" : k === "explain" ? "explain (paths, verdict, ablation, suggestions)" : k === "serialise" ? "serialise (JSON)" : k}, median / p95 (ms)`,
+  ...(["link", "analyze", "rank", "explain", "paths", "verdict", "ablation", "suggestions", "serialise"] as const).map((k) => ({
+    label: `  ${["paths", "verdict", "ablation", "suggestions"].includes(k) ? "  of which " : ""}${k === "analyze" ? "read (analyze)" : k === "explain" ? "explain" : k === "serialise" ? "serialise (JSON)" : k}, median / p95 (ms)`,
     target: "",
     value: (r: SizeResult) => `${num(r, `ask.stageMedianMs.${k}`, 2)} / ${num(r, `ask.stageP95Ms.${k}`, 2)}`,
   })),

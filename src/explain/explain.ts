@@ -64,6 +64,8 @@ export interface ExplainOptions<A extends ExplainAnalysis = ExplainAnalysis> {
   readonly refs?: Map<number, EntityRef>;
   /** Like `refs`: a cache of how many entities carry a label or alias, by label. @default a fresh one per call */
   readonly labelCounts?: Map<string, number>;
+  /** When given, milliseconds spent per part (paths, ablation, verdict, suggestions, whyNot) are added to it (the bench's profile). */
+  readonly phaseMs?: Record<string, number>;
 }
 
 /** The defaults of {@link ExplainOptions}. */
@@ -228,6 +230,7 @@ export function explain<A extends ExplainAnalysis>(
   if (!Number.isInteger(top) || top < 1) throw new RangeError(`explain: top must be a positive integer, got ${top}`);
   if (!Number.isInteger(rows) || rows < 1) throw new RangeError(`explain: rows must be a positive integer, got ${rows}`);
   const names = new Names(catalog, options.refs, options.labelCounts);
+  const lap = lapTimer(options.phaseMs);
   const relationWeights = options.relationWeights ?? ranked.relationWeights;
   const walkOptions = {
     ...(relationWeights !== undefined ? { relationWeights } : {}),
@@ -299,12 +302,14 @@ export function explain<A extends ExplainAnalysis>(
       };
     });
   const topPaths = shown.length > 0 ? pathSet.answers[0] : undefined;
+  lap("paths");
   // the re-rankings of the clue ablation (one per clue), done first: the relation patterns
   // are only ever asked about the candidates of the ranking and of these re-rankings
   const ablate = options.rerank !== undefined && (options.ablation ?? DEFAULTS.ablation) && shown.length > 0;
   // the time budget: the re-rankings stop once it is spent, and the ablation then covers the clues done
   const withouts: ExplainRanked[] = [];
   if (ablate) for (let i = 0; i < clues.length && !deadline?.stop("ablation"); i++) withouts.push(options.rerank!(analysis, [i]));
+  lap("ablation");
   const asked = new Set<number>(ranked.candidates.map((c) => c.node));
   for (const w of withouts) for (const c of w.candidates) asked.add(c.node);
   const patterns = patternSets(index, cost, clues.length, topPaths, cued, asked);
@@ -312,6 +317,7 @@ export function explain<A extends ExplainAnalysis>(
     { clues: clues.map((c) => c.label), candidates: verdictCandidates(ranked.candidates, -1, true, ranked.chainMissOf), equivalent: intersect(patterns), maxHops },
     options.verdict,
   );
+  lap("verdict");
 
   // clue ablation
   const ablation: AblationEntry[] = [];
@@ -342,6 +348,7 @@ export function explain<A extends ExplainAnalysis>(
     });
   }
 
+  lap("ablation");
   // suggested clues
   let suggestions: SuggestedClue[] = [];
   if ((verdict.status === "tied" || verdict.status === "weak") && shown.length > 1 && !deadline?.stop("suggestions")) {
@@ -360,16 +367,29 @@ export function explain<A extends ExplainAnalysis>(
     suggestions = suggestClues(index, names, analysis.question, shown[0]!.node, rivals, seedNodes, options.suggest);
   }
 
+  lap("suggestions");
   // why not
   const whyNot: WhyNot[] = [];
   for (const num of options.whyNot ?? []) {
     if (deadline?.stop("why-not")) break;
     whyNot.push(whyNotOf(num, analysis, ranked, clueSeeds, index, cost, names, pathSet.answers[0], options));
   }
+  lap("whyNot");
   for (const w of whyNot) names.used.set(w.entity.id, w.entity.label);
   for (const c of clueRefs) names.used.set(c.id, c.label);
   for (const a of answers) names.used.set(a.id, a.label);
   return { answers, verdict, coverage, ablation, suggestions, whyNot, labels: Object.fromEntries([...names.used].sort((a, b) => (a[0] < b[0] ? -1 : 1))) };
+}
+
+/** Adds the milliseconds since the previous lap to `into[name]` (nothing when `into` is absent). */
+function lapTimer(into: Record<string, number> | undefined): (name: string) => void {
+  if (into === undefined) return () => {};
+  let last = performance.now();
+  return (name) => {
+    const now = performance.now();
+    into[name] = (into[name] ?? 0) + (now - last);
+    last = now;
+  };
 }
 
 function whyNotOf<A extends ExplainAnalysis>(

@@ -96,6 +96,8 @@ export class Session {
   private readonly idCache = new Map<number, { id: string; label: string }>();
   /** Entities per label (explain's suggested clues), kept like `idCache`. */
   private readonly labelCounts = new Map<string, number>();
+  /** When set, the explanation adds its milliseconds per part here (paths, ablation, verdict, suggestions, whyNot; the bench's profile). */
+  explainPhaseMs: Record<string, number> | undefined;
   private attributeModel?: AttributeModel;
   /** Numeric attribute values by predicate, read once per predicate in this session's snapshot. */
   private readonly numericColumns: NumericColumns;
@@ -317,6 +319,7 @@ export class Session {
       // the session reads one committed catalog state (one read transaction), so ids and labels can be kept across questions
       refs: this.idCache,
       labelCounts: this.labelCounts,
+      ...(this.explainPhaseMs !== undefined ? { phaseMs: this.explainPhaseMs } : {}),
       seeds: (clue) => clueSeeds(analysis, analysis.clues.find((c) => c.node === clue.node && c.mention === clue.mention) ?? analysis.clues[0]!, this.index, this.rankOptions),
     });
     return { answers: [...explanation.answers], verdict: explanation.verdict, explanation };
