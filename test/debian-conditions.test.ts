@@ -3,7 +3,7 @@
  * (test/fixtures/debian; Debian 12 "bookworm" main amd64), answered by tiepoint and checked
  * for identity against the SQL reference: the same stanzas parsed directly into plain tables
  * of an in-memory SQLite (src/eval/debian-reference.ts, not tiepoint's importer) and queried
- * with SQL (src/bench/conditions.ts `benchQuestions`: sets chosen by their size from the data).
+ * with SQL (src/eval/debian-conditions.ts `benchQuestions`: sets chosen by their size from the data).
  * The sizes stay within the ranking's 200 candidates (RANK_DEFAULTS.limit), the sets a
  * ranking can hold whole.
  */
@@ -11,7 +11,7 @@ import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { agrees, benchQuestions } from "../src/bench/conditions.js";
+import { agrees, benchQuestions } from "../src/eval/debian-conditions.js";
 import { debianReference } from "../src/eval/debian-reference.js";
 import { Session } from "../src/pipeline/index.js";
 import { buildDebianSliceCatalog, debianSliceText } from "./helpers/debian-catalog.js";

@@ -18,8 +18,8 @@ import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { Catalog, loadFiles } from "../catalog/index.js";
-import { debianReference } from "../eval/debian-reference.js";
-import { defaultPackagesFile, readPackagesText, stanzasToNTriples } from "../eval/debian-packages.js";
+import { debianReference } from "./debian-reference.js";
+import { defaultPackagesFile, readPackagesText, stanzasToNTriples } from "./debian-packages.js";
 import { Session } from "../pipeline/index.js";
 
 /** Options; all optional. */
