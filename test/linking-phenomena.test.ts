@@ -103,6 +103,21 @@ describe("names not written as the catalog writes them (issue 16, phenomenon 4)"
   });
 });
 
+describe("an entity named by what it is (issue 16, phenomenon 10)", () => {
+  it("links a definite phrase that is no name to the entity whose description fits it best", () => {
+    const m = one("Which port is the home port of the survey ship built in 1994?");
+    expect(m).toMatchObject({ text: "survey ship built", entity: { id: "v:gull" }, match: "description" });
+    // the other ship's description shares only "ship" and "built": a weaker alternative
+    expect(m.alternatives.map((a) => [a.id, a.match])).toEqual([["v:tern", "description"]]);
+    expect(m.confidence).toBeGreaterThan(m.alternatives[0]!.confidence);
+  });
+
+  it("never reads an indefinite phrase, or one of type and relation words only, as a description", () => {
+    expect(mentionsOf("Does Vask have a survey ship built in 1994?").map((x) => x.entity.id)).toEqual(["p:vask"]);
+    expect(mentionsOf("Which is the home port of the vessel?")).toEqual([]);
+  });
+});
+
 describe("names not found (issue 17)", () => {
   it("reports a code the catalog does not hold, with the nearest code", () => {
     const r = linkQuestion("What is KX-999?", linker);

@@ -103,9 +103,13 @@ describe("linkQuestion on the fixture catalog", () => {
     expect(r3.unlinked.map((u) => [u.text, u.suggestions[0]?.id])).toEqual([["Tidewater Harbour", "o:lab1"]]);
     expect(r3.notFound).toMatchObject([{ text: "Tidewater Harbour", linked: false, nearest: { id: "o:lab1" } }]);
     // nothing name-like links: the content words still get the nearest catalog names
-    const r2 = link("where is the glass blower from the valley");
+    const r2 = link("where is the copper smith from the hills");
     expect(r2.mentions).toEqual([]);
     expect(r2.unlinked.length).toBeGreaterThan(0);
+    // a definite phrase that is no name but fits an entity's description links to it (issue 16,
+    // phenomenon 10): Ada Morrow is "A glass blower from the valley."
+    const r4 = link("where is the glass blower from the valley");
+    expect(r4.mentions.map((m) => [m.text, m.entity.id, m.match])).toEqual([["glass blower", "p:morrow", "description"]]);
   });
 
   it("lets a pin override a link, and rejects bad pins with a clear message", () => {

@@ -22,6 +22,7 @@ import type { CandidateEvidence, ScoringOptions } from "./collective-disambiguat
 import { disambiguate } from "./collective-disambiguation.js";
 import type { DerivedToken } from "./derivation.js";
 import { derivedTokens } from "./derivation.js";
+import { DescriptionIndex, DEFAULTS as DESCRIPTION_DEFAULTS } from "./description-match.js";
 import { FuzzyTokenIndex } from "./fuzzy-index.js";
 import { LexicalSnapshot, NEIGHBOUR_DESCRIPTION_WEIGHT } from "./lexical-snapshot.js";
 import type { AliasLexicon, DetectedSpan, SpanCandidate, Weights } from "./mention-detection.js";
@@ -200,6 +201,7 @@ export class Linker implements AliasLexicon {
   private readonly neighbourTypes = new Bounded<string, boolean>(DEFAULTS.cacheSize);
   private readonly derivedCache = new Bounded<string, readonly DerivedToken[]>(DEFAULTS.cacheSize);
   private tokenWeights: Weights | undefined;
+  private descriptionIndex: DescriptionIndex | undefined;
 
   private constructor(cat: Catalog, snapshot: LexicalSnapshot) {
     this.catalog = cat;
@@ -304,6 +306,17 @@ export class Linker implements AliasLexicon {
   /** @internal vocabulary tokens a word may be derived from (derivation.ts; cached). */
   derived(norm: string): readonly DerivedToken[] {
     return this.derivedCache.get(norm, () => (this.phraseWords.has(norm) ? [] : derivedTokens(norm, this.snapshot.vocab)));
+  }
+
+  /** @internal the description index (description-match.ts), built on first use. */
+  descriptions(): DescriptionIndex {
+    return (this.descriptionIndex ??= new DescriptionIndex(this.catalog));
+  }
+
+  /** @internal true when the entity has (a subtype of) one of `types`. */
+  hasType(num: number, types: ReadonlySet<number>): boolean {
+    for (const t of this.typesOf(num)) for (const s of this.supertypes.get(t) ?? [t]) if (types.has(s)) return true;
+    return false;
   }
 
   /** @internal IDF weights of alias tokens. */
@@ -487,8 +500,13 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
   // capitals mark names only when some word besides the first has one: the first word of a
   // sentence is capitalised by orthography, not because it is a name (common practice)
   const allEligible = !toks.some((t, k) => k > 0 && t.upper > 0);
-  const det = detectMentions(toks, linker, blocked, allEligible);
+  const detected = detectMentions(toks, linker, blocked, allEligible);
   const vocabulary = linker.vocabularyOccurrences(toks);
+  const described = describedSpans(toks, detected.spans, blocked, vocabulary, linker);
+  const det = {
+    spans: [...detected.spans, ...described].sort((a, b) => a.first - b.first),
+    unmatched: detected.unmatched.filter((u) => !described.some((d) => u.first < d.last && d.first < u.last)),
+  };
   const namedAll = namedOutside(vocabulary, 0, 0);
   // context words: every content token outside the mention (computed per mention)
   const contentStems = toks.map((t) => (isStopWord(t.norm) ? "" : t.stem));
@@ -575,6 +593,44 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
   }
   notFound.sort((a, b) => a.start - b.start);
   return { mentions, unlinked, notFound };
+}
+
+/**
+ * The definite article opens a phrase that refers to one entity; an indefinite one ("has a cable
+ * car") mostly predicates, so it is not read as a name (definite descriptions: B. Russell, "On
+ * Denoting", Mind 14, 1905; common practice).
+ */
+const DETERMINERS: ReadonlySet<string> = new Set(["the"]);
+
+/**
+ * Spans naming an entity by what it is (description-match.ts): after "the", the longest
+ * run of free content words up to a stop word or a relation word, when at least `minTerms` of
+ * them are neither type nor relation words; candidates are the entities whose description fits.
+ */
+function describedSpans(toks: readonly QuestionToken[], spans: readonly DetectedSpan[], blocked: readonly boolean[], vocabulary: readonly VocabularyOccurrence[], linker: Linker): DetectedSpan[] {
+  const taken = blocked.slice();
+  for (const sp of spans) for (let k = sp.first; k < sp.last; k++) taken[k] = true;
+  const out: DetectedSpan[] = [];
+  for (let i = 0; i + 1 < toks.length; i++) {
+    if (!DETERMINERS.has(toks[i]!.norm)) continue;
+    let j = i + 1;
+    let free = 0;
+    while (j < toks.length && !taken[j] && !isStopWord(toks[j]!.norm) && !linker.isRelationWord(toks[j]!.norm, toks[j]!.stem)) {
+      if (!linker.isVocabularyPhrase(toks[j]!.norm, toks[j]!.stem) && !linker.isTypeHead(toks[j]!.norm, toks[j]!.stem)) free++;
+      j++;
+    }
+    if (free < DESCRIPTION_DEFAULTS.minTerms) continue;
+    const types = new Set<number>();
+    for (const o of vocabulary) if (o.first > i && o.last <= j) for (const t of o.types) types.add(t);
+    const query = toks.slice(i + 1, j).map((t) => t.stem);
+    const hits = linker.descriptions().match(query, types.size > 0 ? (n) => linker.hasType(n, types) : undefined);
+    if (hits.length > 0) {
+      out.push({ first: i + 1, last: j, match: "fuzzy", candidates: hits.map((h) => ({ num: h.num, similarity: h.similarity, kind: 0, match: "description" as const })) });
+      for (let k = i + 1; k < j; k++) taken[k] = true;
+    }
+    i = j - 1;
+  }
+  return out;
 }
 
 /** How a candidate matched: its own match kind, else its label or alias (exact or by stem). */

@@ -12,9 +12,10 @@ export interface EntityRef {
 /**
  * How a mention's words matched an entity (additive): its label or another alias (exactly or by
  * stem), a derived form of one of its name's words ("Braskian" ~ Brask), part of a longer name
- * phrase or some of its name's words ("the Kingdom of Brask", "Quell"), or a misspelling.
+ * phrase or some of its name's words ("the Kingdom of Brask", "Quell"), a misspelling, or the
+ * entity's description ("the survey ship built in 1994").
  */
-export type MatchKind = "label" | "alias" | "derived" | "partial" | "fuzzy";
+export type MatchKind = "label" | "alias" | "derived" | "partial" | "fuzzy" | "description";
 
 /** A derived form's morphology (additive): the suffix stripped from the word and the name it came from. */
 export interface Derivation {
