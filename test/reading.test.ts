@@ -115,6 +115,13 @@ describe("the reading of a question", () => {
     expect(session.ask("What is the call sign of the Lune?").result.values!.map((v) => v.value)).toEqual(["RL-28"]);
   });
 
+  it("bridges a hop the words do not name, from the catalog's relation ends (phenomenon 2)", () => {
+    // a person is at neither end of "home port" (vessel → port); "commands" joins persons to vessels
+    const r = session.ask("What is the home port of Ada Quell?").result;
+    expect(r.reading!.text).toBe("?answer (port) ← home port — ?v1 (vessel) ← commands — Ada Quell");
+    expect(r.answers[0]!.id).toBe("port:brask");
+  });
+
   it("lists the words it did not use (phenomenon 12)", () => {
     const r = session.ask("Which vessel does Ada Quell command on sunny days?").result;
     expect(r.reading!.ignored).toEqual(["sunny", "days"]);

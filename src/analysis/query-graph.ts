@@ -100,7 +100,8 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
       headCue = head.cue;
     }
   }
-  const cueOf = (i: number) => analysis.relationCues[i] ?? headCue;
+  if (model) chains = bridgeChains(chains, analysis, model, share);
+  const cueOf = (i: number) => (i < 0 ? undefined : (analysis.relationCues[i] ?? headCue));
   const nodes: QueryNode[] = [{ name: "?answer", kind: "answer", types: analysis.answerTypes.map((t) => t.num) }];
   const edges: QueryEdge[] = [];
   const constant = analysis.clues.map((c, i) => {
@@ -194,6 +195,57 @@ function orientChains(chains: readonly CueChain[], analysis: Analysis, model: Qu
   });
 }
 
+/** Most bridging relations a hop may offer (more would make the hop say nothing). */
+const MAX_BRIDGES = 3;
+
+/**
+ * A hop the words did not name: when a clue's own types occur at neither end of the first
+ * relation its words name ("the capital of the country that *pays with* the som": a currency
+ * is at no end of `capital`), the catalog's relations that join the clue's types to that
+ * relation's near end (the end that is not the answer's) make a first hop of their own (at
+ * most `MAX_BRIDGES`; none or more: no bridge), so the structure can match: som —currency⁻¹→
+ * ?v (country) —capital→ ?answer. A structure with matches beats one without (Yih et al.
+ * 2015); the relations come from the catalog's relation ends only.
+ */
+function bridgeChains(chains: CueChain[], analysis: Analysis, model: QuestionModel, share: number): CueChain[] {
+  if (!model.relationEnds || !model.typesOf) return chains;
+  const ends = model.relationEnds();
+  const typesAt = (rel: number, object: boolean) => {
+    const total = Math.max(ends.edges(rel), 1);
+    return new Set(ends.types(rel, object).filter((e) => e.count / total >= share).map((e) => e.type));
+  };
+  const meets = (a: ReadonlySet<number>, b: ReadonlySet<number>) => [...a].some((x) => b.has(x));
+  const answerSet = new Set(analysis.answerTypes.flatMap((t) => model.typeByNum.get(t.num)?.descendants ?? [t.num]));
+  return chains.map((ch) => {
+    const clue = analysis.clues[ch.clue];
+    const first = ch.steps[0];
+    if (!clue || !first) return ch;
+    const clueTypes = new Set(model.typesOf!(clue.node));
+    if (clueTypes.size === 0) return ch;
+    if (first.options.some((o) => meets(typesAt(o.relation, false), clueTypes) || meets(typesAt(o.relation, true), clueTypes))) return ch;
+    // the near end of the named relation: the end that does not hold the far node's types
+    const far = ch.steps.length === 1 ? answerSet : new Set(first.types.flatMap((t) => model.typeByNum.get(t)?.descendants ?? [t]));
+    const need = new Set<number>();
+    const oriented: StepOption[] = [];
+    for (const o of first.options) {
+      const [s, ob] = [typesAt(o.relation, false), typesAt(o.relation, true)];
+      const farAtObject = far.size > 0 && meets(ob, far) && !meets(s, far);
+      const farAtSubject = far.size > 0 && meets(s, far) && !meets(ob, far);
+      if (!farAtSubject) for (const t of s) need.add(t);
+      if (!farAtObject) for (const t of ob) need.add(t);
+      oriented.push(farAtObject ? { ...o, inverse: false } : farAtSubject ? { ...o, inverse: true } : o);
+    }
+    const bridges: StepOption[] = [];
+    for (const r of model.relations) {
+      if (meets(typesAt(r.num, false), clueTypes) && meets(typesAt(r.num, true), need)) bridges.push({ relation: r.num, inverse: false, cue: -1 });
+      if (meets(typesAt(r.num, true), clueTypes) && meets(typesAt(r.num, false), need)) bridges.push({ relation: r.num, inverse: true, cue: -1 });
+    }
+    if (bridges.length === 0 || bridges.length > MAX_BRIDGES) return ch;
+    const mid = [...need].sort((a, b) => a - b);
+    return { ...ch, steps: [{ at: first.at, options: bridges, types: mid }, { ...first, options: oriented }, ...ch.steps.slice(1)] };
+  });
+}
+
 /** The relation the answer-type words name, with the end of it where the answer types are. */
 interface HeadRelation {
   readonly cue: RelationCue;
@@ -258,8 +310,11 @@ function extendByHead(chains: CueChain[], analysis: Analysis, model: QuestionMod
       const clue = analysis.clues[ch.clue];
       endTypes = new Set(clue && model.typesOf ? model.typesOf(clue.node) : []);
     }
-    // the chain's end must stand at the head relation's other end
-    if (endTypes.size === 0 || !at(head.cue.relation, !head.answerAtObject, expand(endTypes))) return ch;
+    // the chain's end must stand at the head relation's other end; a clue with no hop may
+    // also stand at neither end (a bridging hop joins it, bridgeChains)
+    const other = endTypes.size > 0 && at(head.cue.relation, !head.answerAtObject, expand(endTypes));
+    const neither = !last && endTypes.size > 0 && !at(head.cue.relation, head.answerAtObject, expand(endTypes)) && !other;
+    if (!other && !neither) return ch;
     changed = true;
     const lastTypes = last ? [...endTypes].sort((a, b) => a - b) : [];
     const steps = [...ch.steps.slice(0, -1), ...(last ? [{ ...last, types: last.types.length > 0 ? last.types : lastTypes }] : []), { at: head.cue.start, options: [{ relation: head.cue.relation, inverse: !head.answerAtObject, cue }], types: [] }];
@@ -313,6 +368,14 @@ function ignoredWords(analysis: Analysis, cond: ConditionAnalysis, chains: reado
   return out;
 }
 
+/** Id and label of an edge option's relation (a cue's, the head relation's, or the catalog's for a bridging hop). */
+function relationRef(o: StepOption, g: QueryGraph, analysis: Analysis, model: QuestionModel): { id: string; label: string } {
+  const c = o.cue >= 0 ? (analysis.relationCues[o.cue] ?? g.headCue) : undefined;
+  if (c && c.relation === o.relation) return { id: c.id, label: c.label };
+  const r = model.relations.find((x) => x.num === o.relation);
+  return { id: r?.id ?? String(o.relation), label: r?.label ?? String(o.relation) };
+}
+
 /** The one-line rendering of a reading (`reading:` in the text output). */
 export function readingText(g: QueryGraph, analysis: Analysis, model: QuestionModel): string {
   const typeLabel = (nums: readonly number[]) => (nums.length > 0 ? ` (${nums.map((t) => model.typeByNum.get(t)?.label ?? String(t)).join(" or ")})` : "");
@@ -321,7 +384,7 @@ export function readingText(g: QueryGraph, analysis: Analysis, model: QuestionMo
     if (n.kind === "constant") return analysis.clues[n.clue!]?.label ?? n.name;
     return `${n.name}${typeLabel(n.types)}`;
   };
-  const relText = (e: QueryEdge) => [...new Set(e.options.map((o) => (analysis.relationCues[o.cue] ?? g.headCue)?.label ?? String(o.relation)))].join("|");
+  const relText = (e: QueryEdge) => [...new Set(e.options.map((o) => relationRef(o, g, analysis, model).label))].join("|");
   // each path is written from the answer back to its clue(s): "?answer ← capital — ?v1 ← borders — A & B"
   const into = new Map<number, QueryEdge[]>();
   for (const e of g.edges) into.set(e.to, [...(into.get(e.to) ?? []), e]);
@@ -382,10 +445,7 @@ export function readingDoc(g: QueryGraph, analysis: Analysis, model: QuestionMod
     edges: g.edges.map((e) => ({
       from: e.from,
       to: e.to,
-      relations: e.options.map((o) => {
-        const c = analysis.relationCues[o.cue] ?? g.headCue;
-        return { id: c?.id ?? String(o.relation), label: c?.label ?? String(o.relation), inverse: o.inverse };
-      }),
+      relations: e.options.map((o) => ({ ...relationRef(o, g, analysis, model), inverse: o.inverse })),
       direction: e.direction,
       words: e.words,
     })),

@@ -115,6 +115,10 @@ export function conditionVerdict(conditions: readonly Condition[], outcome: Cond
     return { status: "tied", margin: 0, tiedWith: cands.slice(1).map((c) => catalog.ref(c.node).id), reason: `${cands.length} entities of the expected type satisfy the conditions` };
   }
   if (outcome.ranked.clues.length > 0 && outcome.fit.length === 0 && cands.length > 0 && !outcome.count) {
+    // the reading had entities satisfying its structure and the conditions removed them all: nothing answers the question
+    if ((outcome.ranked.matched ?? 0) > 0 && !outcome.ranked.fallback) {
+      return { status: "none", margin: 0, tiedWith: [], reason: "no entity that satisfies the reading of the question satisfies the conditions" };
+    }
     return { status: "weak", margin: 0, tiedWith: [], reason: "no candidate that fits every clue satisfies the conditions" };
   }
   if (outcome.count) {
