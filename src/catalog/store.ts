@@ -9,6 +9,7 @@ import { accessSync, constants, existsSync, openSync, readSync, closeSync, statS
 import { dirname } from "node:path";
 import { TiepointError } from "../model/index.js";
 import { SCHEMA_SQL, SCHEMA_VERSION } from "./schema.js";
+import { normalize } from "./normalize.js";
 
 type DB = Database.Database;
 
@@ -309,7 +310,11 @@ export class Catalog {
   byLabelOrId(text: string): number[] {
     const byId = this.numOf(text);
     if (byId !== undefined) return [byId];
-    return (this.stmt("SELECT num FROM entity WHERE label = ? ORDER BY id").all(text) as { num: number }[]).map((r) => r.num);
+    // through the label's alias row (kind 0, indexed by its normalised form): entity.label has
+    // no index, and this is called once per neighbour when suggestions are made
+    return this.stmt("SELECT e.num FROM alias a JOIN entity e ON e.num = a.entity WHERE a.norm = ? AND a.kind = 0 AND e.label = ? ORDER BY e.id")
+      .pluck()
+      .all(normalize(text), text) as number[];
   }
 
   /** All entity data that `show` needs. */
