@@ -5,6 +5,9 @@
  * vessel Caddrow; the Lumen Ray (ves:lumen) is another vessel; the Pellory was built in 1978
  * and the Skerrin Dawn in 2004 (data/core.jsonl attribute `built`).
  */
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { ensureBuilt, ROOT, tp } from "./reliability-cli.js";
 
@@ -57,6 +60,27 @@ describe("--why-not without a clue", () => {
     expect(w).toHaveLength(1);
     expect(w[0].entity.id).toBe("ves:skerrin");
     expect(w[0].reasons.join("\n")).toMatch(/fails a condition of the question: build year: 2004 fails < 1980/);
+  });
+});
+
+describe("--why-not on a value question", () => {
+  it("says there is no ranking to compare with, and still checks the name", () => {
+    // the invented observatory network (test/fixtures/observatory): Calloway Dome's altitude is 95 metres
+    const fix = join(ROOT, "test/fixtures/observatory");
+    const dir = mkdtempSync(join(tmpdir(), "tp-whynot-"));
+    try {
+      const db = join(dir, "obs.db");
+      expect(tp(fix, "load", "network.ttl", "--db", db).status).toBe(0);
+      const q = "What is the altitude of Calloway Dome?";
+      const r = tp(fix, "ask", q, "--db", db, "--why-not", "Greyhill Observatory", "--json");
+      expect(r.status).toBe(0);
+      const doc = JSON.parse(r.stdout);
+      expect(doc.values.length).toBeGreaterThan(0);
+      expect(doc.notes.join("\n")).toMatch(/--why-not "Greyhill Observatory": this question is answered from attribute values/);
+      expect(tp(fix, "ask", q, "--db", db, "--why-not", "Greyhil Observatory").stderr).toMatch(/did you mean Greyhill Observatory \[/);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
 

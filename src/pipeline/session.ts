@@ -170,7 +170,11 @@ export class Session {
     const t2 = performance.now();
     if (cond.value || cond.compare) {
       const direct = cond.value ? answerValue(this.catalog, cond.value) : answerComparison(this.catalog, cond.compare!, this.attributes().attributes.map((a) => ({ ...a, score: 0, wordIndexes: [] })));
-      return this.directOutcome(question, analysis, reading, direct, limitNotes, top, { link: t1 - t0, analyze: t2 - t1 }, t0);
+      // a value question has no ranking to compare a --why-not entity with: say so (names still checked)
+      const asked = options.whyNot ?? [];
+      for (const name of asked) this.whyNotEntities(name);
+      const whyNotNote = asked.length > 0 ? [`--why-not ${asked.map((n) => JSON.stringify(n)).join(", ")}: this question is answered from attribute values, not by ranking, so there is nothing to compare with`] : [];
+      return this.directOutcome(question, analysis, reading, direct, [...limitNotes, ...whyNotNote], top, { link: t1 - t0, analyze: t2 - t1 }, t0);
     }
     // numeric values through per-predicate columns (one statement per attribute, kept by the session)
     const lookup = {
