@@ -143,17 +143,31 @@ const MODIFIER_GAP = 2;
 
 /**
  * Types of the noun a mention pre-modifies: a type phrase starting within {@link MODIFIER_GAP}
- * content words after the mention, none of them a stop word ("Braskian towns", "a Braskian
- * research port"). Attributive use of a proper name or its adjective before a head noun:
- * Quirk et al. 1985, ch. 17 (premodification), from memory.
+ * content words after the mention, none of them a stop word, and no punctuation between
+ * ("Braskian towns", "a Braskian research port"; not "lives in Harnesk, works at …").
+ * Attributive use of a proper name or its adjective before a head noun: Quirk et al. 1985,
+ * ch. 17 (premodification), from memory.
  */
-function modifiedTypes(occ: readonly VocabularyOccurrence[], toks: readonly QuestionToken[], span: { first: number; last: number }): Set<number> | undefined {
+function modifiedTypes(occ: readonly VocabularyOccurrence[], toks: readonly QuestionToken[], span: { first: number; last: number }, question: string): Set<number> | undefined {
   for (let k = span.last; k < toks.length && k <= span.last + MODIFIER_GAP; k++) {
+    if (/[,;:()]/.test(question.slice(toks[k - 1]!.end, toks[k]!.start))) return undefined;
     const o = occ.find((x) => x.first === k && x.types.length > 0);
     if (o) return new Set(o.types);
     if (isStopWord(toks[k]!.norm)) return undefined;
   }
   return undefined;
+}
+
+/**
+ * The evidence a pre-modifier may draw from the question's vocabulary: a name before a type
+ * noun ("Central American countries", "a Braskian port") stands in some relation to the
+ * noun's referent, it is not one of them, and the question's verbs take the head noun as
+ * their argument, not the modifier (Quirk et al. 1985, ch. 17, premodification by nouns and
+ * proper names; from memory). So the modified noun's types do not count as the mention's
+ * type, and no relation counts as named for it; mod(c) weighs the link instead.
+ */
+function asModifier(named: { types: Set<number>; relations: Set<number> }, modified: ReadonlySet<number>): { types: Set<number>; relations: Set<number> } {
+  return { types: new Set([...named.types].filter((t) => !modified.has(t))), relations: new Set() };
 }
 
 /** A small bounded cache (drops everything when full; simple and deterministic). */
@@ -517,9 +531,11 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     const lo = Math.max(0, span.first - DEFAULTS.contextWindow);
     const hi = Math.min(toks.length, span.last + DEFAULTS.contextWindow);
     for (let k = lo; k < hi; k++) if (contentStems[k] !== "" && (k < span.first || k >= span.last)) query.push(contentStems[k]!);
-    const named = vocabulary.some((o) => o.relations.length > 0 && o.last > span.first && o.first < span.last) ? namedOutside(vocabulary, span.first, span.last) : namedAll;
+    const outside = vocabulary.some((o) => o.relations.length > 0 && o.last > span.first && o.first < span.last) ? namedOutside(vocabulary, span.first, span.last) : namedAll;
+    const modified = modifiedTypes(vocabulary, toks, span, question);
+    const named = modified ? asModifier(outside, modified) : outside;
     // context only decides between candidates; an unambiguous span skips it
-    return cands.map((c) => linker.evidence(c, query, named, cands.length > 1, modifiedTypes(vocabulary, toks, span)));
+    return cands.map((c) => linker.evidence(c, query, named, cands.length > 1, modified));
   });
   // coherence is joint over the question's mentions; a very long text is scored mention by mention
   const coherent = evidence.length <= DEFAULTS.maxCoherentMentions;

@@ -665,10 +665,23 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: Options)
   if (!top || top.sim < o.minSimilarity) return { ...empty, suggestions };
   const first = top.used.indexOf(true);
   const last = top.used.lastIndexOf(true) + 1;
-  // candidates: everything that matches the same tokens about as well
+  // candidates: everything that matches the same tokens about as well; one that explains only
+  // part of the span's content words ("Americas" for "Central American") keeps that share of
+  // its similarity, as the ranking key does: the span's words are what is linked
+  const contentIn = (a: number, b: number) => {
+    let c = 0;
+    for (let k = a; k < b; k++) if (!runStop[k]) c++;
+    return c;
+  };
+  const spanContent = contentIn(first, last);
   const candidates = scored
     .filter((s) => s.sim >= o.minSimilarity && s.used.indexOf(true) >= first && s.used.lastIndexOf(true) + 1 <= last)
     .slice(0, o.maxFuzzyCandidates)
-    .map((s) => ({ num: s.num, similarity: s.sim, kind: s.kind, alias: s.alias, match: s.match, ...(s.suffix !== undefined ? { derivation: { suffix: s.suffix, base: s.base! } } : {}) }));
+    .map((s) => {
+      const own = contentIn(s.used.indexOf(true), s.used.lastIndexOf(true) + 1);
+      const similarity = own < spanContent ? (s.sim * (1 + own)) / (1 + spanContent) : s.sim;
+      return { num: s.num, similarity, kind: s.kind, alias: s.alias, match: s.match, ...(s.suffix !== undefined ? { derivation: { suffix: s.suffix, base: s.base! } } : {}) };
+    })
+    .filter((s) => s.similarity >= o.minSimilarity);
   return { first, last, candidates, suggestions };
 }
