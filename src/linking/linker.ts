@@ -516,9 +516,9 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
   const allEligible = !toks.some((t, k) => k > 0 && t.upper > 0);
   const detected = detectMentions(toks, linker, blocked, allEligible);
   const vocabulary = linker.vocabularyOccurrences(toks);
-  const described = describedSpans(toks, detected.spans, blocked, vocabulary, linker);
+  const { spans: described, replaced } = describedSpans(toks, detected.spans, blocked, vocabulary, linker);
   const det = {
-    spans: [...detected.spans, ...described].sort((a, b) => a.first - b.first),
+    spans: [...detected.spans.filter((sp) => !replaced.has(sp)), ...described].sort((a, b) => a.first - b.first),
     unmatched: detected.unmatched.filter((u) => !described.some((d) => u.first < d.last && d.first < u.last)),
   };
   const namedAll = namedOutside(vocabulary, 0, 0);
@@ -618,35 +618,65 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
  */
 const DETERMINERS: ReadonlySet<string> = new Set(["the"]);
 
+/** Share of the phrase's IDF mass a description must hold to replace names found inside the phrase. */
+const DESCRIPTION_OVER_NAMES = 0.85;
+
 /**
  * Spans naming an entity by what it is (description-match.ts): after "the", the longest
- * run of free content words up to a stop word or a relation word, when at least `minTerms` of
- * them are neither type nor relation words; candidates are the entities whose description fits.
+ * run of content words up to a stop word or a relation word; candidates are the entities
+ * whose description fits. Words no name matched exactly count as free (a fuzzy name's words
+ * too: "the Concurrent Versions System" is no close spelling of a name). A phrase with no
+ * name inside needs `minTerms` free words that are neither type nor relation words. A phrase
+ * holding names ("the high-level *Python* *web* development framework", "the lightweight
+ * *PDF viewer*") needs one free word and a description holding at least
+ * {@link DESCRIPTION_OVER_NAMES} of the whole phrase's IDF mass: then the phrase is one
+ * description and the names inside it are its modifiers (they are returned in `replaced`).
  */
-function describedSpans(toks: readonly QuestionToken[], spans: readonly DetectedSpan[], blocked: readonly boolean[], vocabulary: readonly VocabularyOccurrence[], linker: Linker): DetectedSpan[] {
+function describedSpans(toks: readonly QuestionToken[], spans: readonly DetectedSpan[], blocked: readonly boolean[], vocabulary: readonly VocabularyOccurrence[], linker: Linker): { spans: DetectedSpan[]; replaced: Set<DetectedSpan> } {
   const taken = blocked.slice();
   for (const sp of spans) for (let k = sp.first; k < sp.last; k++) taken[k] = true;
+  const startsAt = new Map(spans.map((sp) => [sp.first, sp]));
   const out: DetectedSpan[] = [];
+  const replaced = new Set<DetectedSpan>();
+  const content = (k: number) => !isStopWord(toks[k]!.norm) && !linker.isRelationWord(toks[k]!.norm, toks[k]!.stem);
   for (let i = 0; i + 1 < toks.length; i++) {
     if (!DETERMINERS.has(toks[i]!.norm)) continue;
     let j = i + 1;
     let free = 0;
-    while (j < toks.length && !taken[j] && !isStopWord(toks[j]!.norm) && !linker.isRelationWord(toks[j]!.norm, toks[j]!.stem)) {
+    let words = 0;
+    const inner: DetectedSpan[] = [];
+    for (;;) {
+      if (j >= toks.length || blocked[j]) break;
+      const sp = startsAt.get(j);
+      if (sp) {
+        let all = true;
+        for (let k = sp.first; k < sp.last && all; k++) all = !isStopWord(toks[k]!.norm);
+        if (!all) break;
+        inner.push(sp);
+        words += sp.last - sp.first;
+        if (sp.match === "fuzzy") free += sp.last - sp.first;
+        j = sp.last;
+        continue;
+      }
+      if (taken[j] || !content(j)) break;
       if (!linker.isVocabularyPhrase(toks[j]!.norm, toks[j]!.stem) && !linker.isTypeHead(toks[j]!.norm, toks[j]!.stem)) free++;
+      words++;
       j++;
     }
-    if (free < DESCRIPTION_DEFAULTS.minTerms) continue;
+    if (inner.length === 0 ? free < DESCRIPTION_DEFAULTS.minTerms : free < 1 || words < DESCRIPTION_DEFAULTS.minTerms) continue;
     const types = new Set<number>();
     for (const o of vocabulary) if (o.first > i && o.last <= j) for (const t of o.types) types.add(t);
     const query = toks.slice(i + 1, j).map((t) => t.stem);
     const hits = linker.descriptions().match(query, types.size > 0 ? (n) => linker.hasType(n, types) : undefined);
+    if (inner.length > 0 && !(hits.length > 0 && hits[0]!.similarity >= DESCRIPTION_OVER_NAMES * DESCRIPTION_DEFAULTS.scale)) continue;
     if (hits.length > 0) {
       out.push({ first: i + 1, last: j, match: "fuzzy", candidates: hits.map((h) => ({ num: h.num, similarity: h.similarity, kind: 0, match: "description" as const })) });
       for (let k = i + 1; k < j; k++) taken[k] = true;
+      for (const sp of inner) replaced.add(sp);
     }
     i = j - 1;
   }
-  return out;
+  return { spans: out, replaced };
 }
 
 /** How a candidate matched: its own match kind, else its label or alias (exact or by stem). */
