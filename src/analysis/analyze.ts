@@ -16,7 +16,7 @@ import type { QuestionModel } from "./question-model.js";
 import { relationCues, type RelationCue, type RelationCueOptions } from "./relation-cues.js";
 import { relationalAnswerType, whereRangeType, type RelationRangeOptions } from "./relation-range.js";
 import { isFunctionWord, words } from "./words.js";
-import { findTypeWords, type TypeWord } from "./cue-chains.js";
+import { findTypeWords, type TypeWord } from "./type-words.js";
 
 /** A linked entity that seeds one personalized PageRank. */
 export interface Clue {

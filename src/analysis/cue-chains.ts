@@ -24,7 +24,7 @@
  * (4) intermediate types — a type noun standing between two relation words ("the *corer*
  * aboard", "a *document* that cites") names the node between those hops, so the step
  * carries that type (the type nouns are found like the answer type: Porter-stem keys of
- * the catalog's type labels and aliases, {@link findTypeWords}).
+ * the catalog's type labels and aliases, type-words.ts).
  * (5) coordinated clues — mentions joined only by a coordination ("borders both *A and B*",
  * "*A, B or C*") are conjuncts of one noun phrase and fill the same slot of the sentence
  * (Quirk et al. 1985, §13.1 ff., coordination of noun phrases), so each of them takes the
@@ -32,9 +32,8 @@
  * Pure string positions: no catalog names or words are involved.
  */
 import type { Analysis } from "./analyze.js";
-import type { QuestionModel } from "./question-model.js";
 import type { RelationCue } from "./relation-cues.js";
-import { isFunctionWord, type Word } from "./words.js";
+import { isFunctionWord } from "./words.js";
 
 /** Options of {@link cueChains}; all optional. */
 export interface CueChainOptions {
@@ -84,15 +83,6 @@ export interface ChainStep {
   /** The relations this word cues (alternatives), ordered by cue index. */
   readonly options: readonly StepOption[];
   /** Type nums the node reached by this hop should have (a type noun before the next hop's word); empty: any. */
-  readonly types: readonly number[];
-}
-
-/** A type noun of the question outside the clues and the answer-type phrase. */
-export interface TypeWord {
-  /** UTF-16 offsets of the noun (phrase). */
-  readonly start: number;
-  readonly end: number;
-  /** The types it names. */
   readonly types: readonly number[];
 }
 
@@ -193,28 +183,4 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
     const g = groupOf[c]!;
     return g.length > 1 ? { clue: c, steps: chainSteps, conjuncts: [...g].sort((a, b) => a - b) } : { clue: c, steps: chainSteps };
   });
-}
-
-/**
- * The type nouns of a question: longest n-grams of unblocked words whose Porter-stem key is
- * a type label or alias of the catalog (function words never make a one-word type).
- * `blocked[i]`: word i is inside a clue mention or the answer-type phrase.
- */
-export function findTypeWords(ws: readonly Word[], blocked: readonly boolean[], model: QuestionModel): TypeWord[] {
-  const out: TypeWord[] = [];
-  for (let i = 0; i < ws.length; ) {
-    let found = 0;
-    for (let len = Math.min(model.maxTypeWords, ws.length - i); len >= 1 && found === 0; len--) {
-      const idx = Array.from({ length: len }, (_, k) => i + k);
-      if (idx.some((k) => blocked[k])) continue;
-      if (len === 1 && isFunctionWord(ws[i]!.norm)) continue;
-      const types = model.typesByKey.get(idx.map((k) => ws[k]!.stem).join(" "));
-      if (types && types.length > 0) {
-        out.push({ start: ws[i]!.start, end: ws[i + len - 1]!.end, types: [...types].sort((a, b) => a - b) });
-        found = len;
-      }
-    }
-    i += Math.max(found, 1);
-  }
-  return out;
 }

@@ -11,8 +11,10 @@ export { detectAnswerType, DEFAULTS as ANSWER_TYPE_DEFAULTS } from "./answer-typ
 export type { AnswerTypeOptions, AnswerTypeResult, AnswerTypeSource } from "./answer-type.js";
 export { relationCues, expectedInverse, DEFAULTS as RELATION_CUE_DEFAULTS } from "./relation-cues.js";
 export type { RelationCue, RelationCueOptions, CueOccurrence } from "./relation-cues.js";
-export { cueChains, findTypeWords, DEFAULTS as CUE_CHAIN_DEFAULTS } from "./cue-chains.js";
-export type { CueChain, ChainStep, StepOption, CueChainOptions, TypeWord } from "./cue-chains.js";
+export { cueChains, DEFAULTS as CUE_CHAIN_DEFAULTS } from "./cue-chains.js";
+export type { CueChain, ChainStep, StepOption, CueChainOptions } from "./cue-chains.js";
+export { findTypeWords } from "./type-words.js";
+export type { TypeWord } from "./type-words.js";
 export { words, FUNCTION_WORDS, isFunctionWord } from "./words.js";
 export type { Word } from "./words.js";
 export { findQuantities, parseNumber, parseIsoDate, yearFraction, DEFAULTS as QUANTITY_DEFAULTS } from "./quantity.js";
