@@ -8,7 +8,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Catalog, CatalogWriter } from "../src/catalog/index.js";
 import { Linker, linkQuestion } from "../src/linking/index.js";
-import { analyze, buildQuestionModel, cueChains, type Analysis, type QuestionModel } from "../src/analysis/index.js";
+import { analyze, buildQuestionModel, cueChains, readQuestion, type Analysis, type QuestionModel } from "../src/analysis/index.js";
 import { chainReach, rank, RelationIndex, type RankOptions } from "../src/ranking/index.js";
 import { decideVerdict } from "../src/explain/index.js";
 
@@ -65,7 +65,8 @@ function open(spec: string): Fixture {
 
 function ask(f: Fixture, question: string, options: RankOptions = {}): { analysis: Analysis; order: string[]; fit: Map<string, number | undefined>; rho: Float64Array } {
   const analysis = analyze(question, linkQuestion(question, f.linker), f.model);
-  const r = rank(analysis, f.index, options);
+  // the ranking evaluates the question's reading (analysis query-graph.ts), as the session does
+  const r = rank(analysis, f.index, { reading: readQuestion({ analysis, conditions: [] }, f.model), ...options });
   const order = r.candidates.map((c) => f.cat.ref(c.node).id);
   return { analysis, order, fit: new Map(r.candidates.map((c) => [f.cat.ref(c.node).id, c.chainFit])), rho: r.relationWeights };
 }

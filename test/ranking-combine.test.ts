@@ -5,7 +5,7 @@
  * follow from the rules stated there.
  */
 import { describe, expect, it } from "vitest";
-import type { Analysis, Clue } from "../src/analysis/index.js";
+import { readQuestion, type Analysis, type Clue } from "../src/analysis/index.js";
 import { clueSeeds, combineClueScores, cueReach, rank, RelationIndex } from "../src/ranking/index.js";
 
 describe("combineClueScores (weighted geometric mean with floor)", () => {
@@ -199,10 +199,13 @@ describe("rank", () => {
     ]);
     const q: Analysis = { ...analysisOf([[1, 1]], { cues: [[1, "cites"]] }) };
     const a: Analysis = { ...q, mentions: q.mentions.map((m) => ({ ...m, start: 20, end: 21 })), relationCues: q.relationCues.map((c) => ({ ...c, start: 10 })) };
-    const r = rank(a, g2);
+    // the direction comes from the question's reading (analysis query-graph.ts cueDirections)
+    const r = rank(a, g2, { reading: readQuestion({ analysis: a, conditions: [] }) });
     expect(r.candidates.map((c) => [c.node, c.cueMissing])).toEqual([
       [2, 0],
       [3, 0.5],
     ]);
+    // without a reading no direction is expected: either way counts
+    expect(rank(a, g2).candidates.map((c) => c.cueMissing)).toEqual([0, 0]);
   });
 });

@@ -27,7 +27,7 @@ import { isPluralNoun, PLURAL_COPULAS, SET_WORDS } from "./lexicon.js";
 import type { QuestionModel } from "./question-model.js";
 import type { ReadingDoc } from "../model/index.js";
 import { isFunctionWord, words } from "./words.js";
-import { relationCues, type RelationCue } from "./relation-cues.js";
+import { expectedInverse, relationCues, type RelationCue } from "./relation-cues.js";
 
 /** A node of the query graph. */
 export interface QueryNode {
@@ -73,6 +73,13 @@ export interface QueryGraph {
   readonly headCue?: RelationCue;
   /** Question words the reading does not use, in question order. */
   readonly ignored: readonly string[];
+  /**
+   * Per clue (same order as `Analysis.clues`), per relation cue (same order as
+   * `Analysis.relationCues`): true when the sentence has the cue walked against the stored
+   * triple from that clue, false for along it (relation-cues.ts `expectedInverse`: word order
+   * and voice); the ranking's cue check reads it.
+   */
+  readonly cueDirections: readonly (readonly boolean[])[];
 }
 
 /** Options of {@link readQuestion}; all optional. */
@@ -147,6 +154,7 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
     plural: asksForSet(analysis),
     ...(headCue ? { headCue } : {}),
     ignored: ignoredWords(analysis, cond, chains, headCue?.words),
+    cueDirections: analysis.clues.map((c) => analysis.relationCues.map((cue) => expectedInverse(cue, analysis.mentions[c.mention]?.start ?? 0))),
   };
 }
 

@@ -185,14 +185,14 @@ export class Session {
     const withConditions = (r: Ranked) => (cond.conditions.length > 0 ? applyConditions(analysis, r, cond.conditions, this.index, lookup).ranked : r);
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();
-    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, readingChains: reading.chains, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
+    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
     const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup, { deadline }) : undefined;
     const ranked = conditions?.ranked ?? ranked0;
     const t3 = performance.now();
     const asked = (options.whyNot ?? []).map((e) => ({ name: e, nums: this.whyNotEntities(e) }));
     const whyNot = [...new Set(asked.flatMap((x) => x.nums))];
     const sharedNotes = asked.filter((x) => x.nums.length > 1).map((x) => this.sharedNameNote(x.name, x.nums));
-    const made = this.answersOf(analysis, ranked, top, { dropClues: options.dropClues ?? [], whyNot, pprMemo, deadline, ...(conditions ? { rerankWith: withConditions } : {}) });
+    const made = this.answersOf(analysis, ranked, top, { reading, dropClues: options.dropClues ?? [], whyNot, pprMemo, deadline, ...(conditions ? { rerankWith: withConditions } : {}) });
     let { answers, verdict } = made;
     if (conditions) {
       const nodeOf = new Map(ranked.candidates.slice(0, top).map((c) => [this.ref(c.node).id, c.node]));
@@ -288,6 +288,8 @@ export class Session {
     ranked: Ranked,
     top: number,
     extra: {
+      /** The question's reading: the ablation's re-rankings evaluate the same one (without the dropped clues). */
+      readonly reading?: QueryGraph;
       readonly dropClues?: readonly number[];
       readonly whyNot?: readonly number[];
       readonly rerankWith?: (r: Ranked) => Ranked;
@@ -315,7 +317,7 @@ export class Session {
       ...(this.rankOptions.hubExponent !== undefined ? { hubExponent: this.rankOptions.hubExponent } : {}),
       // re-ranking without a clue reuses the other clues' walks (same relation weights, pprMemo)
       rerank: (a, drop) => {
-        const r = rank(a, this.index, { ...this.rankOptions, pprMemo, walkWeights: ranked.relationWeights, dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
+        const r = rank(a, this.index, { ...this.rankOptions, pprMemo, walkWeights: ranked.relationWeights, ...(extra.reading ? { reading: extra.reading } : {}), dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
         return extra.rerankWith ? extra.rerankWith(r) : r;
       },
       whyNot: extra.whyNot ?? [],

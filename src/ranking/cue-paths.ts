@@ -16,7 +16,7 @@
  * search to a node set (rank passes the nodes its walks reached: paths through nodes the
  * walk never got to are too weak to count).
  *
- * Each cue can carry the direction the question implies (analysis `expectedInverse`); a use
+ * Each cue can carry the direction the question implies (the reading's `cueDirections`); a use
  * in the other direction sets a separate bit, so the caller can credit it less.
  *
  * Rank uses it to prefer answers whose connection to the clues runs through the relations
@@ -36,9 +36,10 @@ export interface CuePathOptions {
   readonly within?: (node: number) => boolean;
   /**
    * Per cue: true when the question wants it walked against the stored direction from this
-   * clue, false for along it. @default no preference (both directions count as expected)
+   * clue, false for along it, undefined for no preference (the reading's `cueDirections`).
+   * @default no preference (both directions count as expected)
    */
-  readonly expectInverse?: readonly boolean[];
+  readonly expectInverse?: readonly (boolean | undefined)[];
 }
 
 /** Defaults of {@link CuePathOptions}. */

@@ -21,12 +21,13 @@
  * from the clues to the candidate uses (cue-paths.ts). The walk's relation weights are a
  * soft preference; this makes the named relations count along the whole path, so a
  * multi-hop answer beats the intermediate entity. A relation walked only against the
- * direction the word order implies counts as half unused (`wrongWay`): word order is only a
- * hint.
+ * direction the sentence gives it from the clue (the reading's `cueDirections`) counts as
+ * half unused (`wrongWay`): word order is only a hint.
  *
- * Then each clue's relation-path pattern (analysis cue-chains.ts: its relation words in hop
- * order, each with a direction and, when a type noun stands between two of them, the type
- * of the node in between) is matched exactly — hop count, relations, directions — by
+ * Then each clue's relation-path pattern — read from the question's reading, analysis
+ * query-graph.ts `QueryGraph.chains` (its relation words in hop order, each with a direction
+ * and, when a type noun stands between two of them, the type of the node in between); the
+ * ranking computes no reading of its own — is matched exactly — hop count, relations, directions — by
  * chain-reach.ts (a fixed-length regular path query, Mendelzon & Wood 1995): a candidate
  * off the pattern gets `chainMiss`, one on it only when directions or intermediate types
  * are ignored `chainLoose`, combined over the clues like their scores ({@link chainFitOf}).
@@ -43,7 +44,7 @@
  * with a note. Ties are broken by entity num (the catalog's insertion order, deterministic)
  * after score.
  */
-import { cueChains, expectedInverse, type Analysis, type Clue, type CueChain, type CueChainOptions } from "../analysis/index.js";
+import type { Analysis, Clue, CueChain, QueryGraph } from "../analysis/index.js";
 import { chainReach, type ChainReachOptions } from "./chain-reach.js";
 import { combineClueScores, DEFAULTS as COMBINE_DEFAULTS, type CombineOptions } from "./combine.js";
 import type { Seed, SparseScores } from "./ppr-options.js";
@@ -122,16 +123,19 @@ export interface RankOptions extends CombineOptions {
   readonly anyMaxDegree?: number;
   /** Longest pattern checked, in hops (longer chains are left to the cue check). @default 3 */
   readonly chainMaxSteps?: number;
-  /** Options of the pattern attribution (analysis cueChains). */
-  readonly chains?: CueChainOptions;
   /**
-   * The per-clue relation-path patterns of the question's reading (analysis query-graph.ts
-   * `QueryGraph.chains`), so the ranking does not recompute them. @default cueChains(analysis)
+   * The question's reading (analysis query-graph.ts): its per-clue relation-path patterns
+   * (`chains`) and the direction the sentence gives each relation cue from each clue
+   * (`cueDirections`). The ranking reads them and computes neither. @default none: no pattern
+   * check, and the cue check counts either direction of a cued relation as expected
    */
-  readonly readingChains?: readonly CueChain[];
+  readonly reading?: RankReading;
   /** Options of the pattern search (chain-reach.ts). */
   readonly chainReach?: ChainReachOptions;
 }
+
+/** The parts of the question's reading (analysis `QueryGraph`) that the ranking evaluates. */
+export type RankReading = Pick<QueryGraph, "chains" | "cueDirections">;
 
 /** Defaults of {@link RankOptions}. */
 export const DEFAULTS = {
@@ -219,10 +223,15 @@ export function clueSeeds(analysis: Analysis, clue: Clue, index: RelationIndex, 
 /** Ranks the candidate answers of an analysed question. */
 export function rank(analysis: Analysis, index: RelationIndex, options: RankOptions = {}): Ranked {
   const drop = new Set(options.dropClues ?? []);
-  const chainsAll = options.readingChains ?? cueChains(analysis, options.chains);
-  if (drop.size > 0) analysis = withoutDroppedCues(analysis, chainsAll, drop);
-  const clues = analysis.clues.filter((_, i) => !drop.has(i));
+  const chainsAll = options.reading?.chains ?? [];
+  // the cues kept (indexes into the question's own analysis.relationCues) and the clues kept
+  const keptCues = drop.size > 0 ? cuesWithoutDropped(analysis, chainsAll, drop) : analysis.relationCues.map((_, i) => i);
+  if (keptCues.length < analysis.relationCues.length) analysis = { ...analysis, relationCues: keptCues.map((i) => analysis.relationCues[i]!) };
+  const keptClues = analysis.clues.map((_, i) => i).filter((i) => !drop.has(i));
+  const clues = keptClues.map((i) => analysis.clues[i]!);
   const chains = chainsAll.filter((_, i) => !drop.has(i));
+  // per kept clue, per kept cue: the direction the sentence gives it (the reading's), when read
+  const directions = options.reading ? keptClues.map((c) => keptCues.map((i) => options.reading!.cueDirections[c]?.[i])) : undefined;
   const rho = options.walkWeights ?? relationWeightsOf(analysis, index);
   const notes: string[] = [];
   if (clues.length === 0) return { clues, candidates: [], typeFiltered: false, relationWeights: rho, notes };
@@ -337,7 +346,7 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     const within = nodeBitsFor(index, "rank/within", index.nodeCount);
     for (const v of poolNodes) within.add(v);
     for (const v of seedList) if (v >= 0 && v < index.nodeCount) within.add(v);
-    cueFit = cueFitOf(analysis, clues, index, options, (v) => within.has(v));
+    cueFit = cueFitOf(analysis, clues, directions, index, options, (v) => within.has(v));
   }
   const chainCheck = chainFitOf(chains, clues, weights, index, new Set(eligible.map((slot) => poolNodes[slot]!)), options);
   const chainFit = chainCheck?.fit;
@@ -401,8 +410,16 @@ function clueScores(index: RelationIndex, seeds: readonly Seed[], options: { alp
  * score of the cue words that no short path from the clues uses — or undefined when there
  * is nothing to check (no cue, or every clue's search ran out of budget).
  */
-function cueFitOf(analysis: Analysis, clues: readonly Clue[], index: RelationIndex, options: RankOptions, within: (v: number) => boolean): ((v: number) => number) | undefined {
-  const cues = analysis.relationCues.filter((c) => c.relation >= 0 && c.relation < index.relationCount).slice(0, MAX_CUES);
+function cueFitOf(
+  analysis: Analysis,
+  clues: readonly Clue[],
+  directions: readonly (readonly (boolean | undefined)[])[] | undefined,
+  index: RelationIndex,
+  options: RankOptions,
+  within: (v: number) => boolean,
+): ((v: number) => number) | undefined {
+  const cueIdx = analysis.relationCues.map((_, i) => i).filter((i) => analysis.relationCues[i]!.relation >= 0 && analysis.relationCues[i]!.relation < index.relationCount).slice(0, MAX_CUES);
+  const cues = cueIdx.map((i) => analysis.relationCues[i]!);
   if (cues.length === 0) return undefined;
   // per question word: its best cue score and the cues it matched
   const wordScore = new Map<string, number>();
@@ -415,9 +432,10 @@ function cueFitOf(analysis: Analysis, clues: readonly Clue[], index: RelationInd
   });
   const rels = cues.map((x) => x.relation);
   const reaches = clues
-    .map((c) => {
-      const at = analysis.mentions[c.mention]?.start ?? 0;
-      return cueReach(index, c.node, rels, { within, expectInverse: cues.map((x) => expectedInverse(x, at)), ...options.cuePaths });
+    .map((c, k) => {
+      const dirs = directions?.[k];
+      const expectInverse = dirs ? cueIdx.map((i) => dirs[i]) : undefined;
+      return cueReach(index, c.node, rels, { within, ...(expectInverse ? { expectInverse } : {}), ...options.cuePaths });
     })
     .filter((r) => r !== null);
   if (reaches.length === 0) return undefined;
@@ -475,11 +493,12 @@ function cueFitOf(analysis: Analysis, clues: readonly Clue[], index: RelationInd
 }
 
 /**
- * The analysis without the relation cues whose every place in the question belongs to a
- * dropped clue (cue-chains.ts attribution): with "X" dropped from "which person wrote R and
- * leads X?", "leads" no longer steers the walk, the cue check or the patterns.
+ * The relation cues kept when clues are dropped (indexes into `analysis.relationCues`): all but
+ * those whose every place in the question belongs to a dropped clue (the reading's chain
+ * attribution): with "X" dropped from "which person wrote R and leads X?", "leads" no longer
+ * steers the walk, the cue check or the patterns.
  */
-function withoutDroppedCues(analysis: Analysis, chains: readonly CueChain[], drop: ReadonlySet<number>): Analysis {
+function cuesWithoutDropped(analysis: Analysis, chains: readonly CueChain[], drop: ReadonlySet<number>): number[] {
   const keep = new Set<number>();
   const attributed = new Set<number>();
   chains.forEach((ch, c) => {
@@ -490,8 +509,7 @@ function withoutDroppedCues(analysis: Analysis, chains: readonly CueChain[], dro
       }
     }
   });
-  const relationCues = analysis.relationCues.filter((_, i) => keep.has(i) || !attributed.has(i));
-  return relationCues.length === analysis.relationCues.length ? analysis : { ...analysis, relationCues };
+  return analysis.relationCues.map((_, i) => i).filter((i) => keep.has(i) || !attributed.has(i));
 }
 
 /**
