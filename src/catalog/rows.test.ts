@@ -56,6 +56,50 @@ describe("SortedEdges", () => {
   });
 });
 
+describe("SortedEdges.hold", () => {
+  function noted(db: Database.Database): number[][] {
+    const seen: number[][] = [];
+    db.function("note", (s: number, r: number, d: number) => (seen.push([s, r, d]), 0));
+    db.exec("CREATE TRIGGER t AFTER INSERT ON edge BEGIN SELECT note(NEW.src, NEW.rel, NEW.dst); END");
+    return seen;
+  }
+  const input = [[9, 2, 1], [3, 7, 2], [9, 1, 5], [3, 7, 1], [3, 7, 2], [1, 5, 5], [9, 1, 5]] as const;
+  const sorted = [[1, 5, 5], [3, 7, 1], [3, 7, 2], [9, 1, 5], [9, 2, 1]];
+
+  it("keeps every edge until the flush, then inserts each distinct one in (src, rel, dst) order", () => {
+    const db = edgeDb();
+    const seen = noted(db);
+    const e = new SortedEdges(db, 2);
+    e.hold();
+    for (const [s, r, d] of input) e.add(s, r, d);
+    expect(seen).toEqual([]); // capacity 2 does not apply while holding
+    e.flush();
+    expect(seen).toEqual(sorted);
+    expect(e.changes).toBe(5);
+    e.add(4, 4, 4); // after the flush: batches again
+    e.flush();
+    expect(seen.at(-1)).toEqual([4, 4, 4]);
+  });
+
+  it("sorts by comparison when the packed key would pass 2^53, and stops holding at a num above 2^31 - 1", () => {
+    const db = edgeDb();
+    const seen = noted(db);
+    const e = new SortedEdges(db);
+    e.hold();
+    for (const [s, r, d] of input) e.add(s, r, d);
+    e.add(2 ** 30, 2 ** 30, 2 ** 30); // (2^30 + 1)^3 > 2^53
+    e.flush();
+    expect(seen).toEqual([...sorted, [2 ** 30, 2 ** 30, 2 ** 30]]);
+    const f = new SortedEdges(edgeDb());
+    f.hold();
+    f.add(5, 1, 1);
+    f.add(2 ** 34, 1, 1); // held edges written, then batches
+    f.add(5, 1, 1);
+    f.flush();
+    expect(f.changes).toBe(2);
+  });
+});
+
 describe("PendingEntities", () => {
   it("holds rows with their label and description until flush, in num order", () => {
     const db = new Database(":memory:");

@@ -70,8 +70,15 @@ export class RowBatch {
 const POSITION = 1 << 20;
 /** Source nums below this keep the packed sort key an exact double (2^33 · 2^20 = 2^53). */
 const MAX_SORTED_SRC = 2 ** 33;
+/** Nums a held edge column stores (Int32Array); a larger one ends holding. */
+const MAX_HELD = 0x7fffffff;
 
-/** Relation edges `(src, rel, dst)`, sorted by `src` before each write. */
+/**
+ * Relation edges `(src, rel, dst)`, sorted by `src` before each write. When told to
+ * {@link SortedEdges.hold} them (a load into an empty table), it keeps every edge until the
+ * next `flush` and writes them then in full key order (src, rel, dst), duplicates dropped:
+ * the B-tree is filled from left to right, each leaf once (Graefe 2011, see the file header).
+ */
 export class SortedEdges {
   private readonly batch: RowBatch;
   private readonly capacity: number;
@@ -80,6 +87,8 @@ export class SortedEdges {
   private dst: Float64Array;
   private n = 0;
   private maxSrc = 0;
+  /** Every edge until the next flush, as Int32 columns (undefined: batches of `capacity`). */
+  private held: { src: Int32Array; rel: Int32Array; dst: Int32Array; n: number; max: [number, number, number] } | undefined;
 
   constructor(db: Database.Database, capacity = DEFAULTS.edgeSortRows) {
     this.batch = new RowBatch(db, "INSERT OR IGNORE INTO edge(src, rel, dst)", 3);
@@ -95,8 +104,31 @@ export class SortedEdges {
     return this.batch.changes;
   }
 
+  /** From now on keeps every edge until the next `flush` (see the class note). */
+  hold(): void {
+    if (this.held !== undefined) return;
+    this.flush();
+    this.held = { src: new Int32Array(1024), rel: new Int32Array(1024), dst: new Int32Array(1024), n: 0, max: [0, 0, 0] };
+  }
+
   /** Adds one edge; sorts and writes the buffer when it holds `capacity` edges. */
   add(src: number, rel: number, dst: number): void {
+    const h = this.held;
+    if (h !== undefined) {
+      if (src <= MAX_HELD && rel <= MAX_HELD && dst <= MAX_HELD && src >= 0 && rel >= 0 && dst >= 0) {
+        if (h.n === h.src.length) this.growHeld(h);
+        const i = h.n++;
+        h.src[i] = src;
+        h.rel[i] = rel;
+        h.dst[i] = dst;
+        const max = h.max;
+        if (src > max[0]) max[0] = src;
+        if (rel > max[1]) max[1] = rel;
+        if (dst > max[2]) max[2] = dst;
+        return;
+      }
+      this.writeHeld(); // a num too large for the columns: back to batches
+    }
     if (this.n === this.src.length) this.grow();
     const i = this.n++;
     this.src[i] = src;
@@ -106,8 +138,12 @@ export class SortedEdges {
     if (this.n === this.capacity) this.flush();
   }
 
-  /** Writes every buffered edge, in ascending `src` order (ties in arrival order). */
+  /** Writes every buffered edge, in ascending `src` order (ties in arrival order); held edges in key order. */
   flush(): void {
+    if (this.held !== undefined) {
+      this.writeHeld();
+      return;
+    }
     const n = this.n;
     if (n === 0) return;
     const { src, rel, dst, batch } = this;
@@ -127,24 +163,75 @@ export class SortedEdges {
     this.maxSrc = 0;
   }
 
+  /**
+   * Writes the held edges in (src, rel, dst) order, each distinct edge once, and stops
+   * holding. The order comes from one numeric sort of packed keys ((src·R + rel)·D + dst,
+   * exact while below 2^53), else from a comparison sort of positions.
+   */
+  private writeHeld(): void {
+    const h = this.held!;
+    this.held = undefined;
+    const { src, rel, dst, n } = h;
+    const batch = this.batch;
+    const R = h.max[1] + 1;
+    const D = h.max[2] + 1;
+    if ((h.max[0] + 1) * R * D <= Number.MAX_SAFE_INTEGER) {
+      const keys = new Float64Array(n);
+      for (let i = 0; i < n; i++) keys[i] = (src[i]! * R + rel[i]!) * D + dst[i]!;
+      keys.sort();
+      let last = -1;
+      for (let k = 0; k < n; k++) {
+        const key = keys[k]!;
+        if (key === last) continue;
+        last = key;
+        const d = key % D;
+        const sr = (key - d) / D;
+        const r = sr % R;
+        batch.add((sr - r) / R, r, d);
+      }
+    } else {
+      const order = new Uint32Array(n);
+      for (let i = 0; i < n; i++) order[i] = i;
+      order.sort((a, b) => src[a]! - src[b]! || rel[a]! - rel[b]! || dst[a]! - dst[b]!);
+      for (let k = 0; k < n; k++) {
+        const i = order[k]!;
+        if (k > 0) {
+          const j = order[k - 1]!;
+          if (src[i] === src[j] && rel[i] === rel[j] && dst[i] === dst[j]) continue;
+        }
+        batch.add(src[i], rel[i], dst[i]);
+      }
+    }
+    batch.flush();
+  }
+
   /** Drops the buffered edges (after a rollback). */
   discard(): void {
     this.n = 0;
     this.maxSrc = 0;
+    this.held = undefined;
     this.batch.discard();
   }
 
   private grow(): void {
     const size = Math.min(this.capacity, this.src.length * 2);
-    const more = (a: Float64Array) => {
-      const b = new Float64Array(size);
-      b.set(a);
-      return b;
-    };
-    this.src = more(this.src);
-    this.rel = more(this.rel);
-    this.dst = more(this.dst);
+    this.src = resized(this.src, size);
+    this.rel = resized(this.rel, size);
+    this.dst = resized(this.dst, size);
   }
+
+  private growHeld(h: NonNullable<SortedEdges["held"]>): void {
+    h.src = resized(h.src, h.src.length * 2);
+    h.rel = resized(h.rel, h.rel.length * 2);
+    h.dst = resized(h.dst, h.dst.length * 2);
+  }
+}
+
+/** A copy of `a` in a new array of `size` elements. */
+function resized<T extends Float64Array | Int32Array>(a: T, size: number): T {
+  const b = new (a.constructor as new (n: number) => T)(size);
+  b.set(a);
+  return b;
 }
 
 /**

@@ -220,10 +220,12 @@ export class CatalogWriter {
   /**
    * For a load into an empty catalog: drops the secondary indexes now and rebuilds them at
    * commit, inside the same transaction (building an index once from sorted data is much
-   * faster than keeping it up to date row by row). A rollback restores them unchanged.
+   * faster than keeping it up to date row by row), and holds every edge until the first
+   * flush, which writes them in key order (rows.ts). A rollback restores them unchanged.
    */
   deferIndexes(): void {
     if (!this.open || this.deferred.length > 0) return;
+    this.edges.hold();
     const rows = this.db.prepare("SELECT name, sql FROM sqlite_master WHERE type = 'index' AND sql IS NOT NULL ORDER BY name").all() as { name: string; sql: string }[];
     for (const r of rows) this.db.exec(`DROP INDEX "${r.name.replace(/"/g, '""')}"`);
     this.deferred = rows;

@@ -49,6 +49,14 @@ describe("RelationIndex.fromEdges", () => {
     expect(entries(index, 99)).toEqual([]);
   });
 
+  it("counts edges per relation the same from the adjacency and from the relation-end table", () => {
+    const { index } = fixture("a knows b; b bornIn c; a knows c; c likes c");
+    // hand-computed: knows=1 (2 edges), bornIn=2 (1), likes=3 (1, a self-loop counted once)
+    expect([...index.relationEdgeCounts()]).toEqual([0, 2, 1, 1]);
+    index.endTable(); // now read from the table's totals
+    expect([...index.relationEdgeCounts()]).toEqual([0, 2, 1, 1]);
+  });
+
   it("keeps a self-loop as two entries, one per direction", () => {
     const { index } = fixture("a likes a");
     expect(entries(index, 1)).toEqual(["1/1", "1/1^"]);

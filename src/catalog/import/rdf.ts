@@ -10,8 +10,8 @@
  * an earlier file of the load gets a suffix (`_:name-2`), since blank nodes are local to
  * their file. Anonymous Turtle nodes (`[]`, collections) are named `_:anonN`.
  */
-import { Parser } from "n3";
-import type { Quad, Term } from "n3";
+import { createRequire } from "node:module";
+import type { Parser as N3Parser, Quad, Term } from "n3";
 import type { LoadContext } from "./context.js";
 import type { CatalogWriter } from "../writer.js";
 import { readBlocks } from "./lines.js";
@@ -55,6 +55,16 @@ export const DEFAULTS = {
   /** Language tags read as the "English or untagged first" preference (BCP 47 primary subtag). */
   preferredLanguage: "en",
 };
+
+/**
+ * n3's parser class, required on the first RDF file of a process: n3 and its stream modules
+ * cost about a fifth of a second of every command's start otherwise (`show`, `ask` read no RDF).
+ */
+let parserClass: typeof N3Parser | undefined;
+function n3Parser(options: ConstructorParameters<typeof N3Parser>[0]): N3Parser {
+  parserClass ??= (createRequire(import.meta.url)("n3") as typeof import("n3")).Parser;
+  return new parserClass(options);
+}
 
 /** Marks labels the parser took from the file (vs. ones it generated). */
 const MARK = "\u0001";
@@ -196,7 +206,7 @@ function readQuick(ctx: LoadContext, file: string, names: BlankNames): boolean {
   };
   let bytes = 0;
   const src = new PushSource();
-  new Parser({ format: "N-Triples", blankNodePrefix: MARK }).parse(src as never, {
+  n3Parser({ format: "N-Triples", blankNodePrefix: MARK }).parse(src as never, {
     onQuad: (err: Error | null, q: Quad | null) => {
       if (err) restart();
       else if (q) {
@@ -242,7 +252,7 @@ function readTracked(ctx: LoadContext, file: string, format: "nt" | "ttl", names
 
   const makeParser = (): PushSource => {
     const src = new PushSource();
-    const parser = new Parser({ format: format === "nt" ? "N-Triples" : "Turtle", blankNodePrefix: MARK });
+    const parser = n3Parser({ format: format === "nt" ? "N-Triples" : "Turtle", blankNodePrefix: MARK });
     parser.parse(src as never, {
       onToken: (t: { line: number; type: string }) => {
         line = t.line + offset;
