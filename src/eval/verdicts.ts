@@ -1,5 +1,5 @@
 /**
- * `npm run eval:verdicts -- [--split dev|holdout|both] [--json] [--write DIR]`: the verdict set
+ * `npm run eval:verdicts -- [--split dev|holdout|both] [--json] [--list] [--write DIR]`: the verdict set
  * of issue 17 (verdict-sets.ts) through the real `check` (pipeline `runCheck`): each question
  * with its gold answers as expected values and the verdict the gold calls for; prints per split
  * the verdict accuracy and the confusion matrix (expected × got) of `check`'s summary, the
@@ -30,7 +30,7 @@ function main(argv: readonly string[]): void {
     const i = argv.indexOf(name);
     return i >= 0 ? argv[i + 1] : undefined;
   };
-  for (const a of argv) if (a.startsWith("--") && !["--split", "--json", "--write"].includes(a)) throw new TiepointError("cli/usage", `unknown option ${a}`);
+  for (const a of argv) if (a.startsWith("--") && !["--split", "--json", "--write", "--list"].includes(a)) throw new TiepointError("cli/usage", `unknown option ${a}`);
   const splitName = opt("--split") ?? "both";
   if (!["dev", "holdout", "both"].includes(splitName)) throw new TiepointError("cli/usage", `--split must be dev, holdout or both, got "${splitName}"`);
   const splits = splitName === "both" ? (["dev", "holdout"] as const) : ([splitName] as ["dev" | "holdout"]);
@@ -92,6 +92,14 @@ function main(argv: readonly string[]): void {
     for (const e of ["unique", "tied", "weak", "none"] as const) lines.push(`  ${e.padEnd(15)}${(["unique", "tied", "weak", "none"] as const).map((x) => String(vc.confusion[e][x]).padStart(7)).join("")}`);
     for (const k of VERDICT_KINDS) lines.push(`  ${k.title.padEnd(62)} ${String(g.perKind[k.key]!.n).padStart(3)}  ${g.perKind[k.key]!.accuracy.toFixed(2)}`);
     lines.push("");
+  }
+  if (argv.includes("--list")) {
+    // per-question lines of the dev half only (the holdout is measured, never looked into)
+    for (const r of rows.filter((x) => x.split === "dev")) {
+      const it = r.item;
+      const v = it.answer.verdict;
+      lines.push(`${it.verdictMatch ? " " : "x"} ${r.set} ${r.kind.padEnd(13)} expected ${it.expectedVerdict!.padEnd(6)} got ${v.status.padEnd(6)} ${it.question}  [${v.reason ?? ""}]`);
+    }
   }
   process.stdout.write(lines.join("\n"));
 }

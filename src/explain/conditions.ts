@@ -9,10 +9,8 @@
  * Tan 2001, "Why and Where: A Characterization of Data Provenance" (ICDT), restricted to the
  * attribute facts that decided it.
  *
- * Verdict: a superlative's first answer is `unique` when no other fit candidate shares its
- * value, `tied` (with those) when some do; a count is `unique` (the number is the answer)
- * unless nothing was counted (`none`). Filters keep the explain stage's own verdict,
- * computed on the filtered candidates.
+ * The verdict of a question with conditions is decided with every other one's in
+ * explain/verdict.ts (rule 2).
  */
 import type { Catalog } from "../catalog/index.js";
 import type { Condition } from "../analysis/index.js";
@@ -103,38 +101,6 @@ export function conditionSteps(node: number, conditions: readonly Condition[], o
 export function countDoc(outcome: ConditionOutcome, catalog: Catalog): CountDoc | undefined {
   if (!outcome.count) return undefined;
   return { value: outcome.count.value, entities: outcome.count.entities.map((n) => catalog.ref(n).id) };
-}
-
-/** The verdict of an ordering or a count (undefined: keep the explain stage's verdict). */
-export function conditionVerdict(conditions: readonly Condition[], outcome: ConditionOutcome, firstAnswer: number | undefined, catalog: Catalog): Verdict | undefined {
-  const cands = outcome.ranked.candidates;
-  if (outcome.ranked.clues.length === 0 && !outcome.count && !outcome.tiedWith && outcome.applied.some((a) => a.attribute !== null)) {
-    // no clue: the attribute conditions alone decide; every entity that passes fits equally
-    if (cands.length === 0) return { status: "none", margin: 0, tiedWith: [], reason: "no entity of the expected type satisfies the conditions" };
-    if (cands.length === 1) return { status: "unique", margin: 1, tiedWith: [], reason: "the only entity of the expected type that satisfies the conditions" };
-    return { status: "tied", margin: 0, tiedWith: cands.slice(1).map((c) => catalog.ref(c.node).id), reason: `${cands.length} entities of the expected type satisfy the conditions` };
-  }
-  if (outcome.ranked.clues.length > 0 && outcome.fit.length === 0 && cands.length > 0 && !outcome.count) {
-    // the reading had entities satisfying its structure and the conditions removed them all: nothing answers the question
-    if ((outcome.ranked.matched ?? 0) > 0 && !outcome.ranked.fallback) {
-      return { status: "none", margin: 0, tiedWith: [], reason: "no entity that satisfies the reading of the question satisfies the conditions" };
-    }
-    return { status: "weak", margin: 0, tiedWith: [], reason: "no candidate that fits every clue satisfies the conditions" };
-  }
-  if (outcome.count) {
-    const n = outcome.count.value;
-    if (n === 0) return { status: "none", margin: 0, tiedWith: [], reason: "nothing fits every clue and condition: the count is 0" };
-    if (n === 1) return { status: "unique", margin: 1, tiedWith: [], reason: "the count is 1" };
-    // the counted entities fit equally: the number is the answer, the entities are a tie
-    return { status: "tied", margin: 0, tiedWith: outcome.count.entities.slice(1).map((x) => catalog.ref(x).id), reason: `the count is ${n}: ${n} entities fit equally` };
-  }
-  const sup = conditions.findIndex((c, i) => c.kind === "superlative" && outcome.applied.some((a) => a.condition === c && a.attribute !== null) && i >= 0);
-  if (sup < 0 || firstAnswer === undefined || outcome.tiedWith === undefined) return undefined;
-  const label = outcome.applied.find((a) => a.condition === conditions[sup])?.attribute?.label ?? "the attribute";
-  if (outcome.tiedWith.length > 0) {
-    return { status: "tied", margin: 0, tiedWith: outcome.tiedWith.map((n) => catalog.ref(n).id), reason: `${outcome.tiedWith.length + 1} candidates share the same ${label}` };
-  }
-  return { status: "unique", margin: 1, tiedWith: [], reason: `the only candidate at that place by ${label}` };
 }
 
 /** Catalog facts for suggested clues (the explain stage's lookup, read straight from the catalog). */

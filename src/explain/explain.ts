@@ -24,7 +24,7 @@ import { findPaths, type AnswerPaths, type ClueSeed, type NumPath, type PathOpti
 import { matchPattern } from "./relation-pattern.js";
 import { suggestClues, type FactLookup, type SuggestedClue, type SuggestOptions } from "./suggest.js";
 import type { ExplainAnalysis, ExplainClue, ExplainRanked } from "./types.js";
-import { decideVerdict, type VerdictCandidate, type VerdictOptions } from "./verdict.js";
+import { decideVerdict, type VerdictCandidate, type VerdictContext, type VerdictOptions } from "./verdict.js";
 import { whyNotFigures, whyNotReasons, DEFAULTS as WHY_NOT_DEFAULTS, type WhyNot, type WhyNotClue, type WhyNotOptions } from "./why-not.js";
 
 /** Options of {@link explain}; all optional. */
@@ -43,6 +43,8 @@ export interface ExplainOptions<A extends ExplainAnalysis = ExplainAnalysis> {
   readonly paths?: PathOptions;
   /** Verdict thresholds (verdict.ts). */
   readonly verdict?: VerdictOptions;
+  /** The reading, conditions and link facts the verdict reads (verdict.ts rules 1–5; absent: the score rules alone). */
+  readonly verdictContext?: VerdictContext;
   /** Suggested-clue options (suggest.ts). */
   readonly suggest?: SuggestOptions;
   /** Why-not options (why-not.ts). */
@@ -314,7 +316,13 @@ export function explain<A extends ExplainAnalysis>(
   for (const w of withouts) for (const c of w.candidates) asked.add(c.node);
   const patterns = patternSets(index, cost, clues.length, topPaths, cued, asked);
   const verdict = decideVerdict(
-    { clues: clues.map((c) => c.label), candidates: verdictCandidates(ranked.candidates, -1, true, ranked.chainMissOf), equivalent: intersect(patterns), maxHops },
+    {
+      clues: clues.map((c) => c.label),
+      candidates: verdictCandidates(ranked.candidates, -1, true, ranked.chainMissOf),
+      equivalent: intersect(patterns),
+      maxHops,
+      ...(options.verdictContext ? { context: options.verdictContext } : {}),
+    },
     options.verdict,
   );
   lap("verdict");

@@ -20,12 +20,12 @@ export { matchPattern, DEFAULTS as PATTERN_DEFAULTS } from "./relation-pattern.j
 export type { PatternOptions, PatternStep } from "./relation-pattern.js";
 export { coverageTable } from "./coverage.js";
 export type { CoverageTable, CoverageRow, CoverageCell, CellRelation } from "./coverage.js";
-export { decideVerdict, DEFAULTS as VERDICT_DEFAULTS } from "./verdict.js";
-export type { VerdictOptions, VerdictInput, VerdictCandidate } from "./verdict.js";
+export { decideVerdict, notFoundText, DEFAULTS as VERDICT_DEFAULTS } from "./verdict.js";
+export type { VerdictOptions, VerdictInput, VerdictCandidate, VerdictContext, SenseDoubt, MentionFacts } from "./verdict.js";
 export { clueRole, preferredByClue, DEFAULTS as ABLATION_DEFAULTS } from "./ablation.js";
 export type { AblationEntry, AblationOptions, ClueRole } from "./ablation.js";
 export { whyNotFigures, whyNotReasons, DEFAULTS as WHY_NOT_DEFAULTS } from "./why-not.js";
 export type { WhyNot, WhyNotClue, WhyNotOptions, WhyNotSource } from "./why-not.js";
 export { suggestClues, appendClue, relationPhrase, factPhrase, DEFAULTS as SUGGEST_DEFAULTS } from "./suggest.js";
 export type { SuggestedClue, SuggestOptions, FactTriple, FactLookup } from "./suggest.js";
-export { conditionDocs, conditionExplanation, conditionSteps, conditionVerdict, countDoc, formatValue } from "./conditions.js";
+export { conditionDocs, conditionExplanation, conditionSteps, countDoc, formatValue } from "./conditions.js";

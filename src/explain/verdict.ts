@@ -1,41 +1,72 @@
 /**
- * The uniqueness verdict
- * ======================
+ * The verdict: one decider
+ * ========================
  *
- * Decides whether the best answer is the only one that fits the question, from the ranking
- * scores and the clue coverage:
+ * Whether the best answer is the only one that fits the question, decided in this one place
+ * for every question (issue 17) from four inputs: the ranking's candidates with their path
+ * evidence (explain.ts), the question's reading as the ranking evaluated it (analysis
+ * query-graph.ts: `Ranked.matched` entities satisfy every clue's relation-path pattern), the
+ * outcome of its conditions (ranking conditions.ts: filters, orderings, counts) and the link
+ * facts (clue mentions not found, clue mentions whose chosen sense is not clearly ahead of the
+ * next, each evaluated by the pipeline under that other sense). Rules, first match wins:
  *
- * - `none`   — no clue was linked, no candidate was ranked, or no clue reaches the best
- *              candidate within N hops.
- * - `tied`   — the best answer is reached by every clue and other candidates fit about
- *              equally well: either their score is at least `tieRatio` × the best score
- *              with the same clue coverage (and their paths follow the cued relations
- *              wherever the best answer's do), or their evidence is structurally equivalent
- *              (the relation pattern of every clue's best path reaches them too, see
- *              relation-pattern.ts) and their score is at least `equivalentFloor` × the best.
- * - `weak`   — a best answer exists but some clue does not reach it within N hops, or
- *              does not reach it along the relation-path pattern the question's wording
- *              names for that clue (ranking `chainMissOf`: "which country borders A, B and
- *              C" when none borders all three), or
- *              another candidate's evidence dominates it (every clue reaches the other in
- *              no more hops, and some clue in fewer along relations the question names:
- *              the path evidence disagrees with the score — unless the other fits the
- *              relation-path pattern of the question's wording less well, ranking
- *              `chainFit`), or its relative lead over the
- *              runner-up is below `weakMargin`.
- * - `unique` — otherwise: one answer clearly ahead and supported by every clue.
+ * 1. `none` — no clue was linked and no condition picks entities on its own; every clue's
+ *    mention is not found (no catalog entity matches its words: the linker's floor, or a code
+ *    whose digits the linked name does not carry); no candidate was ranked; no clue reaches
+ *    the best candidate within N hops.
+ * 2. Conditions. No clue: the entities that pass the conditions decide (0 `none`, 1 `unique`,
+ *    2 or more `tied`). The conditions removed every candidate: `none` when entities
+ *    satisfied the reading, `weak` otherwise. A count: the number is the answer, so the
+ *    verdict says whether the counted set is certain — `none` for 0, `unique` when every
+ *    clue was found, no clue is in doubt (rule 4) and the reading matched, `weak` (naming
+ *    why) otherwise; never `tied`. A superlative or ordinal: `tied` with the candidates that
+ *    share the asked value, else `unique`.
+ * 3. The reading: when every clue is constrained by a pattern of at most `maxSteps` hops and
+ *    entities satisfy the whole reading, 2 or more of them are `tied` (a plural question asks
+ *    for the set; a singular one has no single answer) and exactly one is `unique`; evidence
+ *    along relations the question does not name never ties with it or breaks their tie.
+ * 4. Link doubt, on top of rules 2–3 and 6: a clue mention whose next sense has at least
+ *    `senseRatio` × the chosen sense's confidence is in doubt. When the question read with
+ *    that other sense has answers that fit its reading and are not among this verdict's,
+ *    the verdict is `tied` with them (`senses` says which sense each comes from); when the
+ *    other sense fits nothing and this reading matched, the question itself chose the sense
+ *    and nothing changes; otherwise a `unique` becomes `weak`, naming the mention.
+ * 5. Some clue's mention is not found (not all): `weak`, naming it.
+ * 6. The score rules, when the reading decides nothing (no entity satisfies it, or a clue is
+ *    unconstrained) — only here does evidence along relations the question does not name count:
+ *    - `tied` — the best answer is reached by every clue and other candidates fit about
+ *      equally well: either their score is at least `tieRatio` × the best score with the
+ *      same clue coverage (and their paths follow the cued relations wherever the best
+ *      answer's do), or their evidence is structurally equivalent (the relation pattern of
+ *      every clue's best path reaches them too, see relation-pattern.ts) and their score is
+ *      at least `equivalentFloor` × the best.
+ *    - `weak` — some clue does not reach the best answer within N hops, or not along the
+ *      relation-path pattern the question's wording names for that clue (ranking
+ *      `chainMissOf`), or another candidate's evidence dominates it (every clue reaches the
+ *      other in no more hops, and some clue in fewer along relations the question names —
+ *      unless the other fits the question's pattern less well, ranking `chainFit`), or its
+ *      relative lead over the runner-up is below `weakMargin`.
+ *    - `unique` — otherwise: one answer clearly ahead and supported by every clue.
  *
  * `margin` = (s₁ − s₂) / s₁, the relative lead of the best score s₁ over s₂, the best score
  * among the other candidates that the ranking counts as covering as many clues and whose
  * best paths follow the question's cued relations wherever the best answer's do (1 when
- * there is none: the best answer is ahead on coverage or on agreement with the words).
+ * there is none); 0 for a tie of the reading, of the senses or of a condition, 1 for a
+ * condition's single answer.
  *
- * [Reference] Score-ratio ties and relative margins are common practice in answer ranking
- * (cf. the "margin" confidence of Scheffer et al., "Active hidden Markov models for
- * information extraction", IDA 2001: the gap between the two best hypotheses); the
- * thresholds below are tiepoint's own defaults, documented in the README ("Verdicts").
+ * Thresholds. `senseRatio` 0.5: the linker's confidences are normalised over a mention's
+ * candidates (linking collective-disambiguation.ts), so a next sense with half the chosen
+ * one's confidence leaves odds of 2 : 1 or closer — a guess, not a reading a quiz writer can
+ * rely on; on the demo catalog "Harnesk" as a vessel against the town (0.69 / 0.29, ratio
+ * 0.42) is decided by the question's relation anyway, "Dr Brenn" (0.59 / 0.41, ratio 0.69) is
+ * not. `tieRatio` 0.9 and `weakMargin` 0.15: score-ratio ties and relative margins are common
+ * practice in answer ranking (cf. the "margin" confidence of Scheffer et al., "Active hidden
+ * Markov models for information extraction", IDA 2001: the gap between the two best
+ * hypotheses); `equivalentFloor` 0.25 is tiepoint's own (README "Verdicts").
  */
-import type { Verdict } from "../model/index.js";
+import type { Condition, QueryGraph } from "../analysis/index.js";
+import type { EntityRef, SenseAnswer, Verdict, VerdictMention } from "../model/index.js";
+import type { ConditionOutcome } from "../ranking/index.js";
 
 /** Options of {@link decideVerdict}; all optional. */
 export interface VerdictOptions {
@@ -45,10 +76,14 @@ export interface VerdictOptions {
   readonly equivalentFloor?: number;
   /** A lead below this relative margin makes the answer weak. @default 0.15 */
   readonly weakMargin?: number;
+  /** A mention whose next sense has at least this share of the chosen one's confidence is in doubt. @default 0.5 */
+  readonly senseRatio?: number;
+  /** Longest clue pattern (hops) that counts as a constraint of the reading (rank's `chainMaxSteps`). @default 3 */
+  readonly maxSteps?: number;
 }
 
 /** The defaults of {@link VerdictOptions}. */
-export const DEFAULTS = { tieRatio: 0.9, equivalentFloor: 0.25, weakMargin: 0.15 } as const;
+export const DEFAULTS = { tieRatio: 0.9, equivalentFloor: 0.25, weakMargin: 0.15, senseRatio: 0.5, maxSteps: 3 } as const;
 
 /** A ranked candidate as the verdict sees it. */
 export interface VerdictCandidate {
@@ -70,6 +105,38 @@ export interface VerdictCandidate {
   readonly chainMissed?: readonly number[];
 }
 
+/** A clue mention as the verdict names it. */
+export type MentionFacts = VerdictMention;
+
+/** A clue mention in doubt between two senses, and what the question gives under the other one. */
+export interface SenseDoubt {
+  /** The mention as linked (its `next` is the other sense). */
+  readonly mention: MentionFacts & { readonly next: EntityRef & { readonly confidence: number } };
+  /** The answers of the question read with the other sense that fit that reading (empty: none fits); null: not evaluated. */
+  readonly answers: readonly EntityRef[] | null;
+}
+
+/** How the question was read and linked, and what its conditions did (absent parts: not known, their rules are skipped). */
+export interface VerdictContext {
+  /** The reading (analysis query-graph.ts) and how the ranking evaluated it. */
+  readonly reading?: {
+    readonly graph: Pick<QueryGraph, "chains" | "plural">;
+    /** The entities that satisfy the whole reading (ranking `Ranked.matched`; those the conditions removed do not count). */
+    readonly matched: ReadonlySet<number>;
+    readonly fallback: boolean;
+    /** Clues whose pattern the ranking left open (ranking `Ranked.open`). */
+    readonly open: number;
+  };
+  /** The question's conditions and their outcome (ranking conditions.ts). */
+  readonly conditions?: { readonly list: readonly Condition[]; readonly outcome: ConditionOutcome };
+  /** Clue mentions not found (no catalog entity matches their words). */
+  readonly notFound?: readonly MentionFacts[];
+  /** Clue mentions in doubt between two senses. */
+  readonly doubts?: readonly SenseDoubt[];
+  /** Id and label of a node (conditions name entities by node). */
+  readonly ref: (node: number) => EntityRef;
+}
+
 /** What the verdict is decided from. */
 export interface VerdictInput {
   /** Clue labels, in clue order. */
@@ -80,16 +147,156 @@ export interface VerdictInput {
   readonly equivalent: ReadonlySet<number> | null;
   /** The N of "within N hops". */
   readonly maxHops: number;
+  /** The reading, conditions and link facts (absent: the score rules alone, as for a clue ablation). */
+  readonly context?: VerdictContext;
 }
 
 const fmt = (x: number): string => x.toFixed(2);
+const pct = (x: number): string => `${Math.round(x * 100)} %`;
+const quoted = (m: MentionFacts): string => `'${m.text}'`;
+
+/** "no catalog entity matches 'KX-999'; nearest: KX-114, 6 %" */
+export function notFoundText(m: MentionFacts): string {
+  return `no catalog entity matches ${quoted(m)}${m.entity ? `; nearest: ${m.entity.label}${m.confidence !== undefined ? `, ${pct(m.confidence)}` : ""}` : ""}`;
+}
+
+/** A list of labels, at most five named. */
+function names(list: readonly { label: string }[]): string {
+  return list.slice(0, 5).map((c) => c.label).join(", ") + (list.length > 5 ? `, … (${list.length} in all)` : "");
+}
 
 /** Decides the verdict (see the file header for the rules). */
 export function decideVerdict(input: VerdictInput, options: VerdictOptions = {}): Verdict {
   const o = { ...DEFAULTS, ...options };
   for (const [k, v] of Object.entries(o)) {
+    if (k === "maxSteps") continue;
     if (!(v >= 0 && v <= 1)) throw new RangeError(`explain/verdict: ${k} must be in [0, 1], got ${String(v)}`);
   }
+  const ctx = input.context;
+  if (!ctx) return scoreVerdict(input, o);
+  const notFound = ctx.notFound ?? [];
+  // 1. every clue's name is missing from the catalog
+  if (input.clues.length > 0 && notFound.length >= input.clues.length) {
+    const m = notFound[0]!;
+    const reason = notFound.length === 1 ? notFoundText(m) : `no catalog entity matches any clue (${notFound.map(quoted).join(", ")})`;
+    return { status: "none", margin: 0, tiedWith: [], reason, mention: m };
+  }
+  const doubts = (ctx.doubts ?? []).filter((d) => d.mention.next.confidence >= o.senseRatio * (d.mention.confidence ?? 1));
+  const base = baseVerdict(input, ctx, o);
+  if (base.decided) return base.verdict;
+  let v = base.verdict;
+  // 4. link doubt
+  if (v.status === "unique" || v.status === "tied") v = withDoubts(v, doubts, input, base.readingMatched);
+  // 5. a clue not found
+  if (notFound.length > 0 && v.status !== "none") {
+    const m = notFound[0]!;
+    return { status: "weak", margin: v.margin, tiedWith: v.tiedWith, reason: `${notFoundText(m)}; the answer rests on the other clues`, mention: m };
+  }
+  return v;
+}
+
+/** Rules 1–3 and 6; `decided`: no later rule applies (a `none`, a count). */
+function baseVerdict(input: VerdictInput, ctx: VerdictContext, o: Required<VerdictOptions>): { verdict: Verdict; decided: boolean; readingMatched: boolean } {
+  const cond = ctx.conditions;
+  const out = (verdict: Verdict, decided = false, readingMatched = false) => ({ verdict, decided, readingMatched });
+  const r = ctx.reading;
+  const readingMatched = r !== undefined && !r.fallback && r.matched.size > 0;
+  if (cond) {
+    const oc = cond.outcome;
+    const cands = oc.ranked.candidates;
+    const attributeApplied = oc.applied.some((a) => a.attribute !== null);
+    if (input.clues.length === 0 && !oc.count && !oc.tiedWith && attributeApplied) {
+      // no clue: the attribute conditions alone decide; every entity that passes fits equally
+      if (cands.length === 0) return out({ status: "none", margin: 0, tiedWith: [], reason: "no entity of the expected type satisfies the conditions" }, true);
+      if (cands.length === 1) return out({ status: "unique", margin: 1, tiedWith: [], reason: "the only entity of the expected type that satisfies the conditions" });
+      return out({ status: "tied", margin: 0, tiedWith: cands.slice(1).map((c) => ctx.ref(c.node).id), reason: `${cands.length} entities of the expected type satisfy the conditions` });
+    }
+    if (input.clues.length > 0 && oc.fit.length === 0 && cands.length > 0 && !oc.count) {
+      if ((oc.ranked.matched ?? 0) > 0 && !oc.ranked.fallback) {
+        return out({ status: "none", margin: 0, tiedWith: [], reason: "no entity that satisfies the reading of the question satisfies the conditions" }, true);
+      }
+      return out({ status: "weak", margin: 0, tiedWith: [], reason: "no candidate that fits every clue satisfies the conditions" }, true);
+    }
+    if (oc.count) return out(countVerdict(oc.count.value, input, ctx, o, readingMatched), true);
+    const sup = cond.list.findIndex((c) => c.kind === "superlative" && oc.applied.some((a) => a.condition === c && a.attribute !== null));
+    if (sup >= 0 && cands.length > 0 && oc.tiedWith !== undefined) {
+      const label = oc.applied.find((a) => a.condition === cond.list[sup])?.attribute?.label ?? "the attribute";
+      if (oc.tiedWith.length > 0) {
+        return out({ status: "tied", margin: 0, tiedWith: oc.tiedWith.map((n) => ctx.ref(n).id), reason: `${oc.tiedWith.length + 1} candidates share the same ${label}` }, false, readingMatched);
+      }
+      return out({ status: "unique", margin: 1, tiedWith: [], reason: `the only candidate at that place by ${label}` }, false, readingMatched);
+    }
+  }
+  if (input.clues.length === 0) return out({ status: "none", margin: 0, tiedWith: [], reason: "no part of the question was linked to a catalog entity" }, true);
+  const scored = scoreVerdict(input, o);
+  if (scored.status === "none") return out(scored, true);
+  // 3. the reading
+  if (r && readingMatched && constrained(r, input.clues.length, o.maxSteps)) {
+    const set = input.candidates.filter((c) => r.matched.has(c.node));
+    if (set.length >= 2) {
+      return out(
+        { status: "tied", margin: 0, tiedWith: set.slice(1).map((c) => c.id), reason: `${set.length} entities satisfy the reading${r.graph.plural ? " (the question asks for all of them)" : ""}: ${names(set)}` },
+        false,
+        true,
+      );
+    }
+    if (set.length === 1) {
+      return out(scored.status === "unique" ? scored : { status: "unique", margin: scored.margin, tiedWith: [], reason: `only ${set[0]!.label} satisfies the reading of the question` }, false, true);
+    }
+  }
+  return out(scored, false, readingMatched);
+}
+
+/** True when every clue is constrained by a relation-path pattern of at most `maxSteps` hops. */
+function constrained(r: NonNullable<VerdictContext["reading"]>, clues: number, maxSteps: number): boolean {
+  return r.graph.chains.length === clues && r.open === 0 && r.graph.chains.every((ch) => ch.steps.length <= maxSteps);
+}
+
+/** Rule 2 for a count: the number is the answer; the verdict says whether the counted set is certain. */
+function countVerdict(n: number, input: VerdictInput, ctx: VerdictContext, o: Required<VerdictOptions>, readingMatched: boolean): Verdict {
+  if (n === 0) return { status: "none", margin: 0, tiedWith: [], reason: "nothing fits every clue and condition: the count is 0" };
+  const missing = ctx.notFound?.[0];
+  if (missing) return { status: "weak", margin: 1, tiedWith: [], reason: `the count is ${n}, but ${notFoundText(missing)}`, mention: missing };
+  const doubt = (ctx.doubts ?? []).find((d) => d.mention.next.confidence >= o.senseRatio * (d.mention.confidence ?? 1) && (d.answers === null || d.answers.length > 0));
+  if (doubt) {
+    const m = doubt.mention;
+    return { status: "weak", margin: 1, tiedWith: [], reason: `the count is ${n} when ${quoted(m)} is ${m.entity?.label ?? "?"}; it may also be ${m.next.label} (${pct(m.next.confidence)} against ${pct(m.confidence ?? 1)})`, mention: m };
+  }
+  if (input.clues.length > 0 && ctx.reading && !readingMatched) {
+    return { status: "weak", margin: 1, tiedWith: [], reason: `the count is ${n}, but no entity satisfies the whole reading: the counted set is the ranking's best guess` };
+  }
+  return { status: "unique", margin: 1, tiedWith: [], reason: `the count is ${n} (the number is the answer)` };
+}
+
+/** Rule 4: the other senses of doubtful mentions. */
+function withDoubts(v: Verdict, doubts: readonly SenseDoubt[], input: VerdictInput, readingMatched: boolean): Verdict {
+  if (doubts.length === 0) return v;
+  const top = input.candidates[0];
+  const have = new Set([...(top ? [top.id] : []), ...v.tiedWith]);
+  const senses: SenseAnswer[] = [];
+  for (const d of doubts) {
+    for (const a of d.answers ?? []) {
+      if (have.has(a.id)) continue;
+      have.add(a.id);
+      senses.push({ id: a.id, label: a.label, mention: d.mention.text, sense: d.mention.next });
+    }
+  }
+  if (senses.length > 0) {
+    const d = doubts.find((x) => x.mention.text === senses[0]!.mention)!;
+    const m = d.mention;
+    const reason = `${quoted(m)} may be ${m.entity?.label ?? "?"} (${pct(m.confidence ?? 1)}) or ${m.next.label} (${pct(m.next.confidence)}), and nothing else in the question chooses: read as ${m.next.label}, the answer is ${names(senses)}`;
+    return { status: "tied", margin: 0, tiedWith: [...v.tiedWith, ...senses.map((s) => s.id)], reason: v.status === "tied" ? `${v.reason ?? ""}; ${reason}` : reason, mention: m, senses: [...(v.senses ?? []), ...senses] };
+  }
+  if (v.status !== "unique") return v;
+  // the other sense fits nothing the question asks: when this reading matched, the question chose
+  const open = doubts.find((d) => d.answers === null || (d.answers.length === 0 && !readingMatched));
+  if (!open) return v;
+  const m = open.mention;
+  return { status: "weak", margin: v.margin, tiedWith: [], reason: `the answer rests on reading ${quoted(m)} as ${m.entity?.label ?? "?"} (${pct(m.confidence ?? 1)}), not clearly ahead of ${m.next.label} (${pct(m.next.confidence)})`, mention: m };
+}
+
+/** The score rules (step 6 of the file header): the ranking's scores, clue reach and path evidence. */
+function scoreVerdict(input: VerdictInput, o: Required<VerdictOptions>): Verdict {
   if (input.clues.length === 0) return { status: "none", margin: 0, tiedWith: [], reason: "no part of the question was linked to a catalog entity" };
   const top = input.candidates[0];
   if (!top || !(top.score > 0)) return { status: "none", margin: 0, tiedWith: [], reason: "no candidate of the expected type is reachable from the clues" };

@@ -143,8 +143,38 @@ export interface Verdict {
   readonly margin: number;
   /** Ids of the other answers that fit as well (status `tied`). */
   readonly tiedWith: readonly string[];
-  /** Human-readable reason for the status (additive). */
+  /** Human-readable reason for the status (additive; always set by the pipeline). */
   readonly reason?: string;
+  /** Additive: the mention the verdict turns on (a doubtful sense, a name not found), when one does. */
+  readonly mention?: VerdictMention;
+  /** Additive: the `tiedWith` answers that come from another sense of a mention, with that sense. */
+  readonly senses?: readonly SenseAnswer[];
+}
+
+/** The mention a verdict turns on (additive; README "Verdicts"). */
+export interface VerdictMention {
+  /** The words of the question. */
+  readonly text: string;
+  readonly start: number;
+  readonly end: number;
+  /** The entity it was linked to (for a name not found: the nearest catalog name), null when none. */
+  readonly entity: EntityRef | null;
+  /** The linker's confidence in `entity`. */
+  readonly confidence?: number;
+  /** The next sense and its confidence (a doubtful link). */
+  readonly next?: EntityRef & { readonly confidence: number };
+  /** True when no catalog entity matches the words (reported as not found). */
+  readonly notFound?: boolean;
+}
+
+/** An answer that comes from another sense of a mention (`Verdict.senses`). */
+export interface SenseAnswer {
+  /** The answer's id (also in `tiedWith`) and label. */
+  readonly id: string;
+  readonly label: string;
+  /** The mention's words and the sense it was read as for this answer. */
+  readonly mention: string;
+  readonly sense: EntityRef & { readonly confidence: number };
 }
 
 /** A suggested extra clue (additive; explain stage): appended to the question it would single out the best answer. */

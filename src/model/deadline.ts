@@ -15,7 +15,7 @@ export const DEFAULTS = {
 } as const;
 
 /** The stages a deadline can cut, in the order they run. */
-export type CutStage = "conditions" | "paths" | "ablation" | "suggestions" | "why-not" | "suggestion checks";
+export type CutStage = "conditions" | "other senses" | "paths" | "ablation" | "suggestions" | "why-not" | "suggestion checks";
 
 /** A question's deadline: `expired()` is cheap enough to call in a loop. */
 export class Deadline {

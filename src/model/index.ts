@@ -11,6 +11,8 @@ export type {
   Answer,
   VerdictStatus,
   Verdict,
+  VerdictMention,
+  SenseAnswer,
   AskResult,
   SuggestionDoc,
   CheckItem,

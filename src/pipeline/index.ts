@@ -10,5 +10,4 @@ export { parseQuestionFile, parseQuestionText, questionLayout, DEFAULTS as QUEST
 export type { QuestionItem, QuestionLayout } from "./questions.js";
 export { runCheck, rankOfExpected, summarise, unknownExpected } from "./check.js";
 export type { CheckOptions } from "./check.js";
-export { basicVerdict, readingVerdict, DEFAULTS as VERDICT_DEFAULTS, READING_DEFAULTS } from "./verdict.js";
-export type { VerdictOptions, ReadingVerdictOptions } from "./verdict.js";
+export { linkFacts, codeMismatch, writtenWord, DEFAULTS as LINK_FACTS_DEFAULTS } from "./link-facts.js";

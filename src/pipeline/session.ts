@@ -8,11 +8,11 @@
 import { Catalog, NumericColumns, demoCatalogPath, normalize } from "../catalog/index.js";
 import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type QueryGraph, type QuestionModel } from "../analysis/index.js";
 import { Linker, linkQuestion, notFoundNote, type LinkResult, type Pin } from "../linking/index.js";
-import { DEADLINE_DEFAULTS, DISCLAIMER, Deadline, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type Mention, type Verdict } from "../model/index.js";
+import { DEADLINE_DEFAULTS, DISCLAIMER, Deadline, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type EntityRef, type Mention, type Verdict } from "../model/index.js";
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
-import { basicVerdict, readingVerdict } from "./verdict.js";
+import { linkFacts } from "./link-facts.js";
 import { answerComparison, answerValue, type DirectAnswer } from "./direct.js";
-import { conditionDocs, conditionExplanation, conditionSteps, conditionVerdict, countDoc, explain, whyNotFigures, whyNotReasons, PATH_DEFAULTS, WHY_NOT_DEFAULTS, type Explanation, type WhyNot } from "../explain/index.js";
+import { conditionDocs, conditionExplanation, conditionSteps, countDoc, decideVerdict, explain, whyNotFigures, whyNotReasons, PATH_DEFAULTS, WHY_NOT_DEFAULTS, type Explanation, type VerdictContext, type WhyNot } from "../explain/index.js";
 
 /** A progress event while a session opens. */
 export interface SessionProgress {
@@ -151,22 +151,7 @@ export class Session {
     const limitNotes =
       link === linked ? [] : [`${linked.mentions.length} names were linked; only the ${LIMITS.maxMentions} most confident are used as clues (limit: README "Failure modes")`];
     const t1 = performance.now();
-    // conditions (comparisons, superlatives, exclusions, counts): src/analysis/conditions.ts
-    // the attribute vocabulary (a scan of every literal) is read only when the condition
-    // detector reaches a quantity or dimension word, not for every question's first ask
-    const session = this;
-    const lazyAttributes: AttributeModel = {
-      get attributes() {
-        return session.attributes().attributes;
-      },
-      get textAttributes() {
-        return session.attributes().textAttributes;
-      },
-      textValues: (p: number, texts: readonly string[]) => session.catalog.attributeValuesIn(p, texts),
-    };
-    const cond = detectConditions(analyze(question, link, this.model), this.model, lazyAttributes);
-    const analysis = cond.analysis;
-    const reading = readQuestion(cond, this.model);
+    const { cond, analysis, reading, ranked: maybeRanked, matchedNodes, conditions, pprMemo, lookup } = this.readAndRank(question, link, deadline, options.dropClues);
     const t2 = performance.now();
     if (cond.value || cond.compare) {
       const direct = cond.value ? answerValue(this.catalog, cond.value) : answerComparison(this.catalog, cond.compare!, this.attributes().attributes.map((a) => ({ ...a, score: 0, wordIndexes: [] })));
@@ -176,39 +161,35 @@ export class Session {
       const whyNotNote = asked.length > 0 ? [`--why-not ${asked.map((n) => JSON.stringify(n)).join(", ")}: this question is answered from attribute values, not by ranking, so there is nothing to compare with`] : [];
       return this.directOutcome(question, analysis, reading, direct, [...limitNotes, ...whyNotNote], top, { link: t1 - t0, analyze: t2 - t1 }, t0);
     }
-    // numeric values through per-predicate columns (one statement per attribute, kept by the session)
-    const lookup = {
-      numbers: (e: number, p: number) => this.numericColumns.numbers(e, p),
-      texts: (e: number, p: number) => this.catalog.attributeTexts(e, p),
-      entitiesWith: (p: number, v: string) => this.catalog.entitiesWithValue(p, v),
-    };
+    const ranked = maybeRanked!;
     const withConditions = (r: Ranked) => (cond.conditions.length > 0 ? applyConditions(analysis, r, cond.conditions, this.index, lookup).ranked : r);
-    // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
-    const pprMemo = new Map<string, SparseScores>();
-    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, ...(options.dropClues ? { dropClues: options.dropClues } : {}) });
-    const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup, { deadline }) : undefined;
-    const ranked = conditions?.ranked ?? ranked0;
+    // the link facts of the verdict: names not found, senses in doubt (each evaluated once more)
+    const facts = linkFacts(question, analysis, ranked.clues, link, {
+      names: (num) => this.catalog.aliasRows(num).map((r) => r[0]),
+      otherSense: (text, id) => (deadline.stop("other senses") ? null : this.otherSenseAnswers(question, text, id, options.pins ?? [], deadline)),
+    });
+    const verdictContext: VerdictContext = {
+      reading: { graph: reading, matched: matchedNodes!, fallback: ranked.fallback === true, open: ranked.open ?? 0 },
+      ...(conditions ? { conditions: { list: cond.conditions, outcome: conditions } } : {}),
+      notFound: facts.notFound,
+      doubts: facts.doubts,
+      ref: (n) => this.ref(n),
+    };
     const t3 = performance.now();
     const asked = (options.whyNot ?? []).map((e) => ({ name: e, nums: this.whyNotEntities(e) }));
     const whyNot = [...new Set(asked.flatMap((x) => x.nums))];
     const sharedNotes = asked.filter((x) => x.nums.length > 1).map((x) => this.sharedNameNote(x.name, x.nums));
-    const made = this.answersOf(analysis, ranked, top, { reading, dropClues: options.dropClues ?? [], whyNot, pprMemo, deadline, ...(conditions ? { rerankWith: withConditions } : {}) });
-    let { answers, verdict } = made;
+    const made = this.answersOf(analysis, ranked, top, { reading, dropClues: options.dropClues ?? [], whyNot, pprMemo, deadline, verdictContext, ...(conditions ? { rerankWith: withConditions } : {}) });
+    let { answers } = made;
+    const verdict = made.verdict;
     if (conditions) {
       const nodeOf = new Map(ranked.candidates.slice(0, top).map((c) => [this.ref(c.node).id, c.node]));
       answers = answers.map((a) => {
         const node = nodeOf.get(a.id);
         return node === undefined ? a : { ...a, values: conditionSteps(node, cond.conditions, conditions) };
       });
-      const decided = conditionVerdict(cond.conditions, conditions, ranked.candidates[0]?.node, this.catalog);
-      if (decided) {
-        verdict = decided;
-        made.explanation = conditionExplanation(question, answers, verdict, conditions, this.index, this.catalog, made.explanation);
-      }
-    }
-    if (!conditions && explanation0(made)) {
-      // the verdict reads the reading: the entities that satisfy its whole structure
-      verdict = readingVerdict(verdict, reading, analysis, ranked, (n) => this.ref(n));
+      // a question with no clue has no explanation of its own; a tie gets the clues that would single out the first answer
+      if (!made.explanation || verdict.status === "tied") made.explanation = conditionExplanation(question, answers, verdict, conditions, this.index, this.catalog, made.explanation);
     }
     let explanation = whyNot.length > 0 ? this.completeWhyNot(whyNot, made.explanation, answers, verdict, analysis, ranked, conditions ? { list: cond.conditions, outcome: conditions } : undefined) : made.explanation;
     if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {
@@ -230,8 +211,8 @@ export class Session {
       answerTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
       answers,
       verdict,
-      notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...analysis.notes, ...ranked.notes, ...sharedNotes, ...budgetNotes(deadline)],
-      ...(link.notFound.length > 0 ? { notFound: link.notFound } : {}),
+      notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...facts.codes.map(notFoundNote), ...analysis.notes, ...ranked.notes, ...sharedNotes, ...budgetNotes(deadline)],
+      ...(link.notFound.length + facts.codes.length > 0 ? { notFound: [...link.notFound, ...facts.codes].sort((a, b) => a.start - b.start) } : {}),
       disclaimer: DISCLAIMER,
       reading: readingDoc(reading, analysis, this.model, ranked.matched !== undefined ? { matched: ranked.matched, fallback: ranked.fallback === true } : { matched: null, fallback: false }),
       ...(conditions ? { conditions: conditionDocs(cond.conditions, conditions) } : {}),
@@ -242,6 +223,56 @@ export class Session {
       ...(deadline.hit ? { budget: { limitMs: deadline.limitMs, hit: true as const, cut: deadline.cuts } } : {}),
     };
     return { result, analysis, ranked, explanation, reading, ...(conditions ? { conditions } : {}), timings: { link: t1 - t0, analyze: t2 - t1, rank: t3 - t2, explain: t4 - t3, total: t4 - t0 } };
+  }
+
+  /**
+   * Reads a linked question (analysis, conditions, the query graph) and, unless it is a value
+   * or comparison question, ranks it and applies its conditions.
+   */
+  private readAndRank(question: string, link: LinkResult, deadline: Deadline, dropClues?: readonly number[]): ReadAndRank {
+    // conditions (comparisons, superlatives, exclusions, counts): src/analysis/conditions.ts
+    // the attribute vocabulary (a scan of every literal) is read only when the condition
+    // detector reaches a quantity or dimension word, not for every question's first ask
+    const session = this;
+    const lazyAttributes: AttributeModel = {
+      get attributes() {
+        return session.attributes().attributes;
+      },
+      get textAttributes() {
+        return session.attributes().textAttributes;
+      },
+      textValues: (p: number, texts: readonly string[]) => session.catalog.attributeValuesIn(p, texts),
+    };
+    const cond = detectConditions(analyze(question, link, this.model), this.model, lazyAttributes);
+    const analysis = cond.analysis;
+    const reading = readQuestion(cond, this.model);
+    // numeric values through per-predicate columns (one statement per attribute, kept by the session)
+    const lookup = {
+      numbers: (e: number, p: number) => this.numericColumns.numbers(e, p),
+      texts: (e: number, p: number) => this.catalog.attributeTexts(e, p),
+      entitiesWith: (p: number, v: string) => this.catalog.entitiesWithValue(p, v),
+    };
+    // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
+    const pprMemo = new Map<string, SparseScores>();
+    if (cond.value || cond.compare) return { cond, analysis, reading, lookup, pprMemo };
+    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, ...(dropClues ? { dropClues } : {}) });
+    const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup, { deadline }) : undefined;
+    // the entities that satisfy the reading (the ranking's first `matched`), before any filter or reordering
+    const matchedNodes = new Set(ranked0.fallback ? [] : ranked0.candidates.slice(0, ranked0.matched ?? 0).map((c) => c.node));
+    return { cond, analysis, reading, lookup, pprMemo, ranked: conditions?.ranked ?? ranked0, matchedNodes, ...(conditions ? { conditions } : {}) };
+  }
+
+  /**
+   * The answers of the question with the words `text` read as entity `id` (pinned) that
+   * satisfy that reading and its conditions (link-facts.ts); null for a value question.
+   */
+  private otherSenseAnswers(question: string, text: string, id: string, pins: readonly Pin[], deadline: Deadline): EntityRef[] | null {
+    const link = capMentions(linkQuestion(question, this.linker, { pins: [...pins, { text, entity: id }] }));
+    const { ranked, conditions, matchedNodes } = this.readAndRank(question, link, deadline);
+    if (!ranked || !matchedNodes) return null;
+    // a count: the counted entities; otherwise the entities that satisfy the reading and the conditions
+    const nodes = conditions?.count ? conditions.count.entities : ranked.candidates.map((c) => c.node).filter((n) => matchedNodes.has(n));
+    return nodes.map((n) => this.ref(n));
   }
 
   /** The outcome of a question answered by attribute values (pipeline/direct.ts): no walk, no paths. */
@@ -281,7 +312,7 @@ export class Session {
   /**
    * The answers (with paths) and the verdict of a ranking: the one call site where the
    * explanation stage plugs in (explain(): paths, coverage, verdict, ablation through
-   * re-ranking, why-not, suggestions). With no clue or no candidate: no paths, {@link basicVerdict}.
+   * re-ranking, why-not, suggestions). With no clue or no candidate: no paths, the verdict from the conditions and link facts alone.
    */
   answersOf(
     analysis: Analysis,
@@ -297,6 +328,8 @@ export class Session {
       readonly pprMemo?: Map<string, SparseScores>;
       /** The question's time budget (explain's long stages stop early once it is spent). */
       readonly deadline?: Deadline;
+      /** What the verdict reads besides the ranking (explain/verdict.ts): reading, conditions, link facts. */
+      readonly verdictContext?: VerdictContext;
     } = {},
   ): { answers: Answer[]; verdict: Verdict; explanation?: Explanation } {
     if (ranked.clues.length === 0 || ranked.candidates.length === 0) {
@@ -305,7 +338,14 @@ export class Session {
         const ref = this.ref(c.node);
         return { id: ref.id, label: ref.label, score: c.score, types: this.index.typesOf(c.node).map((t) => this.ref(t).id), paths: [] };
       });
-      return { answers, verdict: basicVerdict(ranked, (n) => this.ref(n).id) };
+      const verdict = decideVerdict({
+        clues: ranked.clues.map((c) => c.label),
+        candidates: ranked.candidates.map((c) => ({ node: c.node, ...this.ref(c.node), score: c.score, covered: c.covered })),
+        equivalent: null,
+        maxHops: PATH_DEFAULTS.maxHops,
+        context: extra.verdictContext ?? { ref: (n) => this.ref(n) },
+      });
+      return { answers, verdict };
     }
     // ranked.clues are analysis.clues minus dropClues: map a ranked clue index back
     const dropped = new Set(extra.dropClues ?? []);
@@ -321,6 +361,7 @@ export class Session {
         return extra.rerankWith ? extra.rerankWith(r) : r;
       },
       whyNot: extra.whyNot ?? [],
+      ...(extra.verdictContext ? { verdictContext: extra.verdictContext } : {}),
       ...(extra.deadline ? { deadline: extra.deadline } : {}),
       // the session reads one committed catalog state (one read transaction), so ids and labels can be kept across questions
       refs: this.idCache,
@@ -448,9 +489,17 @@ function mentionDocs(analysis: Analysis): Mention[] {
   }));
 }
 
-/** True when the answers came from the explanation stage (clues and candidates present). */
-function explanation0(made: { explanation?: Explanation }): boolean {
-  return made.explanation !== undefined;
+/** A question read and ranked ({@link Session}.readAndRank); no ranking for a value or comparison question. */
+interface ReadAndRank {
+  readonly cond: ReturnType<typeof detectConditions>;
+  readonly analysis: Analysis;
+  readonly reading: QueryGraph;
+  readonly lookup: { numbers: (e: number, p: number) => readonly number[]; texts: (e: number, p: number) => string[]; entitiesWith: (p: number, v: string) => number[] };
+  readonly pprMemo: Map<string, SparseScores>;
+  readonly ranked?: Ranked;
+  /** The entities that satisfy the reading (ranking `Ranked.matched`, taken before the conditions). */
+  readonly matchedNodes?: ReadonlySet<number>;
+  readonly conditions?: ConditionOutcome;
 }
 
 /** Ends the session's read transaction (nothing was written in it). */

@@ -1,0 +1,103 @@
+/**
+ * The link facts the verdict reads (explain/verdict.ts rules 1, 4 and 5): which clue mentions
+ * name nothing the catalog holds, and which are in doubt between two senses, with what the
+ * question gives when read with the other sense.
+ *
+ * Not found: a mention the linker reports below its floor (linking `LinkResult.notFound`,
+ * `notFoundBelow`), or a written code whose number the linked name does not carry. A code's
+ * digits identify it (a part number, a version: "KX-999" is not "KX-114", "gcc-19" is not
+ * "gcc") — common practice for identifiers; so when the word the mention stands in (the run of
+ * characters between spaces, sentence punctuation stripped) holds a group of digits that no
+ * name of the linked entity (label or alias) holds, the mention is not found and the linked
+ * entity is only the nearest name.
+ *
+ * Doubt: a clue mention whose next sense has at least `senseRatio` × the chosen sense's
+ * confidence (verdict.ts DEFAULTS, reasons there), unless the user pinned it. Up to
+ * `maxSenses` such mentions are evaluated: the question is read again with the mention pinned
+ * to the other sense, and the answers that satisfy that reading (ranking `Ranked.matched`,
+ * after the conditions' filters) are the other sense's answers.
+ */
+import type { Analysis, Clue } from "../analysis/index.js";
+import type { LinkResult } from "../linking/index.js";
+import type { MentionFacts, SenseDoubt } from "../explain/index.js";
+import { VERDICT_DEFAULTS } from "../explain/index.js";
+import type { EntityRef, NotFoundDoc } from "../model/index.js";
+
+/** Options of {@link linkFacts}; all optional. */
+export const DEFAULTS = {
+  /** Doubtful mentions evaluated with their other sense (each costs one more reading and ranking). */
+  maxSenses: 2,
+} as const;
+
+/** The word of the question a span stands in: extended over the characters up to the next space, sentence punctuation left out. */
+export function writtenWord(question: string, start: number, end: number): { text: string; start: number; end: number } {
+  let a = start;
+  let b = end;
+  while (a > 0 && !/[\s"'“”‘’(\[]/u.test(question[a - 1]!)) a--;
+  while (b < question.length && !/[\s"'“”‘’)\]?!,;:]/u.test(question[b]!)) b++;
+  // a full stop, or a hyphen, at the end of the word ends a sentence or a clause, not a code
+  while (b > end && /[.\-‐‑]/u.test(question[b - 1]!)) b--;
+  return { text: question.slice(a, b), start: a, end: b };
+}
+
+/** The groups of digits of a text ("KX-114b 2" → ["114", "2"]). */
+function digitGroups(text: string): string[] {
+  return text.match(/\p{Nd}+/gu) ?? [];
+}
+
+/** True when the written word holds a group of digits no name of the entity holds (a code the catalog does not have). */
+export function codeMismatch(written: string, names: readonly string[]): boolean {
+  const groups = digitGroups(written);
+  if (groups.length === 0) return false;
+  const held = new Set(names.flatMap((n) => digitGroups(n)));
+  return groups.some((g) => !held.has(g));
+}
+
+/** What the pipeline supplies to {@link linkFacts}. */
+export interface LinkFactsSource {
+  /** Every name (label and aliases) of an entity num. */
+  readonly names: (num: number) => readonly string[];
+  /**
+   * The answers of the question with mention text `text` read as entity `id` that satisfy the
+   * reading (empty: none does); null when it cannot be evaluated (a value question, the time budget).
+   */
+  readonly otherSense: (text: string, id: string) => readonly EntityRef[] | null;
+}
+
+/** The link facts of one question (see the file header). */
+export function linkFacts(
+  question: string,
+  analysis: Analysis,
+  /** The clues the ranking used (the analysis's, less any dropped). */
+  clues: readonly Clue[],
+  link: LinkResult,
+  source: LinkFactsSource,
+  options: { readonly senseRatio?: number; readonly maxSenses?: number } = {},
+): { notFound: MentionFacts[]; doubts: SenseDoubt[]; codes: NotFoundDoc[] } {
+  const senseRatio = options.senseRatio ?? VERDICT_DEFAULTS.senseRatio;
+  const maxSenses = options.maxSenses ?? DEFAULTS.maxSenses;
+  const notFound: MentionFacts[] = [];
+  const codes: NotFoundDoc[] = [];
+  const doubts: SenseDoubt[] = [];
+  const seen = new Set<number>();
+  for (const clue of clues) {
+    if (seen.has(clue.mention)) continue;
+    seen.add(clue.mention);
+    const m = analysis.mentions[clue.mention];
+    if (!m || m.pinned) continue;
+    const base = { text: m.text, start: m.start, end: m.end, entity: { id: m.entity.id, label: m.entity.label }, confidence: m.confidence };
+    const below = link.notFound.some((nf) => nf.linked && nf.start === m.start && nf.end === m.end);
+    const word = writtenWord(question, m.start, m.end);
+    const code = !below && codeMismatch(word.text, source.names(m.num));
+    if (below || code) {
+      notFound.push({ ...base, text: code ? word.text : m.text, start: code ? word.start : m.start, end: code ? word.end : m.end, notFound: true });
+      if (code) codes.push({ text: word.text, start: word.start, end: word.end, linked: true, nearest: { ...base.entity, confidence: m.confidence } });
+      continue;
+    }
+    const next = m.alternatives[0];
+    if (!next || next.confidence < senseRatio * m.confidence || doubts.length >= maxSenses) continue;
+    const other = { id: next.id, label: next.label, confidence: next.confidence };
+    doubts.push({ mention: { ...base, next: other }, answers: source.otherSense(m.text, next.id) });
+  }
+  return { notFound, doubts, codes };
+}
