@@ -74,6 +74,34 @@ describe("question indexes prepared during a load", () => {
     expectSameAsReadBack(join(dir, "gen-given.db"), gen.files);
   });
 
+  it("equal the read-back build when a second thread builds them (the compiled worker, dist/)", async () => {
+    // the worker runs only from the compiled build (npm run build): load through dist's modules
+    const dist = new URL("../dist/", import.meta.url);
+    const { Catalog: DistCatalog, loadFiles: distLoad } = (await import(new URL("catalog/index.js", dist).href)) as typeof import("../src/catalog/index.js");
+    const { LoadPreparation: DistPreparation, PREPARE_DEFAULTS } = (await import(new URL("pipeline/index.js", dist).href)) as typeof import("../src/pipeline/index.js");
+    const gen = generateCatalog({ out: join(dir, "gen-thread"), entities: 3000, edges: 15000, seed: 6, questions: 1 });
+    for (const [name, textBatch] of [["thread-big", PREPARE_DEFAULTS.textBatch], ["thread-small", 7]] as const) {
+      const saved = PREPARE_DEFAULTS.textBatch;
+      PREPARE_DEFAULTS.textBatch = textBatch; // 7: batches of any size, across row kinds
+      const db = join(dir, `${name}.db`);
+      const cat = DistCatalog.open(db, { create: true });
+      const sink = new DistPreparation();
+      try {
+        const report = distLoad(cat, [...gen.files].sort(), { sink });
+        expect(report.prepared, sink.reason).toBe(true);
+      } finally {
+        cat.close();
+        PREPARE_DEFAULTS.textBatch = saved;
+      }
+      // 3,000 entities give more than one batch of names (labels, aliases, descriptions): the thread ran
+      expect(sink.threaded).toBe(true);
+      const streamed = { idx: readFileSync(snapshotPath(db)), link: readFileSync(LexicalSnapshot.pathFor(db)) };
+      const r = readBack(db);
+      expect(streamed.idx.equals(r.idx)).toBe(true);
+      expect(streamed.link.equals(r.link)).toBe(true);
+    }
+  });
+
   it("equal the read-back build on RDF edge cases", () => {
     const nt = write(
       "cases.nt",

@@ -235,11 +235,12 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
       throw new TiepointError(errs[0]!.code, errs[0]!.message, { file: errs[0]!.file, line: errs[0]!.line, more });
     }
     writer.flush();
-    cat.storeAttributeSummary();
-    gatherStatistics(cat);
-    // the commit bumps the generation by one: derived files are stamped with the new one
+    // the commit bumps the generation by one: derived files are stamped with the new one; a
+    // sink may build them in a second thread while the summary, ANALYZE and the commit run
     prepared = sink?.finish(cat, { uid: cat.version().uid, generation: cat.version().generation + 1 });
     writer.sink = undefined;
+    cat.storeAttributeSummary();
+    gatherStatistics(cat);
     writer.commit();
   } catch (e) {
     writer.sink = undefined;

@@ -4,7 +4,7 @@
  */
 export { Session, DEFAULTS as ASK_DEFAULTS } from "./session.js";
 export type { SessionOptions, SessionProgress, AskOptions, AskOutcome, AskTimings } from "./session.js";
-export { LoadPreparation } from "./prepare.js";
+export { LoadPreparation, DEFAULTS as PREPARE_DEFAULTS } from "./prepare.js";
 export type { PrepareProgressFn } from "./prepare.js";
 export { parseQuestionFile, parseQuestionText, questionLayout, DEFAULTS as QUESTION_FILE_DEFAULTS } from "./questions.js";
 export type { QuestionItem, QuestionLayout } from "./questions.js";

@@ -10,17 +10,66 @@
  * rows and entity texts to linking's `LexicalBuilder` (term statistics computed as the texts
  * arrive). Both give, byte for byte, the files the read-back path builds (test/prepare.test.ts).
  *
+ * Both builders run in a second thread (a `worker_threads` worker, prepare-worker.ts) once a
+ * load is large enough to fill one batch of rows: the load's thread only packs the rows into
+ * batches (edges as Int32 columns, transferred without copying; texts as arrays of strings)
+ * and posts them, so tokenising and stemming the texts, sorting the edges and writing the
+ * files use the machine's second core while the first parses, writes SQLite rows, builds
+ * SQLite's indexes and commits. The load waits for the thread only when it publishes the
+ * files after its commit (`Atomics.wait` on a shared flag). Smaller loads, and a build run
+ * from the TypeScript sources (no compiled worker file), use the same builders in the load's
+ * own thread — the same code either way, so the same bytes.
+ *
  * Before vouching for the files it checks that the distinct edges it saw are exactly the
  * catalog's edge rows (a count, read inside the load's transaction); a mismatch (a write path
  * it was not told about) leaves preparation to the read-back path after the commit.
  */
-import { renameSync, unlinkSync } from "node:fs";
+import { existsSync, renameSync, unlinkSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import { Worker } from "node:worker_threads";
 import type { Catalog, LoadSink, PreparedFiles } from "../catalog/index.js";
 import { LexicalSnapshot } from "../linking/index.js";
 import { IndexBuilder, snapshotPath, writeSnapshotTemp } from "../ranking/index.js";
 
 /** A progress note while the files are built (for a line on stderr). */
 export type PrepareProgressFn = (message: string) => void;
+
+/** Batch sizes and the thread's limits; all optional. */
+export const DEFAULTS = {
+  /** Edge, type and subtype rows per batch (a load that fills one starts the second thread). */
+  indexBatch: 1 << 15,
+  /** Name rows (aliases, labels, descriptions) per batch. */
+  textBatch: 1 << 13,
+  /** Longest wait for the second thread at publish, in milliseconds (then the files are not published). */
+  waitMs: 30 * 60 * 1000,
+  /** Bytes for the thread's result (a short JSON document). */
+  resultBytes: 1 << 16,
+};
+
+/** Op codes of a batch of index rows (4 Int32 per row: code, a, b, c). */
+const EDGE = 0;
+const TYPE = 1;
+const SUBCLASS = 2;
+const REMOVED = 3;
+/** Op codes of a batch of name rows (4 values per row: code, entity, text, stem). */
+const ALIAS = 0;
+const LABEL = 1;
+const DESCRIPTION = 2;
+
+/** What the builders need from the finished catalog (read inside the load's transaction). */
+export interface PrepareInput {
+  readonly maxEntity: number;
+  readonly maxPredicate: number;
+  /** The catalog's edge rows. */
+  readonly edgeRows: number;
+  readonly entityCount: number;
+  /** The catalog file (the two files go beside it). */
+  readonly path: string;
+  readonly stamp: { readonly uid: string; readonly generation: number };
+}
+
+/** The outcome of {@link PrepareCore.build}. */
+export type PrepareOutput = { readonly ok: true; readonly temps: [string, string]; readonly stepMs: Record<string, number>; readonly ms: number } | { readonly ok: false; readonly reason: string; readonly stepMs: Record<string, number>; readonly ms: number };
 
 function remove(file: string): void {
   try {
@@ -30,102 +79,257 @@ function remove(file: string): void {
   }
 }
 
-/** Builds `PATH.idx` and `PATH.link` from the rows of a load (see the file header). */
-export class LoadPreparation implements LoadSink {
+/** The two builders, fed batches of rows (in the load's thread or in the second one). @internal */
+export class PrepareCore {
   private readonly index = new IndexBuilder();
   private readonly lexical = LexicalSnapshot.builder();
-  private readonly onProgress: PrepareProgressFn | undefined;
-  /** Why the files were not built (after `finish` returned undefined), for the caller's message. */
-  reason: string | undefined;
-  /** Milliseconds spent in `finish`, and per step of it. */
-  finishMs = 0;
-  readonly stepMs: Record<string, number> = {};
 
-  constructor(onProgress?: PrepareProgressFn) {
-    this.onProgress = onProgress;
-  }
-
-  edge(src: number, rel: number, dst: number): void {
-    this.index.edge(src, rel, dst);
-  }
-
-  type(entity: number, type: number): void {
-    this.index.type(entity, type);
-  }
-
-  subclass(sub: number, sup: number): void {
-    this.index.subclass(sub, sup);
-  }
-
-  alias(entity: number, norm: string, stem: string): void {
-    this.lexical.alias(entity, norm, stem);
-  }
-
-  label(entity: number, text: string): void {
-    this.lexical.label(entity, text);
-  }
-
-  description(entity: number, text: string): void {
-    this.lexical.description(entity, text);
-  }
-
-  removed(entity: number): void {
-    this.index.remove(entity);
-    this.lexical.remove(entity);
-  }
-
-  abort(): void {
-    this.reason ??= "the catalog was not empty when the load began";
-  }
-
-  finish(cat: Catalog, stamp: { readonly uid: string; readonly generation: number }): PreparedFiles | undefined {
-    const t0 = performance.now();
-    if (cat.path === ":memory:" || cat.path === "") {
-      this.reason = "an in-memory catalog keeps no index files";
-      return undefined;
+  /** Applies `n` rows of an index batch. */
+  indexRows(batch: Int32Array, n: number): void {
+    const index = this.index;
+    for (let i = 0; i < 4 * n; i += 4) {
+      const code = batch[i]!;
+      if (code === EDGE) index.edge(batch[i + 1]!, batch[i + 2]!, batch[i + 3]!);
+      else if (code === TYPE) index.type(batch[i + 1]!, batch[i + 2]!);
+      else if (code === SUBCLASS) index.subclass(batch[i + 1]!, batch[i + 2]!);
+      else index.remove(batch[i + 1]!);
     }
+  }
+
+  /** Applies the rows of a name batch. */
+  textRows(batch: readonly unknown[]): void {
+    const lexical = this.lexical;
+    for (let i = 0; i < batch.length; i += 4) {
+      const code = batch[i] as number;
+      const entity = batch[i + 1] as number;
+      if (code === ALIAS) lexical.alias(entity, batch[i + 2] as string, batch[i + 3] as string);
+      else if (code === LABEL) lexical.label(entity, batch[i + 2] as string);
+      else if (code === DESCRIPTION) lexical.description(entity, batch[i + 2] as string);
+      else lexical.remove(entity);
+    }
+  }
+
+  /** Builds both files under temporary names beside the catalog. */
+  build(input: PrepareInput, onProgress?: PrepareProgressFn): PrepareOutput {
+    const t0 = performance.now();
+    const stepMs: Record<string, number> = {};
     const temps: string[] = [];
     let last = t0;
     const step = (name: string) => {
       const now = performance.now();
-      this.stepMs[name] = now - last;
+      stepMs[name] = now - last;
       last = now;
     };
     try {
-      this.onProgress?.(`sorting ${this.index.edgeRows.toLocaleString("en-US")} edges`);
-      const { index, edges } = this.index.build(cat.maxEntityNum(), cat.maxPredicateNum());
+      onProgress?.(`sorting ${this.index.edgeRows.toLocaleString("en-US")} edges`);
+      const { index, edges } = this.index.build(input.maxEntity, input.maxPredicate);
       step("sort");
-      const rows = (cat.db.prepare("SELECT count(*) AS n FROM edge").get() as { n: number }).n;
-      if (rows !== edges) {
-        this.reason = `the load's rows (${edges} edges) do not match the catalog (${rows} edge rows)`;
-        return undefined;
-      }
-      const entityCount = (cat.db.prepare("SELECT count(*) AS n FROM entity").get() as { n: number }).n;
-      step("count");
-      this.onProgress?.("writing the relation index");
-      const idx = snapshotPath(cat.path);
-      temps.push(writeSnapshotTemp(idx, index, stamp));
+      if (edges !== input.edgeRows) return { ok: false, reason: `the load's rows (${edges} edges) do not match the catalog (${input.edgeRows} edge rows)`, stepMs, ms: performance.now() - t0 };
+      onProgress?.("writing the relation index");
+      temps.push(writeSnapshotTemp(snapshotPath(input.path), index, input.stamp));
       step("relationIndex");
-      this.onProgress?.("writing the name index");
+      onProgress?.("writing the name index");
       const degree = new Int32Array(index.nodeCount);
       for (let u = 0; u < degree.length; u++) degree[u] = index.degree(u);
-      const link = LexicalSnapshot.pathFor(cat.path);
-      temps.push(LexicalSnapshot.fromParts(stamp.uid, stamp.generation, this.lexical.finish(degree, entityCount)).saveTemp(link));
+      const parts = this.lexical.finish(degree, input.entityCount);
+      temps.push(LexicalSnapshot.fromParts(input.stamp.uid, input.stamp.generation, parts).saveTemp(LexicalSnapshot.pathFor(input.path)));
       step("nameIndex");
-      const [idxTemp, linkTemp] = temps as [string, string];
-      return {
-        publish: () => {
-          renameSync(idxTemp, idx);
-          renameSync(linkTemp, link);
-        },
-        discard: () => temps.forEach(remove),
-      };
+      return { ok: true, temps: temps as [string, string], stepMs, ms: performance.now() - t0 };
     } catch (e) {
       temps.forEach(remove);
-      this.reason = (e as Error).message;
-      return undefined;
-    } finally {
-      this.finishMs = performance.now() - t0;
+      return { ok: false, reason: (e as Error).message, stepMs, ms: performance.now() - t0 };
     }
+  }
+}
+
+/** The compiled second-thread entry beside this file (absent when run from the TypeScript sources). */
+const WORKER_URL = new URL("./prepare-worker.js", import.meta.url);
+
+/** The second thread and the shared flag it sets when its result is written. */
+interface Thread {
+  readonly worker: Worker;
+  /** [0]: 0 = working, 1 = result written; [1]: result length in bytes (after 8 bytes). */
+  readonly flag: Int32Array;
+  readonly result: Uint8Array;
+}
+
+/** Builds `PATH.idx` and `PATH.link` from the rows of a load (see the file header). */
+export class LoadPreparation implements LoadSink {
+  private readonly onProgress: PrepareProgressFn | undefined;
+  private readonly useThread: boolean;
+  private core: PrepareCore | undefined;
+  private thread: Thread | undefined;
+  private indexBatch = new Int32Array(4 * DEFAULTS.indexBatch);
+  private indexN = 0;
+  private textBatch: unknown[] = [];
+  private output: PrepareOutput | undefined;
+  /** Why the files were not built (after `finish` returned undefined, or publishing failed), for the caller's message. */
+  reason: string | undefined;
+  /** Milliseconds spent building the files (in whichever thread built them), and per step of it. */
+  finishMs = 0;
+  stepMs: Record<string, number> = {};
+  /** Milliseconds the load waited for the second thread after its commit (0 without one). */
+  waitMs = 0;
+  /** True when the second thread built the files. */
+  threaded = false;
+
+  /**
+   * @param options.thread use a second thread for loads that fill a batch (default true;
+   *   false keeps every step in the load's thread)
+   */
+  constructor(onProgress?: PrepareProgressFn, options: { thread?: boolean } = {}) {
+    this.onProgress = onProgress;
+    this.useThread = options.thread !== false && existsSync(fileURLToPath(WORKER_URL));
+  }
+
+  edge(src: number, rel: number, dst: number): void {
+    this.indexRow(EDGE, src, rel, dst);
+  }
+
+  type(entity: number, type: number): void {
+    this.indexRow(TYPE, entity, type, 0);
+  }
+
+  subclass(sub: number, sup: number): void {
+    this.indexRow(SUBCLASS, sub, sup, 0);
+  }
+
+  alias(entity: number, norm: string, stem: string): void {
+    this.textRow(ALIAS, entity, norm, stem);
+  }
+
+  label(entity: number, text: string): void {
+    this.textRow(LABEL, entity, text, null);
+  }
+
+  description(entity: number, text: string): void {
+    this.textRow(DESCRIPTION, entity, text, null);
+  }
+
+  removed(entity: number): void {
+    this.indexRow(REMOVED, entity, 0, 0);
+    this.textRow(REMOVED, entity, null, null);
+  }
+
+  abort(): void {
+    this.reason ??= "the catalog was not empty when the load began";
+    this.stop();
+  }
+
+  private indexRow(code: number, a: number, b: number, c: number): void {
+    const i = 4 * this.indexN++;
+    const batch = this.indexBatch;
+    batch[i] = code;
+    batch[i + 1] = a;
+    batch[i + 2] = b;
+    batch[i + 3] = c;
+    if (this.indexN === DEFAULTS.indexBatch) this.sendIndex(true);
+  }
+
+  private textRow(code: number, entity: number, text: string | null, stem: string | null): void {
+    const batch = this.textBatch;
+    batch.push(code, entity, text, stem);
+    if (batch.length === 4 * DEFAULTS.textBatch) this.sendText(true);
+  }
+
+  /** Where full batches go: the second thread once one fills (when it can run), else this thread's builders. */
+  private target(full: boolean): Thread | PrepareCore {
+    if (this.thread) return this.thread;
+    if (this.core) return this.core;
+    if (full && this.useThread) {
+      const flag = new Int32Array(new SharedArrayBuffer(8));
+      const shared = new SharedArrayBuffer(DEFAULTS.resultBytes);
+      const worker = new Worker(WORKER_URL, { workerData: { flag: flag.buffer, result: shared } });
+      worker.unref();
+      this.thread = { worker, flag, result: new Uint8Array(shared) };
+      this.threaded = true;
+      return this.thread;
+    }
+    this.core = new PrepareCore();
+    return this.core;
+  }
+
+  private sendIndex(full: boolean): void {
+    const n = this.indexN;
+    if (n === 0) return;
+    const to = this.target(full);
+    if (to instanceof PrepareCore) to.indexRows(this.indexBatch, n);
+    else {
+      const batch = n === DEFAULTS.indexBatch ? this.indexBatch : this.indexBatch.slice(0, 4 * n);
+      to.worker.postMessage({ index: batch }, [batch.buffer]);
+      if (batch === this.indexBatch) this.indexBatch = new Int32Array(4 * DEFAULTS.indexBatch);
+    }
+    this.indexN = 0;
+  }
+
+  private sendText(full: boolean): void {
+    if (this.textBatch.length === 0) return;
+    const to = this.target(full);
+    if (to instanceof PrepareCore) to.textRows(this.textBatch);
+    else to.worker.postMessage({ text: this.textBatch });
+    this.textBatch = [];
+  }
+
+  /** The second thread's result, waiting for it (at most `DEFAULTS.waitMs`). */
+  private await(thread: Thread): PrepareOutput {
+    if (this.output) return this.output;
+    const t0 = performance.now();
+    while (Atomics.load(thread.flag, 0) === 0 && performance.now() - t0 < DEFAULTS.waitMs) Atomics.wait(thread.flag, 0, 0, 1000);
+    this.waitMs = performance.now() - t0;
+    if (Atomics.load(thread.flag, 0) === 0) this.output = { ok: false, reason: "the second thread did not finish the question indexes in time", stepMs: {}, ms: this.waitMs };
+    else this.output = JSON.parse(Buffer.from(thread.result.buffer, 0, Atomics.load(thread.flag, 1)).toString("utf8")) as PrepareOutput;
+    this.stop();
+    return this.output;
+  }
+
+  private stop(): void {
+    if (this.thread) void this.thread.worker.terminate();
+    this.thread = undefined;
+  }
+
+  /** Takes a build's outcome: the files to publish, or undefined with the reason. */
+  private adopt(out: PrepareOutput): [string, string] | undefined {
+    this.finishMs = out.ms;
+    this.stepMs = out.stepMs;
+    if (out.ok) return out.temps;
+    this.reason = out.reason;
+    return undefined;
+  }
+
+  finish(cat: Catalog, stamp: { readonly uid: string; readonly generation: number }): PreparedFiles | undefined {
+    if (cat.path === ":memory:" || cat.path === "") {
+      this.reason = "an in-memory catalog keeps no index files";
+      this.stop();
+      return undefined;
+    }
+    const count = (table: string) => (cat.db.prepare(`SELECT count(*) AS n FROM ${table}`).get() as { n: number }).n;
+    const input: PrepareInput = { maxEntity: cat.maxEntityNum(), maxPredicate: cat.maxPredicateNum(), edgeRows: count("edge"), entityCount: count("entity"), path: cat.path, stamp: { uid: stamp.uid, generation: stamp.generation } };
+    this.sendIndex(false);
+    this.sendText(false);
+    const thread = this.thread;
+    if (thread === undefined) {
+      const temps = this.adopt((this.core ?? new PrepareCore()).build(input, this.onProgress));
+      this.core = undefined;
+      if (temps === undefined) return undefined;
+      return { publish: () => this.publish(cat.path, temps), discard: () => temps.forEach(remove) };
+    }
+    this.onProgress?.("building the question indexes in a second thread");
+    thread.worker.postMessage({ finish: input });
+    const built = () => this.adopt(this.await(thread));
+    const path = cat.path;
+    return {
+      publish: () => {
+        const temps = built();
+        if (temps === undefined) throw new Error(this.reason);
+        this.publish(path, temps);
+      },
+      discard: () => built()?.forEach(remove),
+    };
+  }
+
+  /** Moves the two temporary files over the catalog's `PATH.idx` and `PATH.link`. */
+  private publish(path: string, [idxTemp, linkTemp]: [string, string]): void {
+    renameSync(idxTemp, snapshotPath(path));
+    renameSync(linkTemp, LexicalSnapshot.pathFor(path));
   }
 }

@@ -155,7 +155,10 @@ export function registerLoad(program: Command): void {
         if (!opts.quiet) process.stderr.write(summary(report, opts.db) + "\n");
         cat.close();
         cat = undefined;
-        if (report.prepared && !opts.quiet) process.stderr.write(`prepared the question indexes during the load (${(sink!.finishMs / 1000).toFixed(2)} s after the last row)\n`);
+        if (report.prepared && !opts.quiet) {
+          const where = sink!.threaded ? `in a second thread; the load waited ${(sink!.waitMs / 1000).toFixed(2)} s for it after its commit` : "after the last row";
+          process.stderr.write(`prepared the question indexes during the load (${(sink!.finishMs / 1000).toFixed(2)} s ${where})\n`);
+        }
         if (!report.prepared && opts.prepare !== false) prepare(opts.db, opts.quiet === true);
       } catch (e) {
         if (drawn) process.stderr.write("\r\x1b[K");
