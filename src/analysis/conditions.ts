@@ -498,7 +498,18 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
 
   // condition words are no relation cues; excluded mentions are no clues
   const usedText = new Set([...used].map((k) => ws[k]!.text));
-  const relationCues = analysis.relationCues.filter((c) => !c.words.every((w) => usedText.has(w)));
+  // a relation word inside an exclusion ("not *commanded* by X") says what to exclude: it
+  // makes no hop of the other clues' patterns (its other places, if any, still do)
+  const exclusions = conditions.filter((c) => c.kind === "exclusion");
+  const inExclusion = (start: number) => exclusions.some((c) => start >= c.start && start < c.end);
+  const relationCues = analysis.relationCues
+    .filter((c) => !c.words.every((w) => usedText.has(w)))
+    .flatMap((c) => {
+      const places = c.occurrences ?? [{ start: c.start, flip: c.flip }];
+      const kept = places.filter((p) => !inExclusion(p.start));
+      if (kept.length === places.length) return [c];
+      return kept.length === 0 ? [] : [{ ...c, start: kept[0]!.start, flip: kept[0]!.flip, occurrences: kept }];
+    });
   const clues = analysis.clues.filter((c) => !excluded.has(c.mention) && !numeric.has(c.mention));
   for (const mi of numeric) {
     const asValue = literal.mentions.has(mi);

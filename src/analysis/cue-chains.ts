@@ -33,7 +33,7 @@
  */
 import type { Analysis } from "./analyze.js";
 import type { RelationCue } from "./relation-cues.js";
-import { isFunctionWord } from "./words.js";
+import { isFunctionWord, words } from "./words.js";
 
 /** Options of {@link cueChains}; all optional. */
 export interface CueChainOptions {
@@ -169,7 +169,9 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
   });
   // a group member's steps are ordered from the group's span (the coordination inside it costs nothing)
   const groupDistance = (c: number, at: number) => (groupOf[c]!.length === 1 ? distance(c, at) : spanDistance(groupSpan[c]!, at, false));
-  const typeWords = analysis.typeWords ?? [];
+  // a type noun inside a relation phrase ("home *port*") names the relation, not a node between hops
+  const cueSpans = relationPhraseSpans(analysis);
+  const typeWords = (analysis.typeWords ?? []).filter((t) => !cueSpans.some((s) => t.start >= s.start && t.end <= s.end));
   return shared.map((steps, c) => {
     const ordered = [...steps.entries()].sort((a, b) => groupDistance(c, a[0]) - groupDistance(c, b[0]) || a[0] - b[0]);
     const chainSteps = ordered.map(([at, opts], i) => {
@@ -183,4 +185,24 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
     const g = groupOf[c]!;
     return g.length > 1 ? { clue: c, steps: chainSteps, conjuncts: [...g].sort((a, b) => a - b) } : { clue: c, steps: chainSteps };
   });
+}
+
+/**
+ * The character spans of each place of each relation cue: from the place's first word on, the
+ * following words that are words of the cue ("home port" of a cue with words home, port).
+ */
+function relationPhraseSpans(analysis: Pick<Analysis, "question" | "relationCues">): { start: number; end: number }[] {
+  const ws = words(analysis.question ?? "");
+  const out: { start: number; end: number }[] = [];
+  for (const cue of analysis.relationCues) {
+    const own = new Set(cue.words);
+    for (const p of cue.occurrences ?? [{ start: cue.start, flip: cue.flip }]) {
+      let k = ws.findIndex((w) => w.start === p.start);
+      if (k < 0) continue;
+      const start = ws[k]!.start;
+      while (k + 1 < ws.length && own.has(ws[k + 1]!.text)) k++;
+      out.push({ start, end: ws[k]!.end });
+    }
+  }
+  return out;
 }

@@ -107,7 +107,7 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
       headCue = head.cue;
     }
   }
-  if (model) chains = bridgeChains(chains, analysis, model, share);
+  if (model) chains = bridgeAnswer(bridgeChains(chains, analysis, model, share), analysis, model, share);
   const cueOf = (i: number) => (i < 0 ? undefined : (analysis.relationCues[i] ?? headCue));
   const nodes: QueryNode[] = [{ name: "?answer", kind: "answer", types: analysis.answerTypes.map((t) => t.num) }];
   const edges: QueryEdge[] = [];
@@ -251,6 +251,39 @@ function bridgeChains(chains: CueChain[], analysis: Analysis, model: QuestionMod
     if (bridges.length === 0 || bridges.length > MAX_BRIDGES) return ch;
     const mid = [...need].sort((a, b) => a - b);
     return { ...ch, steps: [{ at: first.at, options: bridges, types: mid }, { ...first, options: oriented }, ...ch.steps.slice(1)] };
+  });
+}
+
+/**
+ * A last hop the words did not name: when the far end of a chain's last hop (by the catalog's
+ * relation ends) holds none of the expected answer types ("In which *realm* is the home port
+ * of …": a home port is a port), the catalog's relations that join that end's types to the
+ * answer types make a last hop of their own (at most `MAX_BRIDGES`; none or more: no bridge):
+ * … —home port→ ?v (port) —located in→ ?answer (realm). The mirror of {@link bridgeChains}
+ * at the answer end; the relations come from the catalog's relation ends only.
+ */
+function bridgeAnswer(chains: CueChain[], analysis: Analysis, model: QuestionModel, share: number): CueChain[] {
+  if (!model.relationEnds || analysis.answerTypes.length === 0) return chains;
+  const ends = model.relationEnds();
+  const typesAt = (rel: number, object: boolean) => {
+    const total = Math.max(ends.edges(rel), 1);
+    return new Set(ends.types(rel, object).filter((e) => e.count / total >= share).map((e) => e.type));
+  };
+  const meets = (a: ReadonlySet<number>, b: ReadonlySet<number>) => [...a].some((x) => b.has(x));
+  const answerSet = new Set(analysis.answerTypes.flatMap((t) => model.typeByNum.get(t.num)?.descendants ?? [t.num]));
+  return chains.map((ch) => {
+    const last = ch.steps[ch.steps.length - 1];
+    if (!last || last.options.length === 0 || last.options.some((o) => o.cue < 0)) return ch;
+    const farTypes = new Set(last.options.flatMap((o) => [...typesAt(o.relation, !o.inverse)]));
+    if (farTypes.size === 0 || meets(farTypes, answerSet)) return ch;
+    const bridges: StepOption[] = [];
+    for (const r of model.relations) {
+      if (meets(typesAt(r.num, false), farTypes) && meets(typesAt(r.num, true), answerSet)) bridges.push({ relation: r.num, inverse: false, cue: -1 });
+      if (meets(typesAt(r.num, true), farTypes) && meets(typesAt(r.num, false), answerSet)) bridges.push({ relation: r.num, inverse: true, cue: -1 });
+    }
+    if (bridges.length === 0 || bridges.length > MAX_BRIDGES) return ch;
+    const mid = last.types.length > 0 ? last.types : [...farTypes].sort((a, b) => a - b);
+    return { ...ch, steps: [...ch.steps.slice(0, -1), { ...last, types: mid }, { at: last.at, options: bridges, types: [] }] };
   });
 }
 
