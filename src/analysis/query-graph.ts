@@ -203,6 +203,28 @@ function orientChains(chains: readonly CueChain[], analysis: Analysis, model: Qu
   });
 }
 
+/** True when the two type sets share a type. */
+const meets = (a: ReadonlySet<number>, b: ReadonlySet<number>) => [...a].some((x) => b.has(x));
+
+/** The types found at one end of a relation (on at least `share` of its edges), from the catalog's relation ends. */
+function endTypes(model: QuestionModel, share: number): (rel: number, object: boolean) => Set<number> {
+  const ends = model.relationEnds!();
+  return (rel, object) => {
+    const total = Math.max(ends.edges(rel), 1);
+    return new Set(ends.types(rel, object).filter((e) => e.count / total >= share).map((e) => e.type));
+  };
+}
+
+/** The catalog's relations that join types `from` to types `to`, each with the direction it is walked in (a bridging hop, cue -1). */
+function joining(model: QuestionModel, typesAt: (rel: number, object: boolean) => Set<number>, from: ReadonlySet<number>, to: ReadonlySet<number>): StepOption[] {
+  const out: StepOption[] = [];
+  for (const r of model.relations) {
+    if (meets(typesAt(r.num, false), from) && meets(typesAt(r.num, true), to)) out.push({ relation: r.num, inverse: false, cue: -1 });
+    if (meets(typesAt(r.num, true), from) && meets(typesAt(r.num, false), to)) out.push({ relation: r.num, inverse: true, cue: -1 });
+  }
+  return out;
+}
+
 /** Most bridging relations a hop may offer (more would make the hop say nothing). */
 const MAX_BRIDGES = 3;
 
@@ -217,12 +239,7 @@ const MAX_BRIDGES = 3;
  */
 function bridgeChains(chains: CueChain[], analysis: Analysis, model: QuestionModel, share: number): CueChain[] {
   if (!model.relationEnds || !model.typesOf) return chains;
-  const ends = model.relationEnds();
-  const typesAt = (rel: number, object: boolean) => {
-    const total = Math.max(ends.edges(rel), 1);
-    return new Set(ends.types(rel, object).filter((e) => e.count / total >= share).map((e) => e.type));
-  };
-  const meets = (a: ReadonlySet<number>, b: ReadonlySet<number>) => [...a].some((x) => b.has(x));
+  const typesAt = endTypes(model, share);
   const answerSet = new Set(analysis.answerTypes.flatMap((t) => model.typeByNum.get(t.num)?.descendants ?? [t.num]));
   return chains.map((ch) => {
     const clue = analysis.clues[ch.clue];
@@ -243,11 +260,7 @@ function bridgeChains(chains: CueChain[], analysis: Analysis, model: QuestionMod
       if (!farAtObject) for (const t of ob) need.add(t);
       oriented.push(farAtObject ? { ...o, inverse: false } : farAtSubject ? { ...o, inverse: true } : o);
     }
-    const bridges: StepOption[] = [];
-    for (const r of model.relations) {
-      if (meets(typesAt(r.num, false), clueTypes) && meets(typesAt(r.num, true), need)) bridges.push({ relation: r.num, inverse: false, cue: -1 });
-      if (meets(typesAt(r.num, true), clueTypes) && meets(typesAt(r.num, false), need)) bridges.push({ relation: r.num, inverse: true, cue: -1 });
-    }
+    const bridges = joining(model, typesAt, clueTypes, need);
     if (bridges.length === 0 || bridges.length > MAX_BRIDGES) return ch;
     const mid = [...need].sort((a, b) => a - b);
     return { ...ch, steps: [{ at: first.at, options: bridges, types: mid }, { ...first, options: oriented }, ...ch.steps.slice(1)] };
@@ -264,23 +277,14 @@ function bridgeChains(chains: CueChain[], analysis: Analysis, model: QuestionMod
  */
 function bridgeAnswer(chains: CueChain[], analysis: Analysis, model: QuestionModel, share: number): CueChain[] {
   if (!model.relationEnds || analysis.answerTypes.length === 0) return chains;
-  const ends = model.relationEnds();
-  const typesAt = (rel: number, object: boolean) => {
-    const total = Math.max(ends.edges(rel), 1);
-    return new Set(ends.types(rel, object).filter((e) => e.count / total >= share).map((e) => e.type));
-  };
-  const meets = (a: ReadonlySet<number>, b: ReadonlySet<number>) => [...a].some((x) => b.has(x));
+  const typesAt = endTypes(model, share);
   const answerSet = new Set(analysis.answerTypes.flatMap((t) => model.typeByNum.get(t.num)?.descendants ?? [t.num]));
   return chains.map((ch) => {
     const last = ch.steps[ch.steps.length - 1];
     if (!last || last.options.length === 0 || last.options.some((o) => o.cue < 0)) return ch;
     const farTypes = new Set(last.options.flatMap((o) => [...typesAt(o.relation, !o.inverse)]));
     if (farTypes.size === 0 || meets(farTypes, answerSet)) return ch;
-    const bridges: StepOption[] = [];
-    for (const r of model.relations) {
-      if (meets(typesAt(r.num, false), farTypes) && meets(typesAt(r.num, true), answerSet)) bridges.push({ relation: r.num, inverse: false, cue: -1 });
-      if (meets(typesAt(r.num, true), farTypes) && meets(typesAt(r.num, false), answerSet)) bridges.push({ relation: r.num, inverse: true, cue: -1 });
-    }
+    const bridges = joining(model, typesAt, farTypes, answerSet);
     if (bridges.length === 0 || bridges.length > MAX_BRIDGES) return ch;
     const mid = last.types.length > 0 ? last.types : [...farTypes].sort((a, b) => a - b);
     return { ...ch, steps: [...ch.steps.slice(0, -1), { ...last, types: mid }, { at: last.at, options: bridges, types: [] }] };
