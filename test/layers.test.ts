@@ -8,7 +8,7 @@ import { describe, expect, it } from "vitest";
 
 const SRC = resolve(__dirname, "../src");
 /** Pipeline order; tools (gen, bench, eval) come last and may use any stage. */
-const ORDER = ["model", "catalog", "linking", "analysis", "ranking", "explain", "pipeline", "present", "cli", "gen", "bench", "eval"];
+const ORDER = ["model", "catalog", "linking", "analysis", "ranking", "explain", "pipeline", "compose", "present", "cli", "gen", "bench", "eval"];
 
 function files(dir: string): string[] {
   return readdirSync(dir).flatMap((n) => {

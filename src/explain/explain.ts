@@ -16,7 +16,7 @@
 import type { Catalog } from "../catalog/index.js";
 import { normalize } from "../catalog/index.js";
 import type { Answer, AnswerPath, Deadline, EntityRef, Verdict } from "../model/index.js";
-import { RANK_DEFAULTS, TRANSITION_DEFAULTS, transition, type RelationIndex } from "../ranking/index.js";
+import { RANK_DEFAULTS, TRANSITION_DEFAULTS, salienceOf, transition, type RelationIndex } from "../ranking/index.js";
 import { clueRole, preferredByClue, type AblationEntry } from "./ablation.js";
 import { coverageTable, type CoverageCell, type CoverageTable } from "./coverage.js";
 import { PathCostModel } from "./path-cost.js";
@@ -96,6 +96,8 @@ class Names implements FactLookup {
   private readonly rels: Map<number, EntityRef & { readonly aliases: readonly string[] }>;
   private readonly counts: Map<string, number>;
   readonly used = new Map<string, string>();
+  /** Salience percentile per entity (set before suggestions are made; ranking's salienceOf). */
+  salience?: (num: number) => number;
 
   constructor(
     private readonly cat: Catalog,
@@ -372,6 +374,8 @@ export function explain<A extends ExplainAnalysis>(
       verdict.tiedWith.length > 0
         ? verdict.tiedWith.map((id) => idToNode.get(id)!).filter((x) => x !== undefined)
         : ranked.candidates.slice(1).filter((c, j) => j === 0 || c.score >= 0.5 * s1).map((c) => c.node);
+    const pct = salienceOf(index).percentile;
+    names.salience = (n) => pct[n] ?? 0;
     suggestions = suggestClues(index, names, analysis.question, shown[0]!.node, rivals, seedNodes, options.suggest);
   }
 

@@ -26,6 +26,8 @@ export { clueRole, preferredByClue, DEFAULTS as ABLATION_DEFAULTS } from "./abla
 export type { AblationEntry, AblationOptions, ClueRole } from "./ablation.js";
 export { whyNotFigures, whyNotReasons, DEFAULTS as WHY_NOT_DEFAULTS } from "./why-not.js";
 export type { WhyNot, WhyNotClue, WhyNotOptions, WhyNotSource } from "./why-not.js";
-export { suggestClues, appendClue, relationPhrase, factPhrase, DEFAULTS as SUGGEST_DEFAULTS } from "./suggest.js";
+export { suggestClues, appendClue, relationPhrase, factPhrase, attributePhrase, DEFAULTS as SUGGEST_DEFAULTS } from "./suggest.js";
+export { clueCost, givesAway, DIFFICULTIES, DEFAULTS as CLUE_COST_DEFAULTS } from "./clue-cost.js";
+export type { ClueCostOptions, ClueShape } from "./clue-cost.js";
 export type { SuggestedClue, SuggestOptions, FactTriple, FactLookup } from "./suggest.js";
 export { conditionDocs, conditionExplanation, conditionSteps, countDoc, formatValue } from "./conditions.js";

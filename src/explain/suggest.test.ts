@@ -52,7 +52,7 @@ describe("suggestClues", () => {
     expect(s.map((x) => [x.text, x.rulesOut])).toEqual([
       ["that Node 7 leads", ["e2", "e3"]],
       ["that is moored at Node 5", ["e3"]],
-      ["that has built 1994", ["e3"]],
+      ["that has a built of 1994", ["e3"]],
     ]);
     expect(s[0]!.triple).toEqual({ subject: "e7", predicate: "r1", object: "e1", literal: false });
     expect(s[0]!.question).toBe("Which vessel is it that Node 7 leads?");

@@ -7,8 +7,10 @@
  * relation edge at the answer (relation + direction + neighbour) or a literal attribute
  * (attribute + value). Facts are ordered by how many rivals they rule out (most first), then
  * relation facts before attribute facts (the ranking walks relations, so a relation clue
- * is the one the pipeline can use), then neighbours whose label names one entity only (so
- * linking picks the right one), then rarer neighbours (lower degree), then by text.
+ * is the one the pipeline can use), then by clue cost (clue-cost.ts, the compose stage's
+ * pricing: well-known neighbours by their salience percentile, short names, a label that
+ * names one entity only, so linking picks the right one), then by text. A neighbour whose
+ * label contains the answer's label is never used (it would give the answer away).
  *
  * The phrasing uses the neighbour's label and the relation's label (or, against the stored
  * direction, a passive alias such as "led by" when the relation has one), so linking finds
@@ -16,7 +18,8 @@
  * the stored fact `answer mooredAt Harrowgate`, `…whose home port is Tolvane` for a
  * noun-phrase relation, `…that is led by Ada Quell` or `…that Ada Quell leads` for `Ada
  * Quell leads answer`, `…whose captain is Ada Quell` for `Ada Quell captainOf answer`,
- * `…that has birth year 1971` for an attribute. The word-shape rules (a final preposition,
+ * `…that has a birth year of 1971` for a numeric attribute (read back as an equality
+ * condition), `…whose code is XQ` for another. The word-shape rules (a final preposition,
  * a verb ending in -s or -ed, a final "by" or "of") are common practice of English grammar
  * and use nothing but the catalog's own labels.
  *
@@ -26,6 +29,7 @@
  * 1995 (the incremental algorithm's discriminatory power; from memory).
  */
 import type { EntityRef } from "../model/index.js";
+import { clueCost, givesAway, type ClueCostOptions } from "./clue-cost.js";
 import type { WalkGraph } from "./types.js";
 
 /** Options of {@link suggestClues}; all optional. */
@@ -36,6 +40,8 @@ export interface SuggestOptions {
   readonly maxRivals?: number;
   /** Neighbours of larger degree are skipped (a hub says little). @default 5000 */
   readonly hubLimit?: number;
+  /** How clues are priced (clue-cost.ts), e.g. `difficulty`. */
+  readonly cost?: ClueCostOptions;
 }
 
 /** The defaults of {@link SuggestOptions}. */
@@ -73,6 +79,8 @@ export interface FactLookup {
   attributes(num: number): readonly { readonly predicate: string; readonly label: string; readonly value: string }[];
   /** How many catalog entities share this label (1 = unambiguous). */
   labelCount(label: string): number;
+  /** Salience percentile of an entity in [0, 1] (ranking's salienceOf); without it every neighbour counts as middling. */
+  salience?(num: number): number;
 }
 
 const AUX = new Set(["is", "was", "are", "were", "has", "had", "have", "does", "did"]);
@@ -121,6 +129,11 @@ export function factPhrase(label: string, aliases: readonly string[], neighbour:
   return `that ${neighbour} ${label}`;
 }
 
+/** A clue stating an attribute value: numbers as `that has a LABEL of VALUE` (the condition reader's equality), other values `whose LABEL is VALUE`. */
+export function attributePhrase(label: string, value: string): string {
+  return /^-?\d+(\.\d+)?$/.test(value.trim()) ? `that has ${/^[aeiou]/i.test(label) ? "an" : "a"} ${label} of ${value.trim()}` : `whose ${label} is ${value}`;
+}
+
 /** Appends a clue to a question: "Which vessel…?" + "that is moored at X" → "Which vessel… that is moored at X?". */
 export function appendClue(question: string, clue: string): string {
   const q = question.trim();
@@ -133,8 +146,8 @@ interface Fact {
   readonly kind: "relation" | "attribute";
   readonly text: string;
   readonly triple: FactTriple;
-  readonly unambiguous: boolean;
-  readonly degree: number;
+  /** clue-cost.ts price (salience, name length, ambiguity). */
+  readonly cost: number;
 }
 
 /**
@@ -154,6 +167,7 @@ export function suggestClues(
   const rs = rivals.filter((r) => r !== answer).slice(0, o.maxRivals);
   if (rs.length === 0) return [];
   const aRef = lookup.ref(answer);
+  const answerNames = [aRef.label];
   const relKey = (rel: number, inverse: boolean, v: number) => `${rel}:${inverse ? 1 : 0}:${v}`;
   const factsOf = (u: number): Set<string> => {
     const s = new Set<string>();
@@ -167,12 +181,15 @@ export function suggestClues(
     const key = relKey(rel, inverse, v);
     if (facts.has(key)) return;
     const n = lookup.ref(v);
+    if (givesAway(n.label, answerNames)) return;
     const r = lookup.relation(rel);
     const text = factPhrase(r.label, lookup.relationAliases?.(rel) ?? [], n.label, inverse);
     const triple = inverse
       ? { subject: n.id, predicate: r.id, object: aRef.id, literal: false }
       : { subject: aRef.id, predicate: r.id, object: n.id, literal: false };
-    facts.set(key, { key, kind: "relation", text, triple, unambiguous: lookup.labelCount(n.label) <= 1, degree: graph.degree(v) });
+    const salience = lookup.salience?.(v);
+    const cost = clueCost({ ...(salience !== undefined ? { salience } : {}), hops: 1, label: n.label, ambiguous: lookup.labelCount(n.label) > 1 }, o.cost);
+    facts.set(key, { key, kind: "relation", text, triple, cost });
   });
   for (const a of lookup.attributes(answer)) {
     const key = `@${a.predicate}\u0000${a.value}`;
@@ -180,10 +197,9 @@ export function suggestClues(
     facts.set(key, {
       key,
       kind: "attribute",
-      text: `that has ${a.label} ${a.value}`,
+      text: attributePhrase(a.label, a.value),
       triple: { subject: aRef.id, predicate: a.predicate, object: a.value, literal: true },
-      unambiguous: true,
-      degree: 0,
+      cost: clueCost({ hops: 1, label: `${a.label} ${a.value}` }, o.cost),
     });
   }
   const rivalFacts = rs.map((r) => ({ id: lookup.ref(r).id, facts: factsOf(r) }));
@@ -194,8 +210,7 @@ export function suggestClues(
     (a, b) =>
       b.out.length - a.out.length ||
       (a.f.kind === b.f.kind ? 0 : a.f.kind === "relation" ? -1 : 1) ||
-      (a.f.unambiguous === b.f.unambiguous ? 0 : a.f.unambiguous ? -1 : 1) ||
-      a.f.degree - b.f.degree ||
+      a.f.cost - b.f.cost ||
       (a.f.text < b.f.text ? -1 : a.f.text > b.f.text ? 1 : 0),
   );
   return scored.slice(0, o.max).map(({ f, out }) => ({

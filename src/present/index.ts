@@ -24,3 +24,4 @@ export { progressLine, PROGRESS_DEFAULTS } from "./report-progress.js";
 export type { ProgressOptions } from "./report-progress.js";
 export { renderExplanationText, renderCoverageText, renderAblationText, renderSuggestionsText, renderWhyNotText, pathChain, EXPLAIN_TEXT_DEFAULTS } from "./explain-text.js";
 export type { ExplainTextOptions } from "./explain-text.js";
+export { renderCompositionText, renderProposalText, compositionDoc, compositionJson, renderComposeTsv } from "./compose-text.js";

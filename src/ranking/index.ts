@@ -29,3 +29,5 @@ export { chainReach, DEFAULTS as CHAIN_REACH_DEFAULTS } from "./chain-reach.js";
 export type { ChainHop, ChainReachOptions } from "./chain-reach.js";
 export { applyConditions, satisfies, DEFAULTS as CONDITIONS_DEFAULTS } from "./conditions.js";
 export type { ApplyConditionsOptions, AttributeLookup, ConditionCheck, AppliedCondition, ConditionOutcome } from "./conditions.js";
+export { salienceOf, DEFAULTS as SALIENCE_DEFAULTS } from "./salience.js";
+export type { Salience, SalienceOptions } from "./salience.js";

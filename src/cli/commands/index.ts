@@ -8,6 +8,7 @@ import { registerStats } from "./stats.js";
 import { registerAsk } from "./ask.js";
 import { registerCheck } from "./check.js";
 import { registerTui } from "./tui.js";
+import { registerCompose } from "./compose.js";
 
 /** Adds all commands to the program. */
 export function registerCommands(program: Command): void {
@@ -16,5 +17,6 @@ export function registerCommands(program: Command): void {
   registerStats(program);
   registerAsk(program);
   registerCheck(program);
+  registerCompose(program);
   registerTui(program);
 }

@@ -7,7 +7,8 @@
  */
 import type { Command } from "commander";
 import { distance } from "fastest-levenshtein";
-import { Catalog, demoCatalogPath, normalize, typeMembers } from "../../catalog/index.js";
+import { Catalog, demoCatalogPath, typeMembers } from "../../catalog/index.js";
+import { resolveTarget } from "../../compose/index.js";
 import type { EntityInfo, NeighbourInfo } from "../../catalog/index.js";
 import { Linker, linkQuestion } from "../../linking/index.js";
 import { TiepointError } from "../../model/index.js";
@@ -94,17 +95,8 @@ export function catalogPath(db: string | undefined): string {
   return db ?? demoCatalogPath();
 }
 
-/** Finds the entity nums a name refers to: by id, by exact label, then by normalised label or alias. */
-export function resolveEntity(cat: Catalog, name: string): number[] {
-  const exact = cat.byLabelOrId(name);
-  if (exact.length > 0) return exact;
-  const norm = normalize(name);
-  if (norm === "") return [];
-  const hits = cat.byNorm(norm);
-  const labels = [...new Set(hits.filter((h) => h.kind === 0).map((h) => h.entity))];
-  if (labels.length > 0) return labels.sort((a, b) => a - b);
-  return [...new Set(hits.map((h) => h.entity))].sort((a, b) => a - b);
-}
+/** Finds the entity nums a name refers to: by id, by exact label, then by normalised label or alias (the compose stage's lookup). */
+export const resolveEntity: (cat: Catalog, name: string) => number[] = resolveTarget;
 
 function describe(cat: Catalog, num: number): string {
   const r = cat.ref(num);
