@@ -31,8 +31,8 @@ import { DIFFICULTIES, givesAway, type ClueCostOptions } from "../explain/index.
 import { TiepointError, type EntityRef, type VerdictStatus } from "../model/index.js";
 import type { Session } from "../pipeline/index.js";
 import { salienceOf } from "../ranking/index.js";
-import { cheapestSets, type ClueSet, type SearchOptions, type SearchSpace } from "./cost-search.js";
-import { candidateFacts, extensionOf, intersectSorted, type Fact, type FactOptions, type FactSource } from "./facts.js";
+import { cheapestSets, type ClueSet, type SearchOptions } from "./cost-search.js";
+import { candidateFacts, extensionOf, intersectSorted, type Fact, type FactOptions, type FactSource, type SearchSpace } from "./facts.js";
 import { greedySet } from "./greedy.js";
 import { clauseOf, questionOf, spokenOrder, type Clause } from "./wording.js";
 

@@ -16,7 +16,7 @@
  * cost order; they show Dale & Reiter's incremental algorithm is the special case that never
  * backtracks.
  */
-import { intersectSorted } from "./facts.js";
+import { intersectSorted, type SearchSpace } from "./facts.js";
 import { incrementalSet } from "./incremental.js";
 
 /** Defaults of {@link cheapestSets}. */
@@ -34,16 +34,6 @@ export interface SearchOptions {
   readonly k?: number;
   readonly maxClues?: number;
   readonly maxNodes?: number;
-}
-
-/** The search's view of the facts: costs (ascending) and extensions. */
-export interface SearchSpace {
-  /** Fact costs, ascending. */
-  readonly costs: readonly number[];
-  /** The extension of fact i, cut to the type, ascending (the target among them). */
-  ext(i: number): Int32Array;
-  /** Entities before any fact (the type's members). */
-  readonly start: number;
 }
 
 /** A distinguishing set: fact indexes in the order they were added, and its total cost. */

@@ -257,3 +257,13 @@ export function intersectSorted(a: Int32Array, b: Int32Array): Int32Array {
   }
   return out.subarray(0, n);
 }
+
+/** The search's view of the facts: costs (ascending) and extensions. */
+export interface SearchSpace {
+  /** Fact costs, ascending. */
+  readonly costs: readonly number[];
+  /** The extension of fact i, cut to the type, ascending (the target among them). */
+  ext(i: number): Int32Array;
+  /** Entities before any fact (the type's members). */
+  readonly start: number;
+}

@@ -9,8 +9,7 @@
  * [Reference] Dale, "Cooking up referring expressions", ACL 1989 (the greedy heuristic for the
  * full-brevity problem); discussed as such by Dale & Reiter 1995, §3.
  */
-import type { SearchSpace } from "./cost-search.js";
-import { intersectSorted } from "./facts.js";
+import { intersectSorted, type SearchSpace } from "./facts.js";
 
 /** The greedy set of fact indexes (in the order added), or undefined when the target cannot be singled out. `banned` facts are skipped. */
 export function greedySet(space: SearchSpace, banned: ReadonlySet<number> = new Set(), maxClues = Infinity): number[] | undefined {

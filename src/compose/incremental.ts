@@ -11,8 +11,7 @@
  * generation of referring expressions", Cognitive Science 19(2), 1995, §4 (the incremental
  * algorithm; the head noun — our type — is always included, as their algorithm adds the type).
  */
-import type { SearchSpace } from "./cost-search.js";
-import { intersectSorted } from "./facts.js";
+import { intersectSorted, type SearchSpace } from "./facts.js";
 
 /** The incremental algorithm's set of fact indexes (in the order added), or undefined. */
 export function incrementalSet(space: SearchSpace, maxClues = Infinity): number[] | undefined {

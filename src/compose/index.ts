@@ -6,9 +6,9 @@
 export { Composer, resolveTarget, parseDifficulty, DEFAULTS as COMPOSE_DEFAULTS } from "./compose.js";
 export type { ComposeOptions, Composition, Proposal, ComposedClue, ComposeStep, ComposeTimings } from "./compose.js";
 export { candidateFacts, extensionOf, intersectSorted, DEFAULTS as FACT_DEFAULTS } from "./facts.js";
-export type { Fact, FactOptions, FactSource } from "./facts.js";
+export type { Fact, FactOptions, FactSource, SearchSpace } from "./facts.js";
 export { cheapestSets, isMinimal, DEFAULTS as SEARCH_DEFAULTS } from "./cost-search.js";
-export type { ClueSet, SearchOptions, SearchSpace } from "./cost-search.js";
+export type { ClueSet, SearchOptions } from "./cost-search.js";
 export { incrementalSet } from "./incremental.js";
 export { greedySet } from "./greedy.js";
 export { clauseOf, questionOf, spokenOrder } from "./wording.js";
