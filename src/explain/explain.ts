@@ -252,17 +252,19 @@ export function explain<A extends ExplainAnalysis>(
   const n = Math.min(ranked.candidates.length, Math.max(top, rows));
   const shown = ranked.candidates.slice(0, n);
   const deadline = options.deadline;
-  const pathSet = findPaths(index, cost, clueSeeds, shown.map((c) => c.node), options.paths, deadline);
+  // the lead path per clue follows the reading's pattern the ranking matched (paths.ts)
+  const pathSet = findPaths(index, cost, clueSeeds, shown.map((c) => c.node), { ...options.paths, ...(ranked.patterns ? { patterns: ranked.patterns } : {}) }, deadline);
   const byNode = new Map(pathSet.answers.map((a) => [a.answer, a]));
 
   const answers: Answer[] = shown.slice(0, top).map((c, i) => {
     const ref = names.ref(c.node);
     const ap = pathSet.answers[i]!;
-    const best = ap.byClue.flatMap((ps) => (ps[0] ? [toAnswerPath(ps[0], names)] : []));
-    const alts = ap.byClue.flatMap((ps) => ps.slice(1).map((p) => toAnswerPath(p, names)));
+    const best = ap.shown.flatMap((ps) => (ps[0] ? [toAnswerPath(ps[0], names)] : []));
+    const alts = ap.shown.flatMap((ps) => ps.slice(1).map((p) => toAnswerPath(p, names)));
     return { id: ref.id, label: ref.label, score: c.score, types: index.typesOf(c.node).map((t) => names.ref(t).id), paths: [...best, ...alts] };
   });
-  const coverage = coverageTable(clueRefs, pathSet.answers.slice(0, rows), (x) => names.ref(x), (r) => names.relation(r), maxHops);
+  // the table shows the paths as the answers do (the reading's lead path first)
+  const coverage = coverageTable(clueRefs, pathSet.answers.slice(0, rows).map((a) => ({ ...a, byClue: a.shown })), (x) => names.ref(x), (r) => names.relation(r), maxHops);
 
   const reachedOf = (node: number, skip = -1): boolean[] | undefined => {
     const ap = byNode.get(node);

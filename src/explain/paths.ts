@@ -8,6 +8,12 @@
  * the same subgraph), and, when the subgraph holds no path, a fewest-hops path on the full
  * index (bounded bidirectional BFS). A path longer than `maxHops` counts as not reached.
  *
+ * When the ranking matched the question's reading for a clue (ranking `Ranked.patterns`), the
+ * path along that pattern to each answer (pattern-path.ts: the cheapest walk taking the
+ * reading's relations hop by hop, in their directions, through entities of the hops' types) is
+ * the clue's *lead* path, shown before the others: the explanation follows the structure the
+ * question was read as. The cheapest path stays the walk's evidence (the verdict reads it).
+ *
  * A clue may restart the walk at several seeds (its linked entity and, when the link is
  * unsure, its alternatives, as the ranking does). Each clue gets a virtual source node with
  * one edge to each seed costing −ln(seed share), so Dijkstra and Yen pick the seed and the
@@ -23,7 +29,8 @@ import { bidirectionalBfs, type NumStep } from "./bidirectional-bfs.js";
 import { arcsTo, dijkstra, type ShortestPathTree } from "./dijkstra.js";
 import { evidenceSubgraph, type EvidenceSubgraph } from "./evidence-graph.js";
 import type { PathCostModel } from "./path-cost.js";
-import type { WalkGraph } from "./types.js";
+import { patternWalks, relaxations, type PatternWalks } from "./pattern-path.js";
+import type { ExplainPattern, WalkGraph } from "./types.js";
 import { yenOnArcs } from "./yen.js";
 
 /** Options of {@link findPaths}; all optional. */
@@ -48,6 +55,14 @@ export interface PathOptions {
   readonly maxNodes?: number;
   /** Adjacency entries one fallback search (full index) may scan. @default 100000 */
   readonly fallbackWork?: number;
+  /**
+   * Per clue: the reading's relation-path pattern the ranking matched (ranking
+   * `Ranked.patterns`); the path along it, when one reaches the answer, leads the clue's
+   * paths. @default none
+   */
+  readonly patterns?: readonly (ExplainPattern | undefined)[];
+  /** Adjacency entries the layers of one pattern may scan (pattern-path.ts). @default 200000 */
+  readonly patternWork?: number;
 }
 
 /** The defaults of {@link PathOptions}. */
@@ -62,6 +77,7 @@ export const DEFAULTS = {
   workBudget: 10000,
   maxNodes: 400,
   fallbackWork: 100000,
+  patternWork: 200000,
 } as const;
 
 /** A restart node of a clue and its weight (shares are normalised per clue). */
@@ -80,14 +96,20 @@ export interface NumPath {
   readonly steps: readonly NumStep[];
   /** Sum of step costs (−ln of the walk's probability mass along the path). */
   readonly cost: number;
-  /** Where it was found: the evidence subgraph or the full-index fallback. */
-  readonly via: "evidence" | "fallback";
+  /** Where it was found: the evidence subgraph, the full-index fallback, or along the reading's pattern. */
+  readonly via: "evidence" | "fallback" | "reading";
 }
 
 /** Paths of one answer: per clue, best first (empty when not reached within maxHops). */
 export interface AnswerPaths {
   readonly answer: number;
+  /** Per clue: the cheapest path first (the walk's evidence), then the alternatives. */
   readonly byClue: readonly (readonly NumPath[])[];
+  /**
+   * Per clue: the paths as shown — the lead path along the reading's pattern first (when the
+   * clue has one to this answer), then `byClue`'s others, at most `alternatives` + 1.
+   */
+  readonly shown: readonly (readonly NumPath[])[];
 }
 
 const sum = (steps: readonly NumStep[]): number => steps.reduce((s, x) => s + x.cost, 0);
@@ -137,9 +159,26 @@ export function findPaths(
     }));
     return { clue: ci, start, answer: a, steps, cost: sum(steps) + offset, via: "evidence" };
   };
+  // per clue, the layers of its pattern and of each relaxation, built when first asked
+  const walks: (PatternWalks | null)[][] = clues.map(() => []);
+  const leadOf = (ci: number, a: number): NumPath | undefined => {
+    const pattern = o.patterns?.[ci];
+    const start = clues[ci]![0]?.node;
+    if (!pattern || start === undefined) return undefined;
+    const total = clues[ci]!.reduce((x, s) => x + s.weight, 0);
+    const share = (clues[ci]!.find((s) => s.node === start)?.weight ?? 0) / (total > 0 ? total : 1);
+    const tries = relaxations(pattern);
+    for (let r = 0; r < tries.length; r++) {
+      if (walks[ci]![r] === undefined) walks[ci]![r] = patternWalks(graph, cost, start, tries[r]!, { maxVisits: o.patternWork });
+      const steps = walks[ci]![r]?.path(a);
+      if (steps) return { clue: ci, start, answer: a, steps, cost: sum(steps) - Math.log(share > 0 ? share : 1), via: "reading" };
+    }
+    return undefined;
+  };
+  const same = (p: NumPath, q: NumPath) => p.start === q.start && p.steps.length === q.steps.length && p.steps.every((s, i) => s.to === q.steps[i]!.to && s.rel === q.steps[i]!.rel && s.inverse === q.steps[i]!.inverse);
   const out: AnswerPaths[] = answers.map((a, ai) => {
     // the time budget: the best answer always gets its paths, later ones none once it is spent
-    if (ai > 0 && deadline?.stop("paths")) return { answer: a, byClue: clues.map(() => []) };
+    if (ai > 0 && deadline?.stop("paths")) return { answer: a, byClue: clues.map(() => []), shown: clues.map(() => []) };
     const target = ev.localOf(a);
     const byClue = clues.map((seeds, ci): NumPath[] => {
       if (seeds.some((s) => s.node === a)) return [];
@@ -171,7 +210,11 @@ export function findPaths(
       const bestHops = paths[0]?.steps.length ?? 0;
       return paths.filter((p, i) => p.steps.length <= o.maxHops && (i === 0 || p.steps.length <= bestHops + o.alternativeSlack));
     });
-    return { answer: a, byClue };
+    const shown = byClue.map((paths, ci) => {
+      const lead = clues[ci]!.some((s) => s.node === a) ? undefined : leadOf(ci, a);
+      return lead ? [lead, ...paths.filter((p) => !same(p, lead))].slice(0, o.alternatives + 1) : paths;
+    });
+    return { answer: a, byClue, shown };
   });
   return { answers: out, evidence: ev, maxHops: o.maxHops };
 }

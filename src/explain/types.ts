@@ -40,10 +40,22 @@ export interface ExplainCandidate {
   readonly chainFit?: number;
 }
 
+/** The relation-path pattern the ranking matched for one clue (ranking's `RankedPattern`). */
+export interface ExplainPattern {
+  /** Per hop: the allowed relations, each with its direction (true: against the stored triple); empty: any relation. */
+  readonly hops: readonly (readonly { readonly relation: number; readonly inverse: boolean }[])[];
+  /** Per hop: the types the node it reaches must have (empty: any); the last hop reaches the answer, whose types are not checked. */
+  readonly types: readonly (readonly number[])[];
+  /** False when the hops' directions were not required. */
+  readonly directed: boolean;
+}
+
 /** Ranking's output (`Ranked`): clues and candidates, best first. */
 export interface ExplainRanked {
   readonly clues: readonly ExplainClue[];
   readonly candidates: readonly ExplainCandidate[];
+  /** Per clue (same order as `clues`): the relation-path pattern of the reading that the ranking matched; undefined where none was. */
+  readonly patterns?: readonly (ExplainPattern | undefined)[];
   /** Clues (indexes into `clues`) whose relation-path pattern was checked and misses `node`; absent when none was checked. */
   readonly chainMissOf?: (node: number) => readonly number[];
 }

@@ -20,7 +20,7 @@ export type { PushOptions, PushResult } from "./ppr-push.js";
 export { pprFast, DEFAULTS as FAST_DEFAULTS } from "./ppr-fast.js";
 export type { FastOptions, FastScores, FastStats } from "./ppr-fast.js";
 export { rank, relationWeightsOf, clueSeeds, DEFAULTS as RANK_DEFAULTS } from "./rank.js";
-export type { Ranked, RankedCandidate, RankOptions } from "./rank.js";
+export type { Ranked, RankedCandidate, RankedPattern, RankOptions, RankReading } from "./rank.js";
 export { combineClueScores, DEFAULTS as COMBINE_DEFAULTS } from "./combine.js";
 export type { Combined, CombineOptions } from "./combine.js";
 export { cueReach, MAX_CUES, DEFAULTS as CUE_PATH_DEFAULTS } from "./cue-paths.js";

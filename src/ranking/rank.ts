@@ -45,7 +45,7 @@
  * after score.
  */
 import type { Analysis, Clue, CueChain, QueryGraph } from "../analysis/index.js";
-import { chainReach, type ChainReachOptions } from "./chain-reach.js";
+import { chainReach, type ChainHop, type ChainReachOptions } from "./chain-reach.js";
 import { combineClueScores, DEFAULTS as COMBINE_DEFAULTS, type CombineOptions } from "./combine.js";
 import type { Seed, SparseScores } from "./ppr-options.js";
 import { pprFast, type FastOptions } from "./ppr-fast.js";
@@ -194,7 +194,27 @@ export interface Ranked {
   readonly fallback?: boolean;
   /** Clues the reading does not constrain by a relation word (their neighbours may order the answers, never decide the verdict); absent when no pattern was checked. */
   readonly open?: number;
+  /**
+   * Per clue (same order as `clues`): the reading's relation-path pattern as it was matched
+   * (with or without its intermediate types and directions), a one-hop pattern of any
+   * relation for a clue constrained to its neighbours; undefined for a clue whose pattern was
+   * not checked or reaches no candidate. Absent when no pattern was checked.
+   */
+  readonly patterns?: readonly (RankedPattern | undefined)[];
 }
+
+/** A clue's relation-path pattern as the ranking matched it (explain's first path walks it). */
+export interface RankedPattern {
+  /** Per hop: the allowed relations, each with its direction; empty: any relation. */
+  readonly hops: readonly ChainHop[];
+  /** Per hop: the types the node it reaches must have (empty: any); the last hop reaches the answer. */
+  readonly types: readonly (readonly number[])[];
+  /** False when the hops' directions were not required. */
+  readonly directed: boolean;
+}
+
+/** The pattern of a clue constrained to its neighbours: one hop of any relation. */
+const ANY_HOP: RankedPattern = { hops: [[]], types: [[]], directed: false };
 
 /** The per-question relation weights: 1 everywhere, the cue weight on cued relations. */
 export function relationWeightsOf(analysis: Analysis, index: RelationIndex): Float64Array {
@@ -370,6 +390,8 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   // neighbour (else it says nothing about this catalog) and the clue has at most `anyMaxDegree` edges
   const eligibleSet = new Set(eligible.map((slot) => poolNodes[slot]!));
   const adjacency: Set<number>[] = [];
+  // per clue: the pattern the structure was matched with (explain walks it for the first path)
+  const patterns: (RankedPattern | undefined)[] = clues.map((_, c) => chainCheck?.patterns[c]);
   let open = 0;
   chains.forEach((ch, c) => {
     const node = clues[c]!.node;
@@ -380,7 +402,10 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     }
     const adj = new Set<number>();
     index.forEach(node, (v) => adj.add(v));
-    if ([...adj].some((v) => eligibleSet.has(v))) adjacency.push(adj);
+    if ([...adj].some((v) => eligibleSet.has(v))) {
+      adjacency.push(adj);
+      patterns[c] = ANY_HOP;
+    }
     // a neighbour constraint orders the answers but does not decide the verdict: the
     // question may mean a longer path its words did not name ("the town of the lab of X")
     open++;
@@ -392,7 +417,18 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   const matched = (chainCheck?.ignored ?? 0) > 0 ? [] : candidates.filter(fits);
   const ordered = matched.length > 0 ? [...matched, ...candidates.filter((c) => !fits(c))] : candidates;
   if (matched.length === 0) notes.push("no entity satisfies the whole reading of the question: the answers are ranked by PageRank alone and fit only part of it");
-  return { clues, candidates: ordered.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes, ...(chainCheck ? { chainMissOf: chainCheck.misses } : {}), matched: matched.length, fallback: matched.length === 0, open };
+  return {
+    clues,
+    candidates: ordered.slice(0, options.limit ?? DEFAULTS.limit),
+    typeFiltered,
+    relationWeights: rho,
+    notes,
+    ...(chainCheck ? { chainMissOf: chainCheck.misses } : {}),
+    matched: matched.length,
+    fallback: matched.length === 0,
+    open,
+    patterns,
+  };
 }
 
 /** One clue's query-time personalized PageRank (push + random walks, ppr-fast.ts). */
@@ -529,13 +565,14 @@ function chainFitOf(
   index: RelationIndex,
   eligible: ReadonlySet<number>,
   options: RankOptions,
-): { fit: (v: number) => number; misses: (v: number) => number[]; ignored: number } | undefined {
+): { fit: (v: number) => number; misses: (v: number) => number[]; ignored: number; patterns: readonly (RankedPattern | undefined)[] } | undefined {
   const miss = options.chainMiss ?? DEFAULTS.chainMiss;
   const loose = options.chainLoose ?? DEFAULTS.chainLoose;
   const maxSteps = options.chainMaxSteps ?? DEFAULTS.chainMaxSteps;
   if (miss >= 1) return undefined;
   const hits = (set: Set<number> | null) => set !== null && [...set].some((v) => eligible.has(v));
   const checks: { exact: Set<number>; loose: Set<number> | null; weight: number; group: number; clue: number }[] = [];
+  const patterns: (RankedPattern | undefined)[] = [];
   // coordinated clues ("both A and B") share one pattern that must hold from each: one group
   // (named by its first clue present here), whose factor is its members' minimum
   const present = new Set(chains.map((ch) => ch.clue));
@@ -559,13 +596,15 @@ function chainFitOf(
     const typedExact = typed ? chainReach(index, clue.node, hops, { ...base, directed: true, keep }) : null;
     const exact = chainReach(index, clue.node, hops, { ...base, directed: true });
     const undirected = chainReach(index, clue.node, hops, { ...base, directed: false });
+    const pattern = (withTypes: boolean, directed: boolean): RankedPattern => ({ hops, types: ch.steps.map((st, h) => (withTypes && typeSets[h] ? st.types : [])), directed });
     if (hits(typedExact)) checks.push({ exact: typedExact!, loose: exact, weight: weights[c]!, group, clue: c });
     else if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]!, group, clue: c });
     else if (hits(undirected)) checks.push({ exact: undirected!, loose: null, weight: weights[c]!, group, clue: c });
+    if (checks[checks.length - 1]?.clue === c) patterns[c] = pattern(hits(typedExact), hits(typedExact) || hits(exact));
     else if (group >= 0) empty.push({ group, clue: c });
     else ignored++;
   });
-  if (checks.length === 0) return ignored > 0 ? { fit: () => 1, misses: () => [], ignored } : undefined;
+  if (checks.length === 0) return ignored > 0 ? { fit: () => 1, misses: () => [], ignored, patterns } : undefined;
   const total = checks.reduce((a, ch) => a + ch.weight, 0);
   // a coordinated clue whose shared pattern reaches no candidate at all, while another
   // member's does ("borders A, B and C" with C's only neighbours among the clues): it
@@ -586,5 +625,5 @@ function chainFitOf(
     }
     return Math.exp(log);
   };
-  return { fit, misses, ignored };
+  return { fit, misses, ignored, patterns };
 }
