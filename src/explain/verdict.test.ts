@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { decideVerdict, type VerdictCandidate } from "./verdict.js";
+import { decideVerdict, type SenseDoubt, type VerdictCandidate, type VerdictContext } from "./verdict.js";
 
 const c = (node: number, score: number, reached = [true, true], covered = 2): VerdictCandidate => ({ node, id: `e${node}`, label: `E${node}`, score, reached, covered });
 const clues = ["A", "B"];
@@ -68,3 +68,55 @@ describe("decideVerdict (rules of the file header; scores hand-chosen)", () => {
     expect(v.reason).toMatch(/E2 fits "B" more directly than E1 \(1 hop against 3\)/);
   });
 });
+
+// The context rules (file header rules 1–5), on hand-made readings, link facts and conditions.
+describe("decideVerdict with the question's reading and link facts", () => {
+  const ref = (n: number) => ({ id: `e${n}`, label: `E${n}` });
+  // two clues, each held by a one-hop pattern (only the chain lengths are read)
+  const graph = { chains: [{ clue: 0, steps: [{}] }, { clue: 1, steps: [{}] }], plural: false } as unknown as NonNullable<VerdictContext["reading"]>["graph"];
+  const reading = (matched: number[], fallback = false) => ({ graph, matched: new Set(matched), fallback, open: 0 });
+  const mention = { text: "Nim", start: 0, end: 3, entity: { id: "s1", label: "Nim" }, confidence: 0.5 };
+  const doubt = (next: number, answers: SenseDoubt["answers"], modified = false): SenseDoubt => ({ mention: { ...mention, next: { id: "s2", label: "Nim", confidence: next } }, answers, modified });
+  const input = (context: VerdictContext, cands = [c(1, 1), c(2, 0.2)]) => ({ clues, candidates: cands, equivalent: new Set<number>(), maxHops: 6, context });
+
+  it("several entities satisfying the reading are tied, whatever the scores say (0.2 of the best)", () => {
+    const v = decideVerdict(input({ ref, reading: reading([1, 2]) }));
+    expect(v.status).toBe("tied");
+    expect(v.tiedWith).toEqual(["e2"]);
+  });
+  it("one entity satisfying the reading is unique: a rival off the reading does not tie with it (0.95 of the best)", () => {
+    const v = decideVerdict(input({ ref, reading: reading([1]) }, [c(1, 1), c(2, 0.95)]));
+    expect(v.status).toBe("unique");
+    // without a matching reading the score rules decide: tied at 0.95 ≥ 0.9
+    expect(decideVerdict(input({ ref, reading: reading([], true) }, [c(1, 1), c(2, 0.95)])).status).toBe("tied");
+  });
+  it("a sense in doubt with answers of its own ties with them, each carrying the sense", () => {
+    const v = decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.45, [{ id: "e9", label: "E9" }])] }));
+    expect(v.status).toBe("tied");
+    expect(v.tiedWith).toEqual(["e9"]);
+    expect(v.senses).toEqual([{ id: "e9", label: "E9", mention: "Nim", sense: { id: "s2", label: "Nim", confidence: 0.45 } }]);
+    expect(v.reason).toMatch(/'Nim' may be Nim \[s1\] \(50 %\) or Nim \[s2\] \(45 %\)/);
+  });
+  it("a sense in doubt that fits nothing the question asks leaves the verdict; one not evaluated makes it weak", () => {
+    expect(decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.45, [])] })).status).toBe("unique");
+    const v = decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.45, null)] }));
+    expect(v.status).toBe("weak");
+    expect(v.mention?.text).toBe("Nim");
+  });
+  it("a faint sense (0.25 ≤ 0.2/0.5 = 0.4 < 0.5) ties only through its own answers, and not after a close appositive", () => {
+    expect(decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.2, [{ id: "e9", label: "E9" }])] })).status).toBe("tied");
+    expect(decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.2, null)] })).status).toBe("unique");
+    expect(decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.2, [{ id: "e9", label: "E9" }], true)] })).status).toBe("unique");
+    // below the faint ratio (0.1/0.5 = 0.2 < 0.25): no doubt at all
+    expect(decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.1, [{ id: "e9", label: "E9" }])] })).status).toBe("unique");
+  });
+  it("every clue not found gives none with the nearest name; one of two gives weak", () => {
+    const nf = { ...mention, text: "KX-999", notFound: true as const };
+    const all = decideVerdict(input({ ref, reading: reading([1]), notFound: [nf, { ...nf, text: "KX-998" }] }));
+    expect(all.status).toBe("none");
+    const one = decideVerdict(input({ ref, reading: reading([1]), notFound: [nf] }));
+    expect(one.status).toBe("weak");
+    expect(one.reason).toBe("no catalog entity matches 'KX-999'; nearest: Nim, 50 %; the answer rests on the other clues");
+  });
+});
+

@@ -11,13 +11,20 @@
  * name of the linked entity (label or alias) holds, the mention is not found and the linked
  * entity is only the nearest name.
  *
- * Doubt: a clue mention whose next sense has at least `senseRatio` × the chosen sense's
+ * Doubt: a clue mention whose next sense has at least `faintRatio` × the chosen sense's
  * confidence (verdict.ts DEFAULTS, reasons there), unless the user pinned it. Up to
  * `maxSenses` such mentions are evaluated: the question is read again with the mention pinned
  * to the other sense, and the answers that satisfy that reading (ranking `Ranked.matched`,
- * after the conditions' filters) are the other sense's answers.
+ * after the conditions' filters) are the other sense's answers — when every clue of that
+ * reading is held by a relation-path pattern (otherwise the reading selects nothing and the
+ * other sense is not evaluated).
+ *
+ * A name in close apposition after a common noun ("the engineer Ilse Varrick", "the vessel
+ * Harnesk": Quirk, Greenbaum, Leech & Svartvik 1985, *A Comprehensive Grammar of the English
+ * Language*, §17.70 ff.) has its sense restricted by that noun, which the linker reads and
+ * the query graph does not; such a mention is marked `modified` (verdict.ts rule 4).
  */
-import type { Analysis, Clue } from "../analysis/index.js";
+import { isFunctionWord, words, type Analysis, type Clue } from "../analysis/index.js";
 import type { LinkResult } from "../linking/index.js";
 import type { MentionFacts, SenseDoubt } from "../explain/index.js";
 import { VERDICT_DEFAULTS } from "../explain/index.js";
@@ -53,6 +60,21 @@ export function codeMismatch(written: string, names: readonly string[]): boolean
   return groups.some((g) => !held.has(g));
 }
 
+/** Determiners that open a noun phrase in close apposition (closed class; Quirk et al. 1985 §5.10 ff.). */
+const APPOSITION_OPENERS = new Set(["the", "a", "an", "this", "that", "our", "their", "its", "his", "her"]);
+
+/** True when the words right before `start` are a determiner and one to three common nouns ("the sonar engineer"). */
+export function closeAppositive(question: string, start: number): boolean {
+  const before = words(question).filter((w) => w.end <= start);
+  let k = before.length - 1;
+  let nouns = 0;
+  while (k >= 0 && nouns < 3 && !isFunctionWord(before[k]!.norm) && /^\p{Ll}/u.test(before[k]!.text)) {
+    nouns++;
+    k--;
+  }
+  return nouns > 0 && k >= 0 && APPOSITION_OPENERS.has(before[k]!.norm);
+}
+
 /** What the pipeline supplies to {@link linkFacts}. */
 export interface LinkFactsSource {
   /** Every name (label and aliases) of an entity num. */
@@ -72,12 +94,12 @@ export function linkFacts(
   clues: readonly Clue[],
   link: LinkResult,
   source: LinkFactsSource,
-  options: { readonly senseRatio?: number; readonly maxSenses?: number } = {},
-): { notFound: MentionFacts[]; doubts: SenseDoubt[]; codes: NotFoundDoc[] } {
-  const senseRatio = options.senseRatio ?? VERDICT_DEFAULTS.senseRatio;
+  options: { readonly faintRatio?: number; readonly maxSenses?: number } = {},
+): { notFound: MentionFacts[]; unlinked: MentionFacts[]; doubts: SenseDoubt[]; added: NotFoundDoc[] } {
+  const faintRatio = options.faintRatio ?? VERDICT_DEFAULTS.faintRatio;
   const maxSenses = options.maxSenses ?? DEFAULTS.maxSenses;
   const notFound: MentionFacts[] = [];
-  const codes: NotFoundDoc[] = [];
+  const added: NotFoundDoc[] = [];
   const doubts: SenseDoubt[] = [];
   const seen = new Set<number>();
   for (const clue of clues) {
@@ -88,16 +110,23 @@ export function linkFacts(
     const base = { text: m.text, start: m.start, end: m.end, entity: { id: m.entity.id, label: m.entity.label }, confidence: m.confidence };
     const below = link.notFound.some((nf) => nf.linked && nf.start === m.start && nf.end === m.end);
     const word = writtenWord(question, m.start, m.end);
-    const code = !below && codeMismatch(word.text, source.names(m.num));
+    const names = source.names(m.num);
+    const code = !below && codeMismatch(word.text, names);
     if (below || code) {
-      notFound.push({ ...base, text: code ? word.text : m.text, start: code ? word.start : m.start, end: code ? word.end : m.end, notFound: true });
-      if (code) codes.push({ text: word.text, start: word.start, end: word.end, linked: true, nearest: { ...base.entity, confidence: m.confidence } });
+      const span = code ? word : { text: m.text, start: m.start, end: m.end };
+      notFound.push({ ...base, ...span, notFound: true });
+      // the linker reported those below its floor itself; the others are added to the answer's notFound
+      if (!below) added.push({ ...span, linked: true, nearest: { ...base.entity, confidence: m.confidence } });
       continue;
     }
     const next = m.alternatives[0];
-    if (!next || next.confidence < senseRatio * m.confidence || doubts.length >= maxSenses) continue;
+    if (!next || next.confidence < faintRatio * m.confidence || doubts.length >= maxSenses) continue;
     const other = { id: next.id, label: next.label, confidence: next.confidence };
-    doubts.push({ mention: { ...base, next: other }, answers: source.otherSense(m.text, next.id) });
+    doubts.push({ mention: { ...base, next: other }, answers: source.otherSense(m.text, next.id), modified: closeAppositive(question, m.start) });
   }
-  return { notFound, doubts, codes };
+  // names written like one that nothing linked to (linking notFound, `linked: false`): the answer cannot rest on them
+  const unlinked: MentionFacts[] = link.notFound
+    .filter((nf) => !nf.linked)
+    .map((nf) => ({ text: nf.text, start: nf.start, end: nf.end, entity: nf.nearest ? { id: nf.nearest.id, label: nf.nearest.label } : null, notFound: true }));
+  return { notFound, unlinked, doubts, added };
 }

@@ -12,7 +12,7 @@ import { DEADLINE_DEFAULTS, DISCLAIMER, Deadline, LIMITS, TiepointError, checkQu
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { linkFacts } from "./link-facts.js";
 import { answerComparison, answerValue, type DirectAnswer } from "./direct.js";
-import { conditionDocs, conditionExplanation, conditionSteps, countDoc, decideVerdict, explain, whyNotFigures, whyNotReasons, PATH_DEFAULTS, WHY_NOT_DEFAULTS, type Explanation, type VerdictContext, type WhyNot } from "../explain/index.js";
+import { conditionDocs, conditionExplanation, conditionSteps, countDoc, decideVerdict, explain, whyNotFigures, whyNotReasons, PATH_DEFAULTS, VERDICT_DEFAULTS, WHY_NOT_DEFAULTS, type Explanation, type VerdictContext, type WhyNot } from "../explain/index.js";
 
 /** A progress event while a session opens. */
 export interface SessionProgress {
@@ -172,6 +172,8 @@ export class Session {
       reading: { graph: reading, matched: matchedNodes!, fallback: ranked.fallback === true, open: ranked.open ?? 0 },
       ...(conditions ? { conditions: { list: cond.conditions, outcome: conditions } } : {}),
       notFound: facts.notFound,
+      // a number the conditions read ("built in the 1970s") is no name
+      unlinked: facts.unlinked.filter((u) => !cond.conditions.some((c) => u.start < c.end && u.end > c.start)),
       doubts: facts.doubts,
       ref: (n) => this.ref(n),
     };
@@ -211,8 +213,8 @@ export class Session {
       answerTypes: analysis.answerTypes.map((t) => ({ id: t.id, label: t.label })),
       answers,
       verdict,
-      notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...facts.codes.map(notFoundNote), ...analysis.notes, ...ranked.notes, ...sharedNotes, ...budgetNotes(deadline)],
-      ...(link.notFound.length + facts.codes.length > 0 ? { notFound: [...link.notFound, ...facts.codes].sort((a, b) => a.start - b.start) } : {}),
+      notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...facts.added.map(notFoundNote), ...analysis.notes, ...ranked.notes, ...sharedNotes, ...budgetNotes(deadline)],
+      ...(link.notFound.length + facts.added.length > 0 ? { notFound: [...link.notFound, ...facts.added].sort((a, b) => a.start - b.start) } : {}),
       disclaimer: DISCLAIMER,
       reading: readingDoc(reading, analysis, this.model, ranked.matched !== undefined ? { matched: ranked.matched, fallback: ranked.fallback === true } : { matched: null, fallback: false }),
       ...(conditions ? { conditions: conditionDocs(cond.conditions, conditions) } : {}),
@@ -268,8 +270,10 @@ export class Session {
    */
   private otherSenseAnswers(question: string, text: string, id: string, pins: readonly Pin[], deadline: Deadline): EntityRef[] | null {
     const link = capMentions(linkQuestion(question, this.linker, { pins: [...pins, { text, entity: id }] }));
-    const { ranked, conditions, matchedNodes } = this.readAndRank(question, link, deadline);
+    const { ranked, conditions, matchedNodes, reading } = this.readAndRank(question, link, deadline);
     if (!ranked || !matchedNodes) return null;
+    // a reading with a clue no pattern holds selects nothing: the other sense is not evaluated
+    if (!readingHolds(reading, ranked)) return null;
     // a count: the counted entities; otherwise the entities that satisfy the reading and the conditions
     const nodes = conditions?.count ? conditions.count.entities : ranked.candidates.map((c) => c.node).filter((n) => matchedNodes.has(n));
     return nodes.map((n) => this.ref(n));
@@ -487,6 +491,11 @@ function mentionDocs(analysis: Analysis): Mention[] {
     ...(m.derivation ? { derivation: m.derivation } : {}),
     ...(m.compound ? { compound: m.compound } : {}),
   }));
+}
+
+/** True when every clue of the reading is held by a relation-path pattern the ranking evaluated (explain/verdict.ts rule 3). */
+function readingHolds(reading: QueryGraph, ranked: Ranked): boolean {
+  return reading.chains.length === ranked.clues.length && (ranked.open ?? 0) === 0 && reading.chains.every((ch) => ch.steps.length > 0 && ch.steps.length <= VERDICT_DEFAULTS.maxSteps);
 }
 
 /** A question read and ranked ({@link Session}.readAndRank); no ranking for a value or comparison question. */
