@@ -15,6 +15,7 @@ import type { Parser as N3Parser, Quad, Term } from "n3";
 import type { LoadContext } from "./context.js";
 import type { CatalogWriter } from "../writer.js";
 import { readBlocks } from "./lines.js";
+import { readPlainLine } from "./ntriples-lines.js";
 
 const RDF = "http://www.w3.org/1999/02/22-rdf-syntax-ns#";
 const RDFS = "http://www.w3.org/2000/01/rdf-schema#";
@@ -191,11 +192,12 @@ export function importRdf(ctx: LoadContext, file: string, format: "nt" | "ttl"):
 }
 
 /**
- * N-Triples without line tracking (n3 emits no token events, the dearest part of parsing):
- * true when the whole file was read without a problem. At the first syntax error, rejected
- * triple or bad line it stops and returns false, having reported nothing; the caller then
- * reads the file again with {@link readTracked}, which finds and reports the same problems
- * with their lines. What the quick pass wrote is rolled back with the failed load.
+ * N-Triples without line tracking: true when the whole file was read without a problem.
+ * Each line of the plain shape is read by ntriples-lines.ts (no general parser, no token
+ * events); any other line goes to an n3 parser of its own. At the first syntax error,
+ * rejected triple or bad line it stops and returns false, having reported nothing; the
+ * caller then reads the file again with {@link readTracked}, which finds and reports the
+ * same problems with their lines. What the quick pass wrote is rolled back with the failed load.
  */
 function readQuick(ctx: LoadContext, file: string, names: BlankNames): boolean {
   ctx.line = 0; // not tracked here: warnings find their lines afterwards (names.ts locateWarnings)
@@ -205,26 +207,40 @@ function readQuick(ctx: LoadContext, file: string, names: BlankNames): boolean {
     throw new Restart();
   };
   let bytes = 0;
-  const src = new PushSource();
-  n3Parser({ format: "N-Triples", blankNodePrefix: MARK }).parse(src as never, {
-    onQuad: (err: Error | null, q: Quad | null) => {
-      if (err) restart();
-      else if (q) {
-        ctx.tick(bytes);
-        mapper.quad(q, restart);
-      }
-    },
-  } as never);
+  const general = (line: string): void => {
+    let quads: Quad[];
+    try {
+      quads = n3Parser({ format: "N-Triples", blankNodePrefix: MARK }).parse(line + "\n");
+    } catch {
+      restart();
+    }
+    for (const q of quads!) {
+      ctx.tick(bytes);
+      mapper.quad(q, restart);
+    }
+  };
   try {
     readBlocks(
       file,
       (block) => {
         bytes = block.bytesRead;
-        src.push(block.text);
+        const text = block.text;
+        for (let start = 0; start < text.length; ) {
+          let end = text.indexOf("\n", start);
+          if (end < 0) end = text.length;
+          const line = text.slice(start, end);
+          start = end + 1;
+          const t = readPlainLine(line, MARK);
+          if (t === null) continue;
+          if (t === undefined) general(line);
+          else {
+            ctx.tick(bytes);
+            mapper.quad(t as unknown as Quad, restart);
+          }
+        }
       },
       restart,
     );
-    src.finish();
     return true;
   } catch (e) {
     if (!(e instanceof Restart)) throw e;
