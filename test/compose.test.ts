@@ -6,14 +6,15 @@
  *
  *   Kestrel (alias RV Kestrel)  moored at Brackwell, built by Ferrand Yards, commissioned 1994, owned by Kestrel Trust
  *   Marrow                      moored at Brackwell, built by Hollis Vane, captain Ada Quell
- *   Quillon                     moored at Osterly,   built by Hollis Vane
+ *   Quillon                     moored at Osterly,   built by Hollis Vane, commissioned 1994
  *   Tern                        moored at Osterly,   built by Ferrand Yards, commissioned 1994
  *
  * Facts of Kestrel (hand-derived extensions among the 4 vessels): moored at Brackwell {K, M},
- * built by Ferrand Yards {K, T}, commissioned 1994 {K, T}; owned by Kestrel Trust {K} is
+ * built by Ferrand Yards {K, T}, commissioned 1994 {K, T, Q}; owned by Kestrel Trust {K} is
  * excluded (the clue entity's label contains "Kestrel"). Minimal distinguishing sets:
  * {Brackwell, Ferrand Yards} and {Brackwell, 1994}; {Ferrand Yards, 1994} leaves {K, T}.
- * Marrow: {Ada Quell} alone, and {Brackwell, Hollis Vane}. Quillon: {Osterly, Hollis Vane}.
+ * Marrow: {Ada Quell} alone, and {Brackwell, Hollis Vane}. Quillon: {Osterly, Hollis Vane}
+ * and {Hollis Vane, 1994}.
  */
 import { execFileSync, spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
@@ -44,7 +45,7 @@ const LINES = [
   { id: "x:trust", label: "Kestrel Trust", types: ["t:Trust"], description: "A charity." },
   { id: "x:kestrel", label: "Kestrel", aliases: ["RV Kestrel"], types: ["t:Vessel"], description: "A survey vessel.", attributes: { commissioned: 1994 }, relations: { "r:mooredAt": ["x:brackwell"], "r:builtBy": ["x:ferrand"], "r:ownedBy": ["x:trust"] } },
   { id: "x:marrow", label: "Marrow", types: ["t:Vessel"], description: "A coastal vessel.", relations: { "r:mooredAt": ["x:brackwell"], "r:builtBy": ["x:hollis"] } },
-  { id: "x:quillon", label: "Quillon", types: ["t:Vessel"], description: "A trawler.", relations: { "r:mooredAt": ["x:osterly"], "r:builtBy": ["x:hollis"] } },
+  { id: "x:quillon", label: "Quillon", types: ["t:Vessel"], description: "A trawler.", attributes: { commissioned: 1994 }, relations: { "r:mooredAt": ["x:osterly"], "r:builtBy": ["x:hollis"] } },
   { id: "x:tern", label: "Tern", types: ["t:Vessel"], description: "A tender.", attributes: { commissioned: 1994 }, relations: { "r:mooredAt": ["x:osterly"], "r:builtBy": ["x:ferrand"] } },
 ];
 
@@ -94,7 +95,10 @@ describe("compose on the fleet catalog", () => {
       ["x:brackwell", "x:ferrand"],
     ]);
     expect(minimalSets("x:marrow")).toEqual([["x:ada"], ["x:brackwell", "x:hollis"]]);
-    expect(minimalSets("x:quillon")).toEqual([["x:hollis", "x:osterly"]]);
+    expect(minimalSets("x:quillon")).toEqual([
+      ["1994", "x:hollis"],
+      ["x:hollis", "x:osterly"],
+    ]);
   });
 
   it("never names the target, an entity whose label contains its label, or an avoided entity or relation", () => {
@@ -109,7 +113,7 @@ describe("compose on the fleet catalog", () => {
     expect(noBrackwell.proposals.every((p) => !p.question.includes("Brackwell"))).toBe(true);
     const noMooring = composer.compose(k, { avoid: ["moored at"] });
     expect(noMooring.proposals.every((p) => !p.question.includes("moored"))).toBe(true);
-    // without Brackwell nothing separates Kestrel from Tern (hand-derived): no proposal, a note says so
+    // without mooring nothing separates Kestrel from Tern (hand-derived): no proposal, a note says so
     expect(noMooring.proposals).toEqual([]);
     expect(noMooring.notes.join(" ")).toMatch(/no combination of at most 4 clues singles out Kestrel/);
     expect(() => composer.compose(k, { avoid: ["Nowhere Such"] })).toThrow(/--avoid "Nowhere Such": no entity or relation/);
@@ -140,7 +144,8 @@ describe("compose on the fleet catalog", () => {
     expect(session.ask(q1).result.reading?.matched).toBe(2);
     expect(session.ask(q2).result.reading?.matched).toBe(1);
     const c = composer.compose(t, { count: 1 });
-    expect(c.proposals[0]!.candidates).toEqual([4, 2, 1]);
+    expect(c.proposals[0]!.candidates[0]).toBe(4);
+    expect(c.proposals[0]!.candidates.at(-1)).toBe(1);
   });
 });
 

@@ -92,6 +92,8 @@ export interface ComposedClue {
   readonly steps: readonly ComposeStep[];
   /** The steps with labels, e.g. `Morten Morrow ←collaborates with— Fenna Hask` (arrows point from subject to object). */
   readonly path?: string;
+  /** A chain's middle: the type it is described by (any entity of it, or of a subtype, may stand in the middle). */
+  readonly middleType?: EntityRef;
   /** The attribute of an attribute clue. */
   readonly attribute?: { readonly id: string; readonly label: string; readonly value: string };
   /** Entities satisfying this clue and every earlier one. */
@@ -368,7 +370,8 @@ export class Composer implements FactSource {
     const hops: [number, number, number, boolean][] = f.kind === "relation" ? [[f.entity!, f.rel!, target, f.inverse!]] : [[f.entity!, f.rel2!, f.middle!, f.inverse2!], [f.middle!, f.rel!, target, f.inverse!]];
     const steps = hops.map(([a, r, b, inv]) => step(a, r, b, inv));
     const path = [this.label(f.entity!), ...hops.map(([, r, b, inv]) => `${inv ? "—" : "←"}${this.relation(r).label}${inv ? "→" : "—"} ${this.label(b)}`)].join(" ");
-    return { text, kind: f.kind, entity, ...(f.salience !== undefined ? { salience: f.salience } : {}), steps, path, candidates };
+    const middleType = f.middleType !== undefined ? this.session.ref(f.middleType) : undefined;
+    return { text, kind: f.kind, entity, ...(f.salience !== undefined ? { salience: f.salience } : {}), steps, path, ...(middleType ? { middleType } : {}), candidates };
   }
 
   /** Asks a proposal's question back through the session (as `ask`) and marks it. */

@@ -9,7 +9,8 @@
  *   (`t r v` or `v r t`); extension: every x with the same edge to v.
  * - **chain**: two hops through a middle entity m described by its type and its own relation
  *   to a named entity w (`t r1 m`, `m r2 w`, "…carries the instrument that W designed");
- *   extension: every x joined by r1 to some m' of m's type joined by r2 to w.
+ *   extension: every x joined by r1 to some m' of m's type joined by r2 to w. Only when w is
+ *   better known than m (higher salience): the chain's point is to avoid naming m.
  * - **attribute**: a numeric literal value of the target (`t p "1977"`), read back by the
  *   question reader as an equality condition; extension: the entities with that value.
  * - the **type** (the question's head noun, "Which vessel …") is not a fact here: the search
@@ -170,9 +171,11 @@ function chainFacts(
   // the best-known middles' neighbours first would bias to hubs; take them in index order (deterministic)
   for (const mid of middles) {
     if (scanned >= o.maxChainScan) break;
+    const known = src.salience(mid.m);
     g.forEach(mid.m, (w, rel2, inverse2) => {
       scanned++;
-      if (w === target || w === mid.m || avoidE.has(w) || avoidR.has(rel2)) return;
+      // a chain replaces naming the middle by naming a better-known entity beside it
+      if (w === target || w === mid.m || avoidE.has(w) || avoidR.has(rel2) || src.salience(w) <= known) return;
       const key = `c:${mid.rel}:${mid.inverse ? 1 : 0}:${mid.type}:${rel2}:${inverse2 ? 1 : 0}:${w}`;
       if (found.has(key)) return;
       found.set(key, {

@@ -9,7 +9,7 @@ export { candidateFacts, extensionOf, intersectSorted, DEFAULTS as FACT_DEFAULTS
 export type { Fact, FactOptions, FactSource, SearchSpace } from "./facts.js";
 export { cheapestSets, isMinimal, DEFAULTS as SEARCH_DEFAULTS } from "./cost-search.js";
 export type { ClueSet, SearchOptions } from "./cost-search.js";
-export { incrementalSet } from "./incremental.js";
+export { incrementalSet, minimalSubset } from "./incremental.js";
 export { greedySet } from "./greedy.js";
 export { clauseOf, questionOf, spokenOrder } from "./wording.js";
 export type { Clause, WordSource } from "./wording.js";

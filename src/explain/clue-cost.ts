@@ -29,7 +29,7 @@ export const DEFAULTS = Object.freeze({
   /** Cost of any clue (fewer clues win). */
   base: 1,
   /** Weight of the clue entity's distance from the wanted salience. */
-  obscurity: 2,
+  obscurity: 1.5,
   /** Cost of each hop beyond the first (a chain through a described middle entity). */
   hop: 0.6,
   /** Cost per label word beyond `freeWords`. */

@@ -61,6 +61,7 @@ export function compositionDoc(c: Composition) {
         ...(k.entity ? { entity: { id: k.entity.id, label: k.entity.label } } : {}),
         ...(k.salience !== undefined ? { salience: Math.round(k.salience * 1000) / 1000 } : {}),
         ...(k.path ? { path: k.path } : {}),
+        ...(k.middleType ? { middleType: { id: k.middleType.id, label: k.middleType.label } } : {}),
         ...(k.attribute ? { attribute: k.attribute } : {}),
         candidates: k.candidates,
       })),
