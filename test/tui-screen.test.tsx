@@ -10,7 +10,8 @@ import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { demoDataDir } from "../src/catalog/index.js";
 import { Session } from "../src/pipeline/index.js";
-import { TuiApp, inProcessEngine, PLAIN_THEME } from "../src/present/tui/index.js";
+import { TuiApp, inProcessEngine, PLAIN_THEME, truncate } from "../src/present/tui/index.js";
+import { ignoredLine, readingLine } from "../src/present/index.js";
 
 const KEY = { enter: "\r", down: "\x1b[B", up: "\x1b[A", esc: "\x1b", backspace: "\x7f", tab: "\t" } as const;
 
@@ -164,6 +165,26 @@ describe("terminal screen (ink-testing-library, demo catalog)", () => {
     expect(f).toMatch(/\(=\)|\(~\)|\(\?\)|\(-\)/); // the verdict mark, not a colour
     expect(f).not.toMatch(/\x1b\[3\dm/); // PLAIN_THEME: no foreground colour codes
     app.unmount();
+  });
+
+  it("shows the reading as ask prints it, and the words it ignores", async () => {
+    // a demo question whose reading the ranking matched, and one with words the reading leaves out
+    const chain = "Where is the home port of the ship Bram Tulley captains?";
+    const typo = demo.find((d) => (session.ask(d.question).result.reading?.ignored.length ?? 0) > 0)!;
+    expect(typo, "no demo question has ignored words").toBeDefined();
+    for (const question of [chain, typo.question]) {
+      const truth = session.ask(question).result.reading!;
+      const app = screen();
+      const f = await ask(app, question);
+      const lines = f.split("\n");
+      // the text output's reading line (present/reading-line.ts), cut to the 72 columns after "reading "
+      expect(lines).toContain(`reading ${truncate(readingLine(truth), 72)}`);
+      if (truth.ignored.length > 0) expect(lines).toContain(`ignored ${ignoredLine(truth)}`);
+      else expect(f).not.toContain("ignored ");
+      expect(lines.length).toBeLessThanOrEqual(24);
+      for (const l of lines) expect(l.length, l).toBeLessThanOrEqual(80);
+      app.unmount();
+    }
   });
 
   it("cuts every line to a small 50×16 terminal", async () => {

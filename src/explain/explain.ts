@@ -253,7 +253,15 @@ export function explain<A extends ExplainAnalysis>(
   const shown = ranked.candidates.slice(0, n);
   const deadline = options.deadline;
   // the lead path per clue follows the reading's pattern the ranking matched (paths.ts)
-  const pathSet = findPaths(index, cost, clueSeeds, shown.map((c) => c.node), { ...options.paths, ...(ranked.patterns ? { patterns: ranked.patterns } : {}) }, deadline);
+  const missOf = ranked.chainMissOf;
+  const pathSet = findPaths(
+    index,
+    cost,
+    clueSeeds,
+    shown.map((c) => c.node),
+    { ...options.paths, ...(ranked.patterns ? { patterns: ranked.patterns } : {}), ...(missOf ? { offPattern: (ci: number, a: number) => missOf(a).includes(ci) } : {}) },
+    deadline,
+  );
   const byNode = new Map(pathSet.answers.map((a) => [a.answer, a]));
 
   const answers: Answer[] = shown.slice(0, top).map((c, i) => {

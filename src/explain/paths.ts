@@ -61,6 +61,8 @@ export interface PathOptions {
    * paths. @default none
    */
   readonly patterns?: readonly (ExplainPattern | undefined)[];
+  /** True when the ranking found `answer` off clue `clue`'s pattern even loosely (ranking `chainMissOf`): no lead path is searched. @default never */
+  readonly offPattern?: (clue: number, answer: number) => boolean;
   /** Adjacency entries the layers of one pattern may scan (pattern-path.ts). @default 200000 */
   readonly patternWork?: number;
 }
@@ -164,7 +166,7 @@ export function findPaths(
   const leadOf = (ci: number, a: number): NumPath | undefined => {
     const pattern = o.patterns?.[ci];
     const start = clues[ci]![0]?.node;
-    if (!pattern || start === undefined) return undefined;
+    if (!pattern || start === undefined || o.offPattern?.(ci, a)) return undefined;
     const total = clues[ci]!.reduce((x, s) => x + s.weight, 0);
     const share = (clues[ci]!.find((s) => s.node === start)?.weight ?? 0) / (total > 0 ? total : 1);
     const tries = relaxations(pattern);

@@ -2,6 +2,7 @@
  * Presenters: the same AskResult / CheckReport rendered as text, JSON and reports.
  */
 export { renderAskText, ASK_TEXT_DEFAULTS } from "./text.js";
+export { readingLine, readingState, ignoredLine } from "./reading-line.js";
 export type { AskTextOptions } from "./text.js";
 export { askJson, checkJson } from "./json.js";
 export { renderCheckText } from "./report-text.js";

@@ -4,6 +4,7 @@
  * paths when there are any, the verdict, notes and the disclaimer.
  */
 import { DISCLAIMER, type AskResult, type AnswerPath, type ConditionDoc } from "../model/index.js";
+import { ignoredLine, readingLine } from "./reading-line.js";
 
 /** Extra context for {@link renderAskText}; all optional. */
 export interface AskTextOptions {
@@ -57,10 +58,8 @@ export function renderAskText(r: AskResult, options: AskTextOptions = {}): strin
   out.push(`expects:  ${r.answerTypes.length > 0 ? r.answerTypes.map((t) => `${t.label} [${t.id}]`).join(" or ") : "any type"}`);
   if (options.relationCues && options.relationCues.length > 0) out.push(`cues:     ${options.relationCues.join(", ")}`);
   if (r.reading) {
-    const rd = r.reading;
-    const state = rd.matched === undefined || rd.matched === null ? "" : rd.fallback ? "  [no entity fits it all: PageRank order]" : `  [${rd.matched} fit${rd.matched === 1 ? "s" : ""}]`;
-    out.push(`reading:  ${rd.text}${state}`);
-    if (rd.ignored.length > 0) out.push(`ignored:  ${rd.ignored.map((w) => `'${w}'`).join(", ")}`);
+    out.push(`reading:  ${readingLine(r.reading)}`);
+    if (r.reading.ignored.length > 0) out.push(`ignored:  ${ignoredLine(r.reading)}`);
   }
   (r.conditions ?? []).forEach((c, i) => out.push(`${i === 0 ? "if:      " : "         "} ${conditionText(c)}`));
   if (r.count) out.push(`count:    ${r.count.value}`);

@@ -18,6 +18,14 @@ describe("layoutFor", () => {
     expect(l.answersWidth + 1 + l.detailWidth).toBe(160);
     expect(l.detailRows).toBe(48 - 6 - 2);
   });
+  it("gives the reading one row, two with the words it ignores, taken from the detail area", () => {
+    const base = layoutFor(80, 24, { mentions: 2, candidates: 0, answers: 10 });
+    const one = layoutFor(80, 24, { mentions: 2, candidates: 0, answers: 10, readingRows: 1 });
+    const two = layoutFor(80, 24, { mentions: 2, candidates: 0, answers: 10, readingRows: 2 });
+    expect(6 + 1 + one.mentionRows + one.answerRows + one.detailRows).toBe(24);
+    expect(6 + 2 + two.mentionRows + two.answerRows + two.detailRows).toBe(24);
+    expect(base.answerRows + base.detailRows - (two.answerRows + two.detailRows)).toBe(2);
+  });
   it("makes room for the candidates of the selected mention", () => {
     const a = layoutFor(80, 24, { mentions: 1, candidates: 3, answers: 5 });
     expect(a.mentionRows).toBe(4);

@@ -26,6 +26,8 @@ export interface LayoutNeeds {
   readonly answers: number;
   /** Rows of the marked question (1 or 2). @default 1 */
   readonly questionRows?: number;
+  /** Rows of the reading (0: none; 1; 2 with the words it ignores). @default 0 */
+  readonly readingRows?: number;
 }
 
 /** Rows and columns for each part of the main view. */
@@ -48,7 +50,7 @@ export interface Layout {
   readonly bodyRows: number;
 }
 
-/** Fixed rows: title, question line, verdict, message, key hint (the marked question adds 1 or 2). */
+/** Fixed rows: title, question line, verdict, message, key hint (the marked question adds 1 or 2, the reading 0 to 2). */
 const FIXED = 5;
 
 /** Lays out the main view for a terminal of `columns` × `rows`. */
@@ -60,7 +62,8 @@ export function layoutFor(columns: number, rows: number, needs: LayoutNeeds): La
   const candidateCap = rws >= 40 ? 8 : 4;
   const mentionRows = Math.min(needs.mentions, mentionCap) + Math.min(needs.candidates, candidateCap);
   const questionRows = Math.min(2, Math.max(1, needs.questionRows ?? 1));
-  const rest = Math.max(4, rws - FIXED - questionRows - mentionRows);
+  const readingRows = Math.min(2, Math.max(0, needs.readingRows ?? 0));
+  const rest = Math.max(4, rws - FIXED - questionRows - mentionRows - readingRows);
   const sideBySide = cols >= DEFAULTS.sideBySideColumns;
   if (sideBySide) {
     const answersWidth = Math.floor(cols * DEFAULTS.answersShare);

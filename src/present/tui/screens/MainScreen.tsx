@@ -1,6 +1,6 @@
 /**
  * The whole screen for one state: title, question line, then either the results (marked
- * question, links, verdict, answers, detail), an entity card, or help; then the status line
+ * question, links, the reading and the words it ignores, verdict, answers, detail), an entity card, or help; then the status line
  * and the key hint. Pure composition of components; no state of its own.
  */
 import { Box, Text } from "ink";
@@ -13,6 +13,7 @@ import { KeyHint } from "../components/KeyHint.js";
 import { MarkedQuestion, markedWidth } from "../components/MarkedQuestion.js";
 import { MentionList } from "../components/MentionList.js";
 import { QuestionLine } from "../components/QuestionLine.js";
+import { ReadingLine, readingRows } from "../components/ReadingLine.js";
 import { StatusLine } from "../components/StatusLine.js";
 import { ThemeContext } from "../components/ThemeContext.js";
 import { TitleBar } from "../components/TitleBar.js";
@@ -46,6 +47,7 @@ export function MainScreen(props: MainScreenProps) {
     candidates: mentionsFocused && selMention ? 1 + selMention.alternatives.length : 0,
     answers: v?.result.answers.length ?? 0,
     questionRows,
+    readingRows: readingRows(v?.result.reading),
   });
   const W = layout.columns;
   const status = s.engine === "opening" ? "opening…" : s.engine === "failed" ? "failed" : s.request ? "asking…" : "ready";
@@ -94,6 +96,7 @@ export function MainScreen(props: MainScreenProps) {
         {layout.mentionRows > 0 ? (
           <MentionList mentions={v.result.mentions} selected={s.mention} candidate={s.alternative} focused={mentionsFocused} rows={layout.mentionRows} width={W} />
         ) : null}
+        {v.result.reading ? <ReadingLine reading={v.result.reading} width={W} /> : null}
         <VerdictLine verdict={v.result.verdict} labels={v.labels} width={W} />
         {layout.sideBySide ? (
           <Box flexDirection="row">
