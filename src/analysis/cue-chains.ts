@@ -55,10 +55,10 @@ const COORDINATION = /\b(?:and|or|but|nor)\b|[,;]/i;
 const CONJUNCT_GAP = /^(?:\s|,|;|&|\b(?:and|or|nor|as well as|also|the|a|an)\b)*$/i;
 const HAS_CONJUNCTION = /,|;|&|\b(?:and|or|nor|as well as)\b/i;
 
-/** The text from a relation word to a following clue: the word itself, then only function words (no other content word, no punctuation). */
+/** The text from the end of a relation phrase to a following clue: only function words (no content word, no punctuation). */
 function argumentGap(gap: string): boolean {
   if (/[,;:.!?()]/.test(gap)) return false;
-  return gap.trim().split(/\s+/).slice(1).every((w) => isFunctionWord(w.toLowerCase()));
+  return gap.trim().split(/\s+/).every((w) => w === "" || isFunctionWord(w.toLowerCase()));
 }
 
 /** True when the mention at `s` is a possessive ("Peru's", "Peru’s", "the Moll's"). */
@@ -114,9 +114,12 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
   // closes the attachment, so it costs more than any distance within the question
   const text = analysis.question ?? "";
   // characters from the word at `at` to a span; `argument` applies the object rule below
+  // a clue right of a relation phrase is measured from the phrase's end ("the home port *of* M")
+  const phraseEnd = new Map(relationPhraseSpans(analysis).map((p) => [p.start, p.end]));
   const spanDistance = (s: { start: number; end: number }, at: number, argument: boolean) => {
-    const d = at >= s.end ? at - s.end : at < s.start ? s.start - at : 0;
-    const gap = at >= s.end ? text.slice(s.end, at) : at < s.start ? text.slice(at, s.start) : "";
+    const after = Math.min(Math.max(phraseEnd.get(at) ?? at, at), s.start);
+    const d = at >= s.end ? at - s.end : at < s.start ? s.start - after : 0;
+    const gap = at >= s.end ? text.slice(s.end, at) : at < s.start ? text.slice(after, s.start) : "";
     if (COORDINATION.test(gap)) return d + 1e6;
     // a relation word whose object follows it with only function words between ("studied
     // *at* M", "works for Y", "cited by Z") takes that clue as its argument

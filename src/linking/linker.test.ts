@@ -107,9 +107,9 @@ describe("linkQuestion on the fixture catalog", () => {
     expect(r2.mentions).toEqual([]);
     expect(r2.unlinked.length).toBeGreaterThan(0);
     // a definite phrase that is no name but fits an entity's description links to it (issue 16,
-    // phenomenon 10): Ada Morrow is "A glass blower from the valley."
+    // phenomenon 10): Ada Morrow is "A glass blower from the valley." (the post-modifier too)
     const r4 = link("where is the glass blower from the valley");
-    expect(r4.mentions.map((m) => [m.text, m.entity.id, m.match])).toEqual([["glass blower", "p:morrow", "description"]]);
+    expect(r4.mentions.map((m) => [m.text, m.entity.id, m.match])).toEqual([["glass blower from the valley", "p:morrow", "description"]]);
   });
 
   it("lets a pin override a link, and rejects bad pins with a clear message", () => {

@@ -618,8 +618,18 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
  */
 const DETERMINERS: ReadonlySet<string> = new Set(["the"]);
 
-/** Share of the phrase's IDF mass a description must hold to replace names found inside the phrase. */
+/** Share of the phrase's IDF mass a description must hold to replace names found inside the phrase, or to take in a post-modifier. */
 const DESCRIPTION_OVER_NAMES = 0.85;
+
+/**
+ * Prepositions that open a post-modifier of a noun phrase ("the ferry *across* the canal",
+ * "the game *with* the little cat", "the library *for* Python"): Quirk et al. 1985, ch. 17
+ * (postmodification by prepositional phrases; from memory). Common practice to list them.
+ */
+const POSTMODIFYING: ReadonlySet<string> = new Set(["of", "for", "with", "across", "in", "on", "from", "near", "about", "without", "under", "over", "between", "around", "along"]);
+
+/** Articles that may open the noun phrase of a post-modifier. */
+const ARTICLES: ReadonlySet<string> = new Set(["the", "a", "an"]);
 
 /**
  * Spans naming an entity by what it is (description-match.ts): after "the", the longest
@@ -631,6 +641,8 @@ const DESCRIPTION_OVER_NAMES = 0.85;
  * *PDF viewer*") needs one free word and a description holding at least
  * {@link DESCRIPTION_OVER_NAMES} of the whole phrase's IDF mass: then the phrase is one
  * description and the names inside it are its modifiers (they are returned in `replaced`).
+ * The phrase takes in a prepositional post-modifier ("the ferry across the canal") when a
+ * description holds that share of the longer phrase too.
  */
 function describedSpans(toks: readonly QuestionToken[], spans: readonly DetectedSpan[], blocked: readonly boolean[], vocabulary: readonly VocabularyOccurrence[], linker: Linker): { spans: DetectedSpan[]; replaced: Set<DetectedSpan> } {
   const taken = blocked.slice();
@@ -639,9 +651,8 @@ function describedSpans(toks: readonly QuestionToken[], spans: readonly Detected
   const out: DetectedSpan[] = [];
   const replaced = new Set<DetectedSpan>();
   const content = (k: number) => !isStopWord(toks[k]!.norm) && !linker.isRelationWord(toks[k]!.norm, toks[k]!.stem);
-  for (let i = 0; i + 1 < toks.length; i++) {
-    if (!DETERMINERS.has(toks[i]!.norm)) continue;
-    let j = i + 1;
+  /** The run of content words and names from `j` on. */
+  const run = (j: number) => {
     let free = 0;
     let words = 0;
     const inner: DetectedSpan[] = [];
@@ -663,12 +674,42 @@ function describedSpans(toks: readonly QuestionToken[], spans: readonly Detected
       words++;
       j++;
     }
-    if (inner.length === 0 ? free < DESCRIPTION_DEFAULTS.minTerms : free < 1 || words < DESCRIPTION_DEFAULTS.minTerms) continue;
+    return { end: j, free, words, inner };
+  };
+  const describe = (i: number, j: number) => {
     const types = new Set<number>();
     for (const o of vocabulary) if (o.first > i && o.last <= j) for (const t of o.types) types.add(t);
-    const query = toks.slice(i + 1, j).map((t) => t.stem);
-    const hits = linker.descriptions().match(query, types.size > 0 ? (n) => linker.hasType(n, types) : undefined);
-    if (inner.length > 0 && !(hits.length > 0 && hits[0]!.similarity >= DESCRIPTION_OVER_NAMES * DESCRIPTION_DEFAULTS.scale)) continue;
+    const query = toks.slice(i + 1, j).filter((t) => !isStopWord(t.norm)).map((t) => t.stem);
+    return linker.descriptions().match(query, types.size > 0 ? (n) => linker.hasType(n, types) : undefined);
+  };
+  const strong = (hits: readonly { similarity: number }[]) => hits.length > 0 && hits[0]!.similarity >= DESCRIPTION_OVER_NAMES * DESCRIPTION_DEFAULTS.scale;
+  for (let i = 0; i + 1 < toks.length; i++) {
+    if (!DETERMINERS.has(toks[i]!.norm)) continue;
+    const base = run(i + 1);
+    let { end: j, free, words } = base;
+    let inner = base.inner;
+    let hits: ReturnType<typeof describe> | undefined;
+    // a post-modifier: preposition, an optional article, a further run
+    if (j < toks.length && POSTMODIFYING.has(toks[j]!.norm) && words > 0) {
+      let k = j + 1;
+      if (k < toks.length && ARTICLES.has(toks[k]!.norm)) k++;
+      const more = run(k);
+      if (more.words > 0 && base.free + more.free >= DESCRIPTION_DEFAULTS.minTerms) {
+        const longer = describe(i, more.end);
+        if (strong(longer)) {
+          hits = longer;
+          j = more.end;
+          free += more.free;
+          words += more.words;
+          inner = [...inner, ...more.inner];
+        }
+      }
+    }
+    if (!hits) {
+      if (inner.length === 0 ? free < DESCRIPTION_DEFAULTS.minTerms : free < 1 || words < DESCRIPTION_DEFAULTS.minTerms) continue;
+      hits = describe(i, j);
+      if (inner.length > 0 && !strong(hits)) continue;
+    }
     if (hits.length > 0) {
       out.push({ first: i + 1, last: j, match: "fuzzy", candidates: hits.map((h) => ({ num: h.num, similarity: h.similarity, kind: 0, match: "description" as const })) });
       for (let k = i + 1; k < j; k++) taken[k] = true;
