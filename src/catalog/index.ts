@@ -11,4 +11,4 @@ export { catalogStats, nearestRank, typeMembers, unionFindComponents } from "./s
 export type { CatalogStats, Hub } from "./stats.js";
 export { demoCatalogPath, demoSourceFiles, demoDataDir, cacheDir, DEMO_SOURCES } from "./demo.js";
 export type { DemoCatalogOptions } from "./demo.js";
-export { NumericColumn, NumericColumns, readNumericColumn } from "./numeric-column.js";
+export { NumericColumn, NumericColumns, readNumericColumn, rowIndex } from "./numeric-column.js";

@@ -85,7 +85,7 @@ const EMPTY = new Float64Array(0);
 const NONE: readonly number[] = Object.freeze([]);
 
 /** Binary search: the position of `x` in ascending `a`, or -1. */
-function rowIndex(a: Int32Array, x: number): number {
+export function rowIndex(a: Int32Array, x: number): number {
   let lo = 0;
   let hi = a.length - 1;
   while (lo <= hi) {

@@ -17,7 +17,7 @@ import type { Condition } from "../analysis/index.js";
 import type { ConditionCheck, ConditionOutcome, RelationIndex } from "../ranking/index.js";
 import type { Explanation } from "./explain.js";
 import { suggestClues, type FactLookup } from "./suggest.js";
-import type { Answer, ConditionDoc, ConditionStepDoc, CountDoc, EntityRef, Verdict } from "../model/index.js";
+import type { Answer, ConditionDoc, ConditionStepDoc, CountDoc, Deadline, EntityRef, Verdict } from "../model/index.js";
 
 /** A value on the catalog's scale as text: dates back as ISO 8601, other numbers with thousands separators. */
 export function formatValue(v: number, temporal: boolean): string {
@@ -100,7 +100,7 @@ export function conditionSteps(node: number, conditions: readonly Condition[], o
 /** The count of a count question. */
 export function countDoc(outcome: ConditionOutcome, catalog: Catalog): CountDoc | undefined {
   if (!outcome.count) return undefined;
-  return { value: outcome.count.value, entities: outcome.count.entities.map((n) => catalog.ref(n).id) };
+  return { value: outcome.count.value, entities: catalog.refsOf(outcome.count.entities).map((r) => r.id) };
 }
 
 /** Catalog facts for suggested clues (the explain stage's lookup, read straight from the catalog). */
@@ -140,15 +140,17 @@ export function conditionExplanation(
   index: RelationIndex,
   catalog: Catalog,
   base: Explanation | undefined,
+  options: { readonly suggestions?: boolean; readonly deadline?: Deadline } = {},
 ): Explanation {
   const explanation: Explanation = base
     ? { ...base, answers, verdict }
     : { answers, verdict, coverage: { clues: [], rows: [], maxHops: 0 }, ablation: [], suggestions: [], whyNot: [], labels: {} };
-  if (verdict.status !== "tied" || explanation.suggestions.length > 0) return explanation;
+  if (verdict.status !== "tied" || explanation.suggestions.length > 0 || options.suggestions === false) return explanation;
+  if (options.deadline?.stop("suggestions")) return explanation;
   const first = outcome.ranked.candidates[0]?.node;
   if (first === undefined) return explanation;
-  const tied = new Set(verdict.tiedWith);
-  const rivals = outcome.ranked.candidates.slice(1).filter((c) => tied.has(catalog.ref(c.node).id)).map((c) => c.node);
+  // the tied entities as nodes (the verdict's ids came from them): no catalog read per candidate
+  const rivals = outcome.tiedWith ?? (outcome.count ? outcome.count.entities.filter((n) => n !== first) : outcome.ranked.candidates.slice(1).map((c) => c.node));
   const exclude = new Set(outcome.ranked.clues.map((c) => c.node));
   return { ...explanation, suggestions: suggestClues(index, new CatalogFacts(catalog), question, first, rivals, exclude) };
 }

@@ -55,6 +55,8 @@ export interface ExplainOptions<A extends ExplainAnalysis = ExplainAnalysis> {
   readonly deadline?: Deadline;
   /** Run clue ablation (needs `rerank`). @default true */
   readonly ablation?: boolean;
+  /** Suggest clues for a tied or weak verdict. @default true */
+  readonly suggestions?: boolean;
   /** Entity nums to report on ("why not this one?"). */
   readonly whyNot?: readonly number[];
   /** The restart seeds of a clue as the ranking used them (ranking's `clueSeeds`). @default the clue's entity alone */
@@ -371,7 +373,7 @@ export function explain<A extends ExplainAnalysis>(
   lap("ablation");
   // suggested clues
   let suggestions: SuggestedClue[] = [];
-  if ((verdict.status === "tied" || verdict.status === "weak") && shown.length > 1 && !deadline?.stop("suggestions")) {
+  if ((verdict.status === "tied" || verdict.status === "weak") && shown.length > 1 && (options.suggestions ?? true) && !deadline?.stop("suggestions")) {
     const s1 = shown[0]!.score;
     // the tied ids were read by the verdict through `names`, so the cached ids are enough
     // (reading every candidate's id would cost one catalog row each)

@@ -231,9 +231,11 @@ function baseVerdict(input: VerdictInput, ctx: VerdictContext, o: Required<Verdi
     const attributeApplied = oc.applied.some((a) => a.attribute !== null);
     if (input.clues.length === 0 && !oc.count && !oc.tiedWith && attributeApplied) {
       // no clue: the attribute conditions alone decide; every entity that passes fits equally
-      if (cands.length === 0) return out({ status: "none", margin: 0, tiedWith: [], reason: "no entity of the expected type satisfies the conditions" }, true);
-      if (cands.length === 1) return out({ status: "unique", margin: 1, tiedWith: [], reason: "the only entity of the expected type that satisfies the conditions" });
-      return out({ status: "tied", margin: 0, tiedWith: cands.slice(1).map((c) => ctx.ref(c.node).id), reason: `${cands.length} entities of the expected type satisfy the conditions` });
+      // (all of them are `fit`: the ranking holds only the first ones)
+      const all = oc.fit;
+      if (all.length === 0) return out({ status: "none", margin: 0, tiedWith: [], reason: "no entity of the expected type satisfies the conditions" }, true);
+      if (all.length === 1) return out({ status: "unique", margin: 1, tiedWith: [], reason: "the only entity of the expected type that satisfies the conditions" });
+      return out({ status: "tied", margin: 0, tiedWith: all.slice(1).map((n) => ctx.ref(n).id), reason: `${all.length} entities of the expected type satisfy the conditions` });
     }
     if (input.clues.length > 0 && oc.fit.length === 0 && cands.length > 0 && !oc.count) {
       if ((oc.ranked.matched ?? 0) > 0 && !oc.ranked.fallback) {

@@ -40,7 +40,8 @@ export function unknownExpected(session: Session, item: QuestionItem): string[] 
 /** Runs every question and summarises (contract.md, `check --json`). */
 export function runCheck(session: Session, items: readonly QuestionItem[], options: CheckOptions = {}): CheckReport {
   const t0 = performance.now();
-  const ask: AskOptions = { ...(options.top !== undefined ? { top: options.top } : {}), ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}) };
+  // check prints no ablation: its re-rankings are not run
+  const ask: AskOptions = { ablation: false, ...(options.top !== undefined ? { top: options.top } : {}), ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}) };
   const results: CheckItem[] = [];
   for (const item of items) {
     const answer = session.ask(item.question, ask).result;

@@ -51,6 +51,12 @@ export interface AskOptions {
    * (`budget`, a note). @default 3000 (model DEADLINE_DEFAULTS.timeLimitMs)
    */
   readonly timeLimitMs?: number;
+  /** Run the clue ablation (its re-rankings are the explanation's costliest part; `check` prints none). @default true */
+  readonly ablation?: boolean;
+  /** Suggest clues for a tied or weak verdict. @default true */
+  readonly suggestions?: boolean;
+  /** Only the answers and the verdict (the re-asks that check suggestions): no ablation, no suggestions. @default false */
+  readonly verdictOnly?: boolean;
 }
 
 /** Defaults of {@link AskOptions}. */
@@ -181,7 +187,8 @@ export class Session {
     const asked = (options.whyNot ?? []).map((e) => ({ name: e, nums: this.whyNotEntities(e) }));
     const whyNot = [...new Set(asked.flatMap((x) => x.nums))];
     const sharedNotes = asked.filter((x) => x.nums.length > 1).map((x) => this.sharedNameNote(x.name, x.nums));
-    const made = this.answersOf(analysis, ranked, top, { reading, dropClues: options.dropClues ?? [], whyNot, pprMemo, deadline, verdictContext, ...(conditions ? { rerankWith: withConditions } : {}) });
+    const parts = { ablation: options.verdictOnly !== true && (options.ablation ?? true), suggestions: options.verdictOnly !== true && (options.suggestions ?? true) };
+    const made = this.answersOf(analysis, ranked, top, { reading, dropClues: options.dropClues ?? [], whyNot, pprMemo, deadline, verdictContext, parts, ...(conditions ? { rerankWith: withConditions } : {}) });
     let { answers } = made;
     const verdict = made.verdict;
     if (conditions) {
@@ -191,7 +198,7 @@ export class Session {
         return node === undefined ? a : { ...a, values: conditionSteps(node, cond.conditions, conditions) };
       });
       // a question with no clue has no explanation of its own; a tie gets the clues that would single out the first answer
-      if (!made.explanation || verdict.status === "tied") made.explanation = conditionExplanation(question, answers, verdict, conditions, this.index, this.catalog, made.explanation);
+      if (!made.explanation || verdict.status === "tied") made.explanation = conditionExplanation(question, answers, verdict, conditions, this.index, this.catalog, made.explanation, { suggestions: parts.suggestions, deadline });
     }
     let explanation = whyNot.length > 0 ? this.completeWhyNot(whyNot, made.explanation, answers, verdict, analysis, ranked, conditions ? { list: cond.conditions, outcome: conditions } : undefined) : made.explanation;
     if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {
@@ -200,7 +207,8 @@ export class Session {
       const checked = explanation.suggestions.map((sg) => {
         if (deadline.stop("suggestion checks")) return sg;
         const left = deadline.remaining();
-        const again = this.ask(sg.question, { top: 3, timeLimitMs: left === Infinity ? 0 : Math.max(1, left), ...(options.pins !== undefined ? { pins: options.pins } : {}) }).result;
+        // the re-ask needs only its answers and verdict: no ablation, no suggestions of its own
+        const again = this.ask(sg.question, { top: 3, verdictOnly: true, timeLimitMs: left === Infinity ? 0 : Math.max(1, left), ...(options.pins !== undefined ? { pins: options.pins } : {}) }).result;
         return { ...sg, verified: again.verdict.status === "unique" && again.answers[0]?.id === want };
       });
       explanation = { ...explanation, suggestions: [...checked.filter((x) => x.verified), ...checked.filter((x) => !x.verified)] };
@@ -251,6 +259,7 @@ export class Session {
     // numeric values through per-predicate columns (one statement per attribute, kept by the session)
     const lookup = {
       numbers: (e: number, p: number) => this.numericColumns.numbers(e, p),
+      column: (p: number) => this.numericColumns.column(p),
       texts: (e: number, p: number) => this.catalog.attributeTexts(e, p),
       entitiesWith: (p: number, v: string) => this.catalog.entitiesWithValue(p, v),
     };
@@ -259,8 +268,8 @@ export class Session {
     if (cond.value || cond.compare) return { cond, analysis, reading, lookup, pprMemo };
     const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, ...(dropClues ? { dropClues } : {}) });
     const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup, { deadline }) : undefined;
-    // the entities that satisfy the reading (the ranking's first `matched`), before any filter or reordering
-    const matchedNodes = new Set(ranked0.fallback ? [] : ranked0.candidates.slice(0, ranked0.matched ?? 0).map((c) => c.node));
+    // the entities that satisfy the reading (all of them, not only the ranking's first `matched`), before any filter or reordering
+    const matchedNodes = new Set(ranked0.fallback ? [] : (ranked0.matchedNodes?.() ?? ranked0.candidates.slice(0, ranked0.matched ?? 0).map((c) => c.node)));
     return { cond, analysis, reading, lookup, pprMemo, ranked: conditions?.ranked ?? ranked0, matchedNodes, ...(conditions ? { conditions } : {}) };
   }
 
@@ -334,6 +343,8 @@ export class Session {
       readonly deadline?: Deadline;
       /** What the verdict reads besides the ranking (explain/verdict.ts): reading, conditions, link facts. */
       readonly verdictContext?: VerdictContext;
+      /** Which optional parts of the explanation run. @default both */
+      readonly parts?: { readonly ablation: boolean; readonly suggestions: boolean };
     } = {},
   ): { answers: Answer[]; verdict: Verdict; explanation?: Explanation } {
     if (ranked.clues.length === 0 || ranked.candidates.length === 0) {
@@ -367,6 +378,7 @@ export class Session {
       whyNot: extra.whyNot ?? [],
       ...(extra.verdictContext ? { verdictContext: extra.verdictContext } : {}),
       ...(extra.deadline ? { deadline: extra.deadline } : {}),
+      ...(extra.parts ? { ablation: extra.parts.ablation, suggestions: extra.parts.suggestions } : {}),
       // the session reads one committed catalog state (one read transaction), so ids and labels can be kept across questions
       refs: this.idCache,
       labelCounts: this.labelCounts,

@@ -14,7 +14,8 @@
  * "Which country in R has the largest area" then compares the countries one hop from R, not
  * the ones reached through a neighbour. When the question's reading has a structure that some
  * candidates satisfy (rank.ts `Ranked.matched`: every clue's relation-path pattern reaches
- * them), those candidates are the fit set instead. A question with no clue left (all of its mentions
+ * them), the whole matched set is the fit set instead (`Ranked.matchedNodes`: also the
+ * entities beyond the ranking's top candidates, so a count or an ordering covers all of them). A question with no clue left (all of its mentions
  * excluded, or none linked) but an expected answer type takes every entity of that type as
  * candidates, all equally fit.
  *
@@ -29,6 +30,7 @@
 import type { Deadline } from "../model/index.js";
 import type { AttributeChoice, Analysis, Condition, ComparisonCondition, SuperlativeCondition } from "../analysis/index.js";
 import { words } from "../analysis/index.js";
+import { rowIndex } from "../catalog/index.js";
 import type { Ranked, RankedCandidate } from "./rank.js";
 import type { RelationIndex } from "./relation-index.js";
 
@@ -40,10 +42,12 @@ export interface ApplyConditionsOptions {
   readonly maxVisits?: number;
   /** The question's time budget: the enumeration of every entity of the expected type (no clue left) stops once it is spent. */
   readonly deadline?: Deadline;
+  /** Candidates returned in the ranking (the count and the ties cover the whole set). @default 200 */
+  readonly limit?: number;
 }
 
 /** Defaults of {@link ApplyConditionsOptions}. */
-export const DEFAULTS = { maxHops: 3, maxVisits: 200000 } as const;
+export const DEFAULTS = { maxHops: 3, maxVisits: 200000, limit: 200 } as const;
 
 /** Reads numeric attribute values (the catalog's `attributeNumbers`). */
 export interface AttributeLookup {
@@ -53,6 +57,8 @@ export interface AttributeLookup {
   texts?(entity: number, predicate: number): readonly string[];
   /** Entities with the literal `value` of `predicate` (a literal condition without a clue). @default none */
   entitiesWith?(predicate: number, value: string): readonly number[];
+  /** The predicate's numbers as a CSR column (catalog numeric-column.ts): ascending entities, row offsets, values smallest first per row. @default read through `numbers` */
+  column?(predicate: number): { readonly entities: Int32Array; readonly offsets: Int32Array; readonly values: Float64Array };
 }
 
 /** How one condition went for one candidate. */
@@ -88,16 +94,14 @@ export interface ConditionOutcome {
   /** The ranking with the conditions applied (candidates filtered and ordered, notes added). */
   readonly ranked: Ranked;
   readonly applied: readonly AppliedCondition[];
-  /** Per candidate node: how each condition went (also for the candidates removed). */
-  readonly checks: ReadonlyMap<number, readonly ConditionCheck[]>;
+  /** Per candidate node: how each condition went (also for the candidates removed), made when asked. */
+  readonly checks: { get(node: number): readonly ConditionCheck[] | undefined };
   /** The fit set after the filters (nodes, in answer order). */
   readonly fit: readonly number[];
   /** A count question: the number and the entities counted (answer order). */
   readonly count?: { readonly value: number; readonly entities: readonly number[] };
   /** A superlative: the candidates sharing the asked value with the first answer (ties), besides it. */
   readonly tiedWith?: readonly number[];
-  /** Candidates removed by a filter, with the first failed condition. */
-  readonly removed: readonly { readonly node: number; readonly condition: number }[];
 }
 
 /** True when the value lies in the comparison's range (negated: outside it). */
@@ -148,7 +152,60 @@ function unmatchedNote(question: string, c: ComparisonCondition | SuperlativeCon
     : `"${c.words}": no word of the question names an attribute that the candidates have (nearest by meaning: ${best.label}), so the ${what} is not applied`;
 }
 
-/** Applies the conditions to a ranking. */
+/** The entities of a set of types, per index (the clue-less candidates), at most {@link MEMBER_SETS_KEPT} sets per index. */
+const membersCache = new WeakMap<RelationIndex, Map<string, readonly number[]>>();
+const MEMBER_SETS_KEPT = 8;
+
+/** One numeric attribute's values per entity, read through the attribute's CSR column when the lookup has one. */
+interface AttributeValues {
+  /** The values of `node`, smallest first (empty: none). */
+  list(node: number): readonly number[];
+  /** The largest ("max") or smallest value of `node`; NaN when it has none. */
+  extreme(node: number, order: "max" | "min"): number;
+  /** True when some value of `node` passes `test`. */
+  some(node: number, test: (v: number) => boolean): boolean;
+}
+
+function attributeValues(lookup: AttributeLookup, predicate: number): AttributeValues {
+  const col = lookup.column?.(predicate);
+  if (col) {
+    const { entities, offsets, values } = col;
+    return {
+      list: (n) => {
+        const r = rowIndex(entities, n);
+        return r < 0 ? [] : Array.from(values.subarray(offsets[r]!, offsets[r + 1]!));
+      },
+      extreme: (n, order) => {
+        const r = rowIndex(entities, n);
+        return r < 0 ? NaN : order === "max" ? values[offsets[r + 1]! - 1]! : values[offsets[r]!]!;
+      },
+      some: (n, test) => {
+        const r = rowIndex(entities, n);
+        if (r < 0) return false;
+        for (let k = offsets[r]!; k < offsets[r + 1]!; k++) if (test(values[k]!)) return true;
+        return false;
+      },
+    };
+  }
+  return {
+    list: (n) => lookup.numbers(n, predicate),
+    extreme: (n, order) => {
+      const vs = lookup.numbers(n, predicate);
+      return vs.length === 0 ? NaN : order === "max" ? vs[vs.length - 1]! : vs[0]!;
+    },
+    some: (n, test) => lookup.numbers(n, predicate).some(test),
+  };
+}
+
+/** How a filter or an ordering judges one node, asked only for the nodes shown (answers, why-not). */
+type Judge = (node: number) => ConditionCheck;
+
+/**
+ * Applies the conditions to a ranking. The work is proportional to the candidate set (the
+ * ranking's candidates and the reading's whole matched set): filters and orderings run over
+ * node numbers and the attributes' typed columns; ranked-candidate records are made only for
+ * the first `limit` of the result, and the per-node checks only when asked for.
+ */
 export function applyConditions(
   analysis: Analysis,
   ranked: Ranked,
@@ -159,56 +216,91 @@ export function applyConditions(
 ): ConditionOutcome {
   const maxHops = options.maxHops ?? DEFAULTS.maxHops;
   const maxVisits = options.maxVisits ?? DEFAULTS.maxVisits;
+  const limit = options.limit ?? DEFAULTS.limit;
   const notes: string[] = [];
   const typeSet = new Set(analysis.answerTypes.map((t) => t.num));
+  const C = ranked.clues.length;
 
-  // candidates: the ranking's, or (no clue left) every entity of the expected type
-  let cands: RankedCandidate[] = [...ranked.candidates];
-  let fit: Set<number>;
+  // candidates as node numbers in the ranking's order; a candidate the ranking did not
+  // return (beyond its top or its walk) gets `extra`'s record
+  const byNode = new Map<number, RankedCandidate>();
+  let order: number[] = [];
+  /** The candidates that fit the clues (null: every candidate does). */
+  let fit: ReadonlySet<number> | null;
+  let extra = { score: 1, perClue: [] as readonly number[], covered: 0 };
+  let matchedAll: number | undefined;
   const usable = conditions.some((c) => c.kind === "count" || c.kind === "exclusion" || c.choices.length > 0);
   const literalSeed = conditions.find((c) => c.kind === "literal" && !c.negated);
   if (ranked.clues.length === 0 && literalSeed?.kind === "literal" && lookup.entitiesWith) {
     // no clue: the entities that carry the asked value (of the expected type) are the candidates
-    const with_ = lookup.entitiesWith(literalSeed.choices[0]!.num, literalSeed.value).filter((v) => typeSet.size === 0 || index.isA(v, typeSet));
-    cands = with_.map((v) => ({ node: v, score: 1, perClue: [], covered: 0 }));
-    fit = new Set(with_);
-    notes.push(`no clue entity: the entities whose ${literalSeed.choices[0]!.label} is ${literalSeed.value} are the candidates (${cands.length})`);
+    order = lookup.entitiesWith(literalSeed.choices[0]!.num, literalSeed.value).filter((v) => typeSet.size === 0 || index.isA(v, typeSet));
+    fit = null;
+    notes.push(`no clue entity: the entities whose ${literalSeed.choices[0]!.label} is ${literalSeed.value} are the candidates (${order.length})`);
   } else if (ranked.clues.length === 0 && typeSet.size > 0 && usable) {
-    cands = [];
-    for (let v = 0; v < index.nodeCount; v++) {
-      // the time budget, looked at every 4,096 nodes: the candidates enumerated so far are kept
-      if ((v & 4095) === 0 && v > 0 && options.deadline?.stop("conditions")) {
-        notes.push(`time limit reached: only the entities numbered below ${v} of ${index.nodeCount} were considered`);
-        break;
+    // every entity of the expected types: a function of the index alone, enumerated once per index and kept
+    const key = [...typeSet].sort((a, b) => a - b).join(",");
+    const kept = membersCache.get(index)?.get(key);
+    if (kept) order = [...kept];
+    else {
+      let done = true;
+      for (let v = 0; v < index.nodeCount; v++) {
+        // the time budget, looked at every 4,096 nodes: the candidates enumerated so far are kept
+        if ((v & 4095) === 0 && v > 0 && options.deadline?.stop("conditions")) {
+          notes.push(`time limit reached: only the entities numbered below ${v} of ${index.nodeCount} were considered`);
+          done = false;
+          break;
+        }
+        if (!typeSet.has(v) && index.isA(v, typeSet)) order.push(v);
       }
-      if (!typeSet.has(v) && index.isA(v, typeSet)) cands.push({ node: v, score: 1, perClue: [], covered: 0 });
+      if (done) {
+        const perIndex = membersCache.get(index) ?? new Map<string, readonly number[]>();
+        if (perIndex.size >= MEMBER_SETS_KEPT) perIndex.delete(perIndex.keys().next().value!);
+        perIndex.set(key, order.slice());
+        membersCache.set(index, perIndex);
+      }
     }
-    fit = new Set(cands.map((c) => c.node));
-    if (cands.length > 0) notes.push(`no clue entity: every ${analysis.answerTypes.map((t) => t.label).join(" or ")} of the catalog is a candidate (${cands.length})`);
-  } else if (ranked.matched !== undefined && ranked.matched > 0) {
-    // the reading's structure decides which candidates fit the clues (rank.ts: every clue's pattern reaches them)
-    fit = new Set(ranked.candidates.slice(0, ranked.matched).map((c) => c.node));
+    fit = null;
+    if (order.length > 0) notes.push(`no clue entity: every ${analysis.answerTypes.map((t) => t.label).join(" or ")} of the catalog is a candidate (${order.length})`);
   } else {
-    fit = fitSet(analysis, ranked, index, maxHops, maxVisits);
+    for (const c of ranked.candidates) {
+      byNode.set(c.node, c);
+      order.push(c.node);
+    }
+    if (ranked.matched !== undefined && ranked.matched > 0) {
+      // the reading's whole matched set (rank.ts: every clue's pattern reaches them), not only
+      // the ranking's top: a set of 6,000 is counted and ordered in full
+      const all = ranked.matchedNodes ? ranked.matchedNodes() : ranked.candidates.slice(0, ranked.matched).map((c) => c.node);
+      fit = new Set(all);
+      matchedAll = all.length;
+      const last = ranked.candidates[Math.min(ranked.matched, ranked.candidates.length) - 1];
+      extra = { score: last?.score ?? 0, perClue: new Array<number>(C).fill(0), covered: C };
+      for (const v of all) if (!byNode.has(v)) order.push(v);
+    } else {
+      fit = fitSet(analysis, ranked, index, maxHops, maxVisits);
+    }
   }
+  const isFit = (v: number) => fit === null || fit.has(v);
+  const universe = order;
 
-  const checks = new Map<number, ConditionCheck[]>();
-  const addCheck = (node: number, c: ConditionCheck) => {
-    const list = checks.get(node) ?? [];
-    list.push(c);
-    checks.set(node, list);
+  const columns = new Map<number, AttributeValues>();
+  const valuesOf = (attr: number): AttributeValues => {
+    let a = columns.get(attr);
+    if (a === undefined) columns.set(attr, (a = attributeValues(lookup, attr)));
+    return a;
   };
   const applied: AppliedCondition[] = [];
-  const removed: { node: number; condition: number }[] = [];
-  // the lookup is the cache (the session's per-predicate columns): one call per candidate and attribute
-  const values = (node: number, attr: number) => lookup.numbers(node, attr);
+  /** The filters' judges in condition order, then the orderings' (each asked only for the nodes that reached it). */
+  const filters: Judge[] = [];
+  const orderings: Judge[] = [];
   const pick = (choices: readonly AttributeChoice[]): AttributeChoice | null => {
-    const pool = cands.filter((c) => fit.has(c.node));
-    const scope = pool.length > 0 ? pool : cands;
+    const pool = fit === null ? order : order.filter(isFit);
+    const scope = pool.length > 0 ? pool : order;
     let best: AttributeChoice | null = null;
     let bestCarry = 0;
     for (const a of choices) {
-      const carry = scope.filter((c) => values(c.node, a.num).length > 0).length;
+      const vals = valuesOf(a.num);
+      let carry = 0;
+      for (const v of scope) if (!Number.isNaN(vals.extreme(v, "min"))) carry++;
       if (carry === 0) continue;
       if (best === null || a.score > best.score + 1e-9 || (Math.abs(a.score - best.score) <= 1e-9 && carry > bestCarry)) {
         best = a;
@@ -220,8 +312,8 @@ export function applyConditions(
 
   // filters first: exclusions and comparisons
   conditions.forEach((c, ci) => {
+    const before = order.length;
     if (c.kind === "exclusion") {
-      const before = cands.length;
       const linked = new Set<number>([c.node]);
       const selfOnly = c.mode === "other" && typeSet.size > 0 && index.isA(c.node, typeSet);
       if (!selfOnly && c.node >= 0 && c.node < index.nodeCount) {
@@ -230,127 +322,166 @@ export function applyConditions(
           if (rels.size === 0 || rels.has(rel)) linked.add(v);
         });
       }
-      cands = cands.filter((x) => {
-        const out = linked.has(x.node);
-        addCheck(x.node, { condition: ci, values: [], satisfied: !out, ...(out ? { excludedBy: c.node } : {}) });
-        if (out) removed.push({ node: x.node, condition: ci });
-        return !out;
-      });
-      applied.push({ condition: c, attribute: null, before, after: cands.length });
-      notes.push(`${c.words}: ${before - cands.length} candidate${before - cands.length === 1 ? "" : "s"} excluded (${selfOnly ? `${c.label} itself` : `${c.label} and what is linked to it${c.relations.length > 0 ? " by the cued relation" : ""}`})`);
+      order = order.filter((v) => !linked.has(v));
+      filters.push((v) => (linked.has(v) ? { condition: ci, values: [], satisfied: false, excludedBy: c.node } : { condition: ci, values: [], satisfied: true }));
+      applied.push({ condition: c, attribute: null, before, after: order.length });
+      notes.push(`${c.words}: ${before - order.length} candidate${before - order.length === 1 ? "" : "s"} excluded (${selfOnly ? `${c.label} itself` : `${c.label} and what is linked to it${c.relations.length > 0 ? " by the cued relation" : ""}`})`);
     } else if (c.kind === "literal") {
       const attr = c.choices[0]!;
-      const before = cands.length;
       const want = c.value.toLowerCase();
+      const texts = (v: number) => (lookup.texts ? lookup.texts(v, attr.num) : []);
       // an attribute no candidate carries describes another node of the question ("the capital of the *landlocked* country"): not applied here
-      if (!cands.some((x) => (lookup.texts ? lookup.texts(x.node, attr.num) : []).length > 0)) {
+      if (!order.some((v) => texts(v).length > 0)) {
         applied.push({ condition: c, attribute: null, before, after: before });
         notes.push(`"${c.words}": no candidate has ${attr.label}, so the condition is not applied`);
         return;
       }
-      cands = cands.filter((x) => {
-        const ts = lookup.texts ? lookup.texts(x.node, attr.num) : [];
-        const ok = ts.some((t) => t.toLowerCase() === want) !== c.negated;
-        addCheck(x.node, { condition: ci, attribute: attr.num, values: [], texts: ts, satisfied: ok });
-        if (!ok) removed.push({ node: x.node, condition: ci });
-        return ok;
+      const ok = (ts: readonly string[]) => ts.some((t) => t.toLowerCase() === want) !== c.negated;
+      order = order.filter((v) => ok(texts(v)));
+      filters.push((v) => {
+        const ts = texts(v);
+        return { condition: ci, attribute: attr.num, values: [], texts: ts, satisfied: ok(ts) };
       });
-      applied.push({ condition: c, attribute: attr, before, after: cands.length });
-      notes.push(`${attr.label} ${c.negated ? "!=" : "="} ${c.value}: ${cands.length} of ${before} candidates kept`);
+      applied.push({ condition: c, attribute: attr, before, after: order.length });
+      notes.push(`${attr.label} ${c.negated ? "!=" : "="} ${c.value}: ${order.length} of ${before} candidates kept`);
     } else if (c.kind === "comparison") {
       const attr = pick(c.choices);
-      const before = cands.length;
       if (attr === null) {
         applied.push({ condition: c, attribute: null, before, after: before });
         if (c.choices.length > 0) notes.push(unmatchedNote(analysis.question, c, before, "condition"));
         return;
       }
-      cands = cands.filter((x) => {
-        const vs = values(x.node, attr.num);
-        const ok = vs.some((v) => satisfies(c, v));
-        addCheck(x.node, { condition: ci, attribute: attr.num, values: vs, satisfied: ok });
-        if (!ok) removed.push({ node: x.node, condition: ci });
-        return ok;
-      });
-      applied.push({ condition: c, attribute: attr, before, after: cands.length });
-      notes.push(`${attr.label} ${c.operator} ${c.values.join(" and ")}: ${cands.length} of ${before} candidates kept`);
+      const vals = valuesOf(attr.num);
+      const test = (x: number) => satisfies(c, x);
+      order = order.filter((v) => vals.some(v, test));
+      filters.push((v) => ({ condition: ci, attribute: attr.num, values: vals.list(v), satisfied: vals.some(v, test) }));
+      applied.push({ condition: c, attribute: attr, before, after: order.length });
+      notes.push(`${attr.label} ${c.operator} ${c.values.join(" and ")}: ${order.length} of ${before} candidates kept`);
     }
   });
-  const kept = new Set(cands.map((c) => c.node));
   // after the filters, the candidates that fit every clue come first (each group in ranking order)
-  if (ranked.clues.length > 0) {
-    const first = cands.filter((c) => fit.has(c.node));
-    if (first.length === 0 && cands.length > 0 && applied.length > 0) notes.push("no candidate that fits every clue satisfies the conditions: the answers shown fit only part of the question");
-    cands = [...first, ...cands.filter((c) => !fit.has(c.node))];
+  if (ranked.clues.length > 0 && fit !== null) {
+    const first = order.filter(isFit);
+    if (first.length === 0 && order.length > 0 && applied.length > 0) notes.push("no candidate that fits every clue satisfies the conditions: the answers shown fit only part of the question");
+    order = first.concat(order.filter((v) => !isFit(v)));
   }
-  const fitOrder = () => cands.filter((c) => fit.has(c.node));
 
   // orderings: superlatives among the fit candidates
   let tiedWith: number[] | undefined;
   conditions.forEach((c, ci) => {
     if (c.kind !== "superlative") return;
     const attr = pick(c.choices);
-    const before = cands.length;
+    const before = order.length;
     if (attr === null) {
       applied.push({ condition: c, attribute: null, before, after: before });
       if (c.choices.length > 0) notes.push(unmatchedNote(analysis.question, c, before, "ordering"));
       return;
     }
-    const order = orderOf(c, attr);
-    const inFit = fitOrder();
-    const rest = cands.filter((x) => !fit.has(x.node));
+    const dir = orderOf(c, attr);
+    const vals = valuesOf(attr.num);
+    // (plain loops and concat, no spreads: the sets run to tens of thousands)
+    let inFit: number[] = order;
+    let rest: number[] = [];
+    if (fit !== null) {
+      inFit = [];
+      for (const v of order) (isFit(v) ? inFit : rest).push(v);
+    }
     // one key per fit candidate (largest value for "max", smallest for "min"), NaN: none
     const keys = new Float64Array(inFit.length);
     const withIdx: number[] = [];
-    const without: RankedCandidate[] = [];
-    inFit.forEach((x, i) => {
-      const vs = values(x.node, attr.num);
-      keys[i] = vs.length === 0 ? NaN : order === "max" ? vs[vs.length - 1]! : vs[0]!;
-      if (vs.length === 0) without.push(x);
+    const without: number[] = [];
+    for (let i = 0; i < inFit.length; i++) {
+      const key = vals.extreme(inFit[i]!, dir);
+      keys[i] = key;
+      if (Number.isNaN(key)) without.push(inFit[i]!);
       else withIdx.push(i);
-    });
-    // stable: ties of value keep the ranking order (by index)
-    withIdx.sort((i, j) => (order === "max" ? keys[j]! - keys[i]! : keys[i]! - keys[j]!) || i - j);
-    const withValue = withIdx.map((i) => inFit[i]!);
-    const pos = Math.min(c.position, withValue.length) - 1;
-    const ordered = pos > 0 ? [withValue[pos]!, ...withValue.slice(0, pos), ...withValue.slice(pos + 1)] : withValue;
-    const placeOf = (k: number) => (pos > 0 ? (k === 0 ? pos + 1 : k <= pos ? k : k + 1) : k + 1);
-    ordered.forEach((x, k) => {
-      const place = placeOf(k);
-      addCheck(x.node, { condition: ci, attribute: attr.num, values: values(x.node, attr.num), satisfied: place === c.position, place });
-    });
-    for (const x of without) addCheck(x.node, { condition: ci, attribute: attr.num, values: [], satisfied: false });
-    if (ordered.length > 0) {
-      const top = keys[withIdx[pos > 0 ? pos : 0]!]!;
-      tiedWith = ordered.slice(1).filter((_, k) => keys[withIdx[placeOf(k + 1) - 1]!] === top).map((x) => x.node);
     }
-    cands = [...ordered, ...without, ...rest];
-    applied.push({ condition: c, attribute: attr, before, after: cands.length });
-    notes.push(`ordered by ${attr.label} (${order === "max" ? "largest" : "smallest"} first${c.position > 1 ? `, place ${c.position} asked` : ""}) among ${withValue.length} candidate${withValue.length === 1 ? "" : "s"} that fit the clues and have it`);
+    const better = (i: number, j: number) => (dir === "max" ? keys[j]! - keys[i]! : keys[i]! - keys[j]!) || i - j;
+    // only the first `limit` + position places need their order (a selection, then a sort of
+    // those: Hoare's FIND idea, common practice for top-k); ties of value keep the ranking order (index)
+    const k = Math.min(withIdx.length, limit + c.position);
+    let head = withIdx;
+    let tail: number[] = [];
+    if (withIdx.length > 2 * k) {
+      const sorted = new Float64Array(withIdx.length);
+      for (let j = 0; j < withIdx.length; j++) sorted[j] = keys[withIdx[j]!]!;
+      sorted.sort();
+      const bound = dir === "max" ? sorted[sorted.length - k]! : sorted[k - 1]!;
+      head = [];
+      for (const i of withIdx) (dir === "max" ? keys[i]! >= bound : keys[i]! <= bound) ? head.push(i) : tail.push(i);
+    }
+    head.sort(better);
+    const sortedIdx = head.concat(tail);
+    const pos = Math.min(c.position, sortedIdx.length) - 1;
+    const ordered = pos > 0 ? [sortedIdx[pos]!].concat(sortedIdx.slice(0, pos), sortedIdx.slice(pos + 1)) : sortedIdx;
+    if (ordered.length > 0) {
+      // every other candidate with the asked place's value, in ranking order
+      const top = keys[sortedIdx[pos]!]!;
+      const first = sortedIdx[pos]!;
+      tiedWith = withIdx.filter((i) => i !== first && keys[i] === top).sort(better).map((i) => inFit[i]!);
+    }
+    const slot = new Map<number, number>();
+    orderings.push((v) => {
+      // the place is the rank among the fit candidates with a value (asked place first: the rest keep theirs)
+      if (slot.size === 0) inFit.forEach((x, i) => slot.set(x, i));
+      const i = slot.get(v);
+      if (i === undefined) return { condition: ci, attribute: attr.num, values: [], satisfied: false };
+      if (Number.isNaN(keys[i]!)) return { condition: ci, attribute: attr.num, values: [], satisfied: false };
+      let place = 1;
+      for (const j of withIdx) if (j !== i && better(j, i) < 0) place++;
+      return { condition: ci, attribute: attr.num, values: vals.list(v), satisfied: place === c.position, place };
+    });
+    order = ordered.map((i) => inFit[i]!).concat(without, rest);
+    applied.push({ condition: c, attribute: attr, before, after: order.length });
+    notes.push(`ordered by ${attr.label} (${dir === "max" ? "largest" : "smallest"} first${c.position > 1 ? `, place ${c.position} asked` : ""}) among ${ordered.length} candidate${ordered.length === 1 ? "" : "s"} that fit the clues and have it`);
   });
 
-  const fitNow = fitOrder().map((c) => c.node).filter((n) => kept.has(n));
+  const fitNow = fit === null ? order : order.filter(isFit);
   const countCond = conditions.find((c) => c.kind === "count");
   let count: ConditionOutcome["count"];
   if (countCond) {
     // the counted entities first
-    const set = new Set(fitNow);
-    cands = [...cands.filter((c) => set.has(c.node)), ...cands.filter((c) => !set.has(c.node))];
+    if (fit !== null) order = fitNow.concat(order.filter((v) => !isFit(v)));
     count = { value: fitNow.length, entities: fitNow };
-    applied.push({ condition: countCond, attribute: null, before: cands.length, after: fitNow.length });
+    applied.push({ condition: countCond, attribute: null, before: order.length, after: fitNow.length });
     notes.push(`counted ${fitNow.length} entit${fitNow.length === 1 ? "y" : "ies"} that fit every clue and condition`);
   }
-  if (cands.length === 0 && ranked.candidates.length > 0) notes.push("no candidate satisfies the conditions");
-  // the new order is the answer order: each score is capped at the previous one's (a running minimum), so scores stay best first
-  for (let i = 1; i < cands.length; i++) if (cands[i]!.score > cands[i - 1]!.score) cands[i] = { ...cands[i]!, score: cands[i - 1]!.score };
+  if (order.length === 0 && ranked.candidates.length > 0) notes.push("no candidate satisfies the conditions");
+  // the new order is the answer order: each score is capped at the previous one's (a running
+  // minimum), so scores stay best first; records only for the first `limit`
+  const candidates: RankedCandidate[] = [];
+  let prev = Infinity;
+  for (let i = 0; i < order.length && i < limit; i++) {
+    const v = order[i]!;
+    const base = byNode.get(v) ?? { node: v, ...extra };
+    const score = Math.min(base.score, prev);
+    prev = score;
+    candidates.push(score === base.score ? base : { ...base, score });
+  }
+  // the per-node checks, made when asked (answers shown, why-not): the filters up to the first
+  // one failed, then (still a fit candidate) the orderings
+  let inUniverse: Set<number> | undefined;
+  const checks = {
+    get(node: number): readonly ConditionCheck[] | undefined {
+      inUniverse ??= new Set(universe);
+      if (!inUniverse.has(node)) return undefined;
+      const out: ConditionCheck[] = [];
+      for (const judge of filters) {
+        const ch = judge(node);
+        out.push(ch);
+        if (!ch.satisfied) return out;
+      }
+      if (isFit(node)) for (const judge of orderings) out.push(judge(node));
+      return out.length > 0 ? out : undefined;
+    },
+  };
   return {
-    ranked: { ...ranked, candidates: cands, notes: [...ranked.notes, ...notes] },
+    ranked: { ...ranked, candidates, notes: [...ranked.notes, ...notes], ...(matchedAll !== undefined ? { matched: matchedAll } : {}) },
     applied,
     checks,
     fit: fitNow,
     ...(count ? { count } : {}),
     ...(tiedWith !== undefined ? { tiedWith } : {}),
-    removed,
   };
 }
 

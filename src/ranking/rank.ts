@@ -201,6 +201,13 @@ export interface Ranked {
    * not checked or reaches no candidate. Absent when no pattern was checked.
    */
   readonly patterns?: readonly (RankedPattern | undefined)[];
+  /**
+   * Every entity that satisfies the whole reading (each checked pattern reaches it exactly,
+   * each neighbour constraint holds, of the expected type when the type filter applied), not
+   * only those among `candidates`: ascending node numbers, computed on the first call. Absent
+   * when no pattern was checked; empty when `fallback`.
+   */
+  readonly matchedNodes?: () => readonly number[];
 }
 
 /** A clue's relation-path pattern as the ranking matched it (explain's first path walks it). */
@@ -417,6 +424,23 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   const matched = (chainCheck?.ignored ?? 0) > 0 ? [] : candidates.filter(fits);
   const ordered = matched.length > 0 ? [...matched, ...candidates.filter((c) => !fits(c))] : candidates;
   if (matched.length === 0) notes.push("no entity satisfies the whole reading of the question: the answers are ranked by PageRank alone and fit only part of it");
+  // the whole matched set, beyond the walk's pool: the intersection of the patterns' exact
+  // end sets and the neighbour sets, smallest first, then the pool's other tests
+  let whole: number[] | undefined;
+  const matchedNodes = (): readonly number[] => {
+    if (whole) return whole;
+    if (matched.length === 0) return (whole = []);
+    const sets: ReadonlySet<number>[] = [...(chainCheck?.exact ?? []), ...adjacency].sort((a, b) => a.size - b.size);
+    whole = [];
+    for (const v of sets[0] ?? []) {
+      if (isSeed(v) || (typeFiltered && !index.isA(v, typeSet))) continue;
+      let all = true;
+      for (let k = 1; k < sets.length && all; k++) all = sets[k]!.has(v);
+      if (all) whole.push(v);
+    }
+    whole.sort((a, b) => a - b);
+    return whole;
+  };
   return {
     clues,
     candidates: ordered.slice(0, options.limit ?? DEFAULTS.limit),
@@ -428,6 +452,7 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     fallback: matched.length === 0,
     open,
     patterns,
+    matchedNodes,
   };
 }
 
@@ -565,7 +590,7 @@ function chainFitOf(
   index: RelationIndex,
   eligible: ReadonlySet<number>,
   options: RankOptions,
-): { fit: (v: number) => number; misses: (v: number) => number[]; ignored: number; patterns: readonly (RankedPattern | undefined)[] } | undefined {
+): { fit: (v: number) => number; misses: (v: number) => number[]; ignored: number; patterns: readonly (RankedPattern | undefined)[]; exact: readonly ReadonlySet<number>[] } | undefined {
   const miss = options.chainMiss ?? DEFAULTS.chainMiss;
   const loose = options.chainLoose ?? DEFAULTS.chainLoose;
   const maxSteps = options.chainMaxSteps ?? DEFAULTS.chainMaxSteps;
@@ -604,7 +629,7 @@ function chainFitOf(
     else if (group >= 0) empty.push({ group, clue: c });
     else ignored++;
   });
-  if (checks.length === 0) return ignored > 0 ? { fit: () => 1, misses: () => [], ignored, patterns } : undefined;
+  if (checks.length === 0) return ignored > 0 ? { fit: () => 1, misses: () => [], ignored, patterns, exact: [] } : undefined;
   const total = checks.reduce((a, ch) => a + ch.weight, 0);
   // a coordinated clue whose shared pattern reaches no candidate at all, while another
   // member's does ("borders A, B and C" with C's only neighbours among the clues): it
@@ -625,5 +650,5 @@ function chainFitOf(
     }
     return Math.exp(log);
   };
-  return { fit, misses, ignored, patterns };
+  return { fit, misses, ignored, patterns, exact: [] };
 }
