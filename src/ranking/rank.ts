@@ -650,5 +650,5 @@ function chainFitOf(
     }
     return Math.exp(log);
   };
-  return { fit, misses, ignored, patterns, exact: [] };
+  return { fit, misses, ignored, patterns, exact: checks.map((ch) => ch.exact) };
 }
