@@ -118,5 +118,9 @@ describe("decideVerdict with the question's reading and link facts", () => {
     expect(one.status).toBe("weak");
     expect(one.reason).toBe("no catalog entity matches 'KX-999'; nearest: Nim, 50 %; the answer rests on the other clues");
   });
+  it("a name matched only in part counts as not found when nothing satisfies the reading, and not otherwise", () => {
+    const part = { ...mention, text: "Ardent Nim", notFound: true as const };
+    expect(decideVerdict(input({ ref, reading: reading([], true), partial: [part, part] })).status).toBe("none");
+    expect(decideVerdict(input({ ref, reading: reading([1]), partial: [part, part] })).status).toBe("unique");
+  });
 });
-

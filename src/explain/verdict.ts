@@ -11,8 +11,9 @@
  * next, each evaluated by the pipeline under that other sense). Rules, first match wins:
  *
  * 1. `none` — no clue was linked and no condition picks entities on its own; every clue's
- *    mention is not found (no catalog entity matches its words: the linker's floor, or a code
- *    whose digits the linked name does not carry); no candidate was ranked; no clue reaches
+ *    mention is not found (no catalog entity matches its words: the linker's floor, a code
+ *    whose digits the linked name does not carry, or a name matched only in part when no
+ *    entity satisfies the reading); no candidate was ranked; no clue reaches
  *    the best candidate within N hops.
  * 2. Conditions. No clue: the entities that pass the conditions decide (0 `none`, 1 `unique`,
  *    2 or more `tied`). The conditions removed every candidate: `none` when entities
@@ -146,6 +147,8 @@ export interface VerdictContext {
   readonly conditions?: { readonly list: readonly Condition[]; readonly outcome: ConditionOutcome };
   /** Clue mentions not found (no catalog entity matches their words). */
   readonly notFound?: readonly MentionFacts[];
+  /** Clue mentions matched by part of a name only (linking match `partial`): not found when the reading fits nothing. */
+  readonly partial?: readonly MentionFacts[];
   /** Names written like one (a capital, a digit) that nothing in the catalog matches and that are no clue (linking `notFound`, not linked). */
   readonly unlinked?: readonly MentionFacts[];
   /** Clue mentions in doubt between two senses. */
@@ -194,7 +197,10 @@ export function decideVerdict(input: VerdictInput, options: VerdictOptions = {})
   }
   const ctx = input.context;
   if (!ctx) return scoreVerdict(input, o);
-  const notFound = ctx.notFound ?? [];
+  const r = ctx.reading;
+  const readingFits = r === undefined || (!r.fallback && r.matched.size > 0);
+  // a name matched only in part, with nothing of the reading fitting it, is no good candidate either
+  const notFound = [...(ctx.notFound ?? []), ...(readingFits ? [] : (ctx.partial ?? []))];
   // 1. every clue's name is missing from the catalog
   if (input.clues.length > 0 && notFound.length >= input.clues.length) {
     const m = notFound[0]!;

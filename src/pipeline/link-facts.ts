@@ -11,6 +11,10 @@
  * name of the linked entity (label or alias) holds, the mention is not found and the linked
  * entity is only the nearest name.
  *
+ * Partial: a clue mention the linker matched by part of a name only (match `partial`,
+ * "Ardent Tern" for "Project Tern"); the verdict treats it as not found when the question's
+ * reading fits nothing (verdict.ts rule 1).
+ *
  * Doubt: a clue mention whose next sense has at least `faintRatio` × the chosen sense's
  * confidence (verdict.ts DEFAULTS, reasons there), unless the user pinned it. Up to
  * `maxSenses` such mentions are evaluated: the question is read again with the mention pinned
@@ -95,11 +99,12 @@ export function linkFacts(
   link: LinkResult,
   source: LinkFactsSource,
   options: { readonly faintRatio?: number; readonly maxSenses?: number } = {},
-): { notFound: MentionFacts[]; unlinked: MentionFacts[]; doubts: SenseDoubt[]; added: NotFoundDoc[] } {
+): { notFound: MentionFacts[]; unlinked: MentionFacts[]; partial: MentionFacts[]; doubts: SenseDoubt[]; added: NotFoundDoc[] } {
   const faintRatio = options.faintRatio ?? VERDICT_DEFAULTS.faintRatio;
   const maxSenses = options.maxSenses ?? DEFAULTS.maxSenses;
   const notFound: MentionFacts[] = [];
   const added: NotFoundDoc[] = [];
+  const partial: MentionFacts[] = [];
   const doubts: SenseDoubt[] = [];
   const seen = new Set<number>();
   for (const clue of clues) {
@@ -120,6 +125,7 @@ export function linkFacts(
       if (!below) added.push({ ...span, linked: true, nearest: { ...base.entity, confidence: m.confidence } });
       continue;
     }
+    if (m.match === "partial") partial.push({ ...base, notFound: true });
     const next = m.alternatives[0];
     if (!next || next.confidence < faintRatio * m.confidence || doubts.length >= maxSenses) continue;
     const other = { id: next.id, label: next.label, confidence: next.confidence };
@@ -129,5 +135,5 @@ export function linkFacts(
   const unlinked: MentionFacts[] = link.notFound
     .filter((nf) => !nf.linked)
     .map((nf) => ({ text: nf.text, start: nf.start, end: nf.end, entity: nf.nearest ? { id: nf.nearest.id, label: nf.nearest.label } : null, notFound: true }));
-  return { notFound, unlinked, doubts, added };
+  return { notFound, unlinked, partial, doubts, added };
 }

@@ -178,6 +178,7 @@ export class Session {
       reading: { graph: reading, matched: matchedNodes!, fallback: ranked.fallback === true, open: ranked.open ?? 0 },
       ...(conditions ? { conditions: { list: cond.conditions, outcome: conditions } } : {}),
       notFound: facts.notFound,
+      partial: facts.partial,
       // a number the conditions read ("built in the 1970s") is no name
       unlinked: facts.unlinked.filter((u) => !cond.conditions.some((c) => u.start < c.end && u.end > c.start)),
       doubts: facts.doubts,
