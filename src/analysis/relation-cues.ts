@@ -100,6 +100,23 @@ function surfaceStems(model: QuestionModel): ReadonlySet<string> {
   return set;
 }
 
+/** Suffixes of agent nouns, which name the subject of their verb (-er, -or, -ant, -ent, -ist: Quirk et al. 1985, Appendix I.31–I.34; from memory). */
+const AGENT_SUFFIX = /(?:er|or|ant|ent|ist)$/;
+
+/**
+ * True when question word `k` is a relational noun in "the N of Y" that names the object of
+ * the relation, so Y is its subject: "the capital of Norway" (Norway —capital→ ?), "the
+ * dependency of wget" (wget —depends on→ ?). Not when the label itself ends in "of" ("member
+ * of": the "of" is the label's), nor for an agent noun derived from the label's verb ("the
+ * dependent of wget", "the author of X" read as "wrote"), which names the subject.
+ */
+function relationalNounOf(ws: readonly Word[], k: number, labelTokens: readonly string[]): boolean {
+  if (ws[k + 1]?.norm !== "of" || labelTokens[labelTokens.length - 1] === "of") return false;
+  const word = ws[k]!.norm.replace(/s$/, "");
+  const derived = !labelTokens.some((t) => t === ws[k]!.norm || t === word);
+  return !(derived && AGENT_SUFFIX.test(word));
+}
+
 /** Matches content words (by index into `ws`) to the model's relations; best first, ties by id. */
 export function relationCues(ws: readonly Word[], content: readonly number[], model: QuestionModel, options: RelationCueOptions = {}): RelationCue[] {
   const o: Required<RelationCueOptions> = { ...DEFAULTS, ...options };
@@ -140,9 +157,10 @@ export function relationCues(ws: readonly Word[], content: readonly number[], mo
     if (best >= o.minScore) {
       const first = bestWords[0]!;
       const last = bestWords[bestWords.length - 1]!;
-      // voice: the question's ("made by") against the label's ("manufactured by")
-      const questionPassive = ws[last + 1]?.norm === "by";
+      // voice: the question's ("made by") against the label's ("manufactured by"); a relational
+      // noun before "of" reads like the passive: "the dependency of wget" is what wget depends on
       const labelTokens = tokens(r.label);
+      const questionPassive = ws[last + 1]?.norm === "by" || relationalNounOf(ws, last, labelTokens);
       const labelPassive = labelTokens[labelTokens.length - 1] === "by";
       // repeated occurrences: later content words with the first matched word's stem
       const occurrences: CueOccurrence[] = [{ start: ws[first]!.start, flip: questionPassive !== labelPassive }];

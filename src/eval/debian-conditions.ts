@@ -73,6 +73,28 @@ export function benchQuestions(ref: ReturnType<typeof debianReference>, sizes: r
   return out;
 }
 
+/**
+ * Superlatives over one package's own dependencies, asked with the relation noun ("Which
+ * dependency of X has the smallest installed size?": X is the subject of Depends), gold by
+ * SQL: the `count` packages with the most Depends entries that name a package with a size
+ * (ties by name), smallest and largest alternating.
+ */
+export function dependencyQuestions(ref: ReturnType<typeof debianReference>, count: number): BenchQuestion[] {
+  const srcs = ref.prepare("SELECT r.src AS name, count(*) AS n FROM rel r JOIN pkg p ON p.name = r.dst WHERE r.field = 'Depends' AND p.size IS NOT NULL GROUP BY r.src ORDER BY n DESC, r.src LIMIT ?").all(count) as { name: string; n: number }[];
+  const sizesOf = ref.prepare("SELECT p.name, p.size FROM rel r JOIN pkg p ON p.name = r.dst WHERE r.field = 'Depends' AND r.src = ? AND p.size IS NOT NULL");
+  return srcs.map((x, i) => {
+    const rows = sizesOf.all(x.name) as { name: string; size: number }[];
+    const largest = i % 2 === 1;
+    const best = largest ? Math.max(...rows.map((r) => r.size)) : Math.min(...rows.map((r) => r.size));
+    return {
+      kind: "superlative" as const,
+      question: `Which dependency of ${x.name} has the ${largest ? "largest" : "smallest"} installed size?`,
+      setSize: rows.length,
+      gold: rows.filter((r) => r.size === best).map((r) => r.name).sort(),
+    };
+  });
+}
+
 /** True when tiepoint's result agrees with the gold. */
 export function agrees(q: BenchQuestion, result: { answers: readonly { label: string }[]; count?: { value: number } }): boolean {
   if (typeof q.gold === "number") return result.count?.value === q.gold;
