@@ -35,6 +35,12 @@ export interface LoadSink {
   /** The entity row was deleted, with its edges, aliases, types and attributes. */
   removed(entity: number): void;
   /**
+   * The files' rows are all written; the end-of-load steps follow (SQLite's indexes, then
+   * fix-ups that may still remove entities): a sink may start work that does not depend on
+   * those removals.
+   */
+  rowsWritten?(): void;
+  /**
    * Called inside the transaction after the last write: builds the derived files for the
    * catalog stamp the commit will give (`uid`, `generation`) under temporary names. Returns
    * undefined when it cannot vouch for them (the rows it saw do not match the tables).

@@ -214,6 +214,7 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
       }
       ctx.checkPending();
       if (ctx.errors.length === 0) {
+        sink?.rowsWritten?.();
         writer.restoreIndexes();
         updated = writer.applyReload();
         writer.writeUnits();

@@ -21,9 +21,10 @@ function answer(out: PrepareOutput): void {
   Atomics.notify(flag, 0);
 }
 
-parentPort!.on("message", (m: { index?: Int32Array; text?: unknown[]; finish?: PrepareInput }) => {
+parentPort!.on("message", (m: { index?: Int32Array; text?: unknown[]; presort?: true; finish?: PrepareInput }) => {
   try {
     if (m.index) core.indexRows(m.index, m.index.length / 4);
+    else if (m.presort) core.presort();
     else if (m.text) core.textRows(m.text);
     else if (m.finish) answer(core.build(m.finish));
   } catch (e) {

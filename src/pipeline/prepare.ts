@@ -18,7 +18,9 @@
  * SQLite's indexes and commits. The load waits for the thread only when it publishes the
  * files after its commit (`Atomics.wait` on a shared flag). Smaller loads, and a build run
  * from the TypeScript sources (no compiled worker file), use the same builders in the load's
- * own thread — the same code either way, so the same bytes.
+ * own thread — the same code either way, so the same bytes. When the files' rows are all in
+ * (`rowsWritten`), the thread sorts the edges at once (index-builder.ts `presort`) while the
+ * load's thread has SQLite build its indexes; the end-of-load removals are applied after.
  *
  * Before vouching for the files it checks that the distinct edges it saw are exactly the
  * catalog's edge rows (a count, read inside the load's transaction); a mismatch (a write path
@@ -107,6 +109,11 @@ export class PrepareCore {
       else if (code === DESCRIPTION) lexical.description(entity, batch[i + 2] as string);
       else lexical.remove(entity);
     }
+  }
+
+  /** Sorts the edges collected so far (index-builder.ts `presort`): the load's rows are all in. */
+  presort(): void {
+    this.index.presort();
   }
 
   /** Builds both files under temporary names beside the catalog. */
@@ -209,6 +216,13 @@ export class LoadPreparation implements LoadSink {
   removed(entity: number): void {
     this.indexRow(REMOVED, entity, 0, 0);
     this.textRow(REMOVED, entity, null, null);
+  }
+
+  rowsWritten(): void {
+    this.sendIndex(false);
+    this.sendText(false);
+    if (this.thread) this.thread.worker.postMessage({ presort: true });
+    else (this.core ??= new PrepareCore()).presort();
   }
 
   abort(): void {

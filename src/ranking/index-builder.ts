@@ -45,11 +45,26 @@ export function radixOrder(columns: readonly Int32Array[], n: number, range: num
   return order;
 }
 
+/** Sorted distinct rows as compact columns. */
+type Sorted = { cols: Int32Array[]; n: number };
+
+/** The rows of `sorted` for which `keepRow` holds, in order, compacted in place. */
+function keep(sorted: Sorted, keepRow: (cols: readonly Int32Array[], row: number) => boolean): Sorted {
+  const cols = sorted.cols;
+  let w = 0;
+  for (let i = 0; i < sorted.n; i++) {
+    if (!keepRow(cols, i)) continue;
+    if (w !== i) for (const col of cols) col[w] = col[i]!;
+    w++;
+  }
+  return { cols: cols.map((col) => col.subarray(0, w)), n: w };
+}
+
 /**
  * Rows of `columns` in sorted order without duplicates and without rows whose `dropWhere`
  * columns hold a dropped node: new compact columns and their length.
  */
-function sortedUnique(columns: readonly Int32Array[], n: number, range: number, drop: (row: number) => boolean): { cols: Int32Array[]; n: number } {
+function sortedUnique(columns: readonly Int32Array[], n: number, range: number, drop: (row: number) => boolean): Sorted {
   const order = radixOrder(columns, n, range);
   const cols = columns.map(() => new Int32Array(n));
   let w = 0;
@@ -79,6 +94,8 @@ export class IndexBuilder {
   private readonly removed = new Set<number>();
   private maxNode = 0;
   private maxRel = 0;
+  /** Rows sorted ahead of `build` ({@link IndexBuilder.presort}) and the row counts they cover. */
+  private presorted: { rows: readonly number[]; edges: Sorted; types: Sorted; subs: Sorted } | undefined;
 
   /** A relation edge `src rel dst` (entity and predicate nums). */
   edge(src: number, rel: number, dst: number): void {
@@ -111,6 +128,28 @@ export class IndexBuilder {
     this.removed.add(entity);
   }
 
+  /**
+   * Sorts the rows collected so far, before the entities a load removes at its end are known
+   * (a load's second thread does this while SQLite builds its own indexes); `build` then only
+   * drops the removed entities' rows from the sorted columns — the same rows in the same
+   * order, since dropping a row and dropping its duplicates commute with sorting — unless
+   * more rows arrived after.
+   */
+  presort(): void {
+    const range = Math.max(this.maxNode, this.maxRel) + 1;
+    const none = () => false;
+    this.presorted = {
+      rows: this.counts(),
+      edges: sortedUnique([view(this.dst), view(this.rel), view(this.src)], this.src.length, range, none),
+      types: sortedUnique([view(this.typed), view(this.type_)], this.typed.length, range, none),
+      subs: sortedUnique([view(this.sub), view(this.sup)], this.sub.length, range, none),
+    };
+  }
+
+  private counts(): number[] {
+    return [this.src.length, this.typed.length, this.sub.length];
+  }
+
   /** Edge rows collected so far (duplicates included). */
   get edgeRows(): number {
     return this.src.length;
@@ -126,12 +165,22 @@ export class IndexBuilder {
     const relationCount = maxPredicate + 1;
     const range = Math.max(this.maxNode, this.maxRel) + 1;
     const gone = this.removed;
-    const s = view(this.src);
-    const d = view(this.dst);
-    const edges = sortedUnique([d, view(this.rel), s], this.src.length, range, gone.size === 0 ? () => false : (i) => gone.has(s[i]!) || gone.has(d[i]!));
-    const te = view(this.typed);
-    const types = sortedUnique([te, view(this.type_)], this.typed.length, range, gone.size === 0 ? () => false : (i) => gone.has(te[i]!));
-    const subs = sortedUnique([view(this.sub), view(this.sup)], this.sub.length, range, () => false);
+    const p = this.presorted;
+    this.presorted = undefined;
+    let edges: Sorted, types: Sorted, subs: Sorted;
+    if (p !== undefined && p.rows.every((k, i) => k === this.counts()[i])) {
+      // (dst, rel, src): an edge goes with either end; a type row with its entity
+      edges = gone.size === 0 ? p.edges : keep(p.edges, (c, i) => !gone.has(c[0]![i]!) && !gone.has(c[2]![i]!));
+      types = gone.size === 0 ? p.types : keep(p.types, (c, i) => !gone.has(c[0]![i]!));
+      subs = p.subs;
+    } else {
+      const s = view(this.src);
+      const d = view(this.dst);
+      edges = sortedUnique([d, view(this.rel), s], this.src.length, range, gone.size === 0 ? () => false : (i) => gone.has(s[i]!) || gone.has(d[i]!));
+      const te = view(this.typed);
+      types = sortedUnique([te, view(this.type_)], this.typed.length, range, gone.size === 0 ? () => false : (i) => gone.has(te[i]!));
+      subs = sortedUnique([view(this.sub), view(this.sup)], this.sub.length, range, () => false);
+    }
     const [ed, er, es] = edges.cols as [Int32Array, Int32Array, Int32Array];
     // removed entities may hold the largest nums: what is kept must fit the finished catalog
     const beyond = (col: Int32Array, limit: number) => col.some((v) => v >= limit);
