@@ -16,6 +16,7 @@ import type { QuestionModel } from "./question-model.js";
 import { relationCues, type RelationCue, type RelationCueOptions } from "./relation-cues.js";
 import { relationalAnswerType, whereRangeType, type RelationRangeOptions } from "./relation-range.js";
 import { isFunctionWord, words } from "./words.js";
+import { DETERMINERS } from "./lexicon.js";
 import { findTypeWords, type TypeWord } from "./type-words.js";
 
 /** A linked entity that seeds one personalized PageRank. */
@@ -69,8 +70,6 @@ export interface AnalyzeOptions {
 /** Defaults of {@link AnalyzeOptions}. */
 export const DEFAULTS = { modifierWeight: 0.25 } as const;
 
-/** English determiners that open a noun phrase (common practice; closed class). */
-const DETERMINERS: ReadonlySet<string> = new Set(["a", "an", "the", "this", "these", "those", "some", "any", "each", "every", "which", "what", "another", "other"]);
 
 /**
  * The mention that mention `i` pre-modifies, if any: the next clue mention follows it with

@@ -15,6 +15,7 @@
  */
 import type { QuestionModel } from "./question-model.js";
 import { isFunctionWord, type Word } from "./words.js";
+import { ANSWER_TYPE_WORDS } from "./lexicon.js";
 
 /** Options of {@link detectAnswerType}; all optional. */
 export interface AnswerTypeOptions {
@@ -42,16 +43,7 @@ export interface AnswerTypeResult {
   readonly headPhrase?: readonly number[];
 }
 
-const WH_WHICH = new Set(["which", "what"]);
-const WH_PERSON = new Set(["who", "whom", "whose"]);
-const WH_PLACE = new Set(["where"]);
-const IMPERATIVE = new Set(["name", "list", "identify", "find", "show", "give", "tell"]);
-/** Words skipped between the wh-word and the noun phrase. */
-const SKIP = new Set(["is", "are", "was", "were", "the", "a", "an", "me", "us", "all", "of", "kind", "type", "sort", "class", "one", "ones", "please", "do", "you", "know"]);
-/** Copulas: "who is the …", "where was the …". */
-const COPULA = new Set(["is", "are", "was", "were"]);
-/** Words that end the noun phrase. */
-const CLAUSE = new Set(["the", "a", "an", "both", "each", "every", "all", "any", "that", "which", "who", "whom", "whose", "where", "when", "did", "does", "do", "is", "are", "was", "were", "has", "have", "had", "of", "in", "on", "at", "by", "for", "with", "from", "to", "and", "or", "can", "could", "would", "will"]);
+const { WH_WHICH, WH_PERSON, WH_PLACE, IMPERATIVE, SKIP, COPULA, CLAUSE } = ANSWER_TYPE_WORDS;
 
 /**
  * Finds the expected answer type. `blocked[i]` is true for words inside a linked mention

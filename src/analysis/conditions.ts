@@ -37,7 +37,7 @@ import type { Analysis, AnswerType } from "./analyze.js";
 import type { QuestionModel } from "./question-model.js";
 import { findQuantities, type Quantity } from "./quantity.js";
 import { isFunctionWord, words, type Word } from "./words.js";
-import { COPULAS, DIMENSIONS, HOW_AMOUNT, ORDINALS, QUANTITY_COMPARATIVES, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
+import { AFTER_QUANTITY, BEFORE_QUANTITY, COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
 
 /** Options of {@link detectConditions}; all optional. */
 export interface ConditionOptions {
@@ -241,25 +241,6 @@ export function buildAttributeModel(cat: Catalog): AttributeModel {
   }
   return { attributes, textAttributes, textValues: (predicate, texts) => cat.attributeValuesIn(predicate, texts) };
 }
-
-/** Operator phrases right before a quantity (normalised words, longest first). */
-const BEFORE_QUANTITY: readonly [string, "before" | "after" | "since" | "until" | "in" | ">" | "<" | ">=" | "<=" | "="][] = [
-  ["no more than", "<="], ["not more than", "<="], ["no less than", ">="], ["not less than", ">="], ["no fewer than", ">="], ["a maximum of", "<="], ["a minimum of", ">="],
-  ["more than", ">"], ["greater than", ">"], ["in excess of", ">"], ["less than", "<"], ["fewer than", "<"],
-  ["at least", ">="], ["at most", "<="], ["up to", "<="], ["prior to", "before"], ["earlier than", "before"], ["later than", "after"], ["as of", "since"],
-  ["before", "before"], ["after", "after"], ["since", "since"], ["until", "until"], ["till", "until"], ["through", "until"],
-  ["over", ">"], ["above", ">"], ["exceeding", ">"], ["under", "<"], ["below", "<"], ["beyond", ">"],
-  ["in", "in"], ["during", "in"], ["of", "="], ["exactly", "="],
-];
-const AFTER_QUANTITY: readonly [string, ">=" | "<="][] = [
-  ["or more", ">="], ["or above", ">="], ["and above", ">="], ["or over", ">="], ["or later", ">="], ["and later", ">="], ["or after", ">="],
-  ["or less", "<="], ["or fewer", "<="], ["or below", "<="], ["and below", "<="], ["or under", "<="], ["or earlier", "<="], ["or before", "<="],
-];
-/** Negation and exclusion cues (normalised words). */
-const EXCLUDE_CUES: readonly [string, "other" | "not"][] = [
-  ["other than", "other"], ["except for", "other"], ["except", "other"], ["apart from", "other"], ["aside from", "other"], ["excluding", "other"], ["besides", "other"], ["not including", "other"],
-  ["but not", "not"], ["not", "not"], ["never", "not"], ["isnt", "not"], ["arent", "not"], ["wasnt", "not"], ["werent", "not"], ["doesnt", "not"], ["dont", "not"], ["didnt", "not"],
-];
 
 /** Matches a phrase (space-separated normalised words) at word index i; returns the words it spans or 0. */
 function phraseAt(ws: readonly Word[], i: number, phrase: string): number {
@@ -783,8 +764,6 @@ function directQuestion(
   return { value: { mention: mi, node: m.num, choices, words: question.slice(ws[from]!.start, ws[last]!.end), start: ws[from]!.start, end: ws[last]!.end } };
 }
 
-/** Negation words before a predicate adjective or a value (Quirk et al. 1985 §10.54 ff.; contractions normalised without the apostrophe). */
-const NEGATIONS: ReadonlySet<string> = new Set(["not", "never", "isnt", "arent", "wasnt", "werent", "dont", "doesnt", "didnt", "no"]);
 
 /** Stored values that read as booleans (xsd:boolean's lexical forms, W3C XML Schema 1.1 Part 2 §3.3.2). */
 const BOOLEAN_TRUE: ReadonlySet<string> = new Set(["true", "1"]);

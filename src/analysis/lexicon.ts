@@ -1,14 +1,17 @@
 /**
- * The closed-class English the reader of a question relies on, in one place: adjectives of
- * dimension and time with their comparative and superlative forms, ordinals, number words
- * for plurality, the verbs and question words that open a value question. Each list names
- * its reason and source. Nothing here is taken from a catalog: everything domain-specific
+ * The closed-class English the reader of a question relies on, in one place: function words,
+ * determiners, question words and the imperatives that open a question, coordination,
+ * adjectives of dimension and time with their comparative and superlative forms, ordinals,
+ * number words and multipliers, plural forms, copulas, negation, and the operator and
+ * exclusion phrases of conditions. Each list names its reason and source. Nothing here is taken from a catalog: everything domain-specific
  * (types, relations, attributes, units) comes from the catalog's own labels, aliases and
  * units (question-model.ts, conditions.ts).
  *
  * Sources: Quirk, Greenbaum, Leech & Svartvik 1985, "A Comprehensive Grammar of the English
  * Language" (§7.74 ff. comparison of adjectives, §5.73 ff. irregular plurals, §6.53 ordinal
  * numerals, §11.14 wh-questions); where a list is only common practice, it says so.
+ * (The linking stage, which runs before analysis, keeps its own stop words in
+ * linking/stopwords.ts.)
  */
 
 /** A gradable adjective of dimension: its forms going up, going down, and the general nouns of the dimension it measures. */
@@ -106,3 +109,101 @@ export const VALUE_WH: ReadonlySet<string> = new Set(["what", "how"]);
 
 /** "How" + a measure noun asks for an amount ("how many", "how much"; Quirk et al. 1985 §11.14): a count, not a value. */
 export const HOW_AMOUNT: ReadonlySet<string> = new Set(["many", "much"]);
+
+/**
+ * English closed-class words (determiners, pronouns, auxiliaries, prepositions, conjunctions,
+ * question words; Quirk et al. 1985 §2.35 ff., closed classes) and a few question verbs
+ * ("name", "list"). Reason: a function word never names a relation, a type or a clue, and it
+ * is never an ignored word of the reading. Common practice for content-word extraction; the
+ * list is general English, not tuned to any catalog.
+ */
+export const FUNCTION_WORDS: ReadonlySet<string> = new Set(
+  (
+    "a an the this that these those some any all both each every either neither no none other another such " +
+    "i me my we us our you your he him his she her it its they them their one ones someone something anyone anything " +
+    "who whom whose which what where when why how whatever whichever " +
+    "is are was were be been being am do does did done doing have has had having will would shall should can could may might must " +
+    "of in on at by for with from to into onto upon about above below under over between among through during before after " +
+    "against within without via per than as like near off out up down " +
+    "and or but nor so yet if then also too very just only not " +
+    "there here please tell give show name list find identify me " +
+    "same exactly together"
+  ).split(" "),
+);
+
+/** True for a closed-class word (by its normalised form). */
+export function isFunctionWord(norm: string): boolean {
+  return FUNCTION_WORDS.has(norm);
+}
+
+/**
+ * English determiners that open a noun phrase (Quirk et al. 1985 §5.10 ff., central
+ * determiners, and the wh-determiners "which", "what"). Reason: a clue mention right after one
+ * starts a new noun phrase, so it pre-modifies nothing before it (analyze.ts).
+ */
+export const DETERMINERS: ReadonlySet<string> = new Set(["a", "an", "the", "this", "these", "those", "some", "any", "each", "every", "which", "what", "another", "other"]);
+
+/**
+ * The words answer-type.ts reads the expected answer type from (Li & Roth 2002's wh-word and
+ * head-noun scheme): wh-determiners that take a head noun, wh-words for persons and places
+ * (Quirk et al. 1985 §11.14), the imperatives that open a question ("name the …", "list …";
+ * common practice), the words skipped between the wh-word and the noun phrase ("which *of
+ * the* …", "what *kind of* …", "do you know"; common practice), copulas ("who *is* the …"),
+ * and the words that end the head noun phrase (determiners, relative and wh-words,
+ * auxiliaries, prepositions, coordinators: Quirk et al. 1985 §17.9 ff., a postmodifier starts).
+ */
+export const ANSWER_TYPE_WORDS = {
+  WH_WHICH: new Set(["which", "what"]) as ReadonlySet<string>,
+  WH_PERSON: new Set(["who", "whom", "whose"]) as ReadonlySet<string>,
+  WH_PLACE: new Set(["where"]) as ReadonlySet<string>,
+  IMPERATIVE: new Set(["name", "list", "identify", "find", "show", "give", "tell"]) as ReadonlySet<string>,
+  SKIP: new Set(["is", "are", "was", "were", "the", "a", "an", "me", "us", "all", "of", "kind", "type", "sort", "class", "one", "ones", "please", "do", "you", "know"]) as ReadonlySet<string>,
+  COPULA: new Set(["is", "are", "was", "were"]) as ReadonlySet<string>,
+  CLAUSE: new Set(["the", "a", "an", "both", "each", "every", "all", "any", "that", "which", "who", "whom", "whose", "where", "when", "did", "does", "do", "is", "are", "was", "were", "has", "have", "had", "of", "in", "on", "at", "by", "for", "with", "from", "to", "and", "or", "can", "could", "would", "will"]) as ReadonlySet<string>,
+} as const;
+
+/** Number words that multiply the figure before them ("2.5 million"; Quirk et al. 1985 §6.63, cardinal numerals). */
+export const MULTIPLIER: Readonly<Record<string, number>> = { thousand: 1e3, million: 1e6, billion: 1e9 };
+
+/** The parts of a decade ("the early 1990s" = 1990–1994), as year offsets; common practice (no grammar fixes the cut-offs). */
+export const DECADE_PART: Readonly<Record<string, readonly [number, number]>> = { early: [0, 4], mid: [3, 7], late: [7, 10] };
+
+/** Words after a number that are not its unit (function words and comparatives; common practice). */
+export const NOT_UNIT: ReadonlySet<string> = new Set(["and", "or", "to", "in", "on", "at", "of", "the", "a", "an", "than", "but", "with", "for", "by", "as", "is", "are", "was", "were", "ago", "more", "less", "fewer"]);
+
+/** Comparison operators of a condition phrase. */
+export type QuantityOperator = "before" | "after" | "since" | "until" | "in" | ">" | "<" | ">=" | "<=" | "=";
+
+/**
+ * Operator phrases right before a quantity ("more than 20,000", "before 1980", "at least 3";
+ * normalised words, longest first): complex prepositions and comparative constructions of
+ * English (Quirk et al. 1985 §9.10 ff. complex prepositions, §15.63 ff. comparison).
+ */
+export const BEFORE_QUANTITY: readonly (readonly [string, QuantityOperator])[] = [
+  ["no more than", "<="], ["not more than", "<="], ["no less than", ">="], ["not less than", ">="], ["no fewer than", ">="], ["a maximum of", "<="], ["a minimum of", ">="],
+  ["more than", ">"], ["greater than", ">"], ["in excess of", ">"], ["less than", "<"], ["fewer than", "<"],
+  ["at least", ">="], ["at most", "<="], ["up to", "<="], ["prior to", "before"], ["earlier than", "before"], ["later than", "after"], ["as of", "since"],
+  ["before", "before"], ["after", "after"], ["since", "since"], ["until", "until"], ["till", "until"], ["through", "until"],
+  ["over", ">"], ["above", ">"], ["exceeding", ">"], ["under", "<"], ["below", "<"], ["beyond", ">"],
+  ["in", "in"], ["during", "in"], ["of", "="], ["exactly", "="],
+];
+
+/** Operator phrases right after a quantity ("20 or more"; Quirk et al. 1985 §15.63 ff.; normalised words). */
+export const AFTER_QUANTITY: readonly (readonly [string, ">=" | "<="])[] = [
+  ["or more", ">="], ["or above", ">="], ["and above", ">="], ["or over", ">="], ["or later", ">="], ["and later", ">="], ["or after", ">="],
+  ["or less", "<="], ["or fewer", "<="], ["or below", "<="], ["and below", "<="], ["or under", "<="], ["or earlier", "<="], ["or before", "<="],
+];
+
+/**
+ * Exclusion and negation cues (normalised words): "other than", "except", "apart from" exclude
+ * an entity ("other"); "not", "never" and the negated auxiliaries negate a relation ("not");
+ * Quirk et al. 1985 §9.58 (prepositions of exception), §10.54 ff. (negation; contractions
+ * normalised without the apostrophe).
+ */
+export const EXCLUDE_CUES: readonly (readonly [string, "other" | "not"])[] = [
+  ["other than", "other"], ["except for", "other"], ["except", "other"], ["apart from", "other"], ["aside from", "other"], ["excluding", "other"], ["besides", "other"], ["not including", "other"],
+  ["but not", "not"], ["not", "not"], ["never", "not"], ["isnt", "not"], ["arent", "not"], ["wasnt", "not"], ["werent", "not"], ["doesnt", "not"], ["dont", "not"], ["didnt", "not"],
+];
+
+/** Negation words before a predicate adjective or a value (Quirk et al. 1985 §10.54 ff.; contractions normalised without the apostrophe). */
+export const NEGATIONS: ReadonlySet<string> = new Set(["not", "never", "isnt", "arent", "wasnt", "werent", "dont", "doesnt", "didnt", "no"]);

@@ -13,6 +13,7 @@
  * ("3.5"), and the multipliers "thousand", "million", "billion" are read; the word right
  * after the number is kept as its unit ("km²", "metres", "tonnes").
  */
+import { DECADE_PART, MULTIPLIER, NOT_UNIT } from "./lexicon.js";
 
 /** What a quantity was written as. */
 export type QuantityKind = "number" | "year" | "date" | "decade";
@@ -43,10 +44,6 @@ export interface QuantityOptions {
 /** Defaults of {@link QuantityOptions}. */
 export const DEFAULTS = { yearRange: [1000, 2999] as readonly [number, number] } as const;
 
-const MULTIPLIER: Readonly<Record<string, number>> = { thousand: 1e3, million: 1e6, billion: 1e9 };
-const DECADE_PART: Readonly<Record<string, readonly [number, number]>> = { early: [0, 4], mid: [3, 7], late: [7, 10] };
-/** Words after a number that are not its unit (common practice: function words). */
-const NOT_UNIT = new Set(["and", "or", "to", "in", "on", "at", "of", "the", "a", "an", "than", "but", "with", "for", "by", "as", "is", "are", "was", "were", "ago", "more", "less", "fewer", "and", "or"]);
 
 /** A year as a number on the catalog's scale: Y plus the elapsed share of the year at month m, day d (UTC, proleptic Gregorian). */
 export function yearFraction(y: number, m = 1, d = 1): number {

@@ -1,7 +1,7 @@
 /**
  * Word spans of a question: tokens with their UTF-16 offsets, normalised and stemmed with the
- * catalog's own normalisation (`normalize`, `stemToken` from the catalog stage), and a small
- * English function-word list (common practice: closed-class words carry no relation meaning).
+ * catalog's own normalisation (`normalize`, `stemToken` from the catalog stage); the English
+ * function words they are tested against live in lexicon.ts (re-exported here).
  */
 import { normalize, stemToken } from "../catalog/index.js";
 
@@ -34,26 +34,4 @@ export function words(question: string): Word[] {
   return out;
 }
 
-/**
- * English closed-class words (determiners, pronouns, auxiliaries, prepositions, conjunctions,
- * question words) and a few question verbs ("name", "list"). Common practice for content-word
- * extraction; the list is general English, not tuned to any catalog.
- */
-export const FUNCTION_WORDS: ReadonlySet<string> = new Set(
-  (
-    "a an the this that these those some any all both each every either neither no none other another such " +
-    "i me my we us our you your he him his she her it its they them their one ones someone something anyone anything " +
-    "who whom whose which what where when why how whatever whichever " +
-    "is are was were be been being am do does did done doing have has had having will would shall should can could may might must " +
-    "of in on at by for with from to into onto upon about above below under over between among through during before after " +
-    "against within without via per than as like near off out up down " +
-    "and or but nor so yet if then also too very just only not " +
-    "there here please tell give show name list find identify me " +
-    "same exactly together"
-  ).split(" "),
-);
-
-/** True for a closed-class word (by its normalised form). */
-export function isFunctionWord(norm: string): boolean {
-  return FUNCTION_WORDS.has(norm);
-}
+export { FUNCTION_WORDS, isFunctionWord } from "./lexicon.js";
