@@ -21,7 +21,7 @@
  */
 import type { QuestionModel } from "./question-model.js";
 import type { RelationCue } from "./relation-cues.js";
-import type { Word } from "./words.js";
+import { isFunctionWord, type Word } from "./words.js";
 
 /** Options of {@link relationalAnswerType}; all optional. */
 export interface RelationRangeOptions {
@@ -55,7 +55,31 @@ export function relationalAnswerType(ws: readonly Word[], headPhrase: readonly n
   const starts = new Set(headPhrase.map((k) => ws[k]!.start));
   const cue = cues.filter((c) => c.score >= minScore && starts.has(c.start)).sort((a, b) => b.score - a.score || a.start - b.start)[0];
   if (!cue) return undefined;
-  return farEnd(cue, clueNodes, model, options);
+  const ofType = ofPhraseType(ws, Math.max(...headPhrase), model);
+  return farEnd(cue, clueNodes, model, options, ofType);
+}
+
+/**
+ * The type named by the of-phrase after a relational head noun ("the capital of *the one
+ * country* that …"): "of", then function words, up to two pre-modifiers, then a type label or
+ * alias (one or two words, by stem). The of-phrase is the relational noun's argument (Quirk et al. 1985 §17.38 ff., the
+ * of-genitive; from memory), so that type stands at the relation's near end, whatever the
+ * clues further away are.
+ */
+function ofPhraseType(ws: readonly Word[], head: number, model: QuestionModel): number[] | undefined {
+  if (ws[head + 1]?.norm !== "of") return undefined;
+  let k = head + 2;
+  while (k < ws.length && isFunctionWord(ws[k]!.norm)) k++;
+  // up to two pre-modifiers before the type noun ("of the *largest* country")
+  for (let m = k; m <= k + 2 && m < ws.length; m++) {
+    for (const len of [2, 1]) {
+      if (m + len > ws.length) continue;
+      const types = model.typesByKey.get(ws.slice(m, m + len).map((w) => w.stem).join(" "));
+      if (types && types.length > 0) return [...types];
+    }
+    if (isFunctionWord(ws[m]!.norm)) break;
+  }
+  return undefined;
 }
 
 /**
@@ -73,7 +97,7 @@ export function whereRangeType(cues: readonly RelationCue[], clueNodes: readonly
   return r;
 }
 
-function farEnd(cue: RelationCue, clueNodes: readonly number[], model: QuestionModel, options: RelationRangeOptions): RelationalType | undefined {
+function farEnd(cue: RelationCue, clueNodes: readonly number[], model: QuestionModel, options: RelationRangeOptions, nearTypes?: readonly number[]): RelationalType | undefined {
   const minShare = options.minShare ?? DEFAULTS.minShare;
   const ends = model.relationEnds!();
   const total = ends.edges(cue.relation);
@@ -84,9 +108,11 @@ function farEnd(cue: RelationCue, clueNodes: readonly number[], model: QuestionM
   if (subject.length === 0 && object.length === 0) return undefined;
   // the clues' types with their supertypes
   const clueTypes = new Set<number>();
-  for (const n of clueNodes) {
-    for (const t of model.typesOf?.(n) ?? []) for (const a of model.typeByNum.get(t)?.ancestors ?? [t]) clueTypes.add(a);
-  }
+  const addTypes = (ts: readonly number[]) => {
+    for (const t of ts) for (const a of model.typeByNum.get(t)?.ancestors ?? [t]) clueTypes.add(a);
+  };
+  if (nearTypes) addTypes(nearTypes);
+  else for (const n of clueNodes) addTypes(model.typesOf?.(n) ?? []);
   const clueAtSubject = subject.some((t) => clueTypes.has(t));
   const clueAtObject = object.some((t) => clueTypes.has(t));
   const sorted = (xs: readonly number[]) => [...new Set(xs)].sort((a, b) => a - b);
