@@ -35,7 +35,7 @@ port.on("message", (m: WorkerRequest) => {
     return;
   }
   try {
-    const value = m.op === "ask" ? core.ask(m.question, m.pins, m.top) : core.card(m.entity);
+    const value = m.op === "ask" ? core.ask(m.question, m.pins, m.top) : m.op === "compose" ? core.compose(m.entity) : core.card(m.entity);
     send({ type: "reply", id: m.id, ok: true, value });
   } catch (e) {
     send({ type: "reply", id: m.id, ok: false, message: messageOf(e) });

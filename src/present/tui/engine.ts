@@ -8,9 +8,10 @@
  * `worker-engine.ts` runs the same code in a worker thread so the screen never freezes.
  */
 import type { Catalog } from "../../catalog/index.js";
+import { Composer, type Composition } from "../../compose/index.js";
 import type { EntityRef } from "../../model/index.js";
 import { Session, type AskOutcome, type SessionProgress } from "../../pipeline/index.js";
-import type { AblationView, CoverageRow, EntityCard, OpenProgress, PinView, SuggestionView, TuiEngine, TuiResult } from "./view-types.js";
+import type { AblationView, ComposeView, CoverageRow, EntityCard, OpenProgress, PinView, SuggestionView, TuiEngine, TuiResult } from "./view-types.js";
 
 /** Options of the engines. */
 export const DEFAULTS = {
@@ -200,6 +201,22 @@ export function buildCard(cat: Catalog, id: string): EntityCard | null {
   };
 }
 
+/** The screen's view of a composition (compose stage): each proposal's question, facts and proof as lines. */
+export function buildComposeView(c: Composition): ComposeView {
+  return {
+    target: { id: c.target.id, label: c.target.label },
+    proposals: c.proposals.map((p) => ({
+      question: p.question,
+      verified: p.verified,
+      ...(p.reason ? { reason: p.reason } : {}),
+      facts: p.clues.filter((k) => k.kind !== "type").map((k) => (k.kind === "attribute" ? `${k.attribute!.label} = ${k.attribute!.value}` : `${k.path ?? k.entity!.label}${k.salience !== undefined ? `  (salience ${Math.round(k.salience * 100)}%)` : ""}`)),
+      proof: p.clues.map((k) => (k.kind === "type" ? `${k.entity!.label} ${k.candidates}` : String(k.candidates))).join(" → "),
+    })),
+    notes: c.notes,
+    millis: c.timings.total,
+  };
+}
+
 /** A one-line title for a session's catalog. */
 export function titleOf(session: Session, db: string | undefined): string {
   const c = session.catalog.counts();
@@ -210,6 +227,7 @@ export function titleOf(session: Session, db: string | undefined): string {
 /** Session-backed engine operations, shared by the in-process and the worker engines. */
 export class SessionEngineCore {
   private readonly labels: Labels;
+  private composer: Composer | undefined;
   constructor(
     readonly session: Session,
     readonly title: string,
@@ -227,6 +245,13 @@ export class SessionEngineCore {
   /** An entity card (synchronously). */
   card(id: string): EntityCard | null {
     return buildCard(this.session.catalog, id);
+  }
+  /** Questions whose only answer is entity `id` (synchronously; the composer is made on first use). */
+  compose(id: string): ComposeView | null {
+    const num = this.session.catalog.numOf(id);
+    if (num === undefined) return null;
+    this.composer ??= new Composer(this.session);
+    return buildComposeView(this.composer.compose(num));
   }
 }
 
@@ -254,6 +279,10 @@ export async function inProcessEngine(source: EngineSource, onProgress?: (p: Ope
     async card(id) {
       await tick();
       return core.card(id);
+    },
+    async compose(id) {
+      await tick();
+      return core.compose(id);
     },
     close() {
       session.close();

@@ -7,7 +7,7 @@ import type { KeyEvent, KeyName } from "./keys.js";
 import { DETAIL_TABS, focusedEntity, type TuiAction, type TuiState } from "./state.js";
 
 /** The view whose keys apply. */
-export type KeyView = "help" | "card" | "question" | "mentions" | "answers" | "detail";
+export type KeyView = "help" | "compose" | "card" | "question" | "mentions" | "answers" | "detail";
 
 /** What a key does: a state action, quitting, or nothing. */
 export type KeyResult = TuiAction | "quit" | null;
@@ -23,6 +23,7 @@ export interface HintItem {
 /** The view whose keys apply now. */
 export function keyView(s: TuiState): KeyView {
   if (s.help) return "help";
+  if (s.compose) return "compose";
   if (s.cards.length > 0) return "card";
   return s.pane;
 }
@@ -56,7 +57,16 @@ export function keyAction(s: TuiState, ev: KeyEvent): KeyResult {
     case "help":
       if (is(ev, "escape", "enter", "backspace", "f1") || ch(ev, "?", "q")) return { type: "back" };
       return null;
+    case "compose":
+      if (is(ev, "escape", "backspace", "left")) return { type: "back" };
+      if (is(ev, "up")) return { type: "move", delta: -1 };
+      if (is(ev, "down")) return { type: "move", delta: 1 };
+      if (is(ev, "enter")) return { type: "ask-composed" };
+      if (ch(ev, "?") || is(ev, "f1")) return { type: "help", show: true };
+      if (ch(ev, "q")) return "quit";
+      return null;
     case "card":
+      if (ch(ev, "c")) return { type: "compose", id: s.cards[s.cards.length - 1]!.id };
       if (is(ev, "escape", "backspace", "left")) return { type: "back" };
       if (is(ev, "up")) return { type: "move", delta: -1 };
       if (is(ev, "down")) return { type: "move", delta: 1 };
@@ -109,6 +119,10 @@ export function keyAction(s: TuiState, ev: KeyEvent): KeyResult {
       if (is(ev, "home")) return { type: "move", delta: -1e9 };
       if (is(ev, "end")) return { type: "move", delta: 1e9 };
       if (is(ev, "enter", "right")) return { type: "focus", pane: "detail" };
+      if (ch(ev, "c")) {
+        const id = s.view?.result.answers[s.answer]?.id;
+        return id === undefined ? null : { type: "compose", id };
+      }
       if (ch(ev, "m")) return { type: "focus", pane: "mentions" };
       if (is(ev, "escape")) return { type: "focus", pane: "question" };
       if (ev.kind === "text" && /^[1-4]$/.test(ev.text)) return { type: "tab-set", tab: DETAIL_TABS[Number(ev.text) - 1]! };
@@ -132,10 +146,19 @@ export function keyHint(s: TuiState): readonly HintItem[] {
   switch (keyView(s)) {
     case "help":
       return [{ key: "esc", what: "close help" }, { key: "ctrl-c", what: "quit" }];
+    case "compose":
+      return [
+        { key: "↑↓", what: "question" },
+        { key: "enter", what: "ask it" },
+        { key: "esc", what: "close" },
+        { key: "?", what: "help" },
+        { key: "q", what: "quit" },
+      ];
     case "card":
       return [
         { key: "↑↓", what: "neighbour" },
         { key: "enter", what: "open it" },
+        { key: "c", what: "compose" },
         { key: "esc", what: s.cards.length > 1 ? `back (${s.cards.length - 1})` : "close card" },
         { key: "?", what: "help" },
         { key: "q", what: "quit" },
@@ -166,6 +189,7 @@ export function keyHint(s: TuiState): readonly HintItem[] {
         { key: "↑↓", what: "answer" },
         { key: "enter", what: "details" },
         { key: "e", what: "card" },
+        { key: "c", what: "compose" },
         { key: "m", what: "fix links" },
         { key: "1-4", what: "detail tab" },
         { key: "/", what: "ask" },
@@ -208,6 +232,14 @@ export const HELP: readonly { readonly title: string; readonly keys: readonly Hi
       { key: "1 2 3 4", what: "detail: paths, coverage, ablation, suggested clues" },
       { key: "e", what: "entity card of the selected entity (from any pane)" },
       { key: "/", what: "back to the question line" },
+    ],
+  },
+  {
+    title: "compose",
+    keys: [
+      { key: "c (answers, card)", what: "questions whose only answer is the selected answer (or the card's entity), each asked back" },
+      { key: "↑ ↓ enter", what: "pick a composed question and ask it" },
+      { key: "esc", what: "back to the results" },
     ],
   },
   {

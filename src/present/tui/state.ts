@@ -7,7 +7,7 @@
  * older request are dropped (common practice for asynchronous UI state).
  */
 import { initialLine, lineReducer, type LineAction, type LineState } from "./line-editor.js";
-import type { EntityCard, OpenProgress, PinView, TuiResult } from "./view-types.js";
+import type { ComposeView, EntityCard, OpenProgress, PinView, TuiResult } from "./view-types.js";
 
 /** The panes of the main view, in Tab order. */
 export const PANES = ["question", "mentions", "answers", "detail"] as const;
@@ -26,6 +26,16 @@ export interface CardFrame {
   /** The loaded card; undefined while loading; null when the id is unknown. */
   readonly card?: EntityCard | null;
   /** Selected neighbour row. */
+  readonly cursor: number;
+}
+
+/** Questions composed for an intended answer, shown over the results (`c` on an answer or a card). */
+export interface ComposeFrame {
+  /** The intended answer's id. */
+  readonly id: string;
+  /** The composition; undefined while composing; null when the id is unknown. */
+  readonly view?: ComposeView | null;
+  /** Selected proposal. */
   readonly cursor: number;
 }
 
@@ -55,6 +65,8 @@ export interface TuiState {
   readonly help: boolean;
   /** Open entity cards, the top one last (empty: no card). */
   readonly cards: readonly CardFrame[];
+  /** Composed questions shown over the results and cards, when asked for. */
+  readonly compose?: ComposeFrame;
   /** The question being answered, when one is pending. */
   readonly request?: AskRequest;
   /** Last sequence number used. */
@@ -93,6 +105,10 @@ export type TuiAction =
   | { readonly type: "tab-set"; readonly tab: DetailTab }
   | { readonly type: "open-card"; readonly id: string }
   | { readonly type: "card-loaded"; readonly id: string; readonly card: EntityCard | null }
+  | { readonly type: "compose"; readonly id: string }
+  | { readonly type: "composed"; readonly id: string; readonly view: ComposeView | null }
+  /** Ask the selected composed question (it goes to the question line). */
+  | { readonly type: "ask-composed" }
   | { readonly type: "back" }
   | { readonly type: "help"; readonly show: boolean }
   | { readonly type: "progress"; readonly progress: OpenProgress }
@@ -159,7 +175,7 @@ export function detailEntities(s: TuiState): string[] {
 
 /** The entity a card would open on in the current view, or undefined. */
 export function focusedEntity(s: TuiState): string | undefined {
-  if (s.help) return undefined;
+  if (s.help || s.compose) return undefined;
   const top = s.cards[s.cards.length - 1];
   if (top) return top.card ? top.card.neighbours[top.cursor]?.id : undefined;
   const v = s.view;
@@ -207,6 +223,10 @@ export function tuiReducer(s: TuiState, a: TuiAction): TuiState {
       return { ...s, pane: next };
     }
     case "move": {
+      if (s.compose) {
+        const n = s.compose.view?.proposals.length ?? 0;
+        return { ...s, compose: { ...s.compose, cursor: clamp(s.compose.cursor + a.delta, 0, Math.max(0, n - 1)) } };
+      }
       const top = s.cards[s.cards.length - 1];
       if (top) {
         const n = top.card?.neighbours.length ?? 0;
@@ -265,8 +285,20 @@ export function tuiReducer(s: TuiState, a: TuiAction): TuiState {
       if (!top || top.id !== a.id || top.card !== undefined) return s;
       return { ...s, cards: [...s.cards.slice(0, -1), { ...top, card: a.card }] };
     }
+    case "compose":
+      if (s.engine !== "ready") return s;
+      return { ...s, help: false, compose: { id: a.id, cursor: 0 }, message: undefined };
+    case "composed":
+      if (!s.compose || s.compose.id !== a.id || s.compose.view !== undefined) return s;
+      return { ...s, compose: { ...s.compose, view: a.view } };
+    case "ask-composed": {
+      const p = s.compose?.view?.proposals[s.compose.cursor];
+      if (!p) return s;
+      return tuiReducer({ ...s, compose: undefined, cards: [], line: lineReducer(s.line, { type: "set", text: p.question }) }, { type: "submit" });
+    }
     case "back":
       if (s.help) return { ...s, help: false };
+      if (s.compose) return { ...s, compose: undefined };
       if (s.cards.length > 0) return { ...s, cards: s.cards.slice(0, -1) };
       return s;
     case "help":

@@ -65,6 +65,28 @@ export interface SuggestionView {
   readonly entity?: string;
 }
 
+/** One composed question (the compose stage's proposal) as the screen shows it. */
+export interface ComposedQuestionView {
+  readonly question: string;
+  /** Asked back, it came out unique with the intended answer first. */
+  readonly verified: boolean;
+  /** Why it is not verified (absent when verified). */
+  readonly reason?: string;
+  /** The facts it rests on, one line each (labels, salience percentile). */
+  readonly facts: readonly string[];
+  /** The candidate counts after the type and after each clue, e.g. "vessel 23 → 1". */
+  readonly proof: string;
+}
+
+/** Questions composed for an intended answer (compose on the screen). */
+export interface ComposeView {
+  readonly target: EntityRef;
+  readonly proposals: readonly ComposedQuestionView[];
+  /** Why nothing was found, when so. */
+  readonly notes: readonly string[];
+  readonly millis: number;
+}
+
 /** One answered question as the screen shows it. */
 export interface TuiResult {
   /** The contract document (question, mentions, answer types, answers with paths, verdict). */
@@ -141,6 +163,8 @@ export interface TuiEngine {
   ask(question: string, pins: readonly PinView[], top: number): Promise<TuiResult>;
   /** The card of an entity id, or null when the id is unknown. */
   card(id: string): Promise<EntityCard | null>;
+  /** Questions whose only answer is the entity id (the compose stage), or null when the id is unknown. */
+  compose?(id: string): Promise<ComposeView | null>;
   /** Releases the catalog. */
   close(): void;
 }

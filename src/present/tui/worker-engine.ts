@@ -5,16 +5,16 @@
  */
 import { Worker } from "node:worker_threads";
 import type { EngineSource } from "./engine.js";
-import type { EntityCard, OpenProgress, TuiEngine, TuiResult } from "./view-types.js";
+import type { ComposeView, EntityCard, OpenProgress, TuiEngine, TuiResult } from "./view-types.js";
 import type { WorkerReply, WorkerRequest } from "./worker-protocol.js";
 
 /** Opens the engine in a worker thread; resolves when the catalog is open. */
 export function workerEngine(source: EngineSource, onProgress?: (p: OpenProgress) => void): Promise<TuiEngine> {
   const worker = new Worker(new URL("./engine-worker.js", import.meta.url), { workerData: { db: source.db, timeLimitMs: source.timeLimitMs } });
-  const pending = new Map<number, { resolve: (v: TuiResult | EntityCard | null) => void; reject: (e: Error) => void }>();
+  const pending = new Map<number, { resolve: (v: TuiResult | EntityCard | ComposeView | null) => void; reject: (e: Error) => void }>();
   let next = 1;
   const call = (req: WorkerRequest & { id: number }) =>
-    new Promise<TuiResult | EntityCard | null>((resolve, reject) => {
+    new Promise<TuiResult | EntityCard | ComposeView | null>((resolve, reject) => {
       pending.set(req.id, { resolve, reject });
       worker.postMessage(req);
     });
@@ -38,6 +38,7 @@ export function workerEngine(source: EngineSource, onProgress?: (p: OpenProgress
             title: m.title,
             ask: (question, pins, top) => call({ op: "ask", id: next++, question, pins, top }) as Promise<TuiResult>,
             card: (entity) => call({ op: "card", id: next++, entity }) as Promise<EntityCard | null>,
+            compose: (entity) => call({ op: "compose", id: next++, entity }) as Promise<ComposeView | null>,
             close: () => {
               worker.postMessage({ op: "close" } satisfies WorkerRequest);
               setTimeout(() => void worker.terminate(), 200).unref();

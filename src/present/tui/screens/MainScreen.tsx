@@ -7,6 +7,7 @@ import { Box, Text } from "ink";
 import { useContext } from "react";
 import { AnswerList } from "../components/AnswerList.js";
 import { DetailPane } from "../components/DetailPane.js";
+import { ComposeViewPane } from "../components/ComposeViewPane.js";
 import { EntityCardView } from "../components/EntityCardView.js";
 import { HelpView } from "../components/HelpView.js";
 import { KeyHint } from "../components/KeyHint.js";
@@ -58,6 +59,8 @@ export function MainScreen(props: MainScreenProps) {
   let body;
   if (s.help) {
     body = <HelpView sections={HELP} rows={layout.bodyRows - 1} width={W} />;
+  } else if (s.compose) {
+    body = <ComposeViewPane view={s.compose.view} id={s.compose.id} cursor={s.compose.cursor} rows={layout.bodyRows - 1} width={W} />;
   } else if (top) {
     body = <EntityCardView card={top.card} id={top.id} cursor={top.cursor} depth={s.cards.length} rows={layout.bodyRows - 1} width={W} />;
   } else if (!v) {

@@ -7,6 +7,7 @@ import { useCallback, useReducer } from "react";
 import { ThemeContext } from "../components/ThemeContext.js";
 import { useAsk } from "../hooks/use-ask.js";
 import { useCard } from "../hooks/use-card.js";
+import { useCompose } from "../hooks/use-compose.js";
 import { useEngine, type EngineOpener } from "../hooks/use-engine.js";
 import { useKeys } from "../hooks/use-keys.js";
 import { useTerminalSize } from "../hooks/use-terminal-size.js";
@@ -45,6 +46,7 @@ export function TuiApp(props: TuiAppProps) {
   });
   useAsk(engine, state.request, props.top ?? 10, dispatch);
   useCard(engine, state.cards[state.cards.length - 1], dispatch);
+  useCompose(engine, state.compose, dispatch);
   const onKey = useCallback(
     (ev: Parameters<typeof keyAction>[1]) => {
       const r = keyAction(state, ev);
