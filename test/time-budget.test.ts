@@ -46,6 +46,9 @@ describe("time budget per question", () => {
       const budget = cut.result.budget!;
       expect(budget).toMatchObject({ limitMs: 1, hit: true });
       expect(budget.cut).toEqual(expect.arrayContaining(["ablation", "why-not"]));
+      // linking's optional passes, the ranking's cue-path check and the first answer's alternative paths look at it too
+      expect(budget.cut).toEqual(expect.arrayContaining(["linking", "ranking", "paths"]));
+      expect(cut.result.answers[0]!.paths.length).toBeLessThanOrEqual(full.result.answers[0]!.paths.length);
       expect(cut.explanation!.ablation).toEqual([]);
       // the path search of why-not is cut; the report keeps only the figures read without a search
       expect(full.explanation!.whyNot[0]!.perClue.length).toBeGreaterThan(0);

@@ -186,7 +186,8 @@ export function findPaths(
       if (seeds.some((s) => s.node === a)) return [];
       const paths: NumPath[] = [];
       if (target >= 0) {
-        if (ai < o.alternativesFor && o.alternatives > 0) {
+        // the time budget: once spent, the first answer keeps its cheapest path only (no alternatives)
+        if (ai < o.alternativesFor && o.alternatives > 0 && !(ai === 0 && deadline?.stop("paths"))) {
           for (const p of yenOnArcs(ev, ev.virtualOf(ci), target, o.alternatives + 1, keyOf)) {
             const np = toPath(ci, a, p.arcs);
             if (np) paths.push(np);

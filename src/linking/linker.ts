@@ -107,6 +107,12 @@ export interface LinkOptions {
   readonly maxAlternatives?: number;
   /** Weights of the confidence combination (see collective-disambiguation.ts). */
   readonly scoring?: ScoringOptions;
+  /**
+   * The question's time budget: once this says true, the optional passes are left out —
+   * definite descriptions matched against the entities' descriptions, and the nearest names
+   * offered for unlinked words (names are still linked). @default never
+   */
+  readonly stop?: () => boolean;
 }
 
 /** Options of {@link Linker.fromCatalog}. */
@@ -516,7 +522,7 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
   const allEligible = !toks.some((t, k) => k > 0 && t.upper > 0);
   const detected = detectMentions(toks, linker, blocked, allEligible);
   const vocabulary = linker.vocabularyOccurrences(toks);
-  const { spans: described, replaced } = describedSpans(toks, detected.spans, blocked, vocabulary, linker);
+  const { spans: described, replaced } = options.stop?.() ? { spans: [] as DetectedSpan[], replaced: new Set<DetectedSpan>() } : describedSpans(toks, detected.spans, blocked, vocabulary, linker);
   const det = {
     spans: [...detected.spans.filter((sp) => !replaced.has(sp)), ...described].sort((a, b) => a.first - b.first),
     unmatched: detected.unmatched.filter((u) => !described.some((d) => u.first < d.last && d.first < u.last)),
@@ -584,7 +590,7 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
       ...(u.relationWord ? { relationWord: true } : {}),
     }))
     .sort((a, b) => a.start - b.start);
-  if (mentions.length === 0 && unlinked.length === 0) {
+  if (mentions.length === 0 && unlinked.length === 0 && !options.stop?.()) {
     // nothing linked and no name-like words: offer the nearest names for the content words
     const runs: [number, number][] = [];
     for (let i = 0; i < toks.length; i++) {

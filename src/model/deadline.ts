@@ -15,7 +15,7 @@ export const DEFAULTS = {
 } as const;
 
 /** The stages a deadline can cut, in the order they run. */
-export type CutStage = "conditions" | "other senses" | "paths" | "ablation" | "suggestions" | "why-not" | "suggestion checks";
+export type CutStage = "linking" | "ranking" | "conditions" | "other senses" | "paths" | "ablation" | "suggestions" | "why-not" | "suggestion checks";
 
 /** A question's deadline: `expired()` is cheap enough to call in a loop. */
 export class Deadline {
@@ -61,7 +61,7 @@ export class Deadline {
 
   /** The stages cut so far, in the order they run. */
   get cuts(): CutStage[] {
-    const order: CutStage[] = ["conditions", "paths", "ablation", "suggestions", "why-not", "suggestion checks"];
+    const order: CutStage[] = ["linking", "ranking", "conditions", "other senses", "paths", "ablation", "suggestions", "why-not", "suggestion checks"];
     return order.filter((s) => this.cutStages.has(s));
   }
 

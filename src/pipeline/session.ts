@@ -152,7 +152,7 @@ export class Session {
     checkQuestionLength(question);
     const t0 = performance.now();
     const deadline = new Deadline(options.timeLimitMs ?? DEADLINE_DEFAULTS.timeLimitMs);
-    const linked = linkQuestion(question, this.linker, options.pins !== undefined ? { pins: options.pins } : {});
+    const linked = linkQuestion(question, this.linker, { stop: () => deadline.stop("linking"), ...(options.pins !== undefined ? { pins: options.pins } : {}) });
     const link = capMentions(linked);
     const limitNotes =
       link === linked ? [] : [`${linked.mentions.length} names were linked; only the ${LIMITS.maxMentions} most confident are used as clues (limit: README "Failure modes")`];
@@ -267,7 +267,7 @@ export class Session {
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();
     if (cond.value || cond.compare) return { cond, analysis, reading, lookup, pprMemo };
-    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, ...(dropClues ? { dropClues } : {}) });
+    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, deadline, ...(dropClues ? { dropClues } : {}) });
     const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup, { deadline }) : undefined;
     // the entities that satisfy the reading (all of them, not only the ranking's first `matched`), before any filter or reordering
     const matchedNodes = new Set(ranked0.fallback ? [] : (ranked0.matchedNodes?.() ?? ranked0.candidates.slice(0, ranked0.matched ?? 0).map((c) => c.node)));

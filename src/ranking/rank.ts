@@ -132,6 +132,8 @@ export interface RankOptions extends CombineOptions {
   readonly reading?: RankReading;
   /** Options of the pattern search (chain-reach.ts). */
   readonly chainReach?: ChainReachOptions;
+  /** The question's time budget: once spent, the cue-path check (an ordering refinement) is left out and "ranking" is recorded as cut. @default none */
+  readonly deadline?: { stop(stage: "ranking"): boolean };
 }
 
 /** The parts of the question's reading (analysis `QueryGraph`) that the ranking evaluates. */
@@ -369,7 +371,8 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   const cueMiss = options.cueMiss ?? DEFAULTS.cueMiss;
   // the cue-path search may enter the pool and the seeds (as bits: it tests every entry it scans)
   let cueFit: ((v: number) => number) | undefined;
-  if (cueMiss < 1) {
+  // the time budget: once spent, the cue-path search (an ordering refinement) is left out
+  if (cueMiss < 1 && !options.deadline?.stop("ranking")) {
     const within = nodeBitsFor(index, "rank/within", index.nodeCount);
     for (const v of poolNodes) within.add(v);
     for (const v of seedList) if (v >= 0 && v < index.nodeCount) within.add(v);
