@@ -13,8 +13,8 @@
  *
  * Writes bench-results/bench-SIZES-TIME.json and .md, and bench-results/latest.md.
  * Options: --size S|M|L (repeatable or comma-separated), --questions N (default 200),
- * --phases generate,load,index,ready,ask,ppr,graph (a subset, in that order; default all but
- * graph; later phases reuse the catalog the earlier ones left in the work folder; `graph`
+ * --phases generate,load,index,ready,ask,ppr,compose,graph (a subset, in that order; default all but
+ * graph; `compose` times `tiepoint compose` per target (src/bench/compose.ts, issue 22); later phases reuse the catalog the earlier ones left in the work folder; `graph`
  * repeats the PageRank comparison on a seeded power-law graph of the size's node and edge
  * counts without any catalog, src/bench/graph.ts),
  * --work DIR (generated catalogs; default $TMPDIR/tiepoint-bench), --out DIR.
@@ -26,6 +26,7 @@ import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { phaseAsk, phaseGenerate, phaseGraph, phaseIndex, phaseLoad, phasePpr, phaseReady } from "./phases.js";
 import { findIgraph } from "./igraph.js";
+import { phaseCompose } from "./compose.js";
 import { renderMarkdown, type SizeResult } from "./report.js";
 
 /** The three catalog sizes of issue 9, and per-size query counts. */
@@ -48,7 +49,7 @@ const USAGE = `usage: npm run bench -- [--size S|M|L]… [--questions N] [--work
   --questions N    generated questions asked per size (default 200)
   --work DIR       where generated catalogs, snapshots and igraph files go (default $TMPDIR/tiepoint-bench)
   --out DIR        where the JSON and Markdown results go (default bench-results/)
-  --phases LIST    comma-separated subset of generate,load,index,ready,ask,ppr,graph
+  --phases LIST    comma-separated subset of generate,load,index,ready,ask,ppr,compose,graph
                    (default all but graph; later phases reuse the work folder of earlier runs)
 
 The igraph columns need python3-igraph (apt-get install python3-igraph, or pip install igraph);
@@ -66,7 +67,7 @@ function args(argv: readonly string[]) {
   let work = join(tmpdir(), "tiepoint-bench");
   let out = join(ROOT, "bench-results");
   let phase: string | undefined;
-  let phases = ["generate", "load", "index", "ready", "ask", "ppr"];
+  let phases = ["generate", "load", "index", "ready", "ask", "ppr", "compose"];
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     if (a === "--help" || a === "-h") {
@@ -87,7 +88,7 @@ function args(argv: readonly string[]) {
     else if (a === "--phase") phase = next();
     else if (a === "--phases") {
       phases = next().split(",").map((x) => x.trim());
-      for (const x of phases) if (!["generate", "load", "index", "ready", "ask", "ppr", "graph"].includes(x)) usage(`unknown phase "${x}" (generate, load, index, ready, ask, ppr, graph)`);
+      for (const x of phases) if (!["generate", "load", "index", "ready", "ask", "ppr", "compose", "graph"].includes(x)) usage(`unknown phase "${x}" (generate, load, index, ready, ask, ppr, compose, graph)`);
     }
     else usage(`unknown option ${a}`);
   }
@@ -123,6 +124,8 @@ function runPhase(phase: string, size: SizeName, work: string, questions: number
       return phaseAsk(work, questions);
     case "ppr":
       return phasePpr(work, questions, s.exact, s.igraph);
+    case "compose":
+      return phaseCompose(work, questions);
     case "graph":
       return phaseGraph(work, s.entities, s.edges, questions, s.exact, s.igraph);
     default:
@@ -155,7 +158,7 @@ function main(): void {
     const s = SIZES[size];
     process.stderr.write(`bench ${size}: ${s.entities} entities, ${s.edges} edges (work folder ${work})\n`);
     const r: SizeResult = { size, entities: s.entities, edges: s.edges, phases: {} };
-    for (const phase of ["generate", "load", "index", "ready", "ask", "ppr", "graph"]) {
+    for (const phase of ["generate", "load", "index", "ready", "ask", "ppr", "compose", "graph"]) {
       if (!o.phases.includes(phase)) continue;
       process.stderr.write(`bench ${size}: ${phase}…\n`);
       if (phase === "ready") {

@@ -22,8 +22,8 @@ import { csrOf, type RelationIndex } from "./relation-index.js";
 export const DEFAULTS = Object.freeze({
   /** Damping factor (follow probability) of Page et al. */
   damping: 0.85,
-  /** Stop when the L1 change of one iteration is below this. */
-  tolerance: 1e-9,
+  /** Stop when the L1 change of one iteration is below this (percentiles need ranks, not digits). */
+  tolerance: 1e-6,
   /** Iteration cap (the error then is at most 0.85^k in L1; common practice). */
   maxIterations: 100,
 });
@@ -32,7 +32,7 @@ export const DEFAULTS = Object.freeze({
 export interface SalienceOptions {
   /** @default 0.85 */
   readonly damping?: number;
-  /** @default 1e-9 */
+  /** @default 1e-6 */
   readonly tolerance?: number;
   /** @default 100 */
   readonly maxIterations?: number;
@@ -67,21 +67,25 @@ export function salienceOf(index: RelationIndex, options: SalienceOptions = {}):
   for (let u = 0; u < n; u++) if (offsets[u + 1]! > offsets[u]!) linked++;
   let x = new Float64Array(n);
   let y = new Float64Array(n);
+  // x[u] / deg(u), once per iteration, so the pull loop reads one array at random
+  const share = new Float64Array(n);
+  const inv = new Float64Array(n);
+  for (let u = 0; u < n; u++) {
+    const d = offsets[u + 1]! - offsets[u]!;
+    inv[u] = d > 0 ? 1 / d : 0;
+  }
   let iterations = 0;
   if (linked > 0) {
     for (let u = 0; u < n; u++) if (offsets[u + 1]! > offsets[u]!) x[u] = 1 / linked;
     for (; iterations < maxIterations; ) {
       iterations++;
-      y.fill(0);
+      for (let u = 0; u < n; u++) share[u] = x[u]! * inv[u]!;
       // pull form over the symmetric adjacency: y[v] = Σ_{u ~ v} x[u] / deg(u)
       for (let v = 0; v < n; v++) {
         const s = offsets[v]!;
         const e = offsets[v + 1]!;
         let sum = 0;
-        for (let i = s; i < e; i++) {
-          const u = targets[i]!;
-          sum += x[u]! / (offsets[u + 1]! - offsets[u]!);
-        }
+        for (let i = s; i < e; i++) sum += share[targets[i]!]!;
         y[v] = sum;
       }
       const teleport = (1 - damping) / linked;
@@ -99,16 +103,25 @@ export function salienceOf(index: RelationIndex, options: SalienceOptions = {}):
     }
   }
   const pr = x;
-  const order: number[] = [];
-  for (let u = 0; u < n; u++) if (offsets[u + 1]! > offsets[u]!) order.push(u);
-  order.sort((a, b) => pr[a]! - pr[b]! || a - b);
+  // percentile = (linked entities with a strictly smaller PageRank) / (linked − 1): a native
+  // sort of the values, then a binary search per entity (ties share the lower rank)
+  const values = new Float64Array(linked);
+  let k = 0;
+  for (let u = 0; u < n; u++) if (offsets[u + 1]! > offsets[u]!) values[k++] = pr[u]!;
+  values.sort();
   const percentile = new Float32Array(n);
-  const denom = Math.max(order.length - 1, 1);
-  for (let i = 0; i < order.length; ) {
-    let j = i;
-    while (j + 1 < order.length && pr[order[j + 1]!] === pr[order[i]!]) j++;
-    for (let k = i; k <= j; k++) percentile[order[k]!] = order.length === 1 ? 1 : i / denom;
-    i = j + 1;
+  const denom = Math.max(linked - 1, 1);
+  for (let u = 0; u < n; u++) {
+    if (offsets[u + 1]! === offsets[u]!) continue;
+    const v = pr[u]!;
+    let lo = 0;
+    let hi = linked;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (values[mid]! < v) lo = mid + 1;
+      else hi = mid;
+    }
+    percentile[u] = linked === 1 ? 1 : lo / denom;
   }
   const out: Salience = { pagerank: pr, percentile, iterations };
   if (!custom) cache.set(index, out);
