@@ -14,8 +14,9 @@
  * product construction of regular path query evaluation (Mendelzon & Wood 1995, "Finding
  * regular simple paths in graph databases", SIAM J. Comput. 24(6)) with the path cost model's
  * step costs (path-cost.ts), so among the walks on the pattern the one carrying the most of
- * the walk's mass is shown. The layers before the last hop are built once per clue; each
- * answer then costs one read of its own row (its entries walked backwards). A walk that comes
+ * the walk's mass is shown. The layers before the last hop are built once per clue, and the
+ * last hop is taken forwards once for all answers when its rows fit in the budget (else each
+ * answer costs one read of its own row, its entries walked backwards). A walk that comes
  * back to a node it passed is not shown (the best simple one is taken instead, when the last
  * hop offers one).
  */
@@ -95,19 +96,49 @@ export function patternWalks(graph: WalkGraph, cost: PathCostModel, start: numbe
     }
     return steps;
   };
+  type Option = { u: number; rel: number; inverse: boolean; total: number; step: number };
+  const before = (a: Option, b: Option) => a.total - b.total || a.u - b.u || a.rel - b.rel || Number(a.inverse) - Number(b.inverse);
+  // the last hop taken forwards once for every answer, when the last layer's rows fit in what
+  // is left of the budget: per node reached, its best option (same order as the per-answer scan)
+  let ahead: Map<number, Option> | null | undefined;
+  const forward = (): Map<number, Option> | null => {
+    let work = 0;
+    for (const u of last.keys()) work += graph.degree(u);
+    if (visits + work > maxVisits) return null;
+    const best = new Map<number, Option>();
+    for (const [u, at] of last) {
+      graph.forEach(u, (v, rel, inverse) => {
+        if (v === start || !allows(allowed[k - 1]!, rel, inverse)) return;
+        const c = stepCost(u, v, rel);
+        if (!(c < Infinity)) return;
+        const o = { u, rel, inverse, total: at.cost + c, step: c };
+        const old = best.get(v);
+        if (!old || before(o, old) < 0) best.set(v, o);
+      });
+    }
+    return best;
+  };
   return {
     path(answer: number): NumStep[] | undefined {
       if (!(answer >= 0 && answer < graph.nodeCount) || answer === start) return undefined;
+      if (ahead === undefined) ahead = forward();
+      if (ahead !== null) {
+        const o = ahead.get(answer);
+        if (!o) return undefined;
+        const steps = [...back(o.u), { from: o.u, to: answer, rel: o.rel, inverse: o.inverse, cost: o.step }];
+        // the best walk passes a node twice: the full scan below looks at the next ones
+        if (new Set([start, ...steps.map((x) => x.to)]).size === steps.length + 1) return steps;
+      }
       // the last hop, read from the answer's row: an entry (u, rel, inverse) at the answer is
       // the step u → answer walked the other way
-      const options: { u: number; rel: number; inverse: boolean; total: number; step: number }[] = [];
+      const options: Option[] = [];
       graph.forEach(answer, (u, rel, inverse) => {
         const at = last.get(u);
         if (!at || !allows(allowed[k - 1]!, rel, !inverse)) return;
         const c = stepCost(u, answer, rel);
         if (c < Infinity) options.push({ u, rel, inverse: !inverse, total: at.cost + c, step: c });
       });
-      options.sort((a, b) => a.total - b.total || a.u - b.u || a.rel - b.rel || Number(a.inverse) - Number(b.inverse));
+      options.sort(before);
       for (const o of options) {
         const steps = [...back(o.u), { from: o.u, to: answer, rel: o.rel, inverse: o.inverse, cost: o.step }];
         const nodes = new Set([start, ...steps.map((s) => s.to)]);
