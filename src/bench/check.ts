@@ -5,7 +5,9 @@
  *
  * Reported: the cold call (first use of the catalog: builds the relation-index snapshot and
  * whatever the linker persists), a warm second call, the check's own `summary.seconds`, the
- * quality figures of the generated set, and an HTML report of the same run (`--format html`).
+ * quality figures of the generated set, an HTML report of the same run (`--format html`), and a
+ * check of the generated condition questions (conditions.tsv: superlatives, comparisons and
+ * counts over sets of 100 to 5,000, gold from the generated values).
  *
  * Options: --entities N --edges N --questions N --seed N --keep (keep the temp folder),
  * --cold-only (only the cold call: no warm call, no HTML).
@@ -75,6 +77,10 @@ try {
   const html = join(dir, "report.html");
   if (!quick) say(`check --format html (${warm.seconds.toFixed(1)} s warm)`);
   const page = quick ? null : timedCheck([gen.questions, "--db", db, "--format", "html", "--out", html]);
+  // the condition questions (superlatives, comparisons, counts over sets of 100 to 5,000), one warm call
+  say(`check of ${gen.conditionQuestionCount} condition questions`);
+  const conds = timedCheck([gen.conditionQuestions, "--db", db, "--json"]);
+  const cs = (JSON.parse(conds.stdout) as CheckReport).summary;
   const report = JSON.parse(warm.stdout) as CheckReport;
   const s = report.summary;
   const result = {
@@ -87,6 +93,7 @@ try {
     millisPerQuestion: +((s.seconds * 1000) / Math.max(1, s.questions)).toFixed(2),
     htmlCallSeconds: page ? +page.seconds.toFixed(2) : null,
     htmlMebibytes: page ? +(statSync(html).size / 2 ** 20).toFixed(1) : null,
+    conditions: { questions: cs.questions, seconds: +conds.seconds.toFixed(2), millisPerQuestion: +((cs.seconds * 1000) / Math.max(1, cs.questions)).toFixed(2), hits1: +cs.hits1.toFixed(3), budgetHit: cs.budgetHit },
     quality: { withExpected: s.withExpected, hits1: +s.hits1.toFixed(3), hits5: +s.hits5.toFixed(3), mrr: +s.mrr.toFixed(3), verdicts: s.verdicts },
     loadAverage: loadavg().map((x) => +x.toFixed(1)),
     target: DEFAULTS.targetSeconds,

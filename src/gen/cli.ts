@@ -15,7 +15,7 @@ function int(value: string): number {
 
 const program = new Command()
   .name("gen")
-  .description("Writes a synthetic tiepoint catalog (schema.nt, entities.nt, edges.nt) and questions.tsv.")
+  .description("Writes a synthetic tiepoint catalog (schema.nt, entities.nt, edges.nt) questions.tsv and conditions.tsv.")
   .option("--entities <n>", "number of entities", int, GENERATE_DEFAULTS.entities)
   .option("--edges <m>", "number of relation edges", int, GENERATE_DEFAULTS.edges)
   .option("--seed <s>", "random seed", int, GENERATE_DEFAULTS.seed)
@@ -49,6 +49,7 @@ try {
       `max degree     ${r.maxDegree}`,
       `shared labels  ${r.sharedLabels}`,
       `questions      ${r.questionCount}  (${r.questions})`,
+      `conditions     ${r.conditionQuestionCount}  (${r.conditionQuestions}: superlatives, comparisons, counts over sets of 100 to 5,000)`,
       `files          ${r.files.join(" ")}`,
       `seconds        ${r.seconds.toFixed(1)}`,
       `load with:     tiepoint load ${r.files.join(" ")} --db ${o.out}/catalog.db`,

@@ -11,7 +11,7 @@ import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Catalog, loadFiles } from "../catalog/index.js";
 import { TiepointError } from "../model/index.js";
-import { RELATIONS, TYPES } from "./schema.js";
+import { ATTRIBUTES, RELATIONS, TYPES } from "./schema.js";
 import { generateCatalog, IRI } from "./synthetic.js";
 import type { GenerateResult } from "./synthetic.js";
 
@@ -170,5 +170,53 @@ describe("generated questions", () => {
     const shared = one("SELECT count(*) FROM (SELECT label FROM entity GROUP BY label HAVING count(DISTINCT num) > 1)")[0]!;
     expect(shared).toBeGreaterThan(0);
     expect(result.sharedLabels).toBeGreaterThan(0);
+  });
+});
+
+describe("generated condition questions (conditions.tsv)", () => {
+  it("are over sets of 100 or more, and their expected answers equal SQL over the imported catalog", () => {
+    const dir = tmp();
+    const r = generateCatalog({ out: dir, entities: 20000, edges: 100000, seed: 1, questions: 30 });
+    const cat = Catalog.open(join(dir, "catalog.db"), { create: true });
+    try {
+      loadFiles(cat, r.files);
+      const esc = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
+      const V = `(${[...RELATIONS].map((x) => x.verb).sort((a, b) => b.length - a.length).map(esc).join("|")})`;
+      const A = `(${ATTRIBUTES.map((a) => a.label).sort((a, b) => b.length - a.length).map(esc).join("|")})`;
+      const sup = new RegExp(`^Which .+? that ${V} (.+) has the (largest|smallest) ${A}\\?$`);
+      const cmp = new RegExp(`^(?:Which|How many) .+? that ${V} (.+) have a ${A} above (\\d+)\\?$`);
+      const lines = readFileSync(r.conditionQuestions, "utf8").split("\n").filter((l) => l !== "");
+      expect(lines.length).toBe(r.conditionQuestionCount);
+      expect(lines.length).toBeGreaterThanOrEqual(20);
+      const one = (sql: string, ...a: unknown[]) => cat.db.prepare(sql).pluck().all(...a) as number[];
+      const setOf = (verb: string, label: string, attr: string) => {
+        const rel = one("SELECT num FROM predicate WHERE id = ?", IRI.relation + RELATIONS.find((x) => x.verb === verb)!.key)[0]!;
+        const pred = one("SELECT num FROM predicate WHERE id = ?", IRI.attribute + ATTRIBUTES.find((a) => a.label === attr)!.key)[0]!;
+        const b = one("SELECT num FROM entity WHERE label = ?", label);
+        expect(b, label).toHaveLength(1);
+        return cat.db.prepare("SELECT e.src AS x, a.num AS v FROM edge e JOIN attribute a ON a.entity = e.src AND a.predicate = ? WHERE e.rel = ? AND e.dst = ?").all(pred, rel, b[0]) as { x: number; v: number }[];
+      };
+      for (const line of lines) {
+        const [q, exp] = line.split("\t") as [string, string];
+        const expected = exp.split("|").map((id) => cat.numOf(id)!).sort((a, b) => a - b);
+        let m: RegExpExecArray | null;
+        let got: number[];
+        let size: number;
+        if ((m = sup.exec(q))) {
+          const rows = setOf(m[1]!, m[2]!, m[4]!);
+          const best = m[3] === "largest" ? Math.max(...rows.map((x) => x.v)) : Math.min(...rows.map((x) => x.v));
+          got = rows.filter((x) => x.v === best).map((x) => x.x);
+          size = rows.length;
+        } else if ((m = cmp.exec(q))) {
+          const rows = setOf(m[1]!, m[2]!, m[3]!);
+          got = rows.filter((x) => x.v > Number(m![4])).map((x) => x.x);
+          size = rows.length;
+        } else throw new Error(`unparsed condition question: ${q}`);
+        expect(size, q).toBeGreaterThanOrEqual(100);
+        expect([...new Set(got)].sort((a, b) => a - b), q).toEqual(expected);
+      }
+    } finally {
+      cat.close();
+    }
   });
 });

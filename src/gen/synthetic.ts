@@ -23,6 +23,11 @@ import { ATTRIBUTES, LEAVES, leafRun, RELATIONS, TYPES, typeOfRun } from "./sche
 
 /** Defaults of {@link generateCatalog}. */
 export const DEFAULTS = {
+  /** Condition questions written to conditions.tsv (at most `questions`). */
+  conditionQuestions: 30,
+  /** Smallest and largest set a condition question is over. */
+  conditionSetMin: 100,
+  conditionSetMax: 5000,
   entities: 10_000,
   edges: 50_000,
   seed: 1,
@@ -70,6 +75,13 @@ export interface GenerateResult {
   readonly files: readonly string[];
   /** The question file (`question<TAB>id|id…`, the check format). */
   readonly questions: string;
+  /**
+   * Questions with conditions over large sets (the check format): superlatives, comparisons
+   * and counts over the subjects of one relation to one entity, sets of at least
+   * `DEFAULTS.conditionSetMin` members, gold computed from the generated values.
+   */
+  readonly conditionQuestions: string;
+  readonly conditionQuestionCount: number;
   readonly entities: number;
   /** Edge lines written (a few may repeat an earlier triple; the catalog keeps one). */
   readonly edges: number;
@@ -453,10 +465,58 @@ export function generateCatalog(options: GenerateOptions): GenerateResult {
     }
   }
   qs.close();
+
+  // --- conditions.tsv: superlative, comparison and count questions over sets of hundreds
+  const cPath = join(options.out, "conditions.tsv");
+  const cs = new Sink(cPath);
+  const attrsOfLeaf = LEAVES.map((l) => ATTRIBUTES.filter((a) => a.leaves.includes(l.key)));
+  // the value the entities file states (same formula as there)
+  const valueOf = (e: number, a: (typeof ATTRIBUTES)[number]): number => a.min + (hash32(e, 11 + a.key.length * 13 + a.key.charCodeAt(0)) % (a.max - a.min + 1));
+  const plural = (w: string) => (/[^aeiou]y$/.test(w) ? `${w.slice(0, -1)}ies` : /(s|sh|ch|x)$/.test(w) ? `${w}es` : `${w}s`);
+  const cWant = Math.min(Q, DEFAULTS.conditionQuestions);
+  const cSeen = new Set<string>();
+  let cWritten = 0;
+  const crng = new Rng(seed ^ 0x2c1b3c6d);
+  for (let tries = 0; cWritten < cWant && tries < cWant * 400 && M > 0; tries++) {
+    const i = crng.int(M);
+    const b = dst[i]!;
+    const r1 = rel[i]!;
+    if (shared[b]) continue;
+    const key = `${b}:${r1}`;
+    if (cSeen.has(key)) continue;
+    cSeen.add(key);
+    const xs = nbrs(inn, b, r1);
+    if (xs.length < DEFAULTS.conditionSetMin || xs.length > DEFAULTS.conditionSetMax) continue;
+    // an attribute every member's class carries (one leaf class per relation domain run)
+    const leaves = [...new Set(xs.map(leafOf))];
+    const common = attrsOfLeaf[leaves[0]!]!.filter((a) => leaves.every((l) => attrsOfLeaf[l]!.includes(a)));
+    const a = common[crng.int(Math.max(common.length, 1))];
+    if (!a) continue;
+    const [lo, hi] = domRun(r1);
+    const type = typeLabelOfRun(lo, hi);
+    const verb = RELATIONS[r1]!.verb;
+    const vals = xs.map((x) => valueOf(x, a));
+    const kind = cWritten % 3;
+    if (kind === 0) {
+      const largest = crng.next() < 0.5;
+      const best = largest ? Math.max(...vals) : Math.min(...vals);
+      cs.write(`Which ${type} that ${verb} ${label(b)} has the ${largest ? "largest" : "smallest"} ${a.label}?\t${ids(xs.filter((_, k) => vals[k] === best))}\n`);
+    } else {
+      // the threshold: the set's median value, so about half the set passes
+      const t = [...vals].sort((u, v) => u - v)[vals.length >> 1]!;
+      const pass = xs.filter((_, k) => vals[k]! > t);
+      if (pass.length === 0) continue;
+      cs.write(kind === 1 ? `Which ${plural(type)} that ${verb} ${label(b)} have a ${a.label} above ${t}?\t${ids(pass)}\n` : `How many ${plural(type)} that ${verb} ${label(b)} have a ${a.label} above ${t}?\t${ids(pass)}\n`);
+    }
+    cWritten++;
+  }
+  cs.close();
   progress("done", 1);
   return {
     files,
     questions: qPath,
+    conditionQuestions: cPath,
+    conditionQuestionCount: cWritten,
     entities: N,
     edges: M,
     questionCount: written,
