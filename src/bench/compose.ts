@@ -1,7 +1,7 @@
 /**
  * The compose phase of `npm run bench` (issue 22): per-target time of `compose` on the
  * generated catalog, for N targets drawn by a seeded shuffle among the entities with at least
- * three relation edges (the evaluation's sampling, src/eval/compose-figures.ts), after five
+ * three relation edges (Fisher–Yates with ranking's mulberry32 generator), after five
  * warm-up targets not counted. Reported: the whole composition with its round trips (median,
  * p95), the part before the round trips (candidate facts and the search), the round trips
  * alone, the share of targets with a verified proposal, and the Session's open time. Timings
@@ -9,7 +9,7 @@
  */
 import { Composer } from "../compose/index.js";
 import { Session } from "../pipeline/index.js";
-import { sampleTargets } from "../eval/compose-figures.js";
+import { mulberry32 } from "../ranking/index.js";
 import { workPaths } from "./phases.js";
 
 /** Defaults of {@link phaseCompose}. */
@@ -20,6 +20,17 @@ const quantile = (xs: readonly number[], q: number): number => {
   return s.length === 0 ? NaN : s[Math.min(s.length - 1, Math.max(0, Math.ceil(q * s.length) - 1))]!;
 };
 const round = (x: number) => Math.round(x * 10) / 10;
+
+/** `n` entities with at least three relation edges, by a seeded Fisher–Yates shuffle (Knuth, TAOCP vol. 2, Algorithm P). */
+function sampleTargets(session: Session, n: number, seed: number): number[] {
+  const pool = (session.catalog.db.prepare("SELECT num FROM entity ORDER BY num").pluck().all() as number[]).filter((u) => session.index.degree(u) >= 3);
+  const rnd = mulberry32(seed);
+  for (let i = pool.length - 1; i > 0; i--) {
+    const j = Math.floor(rnd() * (i + 1));
+    [pool[i], pool[j]] = [pool[j]!, pool[i]!];
+  }
+  return pool.slice(0, n);
+}
 
 /** Composes for `targets` seeded targets of the work folder's catalog and times each. */
 export function phaseCompose(work: string, targets: number = DEFAULTS.targets): Record<string, unknown> {
