@@ -189,6 +189,9 @@ class Bounded<K, V> {
     }
     return v;
   }
+  clear(): void {
+    this.map.clear();
+  }
 }
 
 interface ContextDoc {
@@ -222,6 +225,18 @@ export class Linker implements AliasLexicon {
   private readonly derivedCache = new Bounded<string, readonly DerivedToken[]>(DEFAULTS.cacheSize);
   private tokenWeights: Weights | undefined;
   private descriptionIndex: DescriptionIndex | undefined;
+
+  /**
+   * Drops what was read from the catalog's edges (context texts, link sets, relation and
+   * neighbour-type checks): an attached catalog's edges change between questions, as each
+   * question pulls its neighbourhood from the store (pipeline/store-edges.ts).
+   */
+  forgetEdges(): void {
+    this.docs.clear();
+    this.links.clear();
+    this.relationEdges.clear();
+    this.neighbourTypes.clear();
+  }
 
   private constructor(cat: Catalog, snapshot: LexicalSnapshot) {
     this.catalog = cat;

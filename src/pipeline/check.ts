@@ -40,27 +40,42 @@ export function unknownExpected(session: Session, item: QuestionItem): string[] 
 /** Runs every question and summarises (contract.md, `check --json`). */
 export function runCheck(session: Session, items: readonly QuestionItem[], options: CheckOptions = {}): CheckReport {
   const t0 = performance.now();
-  // check prints no ablation: its re-rankings are not run
-  const ask: AskOptions = { ablation: false, ...(options.top !== undefined ? { top: options.top } : {}), ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}) };
+  const ask = askOptionsOf(options);
   const results: CheckItem[] = [];
-  for (const item of items) {
-    const answer = session.ask(item.question, ask).result;
-    const rank = rankOfExpected(answer, item.expected);
-    const unknown = unknownExpected(session, item);
-    const r: CheckItem = {
-      line: item.line,
-      question: item.question,
-      expected: item.expected,
-      rank,
-      hit: rank === 1,
-      answer,
-      ...(unknown.length > 0 ? { unknownExpected: unknown } : {}),
-      ...(item.verdict ? { expectedVerdict: item.verdict, verdictMatch: item.verdict === answer.verdict.status } : {}),
-    };
-    results.push(r);
-    options.onProgress?.(results.length, items.length, r);
-  }
+  for (const item of items) results.push(checkItem(session, item, session.ask(item.question, ask).result, items.length, results.length, options));
   return { results, summary: summarise(results, (performance.now() - t0) / 1000, options.timeLimitMs ?? DEADLINE_DEFAULTS.timeLimitMs) };
+}
+
+/** {@link runCheck} for any catalog, an attached one included (its questions pull from the store). */
+export async function runCheckAsync(session: Session, items: readonly QuestionItem[], options: CheckOptions = {}): Promise<CheckReport> {
+  const t0 = performance.now();
+  const ask = askOptionsOf(options);
+  const results: CheckItem[] = [];
+  for (const item of items) results.push(checkItem(session, item, (await session.askAsync(item.question, ask)).result, items.length, results.length, options));
+  return { results, summary: summarise(results, (performance.now() - t0) / 1000, options.timeLimitMs ?? DEADLINE_DEFAULTS.timeLimitMs) };
+}
+
+function askOptionsOf(options: CheckOptions): AskOptions {
+  // check prints no ablation: its re-rankings are not run
+  return { ablation: false, ...(options.top !== undefined ? { top: options.top } : {}), ...(options.timeLimitMs !== undefined ? { timeLimitMs: options.timeLimitMs } : {}) };
+}
+
+/** One question's result, scored. */
+function checkItem(session: Session, item: QuestionItem, answer: AskResult, total: number, before: number, options: CheckOptions): CheckItem {
+  const rank = rankOfExpected(answer, item.expected);
+  const unknown = unknownExpected(session, item);
+  const r: CheckItem = {
+    line: item.line,
+    question: item.question,
+    expected: item.expected,
+    rank,
+    hit: rank === 1,
+    answer,
+    ...(unknown.length > 0 ? { unknownExpected: unknown } : {}),
+    ...(item.verdict ? { expectedVerdict: item.verdict, verdictMatch: item.verdict === answer.verdict.status } : {}),
+  };
+  options.onProgress?.(before + 1, total, r);
+  return r;
 }
 
 /** The summary of a list of results. */

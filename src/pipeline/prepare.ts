@@ -68,6 +68,8 @@ export interface PrepareInput {
   /** The catalog file (the two files go beside it). */
   readonly path: string;
   readonly stamp: { readonly uid: string; readonly generation: number };
+  /** Degrees for the name index when the edges are not in the load (an attached store's counts, pipeline/attach.ts). */
+  readonly degrees?: Int32Array;
 }
 
 /** The outcome of {@link PrepareCore.build}. */
@@ -136,8 +138,9 @@ export class PrepareCore {
       temps.push(writeSnapshotTemp(snapshotPath(input.path), index, input.stamp));
       step("relationIndex");
       onProgress?.("writing the name index");
-      const degree = new Int32Array(index.nodeCount);
-      for (let u = 0; u < degree.length; u++) degree[u] = index.degree(u);
+      let degree = new Int32Array(index.nodeCount);
+      if (input.degrees) degree.set(input.degrees.subarray(0, degree.length));
+      else for (let u = 0; u < degree.length; u++) degree[u] = index.degree(u);
       const parts = this.lexical.finish(degree, input.entityCount);
       temps.push(LexicalSnapshot.fromParts(input.stamp.uid, input.stamp.generation, parts).saveTemp(LexicalSnapshot.pathFor(input.path)));
       step("nameIndex");
@@ -184,8 +187,12 @@ export class LoadPreparation implements LoadSink {
    * @param options.thread use a second thread for loads that fill a batch (default true;
    *   false keeps every step in the load's thread)
    */
-  constructor(onProgress?: PrepareProgressFn, options: { thread?: boolean } = {}) {
+  /** Degrees for the name index when the edges are not in the load (an attached store's counts, pipeline/attach.ts). */
+  private readonly degrees: ((cat: Catalog, nodeCount: number) => Int32Array) | undefined;
+
+  constructor(onProgress?: PrepareProgressFn, options: { thread?: boolean; readonly degrees?: (cat: Catalog, nodeCount: number) => Int32Array } = {}) {
     this.onProgress = onProgress;
+    this.degrees = options.degrees;
     this.useThread = options.thread !== false && existsSync(fileURLToPath(WORKER_URL));
   }
 
@@ -317,7 +324,7 @@ export class LoadPreparation implements LoadSink {
       return undefined;
     }
     const count = (table: string) => (cat.db.prepare(`SELECT count(*) AS n FROM ${table}`).get() as { n: number }).n;
-    const input: PrepareInput = { maxEntity: cat.maxEntityNum(), maxPredicate: cat.maxPredicateNum(), edgeRows: count("edge"), entityCount: count("entity"), path: cat.path, stamp: { uid: stamp.uid, generation: stamp.generation } };
+    const input: PrepareInput = { maxEntity: cat.maxEntityNum(), maxPredicate: cat.maxPredicateNum(), edgeRows: count("edge"), entityCount: count("entity"), path: cat.path, stamp: { uid: stamp.uid, generation: stamp.generation }, ...(this.degrees ? { degrees: this.degrees(cat, cat.maxEntityNum() + 1) } : {}) };
     this.sendIndex(false);
     this.sendText(false);
     const thread = this.thread;

@@ -5,13 +5,14 @@
  * ask(question) = linkQuestion → analyze → rank → answers + verdict (+ explanation), each
  * stage timed. Answers and verdict are made in one place, {@link Session.answersOf}.
  */
-import { Catalog, NumericColumns, demoCatalogPath, normalize } from "../catalog/index.js";
+import { Catalog, NumericColumns, demoCatalogPath, normalize, readBinding } from "../catalog/index.js";
 import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type QueryGraph, type QuestionModel } from "../analysis/index.js";
 import { Linker, linkQuestion, notFoundNote, type LinkResult, type Pin } from "../linking/index.js";
 import { DEADLINE_DEFAULTS, DISCLAIMER, Deadline, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type EntityRef, type Mention, type Verdict } from "../model/index.js";
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { linkFacts } from "./link-facts.js";
 import { answerComparison, answerValue, type DirectAnswer } from "./direct.js";
+import { StoreEdges, askInStore, type StoreOptions } from "./store-edges.js";
 import { conditionDocs, conditionExplanation, conditionSteps, countDoc, decideVerdict, explain, whyNotFigures, whyNotReasons, PATH_DEFAULTS, VERDICT_DEFAULTS, WHY_NOT_DEFAULTS, type Explanation, type VerdictContext, type WhyNot } from "../explain/index.js";
 
 /** A progress event while a session opens. */
@@ -30,6 +31,8 @@ export interface SessionOptions {
   readonly onProgress?: (p: SessionProgress) => void;
   /** Ranking options used for every question. */
   readonly rank?: RankOptions;
+  /** An attached catalog's store: request timeout and credentials (pipeline/store-edges.ts). */
+  readonly store?: StoreOptions;
 }
 
 /** Options of {@link Session.ask}; all optional. */
@@ -108,7 +111,11 @@ export class Session {
   /** Numeric attribute values by predicate, read once per predicate in this session's snapshot. */
   private readonly numericColumns: NumericColumns;
 
-  private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions) {
+  /** The SPARQL store an attached catalog's edges are pulled from per question (pipeline/store-edges.ts); undefined for a loaded catalog. */
+  readonly store: StoreEdges | undefined;
+
+  private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions, store?: StoreEdges) {
+    this.store = store;
     this.catalog = catalog;
     this.index = index;
     this.linker = linker;
@@ -124,6 +131,9 @@ export class Session {
     progress?.({ phase: "catalog" });
     const catalog = Catalog.open(path, { readonly: true });
     try {
+      // an attached catalog: its edges come from the store, per question (before any edge statement is prepared)
+      const binding = readBinding(path, catalog.version());
+      const store = binding ? new StoreEdges(catalog, binding, options.store ?? {}) : undefined;
       // one read transaction for the session's life: the index, the linker, the model and
       // every later catalog read see one committed state, even while a load writes the
       // catalog (WAL snapshot isolation, https://www.sqlite.org/wal.html; README "Failure modes")
@@ -131,12 +141,13 @@ export class Session {
       catalog.version();
       progress?.({ phase: "index" });
       const index = openIndex(catalog, { onProgress: (e: IndexProgress) => progress?.({ phase: "index", index: e }) });
+      if (binding) index.adoptEndTable(binding.ends);
       progress?.({ phase: "linker" });
       const linker = Linker.fromCatalog(catalog);
       progress?.({ phase: "model" });
-      const model = buildQuestionModel(catalog, { relationEdgeCounts: index.relationEdgeCounts(), relationEnds: () => index.relationEnds(), typesOf: (n) => index.typesOf(n) });
+      const model = buildQuestionModel(catalog, { relationEdgeCounts: binding ? binding.relationEdges : index.relationEdgeCounts(), relationEnds: () => index.relationEnds(), typesOf: (n) => index.typesOf(n) });
       progress?.({ phase: "ready" });
-      return new Session(catalog, index, linker, model, options.rank ?? {});
+      return new Session(catalog, index, linker, model, options.rank ?? {}, store);
     } catch (e) {
       endRead(catalog);
       catalog.close();
@@ -144,8 +155,21 @@ export class Session {
     }
   }
 
-  /** Answers one question. */
+  /** This session's catalog, linker and model over another relation index (an attached store's per-question pull). */
+  withIndex(index: RelationIndex): Session {
+    const s = new Session(this.catalog, index, this.linker, this.model, this.rankOptions);
+    s.explainPhaseMs = this.explainPhaseMs;
+    return s;
+  }
+
+  /** Answers one question; on an attached catalog, after pulling its neighbourhood from the store (the same pipeline then runs on it). */
+  askAsync(question: string, options: AskOptions = {}): Promise<AskOutcome> {
+    return this.store ? askInStore(this, this.store, question, options) : Promise.resolve(this.ask(question, options));
+  }
+
+  /** Answers one question (a loaded catalog; {@link askAsync} for any catalog). */
   ask(question: string, options: AskOptions = {}): AskOutcome {
+    if (this.store) throw new TypeError("pipeline/session: an attached catalog's questions go through askAsync (its edges are pulled per question)");
     const top = options.top ?? DEFAULTS.top;
     checkTop(top);
     if (question.trim() === "") throw new TiepointError("pipeline/question", "the question is empty");

@@ -47,6 +47,8 @@ export interface Csr {
   readonly typeList: Int32Array;
   readonly superOffsets: Uint32Array;
   readonly superList: Int32Array;
+  /** Degrees to report instead of the row lengths (an attached store's own counts; rows hold only the pulled edges). */
+  readonly degrees?: Int32Array;
 }
 
 /** A progress event of index building or snapshot handling. */
@@ -207,6 +209,24 @@ export class RelationIndex {
   }
 
   /**
+   * An index over some of a graph's edges — the neighbourhood of a question pulled from a
+   * SPARQL store (pipeline/store-edges.ts) — with `base`'s nodes, types and subtypes, whose
+   * `degree(u)` (and so the walk's hub damping) is `degrees[u]`, the whole graph's count,
+   * not the number of pulled entries. Edges are (src, rel, dst) nums, any order, no duplicates.
+   */
+  static withPulledEdges(base: RelationIndex, relationCount: number, edges: { readonly src: Int32Array; readonly rel: Int32Array; readonly dst: Int32Array; readonly n: number }, degrees: Int32Array): RelationIndex {
+    const b = base.#c;
+    if (degrees.length < base.nodeCount) throw new RangeError("ranking/relation-index: a degree per node is needed");
+    for (let i = 0; i < edges.n; i++) {
+      checkNode("edge source", edges.src[i]!, base.nodeCount);
+      checkNode("edge target", edges.dst[i]!, base.nodeCount);
+      if (!(edges.rel[i]! >= 0 && edges.rel[i]! < relationCount)) throw new RangeError(`ranking/relation-index: relation ${edges.rel[i]} is not in 0..${relationCount - 1}`);
+    }
+    const csr = buildCsr(base.nodeCount, relationCount, edges.src, edges.rel, edges.dst, edges.n);
+    return new RelationIndex({ ...csr, typeOffsets: b.typeOffsets, typeList: b.typeList, superOffsets: b.superOffsets, superList: b.superList, degrees: degrees.subarray(0, base.nodeCount) });
+  }
+
+  /**
    * Builds an index from explicit edges `[src, rel, dst]` (for tests and benchmarks), with
    * optional direct types `[node, type]` and subtype pairs `[sub, sup]`.
    */
@@ -255,7 +275,7 @@ export class RelationIndex {
   degree(u: number): number {
     const c = this.#c;
     if (!(u >= 0 && u < this.nodeCount)) return 0;
-    return c.offsets[u + 1]! - c.offsets[u]!;
+    return c.degrees ? c.degrees[u]! : c.offsets[u + 1]! - c.offsets[u]!;
   }
 
   /**

@@ -83,7 +83,7 @@ function hubTables(c: Csr, beta: number): HubTables {
     const n = c.nodeCount;
     const hub = new Float64Array(n);
     for (let u = 0; u < n; u++) {
-      const d = c.offsets[u + 1]! - c.offsets[u]!;
+      const d = c.degrees ? c.degrees[u]! : c.offsets[u + 1]! - c.offsets[u]!;
       hub[u] = d === 0 ? 1 : beta === 0 ? 1 : Math.pow(d, -beta);
     }
     const rowTotal = new Float64Array(n);

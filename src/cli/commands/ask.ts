@@ -7,6 +7,7 @@ import { parsePin, type Pin } from "../../linking/index.js";
 import { DEADLINE_DEFAULTS, TiepointError, checkTop } from "../../model/index.js";
 import { Session } from "../../pipeline/index.js";
 import { askJson, catalogLabels, evidenceDot, renderAskText, renderExplanationText } from "../../present/index.js";
+import { STORE_TIMEOUT_HELP, storeSessionOptions } from "./attach.js";
 import { guarded } from "../run.js";
 
 /** Parses `--top N`: a positive whole number, else a usage error. */
@@ -40,15 +41,16 @@ export function registerAsk(program: Command): void {
     .option("--pin <text=entity>", "fix a link: the question words TEXT name ENTITY (id or exact label); repeatable", (v: string, prev: string[]) => [...prev, v], [] as string[])
     .option("--why-not <entity>", "explain why ENTITY (an id or a label; a shared label explains each entity of that name) is not the best answer; repeatable", (v: string, prev: string[]) => [...prev, v], [] as string[])
     .option("--time-limit <ms>", TIME_LIMIT_HELP)
-    .action((question: string, opts: { db?: string; json?: boolean; dot?: boolean; top?: string; pin: string[]; whyNot: string[]; timeLimit?: string }) =>
-      guarded(() => {
+    .option("--timeout <ms>", STORE_TIMEOUT_HELP)
+    .action((question: string, opts: { db?: string; json?: boolean; dot?: boolean; top?: string; pin: string[]; whyNot: string[]; timeLimit?: string; timeout?: string }) =>
+      guarded(async () => {
         const top = parseTop(opts.top);
         const timeLimitMs = parseTimeLimit(opts.timeLimit);
         if (opts.dot && opts.json) throw new TiepointError("cli/usage", "--dot and --json both print on stdout; use one of them");
         const pins: Pin[] = opts.pin.map(parsePin);
-        const session = Session.open(opts.db !== undefined ? { db: opts.db } : {});
+        const session = Session.open({ ...(opts.db !== undefined ? { db: opts.db } : {}), ...storeSessionOptions(opts.timeout) });
         try {
-          const out = session.ask(question, { top, ...(pins.length > 0 ? { pins } : {}), ...(opts.whyNot.length > 0 ? { whyNot: opts.whyNot } : {}), verifySuggestions: !opts.dot, timeLimitMs });
+          const out = await session.askAsync(question, { top, ...(pins.length > 0 ? { pins } : {}), ...(opts.whyNot.length > 0 ? { whyNot: opts.whyNot } : {}), verifySuggestions: !opts.dot, timeLimitMs });
           if (opts.dot) process.stdout.write(evidenceDot(out.result, { labels: catalogLabels(session.catalog) }));
           else if (opts.json) process.stdout.write(askJson(out.result, out));
           else

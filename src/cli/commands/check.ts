@@ -6,7 +6,8 @@
  * expected verdicts).
  */
 import type { Command } from "commander";
-import { parseQuestionFile, QUESTION_FILE_DEFAULTS, runCheck, Session, unknownExpected, type QuestionItem } from "../../pipeline/index.js";
+import { parseQuestionFile, QUESTION_FILE_DEFAULTS, runCheckAsync, Session, unknownExpected, type QuestionItem } from "../../pipeline/index.js";
+import { STORE_TIMEOUT_HELP, storeSessionOptions } from "./attach.js";
 import { guarded } from "../run.js";
 import { checkOutTarget, emit, progressReporter, readEarlierReport, renderReport, reportFormat, suggestionsBySession } from "../report-output.js";
 import { parseTimeLimit, parseTop, TIME_LIMIT_HELP } from "./ask.js";
@@ -24,6 +25,8 @@ export interface CheckCommandOptions {
   readonly compare?: string;
   /** Time budget per question, milliseconds (0: none). */
   readonly timeLimit?: string;
+  /** On an attached catalog: milliseconds per store request. */
+  readonly timeout?: string;
 }
 
 /**
@@ -57,6 +60,7 @@ export function registerCheck(program: Command): void {
     .option("--out <file>", "write the report to FILE instead of stdout")
     .option("--compare <old.json>", "show what changed since an earlier `check --json` report")
     .option("--time-limit <ms>", TIME_LIMIT_HELP)
+    .option("--timeout <ms>", STORE_TIMEOUT_HELP)
     .addHelpText(
       "after",
       `
@@ -78,11 +82,11 @@ Question file:
         const earlier = opts.compare !== undefined ? readEarlierReport(opts.compare) : undefined;
         if (opts.out !== undefined) checkOutTarget(opts.out);
         const items = parseQuestionFile(file);
-        const session = Session.open(opts.db !== undefined ? { db: opts.db } : {});
+        const session = Session.open({ ...(opts.db !== undefined ? { db: opts.db } : {}), ...storeSessionOptions(opts.timeout) });
         try {
           warnUnknownExpected(session, items, file);
           const progress = progressReporter();
-          const report = runCheck(session, items, { top, timeLimitMs, ...(progress.onProgress ? { onProgress: progress.onProgress } : {}) });
+          const report = await runCheckAsync(session, items, { top, timeLimitMs, ...(progress.onProgress ? { onProgress: progress.onProgress } : {}) });
           progress.finish();
           const doc = await renderReport(report, {
             format,

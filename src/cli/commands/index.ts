@@ -9,6 +9,7 @@ import { registerAsk } from "./ask.js";
 import { registerCheck } from "./check.js";
 import { registerTui } from "./tui.js";
 import { registerCompose } from "./compose.js";
+import { registerAttach } from "./attach.js";
 
 /** Adds all commands to the program. */
 export function registerCommands(program: Command): void {
@@ -19,4 +20,5 @@ export function registerCommands(program: Command): void {
   registerCheck(program);
   registerCompose(program);
   registerTui(program);
+  registerAttach(program);
 }

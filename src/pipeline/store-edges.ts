@@ -1,0 +1,316 @@
+/**
+ * The relation edges of an attached catalog, pulled from its SPARQL store per question
+ * ===================================================================================
+ *
+ * An attached catalog (pipeline/attach.ts) holds names, types and attributes; its edges stay
+ * in the store. Per question this module pulls the neighbourhood the question's stages read
+ * and puts it where those stages read edges from, so that linking, reading, ranking,
+ * explanation and verdict run the same code as for a loaded catalog:
+ *
+ * - into a temporary `edge` table of the session's SQLite connection (`CREATE TEMP TABLE`;
+ *   SQLite resolves an unqualified table name in the temp schema first, "Schema Objects",
+ *   https://www.sqlite.org/lang_naming.html), which the linker's and `show`'s edge reads see;
+ * - into a relation index over the pulled edges (`RelationIndex.withPulledEdges`) whose
+ *   degrees are the store's own counts (binding file), so the walk's hub damping and every
+ *   degree test are those of the whole graph.
+ *
+ * What is pulled, for one question (each row of an entity is all its edges, both directions):
+ *
+ * 1. the rows the linker reads (its candidates' context texts, link sets and relation checks),
+ *    found by recording which entities it asks about, then linking again on the pulled rows;
+ * 2. ring by ring from the linked clue entities, `DEFAULTS.rings` rings: the rows of the
+ *    neighbours of the previous ring — except hubs, entities with more than `DEFAULTS.hubCap`
+ *    edges by the store's count, whose rows are not pulled (they stay reachable as the end of
+ *    a pulled edge, with their true degree);
+ * 3. whatever the final run still asked for (why-not entities, suggestion checks), once more.
+ *
+ * Each request asks for the rows of a batch of entities with two VALUES blocks (as subject,
+ * as object); a batch holds at most `pageSize` rows by the store's counts (the size the attach
+ * found the store answers whole) and `maxValues` entities. A batch must return exactly the
+ * rows the counts promise: fewer with the store's cut signal, or exactly a full page, means the
+ * store's row limit cut it (the batch is split and asked again); any other difference means
+ * the store changed since the attach (an error asking for `attach --refresh`). An entity
+ * with more than `maxRow` edges is never pulled, and the answer says so in a note.
+ */
+import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, nodeId, type StoreBinding } from "../catalog/index.js";
+import { linkQuestion } from "../linking/index.js";
+import { RelationIndex } from "../ranking/index.js";
+import { TiepointError } from "../model/index.js";
+import { inGraph } from "./attach.js";
+import type { AskOptions, AskOutcome, Session } from "./session.js";
+
+/** Pull limits (README "Attaching a SPARQL store"). */
+export const DEFAULTS = {
+  /** Rings of neighbours pulled around the linked clue entities. */
+  rings: 2,
+  /** Entities with more edges than this (the store's count) are not expanded in the rings. */
+  hubCap: 1000,
+  /** Entities with more edges than this are never pulled (their edges reach the question only from their neighbours' rows). */
+  maxRow: 50_000,
+  /** Entities per VALUES block. */
+  maxValues: 1000,
+  /** Passes for what the final run still asked for. */
+  extraRounds: 2,
+};
+
+/** Options of a store session. */
+export interface StoreOptions {
+  readonly timeoutMs?: number;
+  readonly credentials?: string;
+}
+
+/** Figures of the last question's pulls. */
+export interface PullFigures {
+  requests: number;
+  rows: number;
+  entities: number;
+  ms: number;
+  /** Hubs left unexpanded, and entities over `maxRow`. */
+  hubs: number;
+  tooLarge: number;
+}
+
+const NOT_EDGES = [VOCABULARY.type, VOCABULARY.subClassOf, ...Object.keys(UNIT_VOCABULARY)];
+
+/** The store side of an attached catalog's session. */
+export class StoreEdges {
+  readonly binding: StoreBinding;
+  readonly client: SparqlClient;
+  private readonly catalog: Catalog;
+  private readonly numOf = new Map<string, number>();
+  private readonly predicateNum = new Map<string, number>();
+  private readonly idStmt;
+  private readonly numStmt;
+  private readonly insert;
+  private readonly pulled = new Set<number>();
+  private demand = new Set<number>();
+  private src: number[] = [];
+  private rel: number[] = [];
+  private dst: number[] = [];
+  private readonly seen = new Set<string>();
+  figures: PullFigures = { requests: 0, rows: 0, entities: 0, ms: 0, hubs: 0, tooLarge: 0 };
+  private readonly skipped = new Set<number>();
+
+  /** Installs the temporary edge table on `catalog` (before any edge statement is prepared) and records the linker's edge reads. */
+  constructor(catalog: Catalog, binding: StoreBinding, options: StoreOptions = {}) {
+    this.catalog = catalog;
+    this.binding = binding;
+    this.client = new SparqlClient(binding.endpoint, { ...options, pageSize: binding.pageSize });
+    const db = catalog.db;
+    db.exec("CREATE TEMP TABLE IF NOT EXISTS edge (src INTEGER NOT NULL, rel INTEGER NOT NULL, dst INTEGER NOT NULL, PRIMARY KEY (src, rel, dst)) WITHOUT ROWID");
+    db.exec("CREATE INDEX IF NOT EXISTS temp.edge_by_dst ON edge(dst, rel)");
+    this.idStmt = db.prepare("SELECT id FROM main.entity WHERE num = ?").pluck();
+    this.numStmt = db.prepare("SELECT num FROM main.entity WHERE id = ?").pluck();
+    this.insert = db.prepare("INSERT OR IGNORE INTO temp.edge (src, rel, dst) VALUES (?, ?, ?)");
+    for (const [num, id] of db.prepare("SELECT num, id FROM main.predicate").raw(true).all() as [number, string][]) this.predicateNum.set(id, num);
+    // the edge reads of the linker (and show) record which entities' rows a question needs
+    const record = (num: number) => {
+      if (!this.pulled.has(num)) this.demand.add(num);
+    };
+    const proto = Object.getPrototypeOf(catalog) as Catalog;
+    Object.defineProperties(catalog, {
+      neighbourNums: { value: (num: number, limit?: number) => (record(num), proto.neighbourNums.call(catalog, num, limit)) },
+      neighbourTexts: { value: (num: number, limit?: number) => (record(num), proto.neighbourTexts.call(catalog, num, limit)) },
+      hasRelationEdge: { value: (num: number, rel: number) => (record(num), proto.hasRelationEdge.call(catalog, num, rel)) },
+      neighbours: { value: (num: number, limit?: number) => (record(num), proto.neighbours.call(catalog, num, limit)) },
+    });
+  }
+
+  /** Forgets the previous question's edges. */
+  reset(): void {
+    this.catalog.db.exec("DELETE FROM temp.edge");
+    this.pulled.clear();
+    this.demand.clear();
+    this.skipped.clear();
+    this.src = [];
+    this.rel = [];
+    this.dst = [];
+    this.seen.clear();
+    this.figures = { requests: 0, rows: 0, entities: 0, ms: 0, hubs: 0, tooLarge: 0 };
+  }
+
+  /** The entities asked about and not pulled since the last call. */
+  takeDemand(): number[] {
+    const d = [...this.demand].filter((n) => !this.pulled.has(n));
+    this.demand = new Set();
+    return d;
+  }
+
+  /** The store's degree of an entity. */
+  degree(num: number): number {
+    return this.binding.degree[num] ?? 0;
+  }
+
+  private entityNum(id: string): number {
+    let n = this.numOf.get(id);
+    if (n === undefined) {
+      n = this.numStmt.get(id) as number | undefined;
+      if (n === undefined) throw new TiepointError("store/changed", `SPARQL endpoint: an edge names ${id}, which the catalog does not know (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
+      this.numOf.set(id, n);
+    }
+    return n;
+  }
+
+  /** Pulls the complete rows of `nums` (those not pulled yet and not over `maxRow`), batched. */
+  async pull(nums: Iterable<number>): Promise<void> {
+    const t0 = performance.now();
+    const todo: number[] = [];
+    for (const n of nums) {
+      if (this.pulled.has(n)) continue;
+      const d = this.degree(n);
+      const id = this.idStmt.get(n) as string | undefined;
+      if (d === 0 || id === undefined || id.startsWith("_:")) {
+        this.pulled.add(n); // nothing to pull (no edges), or a blank node the store cannot be asked about by name
+        continue;
+      }
+      if (d > DEFAULTS.maxRow) {
+        if (!this.skipped.has(n)) this.figures.tooLarge++;
+        this.skipped.add(n);
+        continue;
+      }
+      todo.push(n);
+    }
+    todo.sort((a, b) => a - b);
+    const batches: number[][] = [];
+    let cur: number[] = [];
+    let rows = 0;
+    for (const n of todo) {
+      const d = this.degree(n);
+      if (cur.length > 0 && (rows + d > this.client.pageSize || cur.length >= DEFAULTS.maxValues)) {
+        batches.push(cur);
+        cur = [];
+        rows = 0;
+      }
+      cur.push(n);
+      rows += d;
+    }
+    if (cur.length > 0) batches.push(cur);
+    await Promise.all(batches.map((b) => this.pullBatch(b)));
+    this.figures.ms += performance.now() - t0;
+  }
+
+  private async pullBatch(batch: readonly number[]): Promise<void> {
+    const expected = batch.reduce((s, n) => s + this.degree(n), 0);
+    const values = batch.map((n) => iriRef(this.idStmt.get(n) as string)).join(" ");
+    const G = (body: string) => inGraph(this.binding.graph, body);
+    const notEdges = NOT_EDGES.map(iriRef).join(", ");
+    const q = `SELECT ?s ?p ?o WHERE { { VALUES ?s { ${values} } ${G("?s ?p ?o")} } UNION { VALUES ?o { ${values} } ${G("?s ?p ?o")} } FILTER(!isLiteral(?o) && ?p NOT IN (${notEdges})) }`;
+    const before = this.client.requests;
+    const r = await this.client.select(q);
+    this.figures.requests += this.client.requests - before;
+    this.figures.rows += r.rows.length;
+    if (r.rows.length !== expected) {
+      const cut = r.cutAt !== undefined || (r.rows.length < expected && r.rows.length === this.client.pageSize);
+      if (cut || r.rows.length < expected) {
+        if (cut && batch.length > 1) {
+          // the store's row limit cut the answer: smaller batches
+          this.client.pageSize = Math.max(1, Math.min(this.client.pageSize, r.cutAt ?? r.rows.length));
+          const half = Math.ceil(batch.length / 2);
+          await Promise.all([this.pullBatch(batch.slice(0, half)), this.pullBatch(batch.slice(half))]);
+          return;
+        }
+        if (cut) throw new TiepointError("store/cut", `SPARQL endpoint: the store cut the edges of one entity at ${r.rows.length} of ${expected} rows (its row limit); raise the store's limit (Virtuoso: ResultSetMaxRows) to ask about it`);
+      }
+      throw new TiepointError("store/changed", `SPARQL endpoint: the store returned ${r.rows.length} edge rows where the attach counted ${expected} (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
+    }
+    for (const row of r.rows) {
+      const s = this.entityNum(nodeId(row.s!));
+      const o = this.entityNum(nodeId(row.o!));
+      const p = this.predicateNum.get(row.p!.value);
+      if (p === undefined) throw new TiepointError("store/changed", `SPARQL endpoint: an edge uses relation ${row.p!.value}, which the catalog does not know (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
+      const key = `${s} ${p} ${o}`;
+      if (this.seen.has(key)) continue;
+      this.seen.add(key);
+      this.src.push(s);
+      this.rel.push(p);
+      this.dst.push(o);
+      this.insert.run(s, p, o);
+    }
+    for (const n of batch) this.pulled.add(n);
+    this.figures.entities += batch.length;
+  }
+
+  /** Neighbours of `nums` in the pulled rows. */
+  neighboursOf(nums: ReadonlySet<number>): Set<number> {
+    const out = new Set<number>();
+    for (let i = 0; i < this.src.length; i++) {
+      if (nums.has(this.src[i]!)) out.add(this.dst[i]!);
+      if (nums.has(this.dst[i]!)) out.add(this.src[i]!);
+    }
+    return out;
+  }
+
+  /** The relation index of the pulled edges over `base`'s nodes and types, with the store's degrees. */
+  index(base: RelationIndex): RelationIndex {
+    const n = this.src.length;
+    return RelationIndex.withPulledEdges(base, base.relationCount, { src: Int32Array.from(this.src), rel: Int32Array.from(this.rel), dst: Int32Array.from(this.dst), n }, this.binding.degree);
+  }
+
+  /** The next ring around `ring`: its neighbours not in `visited` (which it extends), hubs left out. */
+  nextRing(ring: ReadonlySet<number>, visited: Set<number>): Set<number> {
+    const next = new Set<number>();
+    for (const v of this.neighboursOf(ring)) {
+      if (visited.has(v)) continue;
+      visited.add(v);
+      if (this.degree(v) > DEFAULTS.hubCap) {
+        this.figures.hubs++;
+        continue;
+      }
+      next.add(v);
+    }
+    return next;
+  }
+
+  /** Notes for the answer: what the pull left out. */
+  notes(): string[] {
+    const out: string[] = [];
+    if (this.figures.tooLarge > 0) out.push(`${this.figures.tooLarge} entit${this.figures.tooLarge === 1 ? "y has" : "ies have"} more than ${DEFAULTS.maxRow.toLocaleString("en-US")} edges in the store and ${this.figures.tooLarge === 1 ? "was" : "were"} not pulled: their edges count only where a neighbour's row holds them (README "Attaching a SPARQL store")`);
+    return out;
+  }
+}
+
+/** Answers a question of an attached catalog: pulls the neighbourhood, then runs the session's own pipeline on it. */
+export async function askInStore(session: Session, store: StoreEdges, question: string, options: AskOptions = {}): Promise<AskOutcome> {
+  const t0 = performance.now();
+  store.reset();
+  session.linker.forgetEdges();
+  const pins = options.pins !== undefined ? { pins: options.pins } : {};
+  // 1. the linker's reads: record, pull, read again
+  let link = linkQuestion(question, session.linker, pins);
+  for (let round = 0; round < 3; round++) {
+    const need = store.takeDemand();
+    if (need.length === 0) break;
+    await store.pull(need);
+    session.linker.forgetEdges();
+    link = linkQuestion(question, session.linker, pins);
+  }
+  // 2. rings around the linked clue entities
+  let ring = new Set<number>();
+  for (const m of link.mentions) {
+    const num = session.catalog.byLabelOrId(m.entity.id)[0];
+    if (num !== undefined) ring.add(num);
+  }
+  await store.pull(ring);
+  const visited = new Set(ring);
+  for (let r = 0; r < DEFAULTS.rings && ring.size > 0; r++) {
+    ring = store.nextRing(ring, visited);
+    await store.pull(ring);
+  }
+  // 3. the pipeline on the pulled neighbourhood; what it still asked for is pulled and it runs again
+  let out: AskOutcome;
+  for (let round = 0; ; round++) {
+    session.linker.forgetEdges();
+    store.takeDemand();
+    out = session.withIndex(store.index(session.index)).ask(question, options);
+    const need = store.takeDemand();
+    if (need.length === 0 || round >= DEFAULTS.extraRounds) break;
+    await store.pull(need);
+  }
+  const notes = store.notes();
+  const total = performance.now() - t0;
+  return {
+    ...out,
+    result: notes.length > 0 ? { ...out.result, notes: [...(out.result.notes ?? []), ...notes] } : out.result,
+    timings: { ...out.timings, total },
+  };
+}
