@@ -22,7 +22,9 @@
  *    neighbours of the previous ring — except hubs, entities with more than `DEFAULTS.hubCap`
  *    edges by the store's count, whose rows are not pulled (they stay reachable as the end of
  *    a pulled edge, with their true degree);
- * 3. whatever the final run still asked for (why-not entities, suggestion checks), once more.
+ * 3. when a clue reaches none of the `answerRings` best answers' paths: `rings` rings around those
+ *    answers too, so that a path from the clue meets them in the middle (up to 2·rings + 2 hops);
+ * 4. whatever the final run still asked for (why-not entities, suggestion checks), once more.
  *
  * Each request asks for the rows of a batch of entities with two VALUES blocks (as subject,
  * as object); a batch holds at most `pageSize` rows by the store's counts (the size the attach
@@ -32,7 +34,7 @@
  * the store changed since the attach (an error asking for `attach --refresh`). An entity
  * with more than `maxRow` edges is never pulled, and the answer says so in a note.
  */
-import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, nodeId, type StoreBinding } from "../catalog/index.js";
+import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, nodeId, shownEndpoint, type StoreBinding } from "../catalog/index.js";
 import { linkQuestion } from "../linking/index.js";
 import { RelationIndex } from "../ranking/index.js";
 import { TiepointError } from "../model/index.js";
@@ -51,6 +53,8 @@ export const DEFAULTS = {
   maxValues: 1000,
   /** Passes for what the final run still asked for. */
   extraRounds: 2,
+  /** Best answers whose own rings are pulled when a clue does not reach them (the path search then meets in the middle). */
+  answerRings: 3,
 };
 
 /** Options of a store session. */
@@ -141,11 +145,16 @@ export class StoreEdges {
     return this.binding.degree[num] ?? 0;
   }
 
+  /** The num of an entity id, if the catalog has it. */
+  numOfId(id: string): number | undefined {
+    return this.numOf.get(id) ?? (this.numStmt.get(id) as number | undefined);
+  }
+
   private entityNum(id: string): number {
     let n = this.numOf.get(id);
     if (n === undefined) {
       n = this.numStmt.get(id) as number | undefined;
-      if (n === undefined) throw new TiepointError("store/changed", `SPARQL endpoint: an edge names ${id}, which the catalog does not know (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
+      if (n === undefined) throw new TiepointError("store/changed", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: an edge names ${id}, which the catalog does not know (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
       this.numOf.set(id, n);
     }
     return n;
@@ -209,15 +218,15 @@ export class StoreEdges {
           await Promise.all([this.pullBatch(batch.slice(0, half)), this.pullBatch(batch.slice(half))]);
           return;
         }
-        if (cut) throw new TiepointError("store/cut", `SPARQL endpoint: the store cut the edges of one entity at ${r.rows.length} of ${expected} rows (its row limit); raise the store's limit (Virtuoso: ResultSetMaxRows) to ask about it`);
+        if (cut) throw new TiepointError("store/cut", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: the store cut the edges of one entity at ${r.rows.length} of ${expected} rows (its row limit); raise the store's limit (Virtuoso: ResultSetMaxRows) to ask about it`);
       }
-      throw new TiepointError("store/changed", `SPARQL endpoint: the store returned ${r.rows.length} edge rows where the attach counted ${expected} (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
+      throw new TiepointError("store/changed", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: the store returned ${r.rows.length} edge rows where the attach counted ${expected} (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
     }
     for (const row of r.rows) {
       const s = this.entityNum(nodeId(row.s!));
       const o = this.entityNum(nodeId(row.o!));
       const p = this.predicateNum.get(row.p!.value);
-      if (p === undefined) throw new TiepointError("store/changed", `SPARQL endpoint: an edge uses relation ${row.p!.value}, which the catalog does not know (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
+      if (p === undefined) throw new TiepointError("store/changed", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: an edge uses relation ${row.p!.value}, which the catalog does not know (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
       const key = `${s} ${p} ${o}`;
       if (this.seen.has(key)) continue;
       this.seen.add(key);
@@ -284,11 +293,13 @@ export async function askInStore(session: Session, store: StoreEdges, question: 
     session.linker.forgetEdges();
     link = linkQuestion(question, session.linker, pins);
   }
-  // 2. rings around the linked clue entities
+  // 2. rings around the linked clue entities and their alternatives (a clue linked with low confidence seeds them too, ranking's clueSeeds)
   let ring = new Set<number>();
   for (const m of link.mentions) {
-    const num = session.catalog.byLabelOrId(m.entity.id)[0];
-    if (num !== undefined) ring.add(num);
+    for (const ref of [m.entity, ...m.alternatives]) {
+      const num = store.numOfId(ref.id);
+      if (num !== undefined) ring.add(num);
+    }
   }
   await store.pull(ring);
   const visited = new Set(ring);
@@ -298,12 +309,33 @@ export async function askInStore(session: Session, store: StoreEdges, question: 
   }
   // 3. the pipeline on the pulled neighbourhood; what it still asked for is pulled and it runs again
   let out: AskOutcome;
+  let answersExpanded = false;
   for (let round = 0; ; round++) {
     session.linker.forgetEdges();
     store.takeDemand();
     out = session.withIndex(store.index(session.index)).ask(question, options);
-    const need = store.takeDemand();
-    if (need.length === 0 || round >= DEFAULTS.extraRounds) break;
+    const need = new Set(store.takeDemand());
+    if (!answersExpanded) {
+      answersExpanded = true;
+      const clues = out.result.mentions.length;
+      const unreached = out.result.answers.slice(0, DEFAULTS.answerRings).filter((a) => new Set(a.paths.map((p) => p.from)).size < clues);
+      if (unreached.length > 0) {
+        let around = new Set<number>();
+        for (const a of unreached) {
+          const num = store.numOfId(a.id);
+          if (num !== undefined) around.add(num);
+        }
+        const seen = new Set(around);
+        for (const n of around) need.add(n);
+        for (let r = 0; r < DEFAULTS.rings && around.size > 0; r++) {
+          await store.pull(need);
+          need.clear();
+          around = store.nextRing(around, seen);
+          for (const n of around) need.add(n);
+        }
+      }
+    }
+    if (need.size === 0 || round >= DEFAULTS.extraRounds) break;
     await store.pull(need);
   }
   const notes = store.notes();
