@@ -164,7 +164,7 @@ export class Session {
 
   /** Answers one question; on an attached catalog, after pulling its neighbourhood from the store (the same pipeline then runs on it). */
   askAsync(question: string, options: AskOptions = {}): Promise<AskOutcome> {
-    return this.store ? askInStore(this, this.store, question, options) : Promise.resolve(this.ask(question, options));
+    return this.store ? askInStore(this, this.store, question, options.pins, (index) => this.withIndex(index).ask(question, options)) : Promise.resolve(this.ask(question, options));
   }
 
   /** Answers one question (a loaded catalog; {@link askAsync} for any catalog). */

@@ -35,11 +35,10 @@
  * with more than `maxRow` edges is never pulled, and the answer says so in a note.
  */
 import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, nodeId, shownEndpoint, type StoreBinding } from "../catalog/index.js";
-import { linkQuestion } from "../linking/index.js";
+import { linkQuestion, type Linker, type Pin } from "../linking/index.js";
 import { RelationIndex } from "../ranking/index.js";
-import { TiepointError } from "../model/index.js";
+import { TiepointError, type AskResult } from "../model/index.js";
 import { inGraph } from "./attach.js";
-import type { AskOptions, AskOutcome, Session } from "./session.js";
 
 /** Pull limits (README "Attaching a SPARQL store"). */
 export const DEFAULTS = {
@@ -279,11 +278,17 @@ export class StoreEdges {
 }
 
 /** Answers a question of an attached catalog: pulls the neighbourhood, then runs the session's own pipeline on it. */
-export async function askInStore(session: Session, store: StoreEdges, question: string, options: AskOptions = {}): Promise<AskOutcome> {
+export async function askInStore<O extends { readonly result: AskResult; readonly timings: { readonly total: number } }>(
+  session: { readonly linker: Linker; readonly index: RelationIndex },
+  store: StoreEdges,
+  question: string,
+  pinned: readonly Pin[] | undefined,
+  askOn: (index: RelationIndex) => O,
+): Promise<O> {
   const t0 = performance.now();
   store.reset();
   session.linker.forgetEdges();
-  const pins = options.pins !== undefined ? { pins: options.pins } : {};
+  const pins = pinned !== undefined ? { pins: pinned } : {};
   // 1. the linker's reads: record, pull, read again
   let link = linkQuestion(question, session.linker, pins);
   for (let round = 0; round < 3; round++) {
@@ -308,12 +313,12 @@ export async function askInStore(session: Session, store: StoreEdges, question: 
     await store.pull(ring);
   }
   // 3. the pipeline on the pulled neighbourhood; what it still asked for is pulled and it runs again
-  let out: AskOutcome;
+  let out: O;
   let answersExpanded = false;
   for (let round = 0; ; round++) {
     session.linker.forgetEdges();
     store.takeDemand();
-    out = session.withIndex(store.index(session.index)).ask(question, options);
+    out = askOn(store.index(session.index));
     const need = new Set(store.takeDemand());
     if (!answersExpanded) {
       answersExpanded = true;
