@@ -149,6 +149,15 @@ describe.skipIf(!HAVE_VIRTUOSO)("a catalog attached to a SPARQL store (Virtuoso 
     expect((A.length - differ.length) / A.length).toBeGreaterThanOrEqual(0.98);
   }, 600_000);
 
+  it("show lists an entity's relations from the store, as a local catalog does", async () => {
+    const a = await run(["show", "http://world.example/country/FRA", "--db", attached, "--json"]);
+    const l = await run(["show", "http://world.example/country/FRA", "--db", local, "--json"]);
+    expect(a.status, a.stderr).toBe(0);
+    const rels = (out: string) => JSON.stringify(JSON.parse(out).relations);
+    expect(rels(a.stdout)).toBe(rels(l.stdout));
+    expect(JSON.parse(a.stdout).relations.length).toBeGreaterThan(5);
+  });
+
   it("a hostile label is asked about and shown through the store like any other", async () => {
     const r = await run(["ask", 'Which country borders "Quote " and backslash \\ and > and } and # end"?', "--db", attached, "--json"]);
     expect(r.status, r.stderr).toBe(0);

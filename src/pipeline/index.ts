@@ -13,3 +13,5 @@ export type { CheckOptions } from "./check.js";
 export { linkFacts, codeMismatch, writtenWord, DEFAULTS as LINK_FACTS_DEFAULTS } from "./link-facts.js";
 export { attachStore, existingBinding, inGraph } from "./attach.js";
 export type { AttachOptions, AttachReport } from "./attach.js";
+export { StoreEdges, askInStore, DEFAULTS as STORE_EDGES_DEFAULTS } from "./store-edges.js";
+export type { StoreOptions, PullFigures } from "./store-edges.js";

@@ -7,13 +7,15 @@
  */
 import type { Command } from "commander";
 import { distance } from "fastest-levenshtein";
-import { Catalog, demoCatalogPath, typeMembers } from "../../catalog/index.js";
+import { Catalog, demoCatalogPath, readBinding, typeMembers } from "../../catalog/index.js";
 import { resolveTarget } from "../../compose/index.js";
 import type { EntityInfo, NeighbourInfo } from "../../catalog/index.js";
 import { Linker, linkQuestion } from "../../linking/index.js";
 import { TiepointError } from "../../model/index.js";
 import type { EntityRef } from "../../model/index.js";
 import { guarded } from "../run.js";
+import { STORE_TIMEOUT_HELP, storeSessionOptions } from "./attach.js";
+import { StoreEdges } from "../../pipeline/index.js";
 
 /** Limits of `show`. */
 export const DEFAULTS = {
@@ -143,10 +145,15 @@ export function registerShow(program: Command): void {
     .argument("<entity>", "an entity id or label")
     .option("--db <path>", "the catalog file (default: the demo catalog)")
     .option("--json", "print JSON on stdout")
-    .action((name: string, opts: { db?: string; json?: boolean }) =>
-      guarded(() => {
-        const cat = Catalog.open(catalogPath(opts.db), { readonly: true });
+    .option("--timeout <ms>", STORE_TIMEOUT_HELP)
+    .action((name: string, opts: { db?: string; json?: boolean; timeout?: string }) =>
+      guarded(async () => {
+        const path = catalogPath(opts.db);
+        const cat = Catalog.open(path, { readonly: true });
         try {
+          // an attached catalog: the entity's edges come from its store (before any edge statement is prepared)
+          const binding = readBinding(path, cat.version());
+          const store = binding ? new StoreEdges(cat, binding, storeSessionOptions(opts.timeout).store) : undefined;
           const nums = resolveEntity(cat, name);
           if (nums.length === 0) {
             const near = nearNames(cat, name);
@@ -159,6 +166,7 @@ export function registerShow(program: Command): void {
             process.exitCode = 1;
             return;
           }
+          await store?.pull(nums);
           const info = cat.entity(nums[0]!);
           const rels = cat.neighbours(nums[0]!, DEFAULTS.maxRelations);
           const type = typeSummary(cat, nums[0]!);
