@@ -231,15 +231,8 @@ export const HELP: readonly { readonly title: string; readonly keys: readonly Hi
       { key: "u (links)", what: "undo a fixed link" },
       { key: "1 2 3 4", what: "detail: paths, coverage, ablation, suggested clues" },
       { key: "e", what: "entity card of the selected entity (from any pane)" },
+      { key: "c", what: "compose: questions whose only answer is the selected answer or card (↑ ↓ enter asks one)" },
       { key: "/", what: "back to the question line" },
-    ],
-  },
-  {
-    title: "compose",
-    keys: [
-      { key: "c (answers, card)", what: "questions whose only answer is the selected answer (or the card's entity), each asked back" },
-      { key: "↑ ↓ enter", what: "pick a composed question and ask it" },
-      { key: "esc", what: "back to the results" },
     ],
   },
   {
