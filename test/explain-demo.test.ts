@@ -107,4 +107,20 @@ describe("explanations of the demo questions", () => {
     expect(tied).toBeGreaterThan(0);
     expect(failures).toEqual([]);
   });
+
+  it("the suggestion checks' verdict-only re-ask (no answer paths, ablation or suggestions) gives the full ask's verdict and answers", () => {
+    let checked = 0;
+    for (const q of items) {
+      const out = outcomes.get(q.line)!;
+      for (const s of out.explanation?.suggestions ?? []) {
+        const full = session.ask(s.question, { top: 3, timeLimitMs: 0 }).result;
+        const lean = session.ask(s.question, { top: 3, timeLimitMs: 0, verdictOnly: true }).result;
+        expect(lean.verdict, s.question).toEqual(full.verdict);
+        expect(lean.answers.map((a) => [a.id, a.score]), s.question).toEqual(full.answers.map((a) => [a.id, a.score]));
+        expect(lean.answers.every((a) => a.paths.length === 0)).toBe(true);
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThan(0);
+  });
 });

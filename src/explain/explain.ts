@@ -57,6 +57,13 @@ export interface ExplainOptions<A extends ExplainAnalysis = ExplainAnalysis> {
   readonly ablation?: boolean;
   /** Suggest clues for a tied or weak verdict. @default true */
   readonly suggestions?: boolean;
+  /**
+   * Give the answers their paths and fill the coverage table. Off, only the paths the verdict
+   * reads are searched (each candidate's cheapest and alternative paths per clue), not the
+   * reading's lead paths; the answers carry no paths and the table no rows (a re-ask that
+   * only wants the verdict and the answer set). @default true
+   */
+  readonly answerPaths?: boolean;
   /** Entity nums to report on ("why not this one?"). */
   readonly whyNot?: readonly number[];
   /** The restart seeds of a clue as the ranking used them (ranking's `clueSeeds`). @default the clue's entity alone */
@@ -256,12 +263,15 @@ export function explain<A extends ExplainAnalysis>(
   const deadline = options.deadline;
   // the lead path per clue follows the reading's pattern the ranking matched (paths.ts)
   const missOf = ranked.chainMissOf;
+  const answerPaths = options.answerPaths ?? true;
+  // the lead paths (the reading's pattern) only order the shown paths; the verdict reads `byClue`
+  const leads = answerPaths && ranked.patterns ? { patterns: ranked.patterns } : {};
   const pathSet = findPaths(
     index,
     cost,
     clueSeeds,
     shown.map((c) => c.node),
-    { ...options.paths, ...(ranked.patterns ? { patterns: ranked.patterns } : {}), ...(missOf ? { offPattern: (ci: number, a: number) => missOf(a).includes(ci) } : {}) },
+    { ...options.paths, ...leads, ...(missOf ? { offPattern: (ci: number, a: number) => missOf(a).includes(ci) } : {}) },
     deadline,
   );
   const byNode = new Map(pathSet.answers.map((a) => [a.answer, a]));
@@ -269,12 +279,13 @@ export function explain<A extends ExplainAnalysis>(
   const answers: Answer[] = shown.slice(0, top).map((c, i) => {
     const ref = names.ref(c.node);
     const ap = pathSet.answers[i]!;
+    if (!answerPaths) return { id: ref.id, label: ref.label, score: c.score, types: index.typesOf(c.node).map((t) => names.ref(t).id), paths: [] };
     const best = ap.shown.flatMap((ps) => (ps[0] ? [toAnswerPath(ps[0], names)] : []));
     const alts = ap.shown.flatMap((ps) => ps.slice(1).map((p) => toAnswerPath(p, names)));
     return { id: ref.id, label: ref.label, score: c.score, types: index.typesOf(c.node).map((t) => names.ref(t).id), paths: [...best, ...alts] };
   });
   // the table shows the paths as the answers do (the reading's lead path first)
-  const coverage = coverageTable(clueRefs, pathSet.answers.slice(0, rows).map((a) => ({ ...a, byClue: a.shown })), (x) => names.ref(x), (r) => names.relation(r), maxHops);
+  const coverage = coverageTable(clueRefs, pathSet.answers.slice(0, answerPaths ? rows : 0).map((a) => ({ ...a, byClue: a.shown })), (x) => names.ref(x), (r) => names.relation(r), maxHops);
 
   const reachedOf = (node: number, skip = -1): boolean[] | undefined => {
     const ap = byNode.get(node);

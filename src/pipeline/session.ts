@@ -58,7 +58,7 @@ export interface AskOptions {
   readonly ablation?: boolean;
   /** Suggest clues for a tied or weak verdict. @default true */
   readonly suggestions?: boolean;
-  /** Only the answers and the verdict (the re-asks that check suggestions): no ablation, no suggestions. @default false */
+  /** Only the answers and the verdict (the re-asks that check suggestions): no ablation, no suggestions, no answer paths or coverage rows. @default false */
   readonly verdictOnly?: boolean;
 }
 
@@ -212,7 +212,7 @@ export class Session {
     const asked = (options.whyNot ?? []).map((e) => ({ name: e, nums: this.whyNotEntities(e) }));
     const whyNot = [...new Set(asked.flatMap((x) => x.nums))];
     const sharedNotes = asked.filter((x) => x.nums.length > 1).map((x) => this.sharedNameNote(x.name, x.nums));
-    const parts = { ablation: options.verdictOnly !== true && (options.ablation ?? true), suggestions: options.verdictOnly !== true && (options.suggestions ?? true) };
+    const parts = { ablation: options.verdictOnly !== true && (options.ablation ?? true), suggestions: options.verdictOnly !== true && (options.suggestions ?? true), paths: options.verdictOnly !== true };
     const made = this.answersOf(analysis, ranked, top, { reading, dropClues: options.dropClues ?? [], whyNot, pprMemo, deadline, verdictContext, parts, ...(conditions ? { rerankWith: withConditions } : {}) });
     let { answers } = made;
     const verdict = made.verdict;
@@ -369,7 +369,7 @@ export class Session {
       /** What the verdict reads besides the ranking (explain/verdict.ts): reading, conditions, link facts. */
       readonly verdictContext?: VerdictContext;
       /** Which optional parts of the explanation run. @default both */
-      readonly parts?: { readonly ablation: boolean; readonly suggestions: boolean };
+      readonly parts?: { readonly ablation: boolean; readonly suggestions: boolean; readonly paths?: boolean };
     } = {},
   ): { answers: Answer[]; verdict: Verdict; explanation?: Explanation } {
     if (ranked.clues.length === 0 || ranked.candidates.length === 0) {
@@ -403,7 +403,7 @@ export class Session {
       whyNot: extra.whyNot ?? [],
       ...(extra.verdictContext ? { verdictContext: extra.verdictContext } : {}),
       ...(extra.deadline ? { deadline: extra.deadline } : {}),
-      ...(extra.parts ? { ablation: extra.parts.ablation, suggestions: extra.parts.suggestions } : {}),
+      ...(extra.parts ? { ablation: extra.parts.ablation, suggestions: extra.parts.suggestions, answerPaths: extra.parts.paths ?? true } : {}),
       // the session reads one committed catalog state (one read transaction), so ids and labels can be kept across questions
       refs: this.idCache,
       labelCounts: this.labelCounts,
