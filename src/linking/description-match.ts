@@ -28,6 +28,9 @@ export const DEFAULTS = {
   limit: 8,
 } as const;
 
+/** Entities read between two checks of the time budget while the index is built (a check is a clock read). */
+const BUILD_CHECK_EVERY = 4096;
+
 /** A description that fits a phrase. */
 export interface DescriptionHit {
   readonly num: number;
@@ -40,10 +43,18 @@ export class DescriptionIndex {
   private readonly postings = new Map<string, Map<number, number>>();
   private readonly lengths = new Map<number, number>();
   private readonly avgLength: number;
+  /** True when `stop` ended the build early: the index misses entities and must not be kept. */
+  readonly cut: boolean = false;
 
-  constructor(cat: Catalog) {
+  /** Reads every description; `stop` (the question's time budget) is asked every {@link BUILD_CHECK_EVERY} entities and ends the build early. */
+  constructor(cat: Catalog, stop?: () => boolean) {
     let total = 0;
+    let seen = 0;
     for (const [num, , description] of cat.entityTexts()) {
+      if (stop !== undefined && seen++ % BUILD_CHECK_EVERY === 0 && stop()) {
+        this.cut = true;
+        break;
+      }
       if (!description) continue;
       let length = 0;
       for (const t of tokens(description)) {

@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Catalog, CatalogWriter } from "../catalog/index.js";
 import { TiepointError } from "../model/index.js";
 import { linkingFixture, writeLinkingFixture } from "../../test/linking-fixture.js";
+import { DescriptionIndex } from "./description-match.js";
 import { LexicalSnapshot, Linker, linkQuestion, parsePin } from "./index.js";
 
 let cat: Catalog;
@@ -211,5 +212,28 @@ describe("the lexical snapshot beside a catalog file", () => {
     expect(LexicalSnapshot.load(`${path}.link`, uid, generation)).toBeUndefined();
     expect(linkQuestion("Ada Quell", Linker.fromCatalog(c)).mentions[0]!.entity.id).toBe("p:ada");
     c.close();
+  });
+});
+
+describe("the description index's one-time build and the time budget", () => {
+  it("a spent budget ends the build: nothing is kept, and the next build is whole", () => {
+    const fresh = Linker.fromCatalog(cat);
+    let asked = 0;
+    expect(
+      fresh.descriptions(() => {
+        asked++;
+        return true;
+      }),
+    ).toBeUndefined();
+    expect(asked).toBe(1);
+    const whole = fresh.descriptions(() => false)!;
+    expect(whole).toBeDefined();
+    expect(whole.cut).toBe(false);
+    // kept: a later call (budget spent or not) gets the same index without a rebuild
+    expect(fresh.descriptions(() => true)).toBe(whole);
+    // the same hits as an index built with no budget ("ski lodge" is in the fixture town's description)
+    const query = ["ski", "lodg"];
+    expect(whole.match(query)).toEqual(new DescriptionIndex(cat).match(query));
+    expect(whole.match(query).length).toBeGreaterThan(0);
   });
 });

@@ -343,9 +343,16 @@ export class Linker implements AliasLexicon {
     return this.derivedCache.get(norm, () => (this.phraseWords.has(norm) ? [] : derivedTokens(norm, this.snapshot.vocab)));
   }
 
-  /** @internal the description index (description-match.ts), built on first use. */
-  descriptions(): DescriptionIndex {
-    return (this.descriptionIndex ??= new DescriptionIndex(this.catalog));
+  /**
+   * @internal the description index (description-match.ts), built on first use; undefined
+   * when `stop` (the question's time budget) ended the build early (nothing is kept, a later
+   * question builds it again).
+   */
+  descriptions(stop?: () => boolean): DescriptionIndex | undefined {
+    if (this.descriptionIndex) return this.descriptionIndex;
+    const built = new DescriptionIndex(this.catalog, stop);
+    if (built.cut) return undefined;
+    return (this.descriptionIndex = built);
   }
 
   /** @internal true when the entity has (a subtype of) one of `types`. */
@@ -537,7 +544,7 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
   const allEligible = !toks.some((t, k) => k > 0 && t.upper > 0);
   const detected = detectMentions(toks, linker, blocked, allEligible);
   const vocabulary = linker.vocabularyOccurrences(toks);
-  const { spans: described, replaced } = options.stop?.() ? { spans: [] as DetectedSpan[], replaced: new Set<DetectedSpan>() } : describedSpans(toks, detected.spans, blocked, vocabulary, linker);
+  const { spans: described, replaced } = options.stop?.() ? { spans: [] as DetectedSpan[], replaced: new Set<DetectedSpan>() } : describedSpans(toks, detected.spans, blocked, vocabulary, linker, options.stop);
   const det = {
     spans: [...detected.spans.filter((sp) => !replaced.has(sp)), ...described].sort((a, b) => a.first - b.first),
     unmatched: detected.unmatched.filter((u) => !described.some((d) => u.first < d.last && d.first < u.last)),
@@ -665,7 +672,14 @@ const ARTICLES: ReadonlySet<string> = new Set(["the", "a", "an"]);
  * The phrase takes in a prepositional post-modifier ("the ferry across the canal") when a
  * description holds that share of the longer phrase too.
  */
-function describedSpans(toks: readonly QuestionToken[], spans: readonly DetectedSpan[], blocked: readonly boolean[], vocabulary: readonly VocabularyOccurrence[], linker: Linker): { spans: DetectedSpan[]; replaced: Set<DetectedSpan> } {
+function describedSpans(
+  toks: readonly QuestionToken[],
+  spans: readonly DetectedSpan[],
+  blocked: readonly boolean[],
+  vocabulary: readonly VocabularyOccurrence[],
+  linker: Linker,
+  stop?: () => boolean,
+): { spans: DetectedSpan[]; replaced: Set<DetectedSpan> } {
   const taken = blocked.slice();
   for (const sp of spans) for (let k = sp.first; k < sp.last; k++) taken[k] = true;
   const startsAt = new Map(spans.map((sp) => [sp.first, sp]));
@@ -701,7 +715,8 @@ function describedSpans(toks: readonly QuestionToken[], spans: readonly Detected
     const types = new Set<number>();
     for (const o of vocabulary) if (o.first > i && o.last <= j) for (const t of o.types) types.add(t);
     const query = toks.slice(i + 1, j).filter((t) => !isStopWord(t.norm)).map((t) => t.stem);
-    return linker.descriptions().match(query, types.size > 0 ? (n) => linker.hasType(n, types) : undefined);
+    // the index's one-time build checks the time budget; cut short, no phrase gets a description
+    return linker.descriptions(stop)?.match(query, types.size > 0 ? (n) => linker.hasType(n, types) : undefined) ?? [];
   };
   const strong = (hits: readonly { similarity: number }[]) => hits.length > 0 && hits[0]!.similarity >= DESCRIPTION_OVER_NAMES * DESCRIPTION_DEFAULTS.scale;
   for (let i = 0; i + 1 < toks.length; i++) {
