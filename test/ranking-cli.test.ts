@@ -45,6 +45,15 @@ describe("tiepoint ask", () => {
     expect(r.stdout).toMatch(/ 1\. .* \d\.\d{4} +\[/);
     expect(r.stdout).toMatch(/verdict: +(unique|tied|weak|none)/);
     expect(r.stdout).toContain(DISCLAIMER);
+    // answer types by their label (data/schema.jsonl labels t:Vessel "vessel"), not by id
+    expect(r.stdout).toMatch(/ 1\. .*\]  \(vessel\)/);
+    expect(r.stdout).not.toMatch(/\(t:Vessel\)/);
+  });
+
+  it("names a tied answer by its label (data/core.jsonl: Caddrow and Lumen Ray have Tolvane as home port)", () => {
+    const r = run(["ask", "Which vessels have Tolvane as their home port?"]);
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout).toMatch(/verdict: +tied \(margin [0-9.]+; tied with (Caddrow|Lumen Ray)\)/);
   });
 
   it("--pin fixes a link", () => {

@@ -14,6 +14,11 @@ export interface AskTextOptions {
   readonly millis?: number;
   /** Paths shown per answer. @default 2 */
   readonly paths?: number;
+  /**
+   * The label of a catalog entity (an answer's type, a tied answer) by id; the text then shows
+   * the label where it would show a bare id ("(vessel)" for "(t:Vessel)"). Unknown ids stay ids.
+   */
+  readonly labelOf?: (id: string) => string | undefined;
 }
 
 /** Defaults of {@link AskTextOptions}. */
@@ -49,6 +54,7 @@ function conditionText(c: ConditionDoc): string {
 /** Renders an ask result as plain text, ending with the disclaimer. */
 export function renderAskText(r: AskResult, options: AskTextOptions = {}): string {
   const out: string[] = [];
+  const labelOf = (id: string): string => options.labelOf?.(id) ?? id;
   out.push(`question: ${r.question}`);
   if (r.mentions.length === 0) out.push("linked:   (nothing)");
   r.mentions.forEach((m, i) => {
@@ -73,14 +79,14 @@ export function renderAskText(r: AskResult, options: AskTextOptions = {}): strin
     const w = String(r.answers.length).length;
     const lw = Math.min(40, Math.max(...r.answers.map((a) => a.label.length)));
     r.answers.forEach((a, i) => {
-      const types = a.types.length > 0 ? `  (${a.types.join(", ")})` : "";
+      const types = a.types.length > 0 ? `  (${a.types.map(labelOf).join(", ")})` : "";
       out.push(`  ${String(i + 1).padStart(w)}. ${a.label.padEnd(lw)}  ${formatScore(a.score)}  [${a.id}]${types}`);
       for (const p of a.paths.slice(0, options.paths ?? ASK_TEXT_DEFAULTS.paths)) out.push(`  ${" ".repeat(w)}    via ${pathText(p)}`);
       for (const st of a.values ?? []) out.push(`  ${" ".repeat(w)}    ${st.satisfied ? "meets" : "fails"} ${st.text}`);
     });
   }
   const v = r.verdict;
-  const tied = v.tiedWith.length > 0 ? `; tied with ${v.tiedWith.join(", ")}` : "";
+  const tied = v.tiedWith.length > 0 ? `; tied with ${v.tiedWith.map(labelOf).join(", ")}` : "";
   out.push("");
   out.push(`verdict:  ${v.status} (margin ${v.margin.toFixed(2)}${tied})${v.reason ? ` - ${v.reason}` : ""}`);
   for (const n of r.notes ?? []) out.push(`note:     ${n}`);

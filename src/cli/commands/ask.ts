@@ -58,6 +58,7 @@ export function registerAsk(program: Command): void {
               renderAskText(out.result, {
                 relationCues: out.analysis.relationCues.map((c) => `${c.label} (${c.words.join(" ")})`),
                 millis: out.timings.total,
+                labelOf: catalogLabels(session.catalog).entity,
                 ...(out.explanation ? { paths: 0 } : {}),
               }) + (out.explanation ? "\n" + renderExplanationText(out.explanation) : ""),
             );
