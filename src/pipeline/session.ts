@@ -74,7 +74,9 @@ export const DEFAULTS = {
 /** Milliseconds per stage of one question. */
 export interface AskTimings {
   readonly link: number;
+  /** Reading the question: analysis, conditions and the query graph. */
   readonly analyze: number;
+  /** Ranking (PageRank, patterns, the conditions applied) and the link facts of the verdict. */
   readonly rank: number;
   readonly explain: number;
   readonly total: number;
@@ -181,15 +183,16 @@ export class Session {
     const limitNotes =
       link === linked ? [] : [`${linked.mentions.length} names were linked; only the ${LIMITS.maxMentions} most confident are used as clues (limit: README "Failure modes")`];
     const t1 = performance.now();
-    const { cond, analysis, reading, ranked: maybeRanked, matchedNodes, conditions, pprMemo, lookup } = this.readAndRank(question, link, deadline, options.dropClues);
-    const t2 = performance.now();
+    const { cond, analysis, reading, ranked: maybeRanked, matchedNodes, conditions, pprMemo, lookup, readMs } = this.readAndRank(question, link, deadline, options.dropClues);
+    // the reading (analysis, conditions, query graph) apart from the ranking that follows it in readAndRank
+    const tRead = t1 + readMs;
     if (cond.value || cond.compare) {
       const direct = cond.value ? answerValue(this.catalog, cond.value) : answerComparison(this.catalog, cond.compare!, this.attributes().attributes.map((a) => ({ ...a, score: 0, wordIndexes: [] })));
       // a value question has no ranking to compare a --why-not entity with: say so (names still checked)
       const asked = options.whyNot ?? [];
       for (const name of asked) this.whyNotEntities(name);
       const whyNotNote = asked.length > 0 ? [`--why-not ${asked.map((n) => JSON.stringify(n)).join(", ")}: this question is answered from attribute values, not by ranking, so there is nothing to compare with`] : [];
-      return this.directOutcome(question, analysis, reading, direct, [...limitNotes, ...whyNotNote], top, { link: t1 - t0, analyze: t2 - t1 }, t0);
+      return this.directOutcome(question, analysis, reading, direct, [...limitNotes, ...whyNotNote], top, { link: t1 - t0, analyze: tRead - t1 }, t0);
     }
     const ranked = maybeRanked!;
     const withConditions = (r: Ranked) => (cond.conditions.length > 0 ? applyConditions(analysis, r, cond.conditions, this.index, lookup).ranked : r);
@@ -257,7 +260,7 @@ export class Session {
         : {}),
       ...(deadline.hit ? { budget: { limitMs: deadline.limitMs, hit: true as const, cut: deadline.cuts } } : {}),
     };
-    return { result, analysis, ranked, explanation, reading, ...(conditions ? { conditions } : {}), timings: { link: t1 - t0, analyze: t2 - t1, rank: t3 - t2, explain: t4 - t3, total: t4 - t0 } };
+    return { result, analysis, ranked, explanation, reading, ...(conditions ? { conditions } : {}), timings: { link: t1 - t0, analyze: tRead - t1, rank: t3 - tRead, explain: t4 - t3, total: t4 - t0 } };
   }
 
   /**
@@ -278,9 +281,11 @@ export class Session {
       },
       textValues: (p: number, texts: readonly string[]) => session.catalog.attributeValuesIn(p, texts),
     };
+    const t0 = performance.now();
     const cond = detectConditions(analyze(question, link, this.model), this.model, lazyAttributes);
     const analysis = cond.analysis;
     const reading = readQuestion(cond, this.model);
+    const readMs = performance.now() - t0;
     // numeric values through per-predicate columns (one statement per attribute, kept by the session)
     const lookup = {
       numbers: (e: number, p: number) => this.numericColumns.numbers(e, p),
@@ -290,12 +295,12 @@ export class Session {
     };
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();
-    if (cond.value || cond.compare) return { cond, analysis, reading, lookup, pprMemo };
+    if (cond.value || cond.compare) return { cond, analysis, reading, lookup, pprMemo, readMs };
     const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, deadline, ...(dropClues ? { dropClues } : {}) });
     const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup, { deadline }) : undefined;
     // the entities that satisfy the reading (all of them, not only the ranking's first `matched`), before any filter or reordering
     const matchedNodes = new Set(ranked0.fallback ? [] : (ranked0.matchedNodes?.() ?? ranked0.candidates.slice(0, ranked0.matched ?? 0).map((c) => c.node)));
-    return { cond, analysis, reading, lookup, pprMemo, ranked: conditions?.ranked ?? ranked0, matchedNodes, ...(conditions ? { conditions } : {}) };
+    return { cond, analysis, reading, lookup, pprMemo, readMs, ranked: conditions?.ranked ?? ranked0, matchedNodes, ...(conditions ? { conditions } : {}) };
   }
 
   /**
@@ -542,6 +547,8 @@ interface ReadAndRank {
   readonly reading: QueryGraph;
   readonly lookup: { numbers: (e: number, p: number) => readonly number[]; texts: (e: number, p: number) => string[]; entitiesWith: (p: number, v: string) => number[] };
   readonly pprMemo: Map<string, SparseScores>;
+  /** Milliseconds of the reading alone (analysis, conditions, query graph), before the ranking. */
+  readonly readMs: number;
   readonly ranked?: Ranked;
   /** The entities that satisfy the reading (ranking `Ranked.matched`, taken before the conditions). */
   readonly matchedNodes?: ReadonlySet<number>;
