@@ -47,15 +47,15 @@ describe.each([
   let targets: number[];
   const runs: Composition[] = [];
   const baseline: Composition[] = [];
-  beforeAll(() => {
+  beforeAll(async () => {
     const built = source();
     triples = built.triples;
     session = Session.open({ db: built.db });
     composer = new Composer(session);
     targets = sampleTargets(session, TARGETS, SEED);
     for (const t of targets) {
-      runs.push(composer.compose(t));
-      baseline.push(composer.compose(t, { strategy: "greedy" }));
+      runs.push(await composer.compose(t));
+      baseline.push(await composer.compose(t, { strategy: "greedy" }));
     }
   }, 300_000);
   afterAll(() => session?.close());

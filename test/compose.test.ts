@@ -101,26 +101,26 @@ describe("compose on the fleet catalog", () => {
     ]);
   });
 
-  it("never names the target, an entity whose label contains its label, or an avoided entity or relation", () => {
+  it("never names the target, an entity whose label contains its label, or an avoided entity or relation", async () => {
     const k = num("x:kestrel");
     const facts = candidateFacts(composer, k, composer.names(k));
     expect(composer.names(k).sort()).toEqual(["Kestrel", "RV Kestrel"]);
     expect(facts.some((f) => f.entity === num("x:trust"))).toBe(false);
-    const c = composer.compose(k, { count: 5 });
+    const c = await composer.compose(k, { count: 5 });
     expect(c.proposals.length).toBeGreaterThan(0);
     for (const p of c.proposals) expect(p.question.toLowerCase()).not.toContain("kestrel");
-    const noBrackwell = composer.compose(k, { avoid: ["Brackwell"] });
+    const noBrackwell = await composer.compose(k, { avoid: ["Brackwell"] });
     expect(noBrackwell.proposals.every((p) => !p.question.includes("Brackwell"))).toBe(true);
-    const noMooring = composer.compose(k, { avoid: ["moored at"] });
+    const noMooring = await composer.compose(k, { avoid: ["moored at"] });
     expect(noMooring.proposals.every((p) => !p.question.includes("moored"))).toBe(true);
     // without mooring nothing separates Kestrel from Tern (hand-derived): no proposal, a note says so
     expect(noMooring.proposals).toEqual([]);
     expect(noMooring.notes.join(" ")).toMatch(/no combination of at most 4 clues singles out Kestrel/);
-    expect(() => composer.compose(k, { avoid: ["Nowhere Such"] })).toThrow(/--avoid "Nowhere Such": no entity or relation/);
+    await expect(composer.compose(k, { avoid: ["Nowhere Such"] })).rejects.toThrow(/--avoid "Nowhere Such": no entity or relation/);
   });
 
-  it("verifies a proposal only when asking it back gives the target first and unique; the proof shrinks to one", () => {
-    const c = composer.compose(num("x:marrow"), { count: 2 });
+  it("verifies a proposal only when asking it back gives the target first and unique; the proof shrinks to one", async () => {
+    const c = await composer.compose(num("x:marrow"), { count: 2 });
     expect(c.proposals.length).toBeGreaterThan(0);
     for (const p of c.proposals) {
       const again = session.ask(p.question, { top: 3 }).result;
@@ -132,7 +132,7 @@ describe("compose on the fleet catalog", () => {
     expect(c.proposals[0]!.question).toBe("Which vessel whose captain is Ada Quell?");
   });
 
-  it("proof counts equal the entities ask's reading matches for the same clues", () => {
+  it("proof counts equal the entities ask's reading matches for the same clues", async () => {
     const t = num("x:quillon");
     const facts = candidateFacts(composer, t, composer.names(t), { chains: false });
     const osterly = facts.find((f) => f.entity === num("x:osterly"))!;
@@ -143,7 +143,7 @@ describe("compose on the fleet catalog", () => {
     expect(q2).toBe("Which vessel is moored at Osterly and is built by Hollis Vane?");
     expect(session.ask(q1).result.reading?.matched).toBe(2);
     expect(session.ask(q2).result.reading?.matched).toBe(1);
-    const c = composer.compose(t, { count: 1 });
+    const c = await composer.compose(t, { count: 1 });
     expect(c.proposals[0]!.candidates[0]).toBe(4);
     expect(c.proposals[0]!.candidates.at(-1)).toBe(1);
   });
@@ -158,10 +158,10 @@ describe("compose on the demo catalog", () => {
   });
   afterAll(() => demo?.close());
 
-  it("proof counts of relation clues equal what ask's reading matches, clue by clue", () => {
+  it("proof counts of relation clues equal what ask's reading matches, clue by clue", async () => {
     let compared = 0;
     for (const id of ["ves:caddrow", "p:jessa-moll", "town:tolvane", "ins:deepeye"]) {
-      const c = dc.compose(demo.catalog.numOf(id)!, { count: 2 });
+      const c = await dc.compose(demo.catalog.numOf(id)!, { count: 2 });
       for (const p of c.proposals.filter((x) => x.verified)) {
         const clues = p.clues.filter((k) => k.kind !== "type");
         if (clues.some((k) => k.kind !== "relation")) continue;

@@ -18,10 +18,10 @@ beforeAll(() => {
 afterAll(() => session?.close());
 
 describe("demo questions", () => {
-  it("reach Hits@1 ≥ 0.85 and MRR ≥ 0.9", () => {
+  it("reach Hits@1 ≥ 0.85 and MRR ≥ 0.9", async () => {
     const items = parseQuestionFile(QUESTIONS);
     expect(items.length).toBeGreaterThanOrEqual(30);
-    const report = runCheck(session, items, { top: 10 });
+    const report = await runCheck(session, items, { top: 10 });
     const misses = report.results.filter((r) => r.expected.length > 0 && r.rank !== 1).map((r) => `line ${r.line}: ${r.question} -> rank ${r.rank} (${r.answer.answers[0]?.id ?? "none"})`);
     // the misses are printed when the targets fail
     expect({ hits1: report.summary.hits1 >= 0.85, mrr: report.summary.mrr >= 0.9, misses }).toMatchObject({ hits1: true, mrr: true });

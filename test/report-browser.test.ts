@@ -117,8 +117,8 @@ describe.skipIf(!HAVE)("HTML report of the demo question set, in Chromium", () =
     const session = Session.open();
     let html: string;
     try {
-      report = runCheck(session, parseQuestionFile("data/demo-questions.tsv"));
-      html = await checkHtml(report, { labels: catalogLabels(session.catalog), subtitle: "data/demo-questions.tsv · demo catalog", suggestions: suggestionsBySession(session, 10) });
+      report = await runCheck(session, parseQuestionFile("data/demo-questions.tsv"));
+      html = await checkHtml(report, { labels: catalogLabels(session.catalog), subtitle: "data/demo-questions.tsv · demo catalog", suggestions: await suggestionsBySession(session, 10, report.results) });
     } finally {
       session.close();
     }

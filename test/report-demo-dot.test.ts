@@ -19,9 +19,9 @@ function pathTriples(r: AskResult): Set<string> {
 describe("evidence DOT of the demo questions", () => {
   let session: Session;
   let report: CheckReport;
-  beforeAll(() => {
+  beforeAll(async () => {
     session = Session.open();
-    report = runCheck(session, parseQuestionFile("data/demo-questions.tsv"));
+    report = await runCheck(session, parseQuestionFile("data/demo-questions.tsv"));
   });
   afterAll(() => session?.close());
 

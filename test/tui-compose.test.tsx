@@ -31,7 +31,7 @@ describe("compose on the terminal screen", () => {
   it("c on an answer shows the composed questions; enter asks one and its first answer is that entity", async () => {
     const question = "Which vessel carries the Deepeye sonar?";
     const first = session.ask(question).result.answers[0]!;
-    const expected = new Composer(session).compose(session.catalog.numOf(first.id)!).proposals;
+    const expected = (await new Composer(session).compose(session.catalog.numOf(first.id)!)).proposals;
     expect(expected.length).toBeGreaterThan(0);
     const app = render(<TuiApp open={(p) => inProcessEngine({}, p)} columns={120} rows={40} theme={PLAIN_THEME} />);
     try {

@@ -33,20 +33,20 @@ function sampleTargets(session: Session, n: number, seed: number): number[] {
 }
 
 /** Composes for `targets` seeded targets of the work folder's catalog and times each. */
-export function phaseCompose(work: string, targets: number = DEFAULTS.targets): Record<string, unknown> {
+export async function phaseCompose(work: string, targets: number = DEFAULTS.targets): Promise<Record<string, unknown>> {
   const t0 = performance.now();
   const session = Session.open({ db: workPaths(work).db });
   try {
     const openSeconds = (performance.now() - t0) / 1000;
     const composer = new Composer(session);
     const all = sampleTargets(session, targets + DEFAULTS.warmUp, DEFAULTS.seed);
-    for (const t of all.slice(targets)) composer.compose(t);
+    for (const t of all.slice(targets)) await composer.compose(t);
     const total: number[] = [];
     const before: number[] = [];
     const roundTrip: number[] = [];
     let verified = 0;
     for (const t of all.slice(0, targets)) {
-      const c = composer.compose(t);
+      const c = await composer.compose(t);
       total.push(c.timings.total);
       before.push(c.timings.total - c.timings.roundTrip);
       roundTrip.push(c.timings.roundTrip);

@@ -111,7 +111,7 @@ function child(phase: string, size: SizeName, workBase: string, questions: numbe
   }
 }
 
-function runPhase(phase: string, size: SizeName, work: string, questions: number): Record<string, unknown> {
+function runPhase(phase: string, size: SizeName, work: string, questions: number): Record<string, unknown> | Promise<Record<string, unknown>> {
   const s = SIZES[size];
   switch (phase) {
     case "generate":
@@ -139,7 +139,7 @@ function main(): void {
     const size = o.sizes[0]!;
     const work = join(o.work, size);
     mkdirSync(work, { recursive: true });
-    process.stdout.write("\n" + JSON.stringify(runPhase(o.phase, size, work, o.questions)) + "\n");
+    void Promise.resolve(runPhase(o.phase, size, work, o.questions)).then((r) => process.stdout.write("\n" + JSON.stringify(r) + "\n"));
     return;
   }
   const machine = {

@@ -64,8 +64,8 @@ async function main(): Promise<void> {
       const s0 = performance.now();
       const x = await a.askAsync(q);
       ta.push(performance.now() - s0);
-      req.push(a.store!.figures.requests);
-      rows.push(a.store!.figures.rows);
+      req.push(a.pullFigures()!.requests);
+      rows.push(a.pullFigures()!.rows);
       const s1 = performance.now();
       const y = l.ask(q);
       tl.push(performance.now() - s1);

@@ -8,6 +8,7 @@ export { loadFiles, formatOf } from "./load.js";
 export type { LoadOptions, LoadReport, FileReport, ImportFormat, LoadProgress, LoadWarning, WarningKind, UpdateSummary } from "./load.js";
 export type { LoadSink, PreparedFiles } from "./load-sink.js";
 export { catalogStats, nearestRank, typeMembers, unionFindComponents } from "./stats.js";
+export type { StoreEdgeCounts } from "./stats.js";
 export type { CatalogStats, Hub } from "./stats.js";
 export { demoCatalogPath, demoSourceFiles, demoDataDir, cacheDir, DEMO_SOURCES } from "./demo.js";
 export type { DemoCatalogOptions } from "./demo.js";

@@ -10,6 +10,11 @@
  * per type (direct, and with subtypes), edges per relation, names shared by several entities
  * (labels and aliases by normalised form: the ones a question must disambiguate), and types
  * without members.
+ *
+ * An attached catalog (its edges stay in a SPARQL store, README "Attaching a SPARQL store")
+ * has no edge table to count: its degrees and edges per relation are the store's own counts,
+ * taken by the attach (`PATH.store`), no request is made, and the components (which need the
+ * edges themselves) are not computed.
  */
 import type { Catalog, CatalogCounts } from "./store.js";
 
@@ -59,9 +64,9 @@ export interface CatalogStats {
   /** Degree (edges in + out) over all entities. */
   readonly degree: { readonly min: number; readonly median: number; readonly p99: number; readonly max: number; readonly mean: number };
   readonly hubs: readonly Hub[];
-  /** Connected components (undirected), isolated entities included. */
-  readonly components: number;
-  readonly largestComponent: number;
+  /** Connected components (undirected), isolated entities included; null on an attached catalog (its edges are in the store). */
+  readonly components: number | null;
+  readonly largestComponent: number | null;
   /** Entities without any edge (types without edges are not counted). */
   readonly isolated: number;
   /** Types by members (most first, then id). */
@@ -72,6 +77,20 @@ export interface CatalogStats {
   readonly sharedNames: { readonly count: number; readonly top: readonly SharedName[] };
   /** Types that no entity has, directly or through a subtype. */
   readonly emptyTypes: readonly { readonly id: string; readonly label: string }[];
+  /** An attached catalog: where its edges are (the endpoint without credentials) and when they were counted. */
+  readonly store?: { readonly endpoint: string; readonly graph: string | null; readonly attachedAt: string };
+}
+
+/** The edge counts of an attached catalog's store (its binding, catalog/sparql/binding.ts). */
+export interface StoreEdgeCounts {
+  readonly endpoint: string;
+  readonly graph: string | null;
+  readonly attachedAt: string;
+  readonly edges: number;
+  /** Degree (edges in + out) per entity num. */
+  readonly degree: ArrayLike<number>;
+  /** Edges per relation (predicate num). */
+  readonly relationEdges: ArrayLike<number>;
 }
 
 /** Nearest-rank percentile of an ascending sorted array (NIST/common practice definition). */
@@ -109,26 +128,34 @@ export function unionFindComponents(n: number, forEachPair: (visit: (a: number, 
 }
 
 /** Computes the statistics of a catalog (one pass over the entity and edge tables). */
-export function catalogStats(cat: Catalog, options: { hubs?: number; sharedNames?: number } = {}): CatalogStats {
+export function catalogStats(cat: Catalog, options: { hubs?: number; sharedNames?: number; store?: StoreEdgeCounts } = {}): CatalogStats {
   const hubCount = options.hubs ?? DEFAULTS.hubs;
-  const counts = cat.counts();
+  const store = options.store;
+  const counts = store ? { ...cat.counts(), edges: store.edges, relations: Array.from(store.relationEdges).filter((x) => x > 0).length } : cat.counts();
   const nums = cat.db.prepare("SELECT num FROM entity ORDER BY num").pluck().all() as number[];
   const index = new Map<number, number>();
   nums.forEach((num, i) => index.set(num, i));
   const n = nums.length;
   const degree = new Int32Array(n);
   const perRelation = new Map<number, number>();
-  const edgeStmt = cat.db.prepare("SELECT src, rel, dst FROM edge").raw(true);
-  const cc = unionFindComponents(n, (visit) => {
-    for (const row of edgeStmt.iterate() as IterableIterator<[number, number, number]>) {
-      const a = index.get(row[0])!;
-      const b = index.get(row[2])!;
-      degree[a]!++;
-      degree[b]!++;
-      perRelation.set(row[1], (perRelation.get(row[1]) ?? 0) + 1);
-      visit(a, b);
-    }
-  });
+  let cc: { components: number; largest: number } | null = null;
+  if (store) {
+    // the store's counts (no edge is read)
+    nums.forEach((num, i) => (degree[i] = store.degree[num] ?? 0));
+    for (let r = 0; r < store.relationEdges.length; r++) if (store.relationEdges[r]! > 0) perRelation.set(r, store.relationEdges[r]!);
+  } else {
+    const edgeStmt = cat.db.prepare("SELECT src, rel, dst FROM edge").raw(true);
+    cc = unionFindComponents(n, (visit) => {
+      for (const row of edgeStmt.iterate() as IterableIterator<[number, number, number]>) {
+        const a = index.get(row[0])!;
+        const b = index.get(row[2])!;
+        degree[a]!++;
+        degree[b]!++;
+        perRelation.set(row[1], (perRelation.get(row[1]) ?? 0) + 1);
+        visit(a, b);
+      }
+    });
+  }
   // types without edges are no nodes of the relation graph
   const typeNums = new Set(cat.db.prepare("SELECT type FROM entity_type UNION SELECT sub FROM subclass UNION SELECT sup FROM subclass").pluck().all() as number[]);
   const node = new Uint8Array(n);
@@ -165,8 +192,8 @@ export function catalogStats(cat: Catalog, options: { hubs?: number; sharedNames
     counts,
     degree: { min: nodes ? sorted[0]! : 0, median: nearestRank(sorted, 50), p99: nearestRank(sorted, 99), max: nodes ? sorted[nodes - 1]! : 0, mean: nodes ? sum / nodes : 0 },
     hubs,
-    components: cc.components - (n - nodes),
-    largestComponent: cc.largest,
+    components: cc ? cc.components - (n - nodes) : null,
+    largestComponent: cc ? cc.largest : null,
     isolated,
     types,
     relations: cat
@@ -176,6 +203,7 @@ export function catalogStats(cat: Catalog, options: { hubs?: number; sharedNames
       .sort((a, b) => b.edges - a.edges || byId(a, b)),
     sharedNames: sharedNames(cat, options.sharedNames ?? DEFAULTS.sharedNames),
     emptyTypes: types.filter((t) => t.withSubtypes === 0).map((t) => ({ id: t.id, label: t.label })),
+    ...(store ? { store: { endpoint: store.endpoint, graph: store.graph, attachedAt: store.attachedAt } } : {}),
   };
 }
 

@@ -89,17 +89,19 @@ export interface RenderReportOptions {
 }
 
 /**
- * Suggested clues for the HTML report: the tied and weak questions are asked once more in the
- * same session (answers are deterministic) to read the explanation's suggestions, which the
- * contract document does not carry.
+ * Suggested clues for the HTML report: the tied and weak questions of `items` are asked once
+ * more in the same session (answers are deterministic; an attached catalog pulls from its
+ * store again) to read the explanation's suggestions, which the contract document does not carry.
  */
-export function suggestionsBySession(session: Session, top: number): (item: CheckItem) => readonly string[] {
-  return (item) => {
+export async function suggestionsBySession(session: Session, top: number, items: readonly CheckItem[]): Promise<(item: CheckItem) => readonly string[]> {
+  const by = new Map<CheckItem, readonly string[]>();
+  for (const item of items) {
     const st = item.answer.verdict.status;
-    if (st !== "tied" && st !== "weak") return [];
-    const sg = session.ask(item.question, { top }).explanation?.suggestions ?? [];
-    return sg.map((x) => (x.rulesOut.length > 0 ? `${x.text} (rules out ${x.rulesOut.length} rival${x.rulesOut.length === 1 ? "" : "s"})` : x.text));
-  };
+    if (st !== "tied" && st !== "weak") continue;
+    const sg = (await session.askAsync(item.question, { top })).explanation?.suggestions ?? [];
+    by.set(item, sg.map((x) => (x.rulesOut.length > 0 ? `${x.text} (rules out ${x.rulesOut.length} rival${x.rulesOut.length === 1 ? "" : "s"})` : x.text)));
+  }
+  return (item) => by.get(item) ?? [];
 }
 
 /** The report document in the chosen format, and the comparison text for stderr when the format has no place for it. */

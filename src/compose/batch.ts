@@ -46,10 +46,12 @@ export function readAnswerFile(composer: Composer, file: string): AnswerLine[] {
 }
 
 /** Composes every line of a batch (progress through `onEach`). */
-export function composeBatch(composer: Composer, lines: readonly AnswerLine[], options: ComposeOptions = {}, onEach?: (done: number, total: number) => void): { line: number; name: string; composition: Composition }[] {
-  return lines.map((l, i) => {
-    const composition = composer.compose(l.entity, options);
+export async function composeBatch(composer: Composer, lines: readonly AnswerLine[], options: ComposeOptions = {}, onEach?: (done: number, total: number) => void): Promise<{ line: number; name: string; composition: Composition }[]> {
+  const out: { line: number; name: string; composition: Composition }[] = [];
+  for (const [i, l] of lines.entries()) {
+    const composition = await composer.compose(l.entity, options);
     onEach?.(i + 1, lines.length);
-    return { line: l.line, name: l.name, composition };
-  });
+    out.push({ line: l.line, name: l.name, composition });
+  }
+  return out;
 }

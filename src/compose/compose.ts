@@ -30,7 +30,7 @@ import { normalize, type Catalog } from "../catalog/index.js";
 import { DIFFICULTIES, givesAway, type ClueCostOptions } from "../explain/index.js";
 import { TiepointError, type EntityRef, type VerdictStatus } from "../model/index.js";
 import type { Session } from "../pipeline/index.js";
-import { salienceOf } from "../ranking/index.js";
+import { salienceOf, type RelationIndex } from "../ranking/index.js";
 import { cheapestSets, type ClueSet, type SearchOptions } from "./cost-search.js";
 import { candidateFacts, extensionOf, intersectSorted, type Fact, type FactOptions, type FactSource, type SearchSpace } from "./facts.js";
 import { greedySet } from "./greedy.js";
@@ -46,6 +46,8 @@ export const DEFAULTS = Object.freeze({
   extraTries: 3,
   /** Time budget of one round-trip question (ms; the `ask` default). */
   roundTripMs: 3000,
+  /** Rings of neighbours around the target whose edges an attached catalog pulls from its store (facts reach two hops; hubs are not expanded, store-edges.ts). */
+  storeRings: 2,
 });
 
 /** Options of {@link Composer.compose}; all optional. */
@@ -166,13 +168,13 @@ export function parseDifficulty(value: number | string | undefined): number {
 
 /** One session's composer: the catalog lookups and caches compose needs, kept across targets. */
 export class Composer implements FactSource {
-  readonly graph;
+  /** The relation index the facts are read from: the session's, or (an attached catalog) the target's neighbourhood pulled from the store. */
+  graph: RelationIndex;
   private readonly labels = new Map<number, string>();
   private readonly labelCounts = new Map<string, number>();
   private readonly typeCounts = new Map<number, number>();
   private readonly rels: Map<number, { id: string; label: string; aliases: readonly string[] }>;
   private readonly predNums: Map<string, number>;
-  private readonly percentile: Float32Array;
   private entityCount: number | undefined;
 
   constructor(readonly session: Session) {
@@ -180,7 +182,6 @@ export class Composer implements FactSource {
     const preds = session.catalog.predicates();
     this.rels = new Map(preds.map((p) => [p.num, { id: p.id, label: p.label, aliases: p.aliases }]));
     this.predNums = new Map(preds.map((p) => [p.id, p.num]));
-    this.percentile = salienceOf(session.index).percentile;
   }
 
   label(num: number): string {
@@ -202,7 +203,8 @@ export class Composer implements FactSource {
   }
 
   salience(num: number): number {
-    return this.percentile[num] ?? 0;
+    // salienceOf keeps one result per index (the session's, computed once)
+    return salienceOf(this.graph).percentile[num] ?? 0;
   }
 
   attributes(num: number): { predicate: number; label: string; value: string }[] {
@@ -260,9 +262,14 @@ export class Composer implements FactSource {
     return { entities, relations };
   }
 
-  /** Composes up to `count` questions whose only answer is `target` (an entity num). */
-  compose(target: number, options: ComposeOptions = {}): Composition {
+  /**
+   * Composes up to `count` questions whose only answer is `target` (an entity num), on any
+   * catalog: an attached one first pulls the target's neighbourhood from its store (the facts
+   * are read from it), and every round trip is asked through `Session.askAsync`.
+   */
+  async compose(target: number, options: ComposeOptions = {}): Promise<Composition> {
     const t0 = performance.now();
+    this.graph = (await this.session.around([target], DEFAULTS.storeRings)).index;
     const count = options.count ?? DEFAULTS.count;
     if (!Number.isInteger(count) || count < 1) throw new TiepointError("cli/usage", `--count ${String(count)}: expected a positive whole number`);
     const difficulty = parseDifficulty(options.difficulty);
@@ -307,7 +314,7 @@ export class Composer implements FactSource {
         continue;
       }
       tried++;
-      const checked = options.roundTrip === false ? { ...p, verdict: { status: "none" as const }, reason: "not asked back (round trip off)" } : this.roundTrip(p, ref, options.roundTripMs ?? DEFAULTS.roundTripMs);
+      const checked = options.roundTrip === false ? { ...p, verdict: { status: "none" as const }, reason: "not asked back (round trip off)" } : await this.roundTrip(p, ref, options.roundTripMs ?? DEFAULTS.roundTripMs);
       (checked.verified ? verified : unverified).push(checked);
     }
     const t3 = performance.now();
@@ -375,10 +382,10 @@ export class Composer implements FactSource {
   }
 
   /** Asks a proposal's question back through the session (as `ask`) and marks it. */
-  private roundTrip(p: Proposal, ref: EntityRef, timeLimitMs: number): Proposal {
+  private async roundTrip(p: Proposal, ref: EntityRef, timeLimitMs: number): Promise<Proposal> {
     let result;
     try {
-      result = this.session.ask(p.question, { top: 3, timeLimitMs }).result;
+      result = (await this.session.askAsync(p.question, { top: 3, timeLimitMs })).result;
     } catch (e) {
       if (!(e instanceof TiepointError)) throw e;
       return { ...p, verdict: { status: "none" }, reason: `asked back, it failed: ${e.message}` };

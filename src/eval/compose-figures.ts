@@ -86,7 +86,7 @@ export function figuresOf(set: string, strategy: "cost" | "greedy", runs: readon
 }
 
 /** Composes every target with both strategies. */
-export function evaluateCompose(set: string, db: string, n: number, seed: number, progress: (s: string) => void = () => {}): ComposeFigures[] {
+export async function evaluateCompose(set: string, db: string, n: number, seed: number, progress: (s: string) => void = () => {}): Promise<ComposeFigures[]> {
   const session = Session.open({ db });
   try {
     const composer = new Composer(session);
@@ -94,10 +94,10 @@ export function evaluateCompose(set: string, db: string, n: number, seed: number
     const out: ComposeFigures[] = [];
     for (const strategy of ["cost", "greedy"] as const) {
       const runs: Composition[] = [];
-      targets.forEach((t, i) => {
-        runs.push(composer.compose(t, { strategy }));
+      for (const [i, t] of targets.entries()) {
+        runs.push(await composer.compose(t, { strategy }));
         if ((i + 1) % 20 === 0 || i + 1 === targets.length) progress(`${set} ${strategy}: ${i + 1}/${targets.length}`);
-      });
+      }
       out.push(figuresOf(set, strategy, runs));
     }
     return out;

@@ -15,7 +15,7 @@ function dbOf(set: string): string {
   return builtCatalog(setByName(set)).db;
 }
 
-function main(argv: readonly string[]): void {
+async function main(argv: readonly string[]): Promise<void> {
   const opt = (name: string): string | undefined => {
     const i = argv.indexOf(name);
     return i >= 0 ? argv[i + 1] : undefined;
@@ -34,7 +34,7 @@ function main(argv: readonly string[]): void {
     const entities = cat.db.prepare("SELECT count(*) FROM entity").pluck().get() as number;
     cat.close();
     process.stderr.write(`${set}: ${entities} entities (${db})\n`);
-    rows.push(...evaluateCompose(set, db, n, seed, (s) => process.stderr.write(`  ${s}\n`)));
+    rows.push(...await evaluateCompose(set, db, n, seed, (s) => process.stderr.write(`  ${s}\n`)));
   }
   process.stdout.write(argv.includes("--json") ? JSON.stringify({ seed, targets: n, rows }, null, 2) + "\n" : renderFigures(rows));
 }

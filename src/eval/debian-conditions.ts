@@ -144,7 +144,7 @@ async function main(argv: readonly string[]): Promise<void> {
   try {
     for (const q of questions) {
       const t = performance.now();
-      const r = session.ask(q.question, { verifySuggestions: true }).result;
+      const r = (await session.askAsync(q.question, { verifySuggestions: true })).result;
       const ms = performance.now() - t;
       rows.push({ q, ms, ok: agrees(q, r), got: r.count !== undefined ? String(r.count.value) : (r.answers[0]?.label ?? "-"), budget: r.budget ? r.budget.cut.join("+") : "" });
     }

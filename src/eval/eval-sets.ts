@@ -131,12 +131,16 @@ export function builtCatalog(spec: SetSpec, dir: string = cacheDir()): BuiltCata
 }
 
 /** Runs a tool's main: a TiepointError becomes its one line on stderr and exit status 1 (2 for bad usage). */
-export function runTool(main: () => void): void {
-  try {
-    main();
-  } catch (e) {
+export function runTool(main: () => void | Promise<void>): void {
+  const fail = (e: unknown) => {
     if (!(e instanceof TiepointError)) throw e;
     process.stderr.write(`${e.format()}\n`);
     process.exit(e.code === "cli/usage" ? 2 : 1);
+  };
+  try {
+    const r = main();
+    if (r instanceof Promise) r.catch(fail);
+  } catch (e) {
+    fail(e);
   }
 }

@@ -116,7 +116,7 @@ export function figures(scored: readonly Scored[]): Figures {
 }
 
 /** Asks and scores every question of a set (progress on stderr). */
-export function evaluateSet(spec: SetSpec, splits: readonly ("dev" | "holdout")[], progress: (s: string) => void = () => {}): { scored: Scored[]; labels: Map<string, string> } {
+export async function evaluateSet(spec: SetSpec, splits: readonly ("dev" | "holdout")[], progress: (s: string) => void = () => {}): Promise<{ scored: Scored[]; labels: Map<string, string> }> {
   const split = readSplit().sets[spec.name];
   if (!split) throw new TiepointError("eval/split", `the ${spec.name} set has no committed split (npm run eval:split -- --set ${spec.name})`);
   const splitOf = new Map<string, "dev" | "holdout">([...split.dev.map((id) => [id, "dev"] as const), ...split.holdout.map((id) => [id, "holdout"] as const)]);
@@ -129,13 +129,13 @@ export function evaluateSet(spec: SetSpec, splits: readonly ("dev" | "holdout")[
   const session = Session.open({ db: built.db });
   const scored: Scored[] = [];
   try {
-    questions.forEach((q, i) => {
+    for (const [i, q] of questions.entries()) {
       const sp = splitOf.get(q.id);
       if (!sp) throw new TiepointError("eval/split", `${q.id} is in neither half of the split`, { file: q.file, line: q.line });
       let result: AskResult | undefined;
       let error: string | undefined;
       try {
-        result = session.ask(q.question, { top: DEFAULTS.top }).result;
+        result = (await session.askAsync(q.question, { top: DEFAULTS.top })).result;
         for (const a of result.answers) labels.set(a.id, a.label);
       } catch (e) {
         if (!(e instanceof TiepointError)) throw e;
@@ -143,7 +143,7 @@ export function evaluateSet(spec: SetSpec, splits: readonly ("dev" | "holdout")[
       }
       scored.push(score(q, sp, golds[i]!, result, error));
       if ((i + 1) % 25 === 0) progress(`${spec.name}: ${i + 1}/${questions.length} questions`);
-    });
+    }
     for (const g of golds)
       if (g.kind === "entities")
         for (const id of g.ids) {
@@ -175,7 +175,7 @@ function missLine(s: Scored, labels: Map<string, string>): string {
   return `  ${s.set}/${s.id} [${s.phenomena.join(",")}] ${s.question}\n      expected: ${want}\n      got: ${got} — ${flags}`;
 }
 
-function main(argv: readonly string[]): void {
+async function main(argv: readonly string[]): Promise<void> {
   const opt = (name: string): string | undefined => {
     const i = argv.indexOf(name);
     return i >= 0 ? argv[i + 1] : undefined;
@@ -191,7 +191,7 @@ function main(argv: readonly string[]): void {
   const all: Scored[] = [];
   const labels = new Map<string, string>();
   for (const spec of specs) {
-    const r = evaluateSet(spec, splits, (s) => process.stderr.write(`${s}\n`));
+    const r = await evaluateSet(spec, splits, (s) => process.stderr.write(`${s}\n`));
     all.push(...r.scored);
     for (const [k, v] of r.labels) labels.set(k, v);
   }

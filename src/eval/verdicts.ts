@@ -25,7 +25,7 @@ interface Row {
   readonly item: CheckItem;
 }
 
-function main(argv: readonly string[]): void {
+async function main(argv: readonly string[]): Promise<void> {
   const opt = (name: string): string | undefined => {
     const i = argv.indexOf(name);
     return i >= 0 ? argv[i + 1] : undefined;
@@ -57,7 +57,7 @@ function main(argv: readonly string[]): void {
           mkdirSync(write, { recursive: true });
           writeFileSync(join(write, `${spec.name}-${sp}.tsv`), items.map((it) => `${it.question}\t${it.expected.join("|")}\t${it.verdict!}`).join("\n") + "\n");
         }
-        const report = runCheck(session, items);
+        const report = await runCheck(session, items);
         report.results.forEach((item, i) => {
           const g = golds[i]!;
           rows.push({ set: spec.name, split: sp, kind: qs[i]!.phenomena[0]!, gold: g.kind === "entities" ? g.ids.length : 1, item });

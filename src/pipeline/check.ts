@@ -37,17 +37,8 @@ export function unknownExpected(session: Session, item: QuestionItem): string[] 
   return item.expected.filter((x) => session.catalog.byLabelOrId(x).length === 0);
 }
 
-/** Runs every question and summarises (contract.md, `check --json`). */
-export function runCheck(session: Session, items: readonly QuestionItem[], options: CheckOptions = {}): CheckReport {
-  const t0 = performance.now();
-  const ask = askOptionsOf(options);
-  const results: CheckItem[] = [];
-  for (const item of items) results.push(checkItem(session, item, session.ask(item.question, ask).result, items.length, results.length, options));
-  return { results, summary: summarise(results, (performance.now() - t0) / 1000, options.timeLimitMs ?? DEADLINE_DEFAULTS.timeLimitMs) };
-}
-
-/** {@link runCheck} for any catalog, an attached one included (its questions pull from the store). */
-export async function runCheckAsync(session: Session, items: readonly QuestionItem[], options: CheckOptions = {}): Promise<CheckReport> {
+/** Runs every question and summarises (contract.md, `check --json`), on any catalog (an attached one pulls each question's neighbourhood from its store). */
+export async function runCheck(session: Session, items: readonly QuestionItem[], options: CheckOptions = {}): Promise<CheckReport> {
   const t0 = performance.now();
   const ask = askOptionsOf(options);
   const results: CheckItem[] = [];

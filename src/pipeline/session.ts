@@ -12,7 +12,8 @@ import { DEADLINE_DEFAULTS, DISCLAIMER, Deadline, LIMITS, TiepointError, checkQu
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { linkFacts } from "./link-facts.js";
 import { answerComparison, answerValue, type DirectAnswer } from "./direct.js";
-import { StoreEdges, askInStore, type StoreOptions } from "./store-edges.js";
+import { StoreEdges, type PullFigures, type StoreOptions } from "./store-edges.js";
+import { LocalEdges, type EdgeAccess, type StoreDescription } from "./edge-access.js";
 import { conditionDocs, conditionExplanation, conditionSteps, countDoc, decideVerdict, explain, whyNotFigures, whyNotReasons, PATH_DEFAULTS, VERDICT_DEFAULTS, WHY_NOT_DEFAULTS, type Explanation, type VerdictContext, type WhyNot } from "../explain/index.js";
 
 /** A progress event while a session opens. */
@@ -113,11 +114,11 @@ export class Session {
   /** Numeric attribute values by predicate, read once per predicate in this session's snapshot. */
   private readonly numericColumns: NumericColumns;
 
-  /** The SPARQL store an attached catalog's edges are pulled from per question (pipeline/store-edges.ts); undefined for a loaded catalog. */
-  readonly store: StoreEdges | undefined;
+  /** Where the relation edges come from (edge-access.ts): the catalog file, or the SPARQL store an attached catalog's edges are pulled from (store-edges.ts). */
+  readonly edges: EdgeAccess;
 
-  private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions, store?: StoreEdges) {
-    this.store = store;
+  private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions, edges: EdgeAccess) {
+    this.edges = edges;
     this.catalog = catalog;
     this.index = index;
     this.linker = linker;
@@ -149,7 +150,7 @@ export class Session {
       progress?.({ phase: "model" });
       const model = buildQuestionModel(catalog, { relationEdgeCounts: binding ? binding.relationEdges : index.relationEdgeCounts(), relationEnds: () => index.relationEnds(), typesOf: (n) => index.typesOf(n) });
       progress?.({ phase: "ready" });
-      return new Session(catalog, index, linker, model, options.rank ?? {}, store);
+      return new Session(catalog, index, linker, model, options.rank ?? {}, store ?? new LocalEdges());
     } catch (e) {
       endRead(catalog);
       catalog.close();
@@ -157,21 +158,52 @@ export class Session {
     }
   }
 
-  /** This session's catalog, linker and model over another relation index (an attached store's per-question pull). */
+  /** This session's catalog, linker and model over another relation index (an attached store's pull); the index's own session when it is this one's. */
   withIndex(index: RelationIndex): Session {
-    const s = new Session(this.catalog, index, this.linker, this.model, this.rankOptions);
+    if (index === this.index) return this;
+    const s = new Session(this.catalog, index, this.linker, this.model, this.rankOptions, new LocalEdges());
     s.explainPhaseMs = this.explainPhaseMs;
     return s;
   }
 
-  /** Answers one question; on an attached catalog, after pulling its neighbourhood from the store (the same pipeline then runs on it). */
-  askAsync(question: string, options: AskOptions = {}): Promise<AskOutcome> {
-    return this.store ? askInStore(this, this.store, question, options.pins, (index) => this.withIndex(index).ask(question, options)) : Promise.resolve(this.ask(question, options));
+  /** The attached store (endpoint without credentials, graph, time of the attach); undefined for a loaded catalog. */
+  get store(): StoreDescription | undefined {
+    return this.edges.store;
   }
 
-  /** Answers one question (a loaded catalog; {@link askAsync} for any catalog). */
+  /** What the last question pulled from the store (requests, rows, entities, ms); undefined for a loaded catalog. */
+  pullFigures(): PullFigures | undefined {
+    return this.edges instanceof StoreEdges ? { ...this.edges.figures } : undefined;
+  }
+
+  /** The catalog's counts, with the relation edges of its store on an attached catalog (the store's count taken at the attach). */
+  counts(): ReturnType<Catalog["counts"]> {
+    const c = this.catalog.counts();
+    const e = this.edges.counts();
+    return e ? { ...c, edges: e.edges, relations: Array.from(e.relationEdges).filter((x) => x > 0).length } : c;
+  }
+
+  /**
+   * Answers one question, on any catalog: the edge access (edge-access.ts) gives the index the
+   * question reads — a loaded catalog's own, or the neighbourhood pulled from an attached
+   * catalog's store — and the same pipeline ({@link ask}) runs on it.
+   */
+  askAsync(question: string, options: AskOptions = {}): Promise<AskOutcome> {
+    return this.edges.forQuestion(this, question, options.pins, (index) => this.withIndex(index).ask(question, options));
+  }
+
+  /**
+   * This session over a relation index holding the rows of `nums` and `rings` rings of
+   * neighbours around them (compose's target, an entity card): itself for a loaded catalog,
+   * the pulled neighbourhood for an attached one (whose catalog edge reads see the same rows).
+   */
+  async around(nums: readonly number[], rings: number): Promise<Session> {
+    return this.withIndex(await this.edges.around(this, nums, rings));
+  }
+
+  /** Answers one question on this session's relation index as it is (the pipeline itself; {@link askAsync} for any catalog). */
   ask(question: string, options: AskOptions = {}): AskOutcome {
-    if (this.store) throw new TypeError("pipeline/session: an attached catalog's questions go through askAsync (its edges are pulled per question)");
+    if (this.edges.store) throw new TypeError("pipeline/session: an attached catalog's questions go through askAsync (its edges are pulled per question)");
     const top = options.top ?? DEFAULTS.top;
     checkTop(top);
     if (question.trim() === "") throw new TiepointError("pipeline/question", "the question is empty");

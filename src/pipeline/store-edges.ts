@@ -34,11 +34,12 @@
  * the store changed since the attach (an error asking for `attach --refresh`). An entity
  * with more than `maxRow` edges is never pulled, and the answer says so in a note.
  */
-import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, nodeId, shownEndpoint, type StoreBinding } from "../catalog/index.js";
-import { linkQuestion, type Linker, type Pin } from "../linking/index.js";
+import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, nodeId, shownEndpoint, type Row, type StoreBinding } from "../catalog/index.js";
+import { linkQuestion, type Pin } from "../linking/index.js";
 import { RelationIndex } from "../ranking/index.js";
-import { TiepointError, type AskResult } from "../model/index.js";
+import { TiepointError } from "../model/index.js";
 import { inGraph } from "./attach.js";
+import type { EdgeAccess, EdgeContext, EdgeCounts, QuestionRun, StoreDescription } from "./edge-access.js";
 
 /** Pull limits (README "Attaching a SPARQL store"). */
 export const DEFAULTS = {
@@ -75,8 +76,8 @@ export interface PullFigures {
 
 const NOT_EDGES = [VOCABULARY.type, VOCABULARY.subClassOf, ...Object.keys(UNIT_VOCABULARY)];
 
-/** The store side of an attached catalog's session. */
-export class StoreEdges {
+/** The store side of an attached catalog's session: its {@link EdgeAccess}. */
+export class StoreEdges implements EdgeAccess {
   readonly binding: StoreBinding;
   readonly client: SparqlClient;
   private readonly catalog: Catalog;
@@ -193,18 +194,35 @@ export class StoreEdges {
       rows += d;
     }
     if (cur.length > 0) batches.push(cur);
-    await Promise.all(batches.map((b) => this.pullBatch(b)));
+    // an entity with more edges than the store answers whole is pulled alone, in pages
+    await Promise.all(batches.map((b) => (b.length === 1 && this.degree(b[0]!) > this.client.pageSize ? this.pullPaged(b[0]!) : this.pullBatch(b))));
     this.figures.ms += performance.now() - t0;
+  }
+
+  /** The query for the edge rows of `batch` (as subject and as object). */
+  private rowsQuery(batch: readonly number[]): string {
+    const values = batch.map((n) => iriRef(this.idStmt.get(n) as string)).join(" ");
+    const G = (body: string) => inGraph(this.binding.graph, body);
+    const notEdges = NOT_EDGES.map(iriRef).join(", ");
+    return `SELECT ?s ?p ?o WHERE { { VALUES ?s { ${values} } ${G("?s ?p ?o")} } UNION { VALUES ?o { ${values} } ${G("?s ?p ?o")} } FILTER(!isLiteral(?o) && ?p NOT IN (${notEdges})) }`;
+  }
+
+  /** The rows of one entity with more edges than one answer of the store holds: paged, checked against the store's count (client `paged`). */
+  private async pullPaged(num: number): Promise<void> {
+    const before = this.client.requests;
+    const rows: Row[] = [];
+    await this.client.paged(this.rowsQuery([num]), this.degree(num), "?s ?p ?o", (page) => rows.push(...page), () => (rows.length = 0));
+    this.figures.requests += this.client.requests - before;
+    this.figures.rows += rows.length;
+    this.take(rows);
+    this.pulled.add(num);
+    this.figures.entities++;
   }
 
   private async pullBatch(batch: readonly number[]): Promise<void> {
     const expected = batch.reduce((s, n) => s + this.degree(n), 0);
-    const values = batch.map((n) => iriRef(this.idStmt.get(n) as string)).join(" ");
-    const G = (body: string) => inGraph(this.binding.graph, body);
-    const notEdges = NOT_EDGES.map(iriRef).join(", ");
-    const q = `SELECT ?s ?p ?o WHERE { { VALUES ?s { ${values} } ${G("?s ?p ?o")} } UNION { VALUES ?o { ${values} } ${G("?s ?p ?o")} } FILTER(!isLiteral(?o) && ?p NOT IN (${notEdges})) }`;
     const before = this.client.requests;
-    const r = await this.client.select(q);
+    const r = await this.client.select(this.rowsQuery(batch));
     this.figures.requests += this.client.requests - before;
     this.figures.rows += r.rows.length;
     if (r.rows.length !== expected) {
@@ -217,11 +235,24 @@ export class StoreEdges {
           await Promise.all([this.pullBatch(batch.slice(0, half)), this.pullBatch(batch.slice(half))]);
           return;
         }
-        if (cut) throw new TiepointError("store/cut", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: the store cut the edges of one entity at ${r.rows.length} of ${expected} rows (its row limit); raise the store's limit (Virtuoso: ResultSetMaxRows) to ask about it`);
+        if (cut) {
+          // one entity's edges exceed the store's row limit: pull them in pages of what it answers
+          this.client.pageSize = Math.max(1, Math.min(this.client.pageSize, r.cutAt ?? r.rows.length));
+          this.figures.rows -= r.rows.length;
+          await this.pullPaged(batch[0]!);
+          return;
+        }
       }
       throw new TiepointError("store/changed", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: the store returned ${r.rows.length} edge rows where the attach counted ${expected} (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
     }
-    for (const row of r.rows) {
+    this.take(r.rows);
+    for (const n of batch) this.pulled.add(n);
+    this.figures.entities += batch.length;
+  }
+
+  /** Adds pulled edge rows (each edge once) to the temporary edge table and the pulled arrays. */
+  private take(rows: readonly Row[]): void {
+    for (const row of rows) {
       const s = this.entityNum(nodeId(row.s!));
       const o = this.entityNum(nodeId(row.o!));
       const p = this.predicateNum.get(row.p!.value);
@@ -234,8 +265,6 @@ export class StoreEdges {
       this.dst.push(o);
       this.insert.run(s, p, o);
     }
-    for (const n of batch) this.pulled.add(n);
-    this.figures.entities += batch.length;
   }
 
   /** Neighbours of `nums` in the pulled rows. */
@@ -275,79 +304,99 @@ export class StoreEdges {
     if (this.figures.tooLarge > 0) out.push(`${this.figures.tooLarge} entit${this.figures.tooLarge === 1 ? "y has" : "ies have"} more than ${DEFAULTS.maxRow.toLocaleString("en-US")} edges in the store and ${this.figures.tooLarge === 1 ? "was" : "were"} not pulled: their edges count only where a neighbour's row holds them (README "Attaching a SPARQL store")`);
     return out;
   }
-}
 
-/** Answers a question of an attached catalog: pulls the neighbourhood, then runs the session's own pipeline on it. */
-export async function askInStore<O extends { readonly result: AskResult; readonly timings: { readonly total: number } }>(
-  session: { readonly linker: Linker; readonly index: RelationIndex },
-  store: StoreEdges,
-  question: string,
-  pinned: readonly Pin[] | undefined,
-  askOn: (index: RelationIndex) => O,
-): Promise<O> {
-  const t0 = performance.now();
-  store.reset();
-  session.linker.forgetEdges();
-  const pins = pinned !== undefined ? { pins: pinned } : {};
-  // 1. the linker's reads: record, pull, read again
-  let link = linkQuestion(question, session.linker, pins);
-  for (let round = 0; round < 3; round++) {
-    const need = store.takeDemand();
-    if (need.length === 0) break;
-    await store.pull(need);
-    session.linker.forgetEdges();
-    link = linkQuestion(question, session.linker, pins);
+  /** The store, as `stats` and titles show it (never credentials). */
+  get store(): StoreDescription {
+    return { endpoint: shownEndpoint(this.binding.endpoint), graph: this.binding.graph, attachedAt: this.binding.attachedAt };
   }
-  // 2. rings around the linked clue entities and their alternatives (a clue linked with low confidence seeds them too, ranking's clueSeeds)
-  let ring = new Set<number>();
-  for (const m of link.mentions) {
-    for (const ref of [m.entity, ...m.alternatives]) {
-      const num = store.numOfId(ref.id);
-      if (num !== undefined) ring.add(num);
+
+  /** The store's own counts, taken during the attach (no request). */
+  counts(): EdgeCounts {
+    return { edges: this.binding.edges, degree: this.binding.degree, relationEdges: this.binding.relationEdges };
+  }
+
+  /** The rows of `nums` and `rings` rings of neighbours around them (hubs not expanded), as a relation index; the temporary edge table holds the same rows. */
+  async around(ctx: EdgeContext, nums: readonly number[], rings: number): Promise<RelationIndex> {
+    this.reset();
+    let ring = new Set(nums);
+    await this.pull(ring);
+    const visited = new Set(ring);
+    for (let r = 0; r < rings && ring.size > 0; r++) {
+      ring = this.nextRing(ring, visited);
+      await this.pull(ring);
     }
+    return this.index(ctx.index);
   }
-  await store.pull(ring);
-  const visited = new Set(ring);
-  for (let r = 0; r < DEFAULTS.rings && ring.size > 0; r++) {
-    ring = store.nextRing(ring, visited);
-    await store.pull(ring);
-  }
-  // 3. the pipeline on the pulled neighbourhood; what it still asked for is pulled and it runs again
-  let out: O;
-  let answersExpanded = false;
-  for (let round = 0; ; round++) {
-    session.linker.forgetEdges();
-    store.takeDemand();
-    out = askOn(store.index(session.index));
-    const need = new Set(store.takeDemand());
-    if (!answersExpanded) {
-      answersExpanded = true;
-      const clues = out.result.mentions.length;
-      const unreached = out.result.answers.slice(0, DEFAULTS.answerRings).filter((a) => new Set(a.paths.map((p) => p.from)).size < clues);
-      if (unreached.length > 0) {
-        let around = new Set<number>();
-        for (const a of unreached) {
-          const num = store.numOfId(a.id);
-          if (num !== undefined) around.add(num);
-        }
-        const seen = new Set(around);
-        for (const n of around) need.add(n);
-        for (let r = 0; r < DEFAULTS.rings && around.size > 0; r++) {
-          await store.pull(need);
-          need.clear();
-          around = store.nextRing(around, seen);
-          for (const n of around) need.add(n);
-        }
+
+  /**
+   * One question of an attached catalog: pulls the neighbourhood its stages read (the steps of
+   * the file header), running `run` — the session's own pipeline — on the pulled index.
+   */
+  async forQuestion<O extends QuestionRun>(ctx: EdgeContext, question: string, pinned: readonly Pin[] | undefined, run: (index: RelationIndex) => O): Promise<O> {
+    const t0 = performance.now();
+    this.reset();
+    ctx.linker.forgetEdges();
+    const pins = pinned !== undefined ? { pins: pinned } : {};
+    // 1. the linker's reads: record, pull, read again
+    let link = linkQuestion(question, ctx.linker, pins);
+    for (let round = 0; round < 3; round++) {
+      const need = this.takeDemand();
+      if (need.length === 0) break;
+      await this.pull(need);
+      ctx.linker.forgetEdges();
+      link = linkQuestion(question, ctx.linker, pins);
+    }
+    // 2. rings around the linked clue entities and their alternatives (a clue linked with low confidence seeds them too, ranking's clueSeeds)
+    let ring = new Set<number>();
+    for (const m of link.mentions) {
+      for (const ref of [m.entity, ...m.alternatives]) {
+        const num = this.numOfId(ref.id);
+        if (num !== undefined) ring.add(num);
       }
     }
-    if (need.size === 0 || round >= DEFAULTS.extraRounds) break;
-    await store.pull(need);
+    await this.pull(ring);
+    const visited = new Set(ring);
+    for (let r = 0; r < DEFAULTS.rings && ring.size > 0; r++) {
+      ring = this.nextRing(ring, visited);
+      await this.pull(ring);
+    }
+    // 3. the pipeline on the pulled neighbourhood; what it still asked for is pulled and it runs again
+    let out: O;
+    let answersExpanded = false;
+    for (let round = 0; ; round++) {
+      ctx.linker.forgetEdges();
+      this.takeDemand();
+      out = run(this.index(ctx.index));
+      const need = new Set(this.takeDemand());
+      if (!answersExpanded) {
+        answersExpanded = true;
+        const clues = out.result.mentions.length;
+        const unreached = out.result.answers.slice(0, DEFAULTS.answerRings).filter((a) => new Set(a.paths.map((p) => p.from)).size < clues);
+        if (unreached.length > 0) {
+          let around = new Set<number>();
+          for (const a of unreached) {
+            const num = this.numOfId(a.id);
+            if (num !== undefined) around.add(num);
+          }
+          const seen = new Set(around);
+          for (const n of around) need.add(n);
+          for (let r = 0; r < DEFAULTS.rings && around.size > 0; r++) {
+            await this.pull(need);
+            need.clear();
+            around = this.nextRing(around, seen);
+            for (const n of around) need.add(n);
+          }
+        }
+      }
+      if (need.size === 0 || round >= DEFAULTS.extraRounds) break;
+      await this.pull(need);
+    }
+    const notes = this.notes();
+    const total = performance.now() - t0;
+    return {
+      ...out,
+      result: notes.length > 0 ? { ...out.result, notes: [...(out.result.notes ?? []), ...notes] } : out.result,
+      timings: { ...out.timings, total },
+    };
   }
-  const notes = store.notes();
-  const total = performance.now() - t0;
-  return {
-    ...out,
-    result: notes.length > 0 ? { ...out.result, notes: [...(out.result.notes ?? []), ...notes] } : out.result,
-    timings: { ...out.timings, total },
-  };
 }

@@ -6,7 +6,7 @@
  * expected verdicts).
  */
 import type { Command } from "commander";
-import { parseQuestionFile, QUESTION_FILE_DEFAULTS, runCheckAsync, Session, unknownExpected, type QuestionItem } from "../../pipeline/index.js";
+import { parseQuestionFile, QUESTION_FILE_DEFAULTS, runCheck, Session, unknownExpected, type QuestionItem } from "../../pipeline/index.js";
 import { STORE_TIMEOUT_HELP, storeSessionOptions } from "./attach.js";
 import { guarded } from "../run.js";
 import { checkOutTarget, emit, progressReporter, readEarlierReport, renderReport, reportFormat, suggestionsBySession } from "../report-output.js";
@@ -86,13 +86,13 @@ Question file:
         try {
           warnUnknownExpected(session, items, file);
           const progress = progressReporter();
-          const report = await runCheckAsync(session, items, { top, timeLimitMs, ...(progress.onProgress ? { onProgress: progress.onProgress } : {}) });
+          const report = await runCheck(session, items, { top, timeLimitMs, ...(progress.onProgress ? { onProgress: progress.onProgress } : {}) });
           progress.finish();
           const doc = await renderReport(report, {
             format,
             labels: session.catalog,
             subtitle: `${file} · ${opts.db ?? "demo catalog"}`,
-            ...(format === "html" ? { suggestions: suggestionsBySession(session, top) } : {}),
+            ...(format === "html" ? { suggestions: await suggestionsBySession(session, top, report.results) } : {}),
             ...(earlier ? { earlier } : {}),
           });
           emit(doc.text, opts.out);

@@ -10,6 +10,7 @@ import { Composer, composeBatch, readAnswerFile, resolveTarget } from "../../com
 import { TiepointError } from "../../model/index.js";
 import { Session } from "../../pipeline/index.js";
 import { compositionJson, renderComposeTsv, renderCompositionText } from "../../present/index.js";
+import { STORE_TIMEOUT_HELP, storeSessionOptions } from "./attach.js";
 import { guarded } from "../run.js";
 import { nearNames } from "./show.js";
 
@@ -35,13 +36,14 @@ export function registerCompose(program: Command): void {
     .option("--difficulty <d>", "easy (well-known clues), medium, hard (obscure clues), or a number from 0 to 1", "easy")
     .option("--avoid <entity-or-relation>", "never use this entity or relation (an id or a label) in a clue; repeatable", (v: string, prev: string[]) => [...prev, v], [] as string[])
     .option("--batch <file>", "a file of intended answers (one id or label per line): print a TSV of verified questions (question, expected id, verdict) ready for check")
-    .action((name: string | undefined, opts: { db?: string; json?: boolean; count?: string; difficulty?: string; avoid: string[]; batch?: string }) =>
-      guarded(() => {
+    .option("--timeout <ms>", STORE_TIMEOUT_HELP)
+    .action((name: string | undefined, opts: { db?: string; json?: boolean; count?: string; difficulty?: string; avoid: string[]; batch?: string; timeout?: string }) =>
+      guarded(async () => {
         const count = parseCount(opts.count);
         if (opts.batch !== undefined && name !== undefined) throw new TiepointError("cli/usage", "give either ENTITY or --batch FILE, not both");
         if (opts.batch === undefined && name === undefined) throw new TiepointError("cli/usage", "missing ENTITY (an entity id or label), or --batch FILE");
         if (opts.batch !== undefined && opts.json) throw new TiepointError("cli/usage", "--batch prints a TSV; --json is for one ENTITY");
-        const session = Session.open(opts.db !== undefined ? { db: opts.db } : {});
+        const session = Session.open({ ...(opts.db !== undefined ? { db: opts.db } : {}), ...storeSessionOptions(opts.timeout) });
         try {
           const composer = new Composer(session);
           const options = { count, difficulty: opts.difficulty ?? "easy", avoid: opts.avoid };
@@ -49,7 +51,7 @@ export function registerCompose(program: Command): void {
             const lines = readAnswerFile(composer, opts.batch);
             // options are checked once before the long run (a bad --avoid fails here)
             composer.avoidSets(opts.avoid);
-            const rows = composeBatch(composer, lines, options, (done, total) => {
+            const rows = await composeBatch(composer, lines, options, (done, total) => {
               if (process.stderr.isTTY) process.stderr.write(`\rcomposing ${done}/${total}`);
             });
             if (process.stderr.isTTY) process.stderr.write("\n");
@@ -72,7 +74,7 @@ export function registerCompose(program: Command): void {
             process.exitCode = 1;
             return;
           }
-          const c = composer.compose(nums[0]!, options);
+          const c = await composer.compose(nums[0]!, options);
           process.stdout.write(opts.json ? compositionJson(c) : renderCompositionText(c));
         } finally {
           session.close();

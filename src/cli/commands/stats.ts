@@ -3,7 +3,7 @@
  * and the number of connected components of a catalog.
  */
 import type { Command } from "commander";
-import { Catalog, catalogStats } from "../../catalog/index.js";
+import { Catalog, catalogStats, readBinding, shownEndpoint } from "../../catalog/index.js";
 import type { CatalogStats } from "../../catalog/index.js";
 import { guarded } from "../run.js";
 import { catalogPath } from "./show.js";
@@ -27,6 +27,9 @@ export function renderStats(path: string, s: CatalogStats): string {
   const c = s.counts;
   const lines = [
     `catalog ${path}`,
+    ...(s.store
+      ? [`  attached to the SPARQL store ${s.store.endpoint}${s.store.graph ? `, graph <${s.store.graph}>` : " (default graph)"}: its edges stay there; the edge counts below are the store's, taken at the attach of ${s.store.attachedAt} (attach --db ${path} --refresh counts again)`]
+      : []),
     `  entities    ${fmt(c.entities)}`,
     `  types       ${fmt(c.types)}`,
     `  relations   ${fmt(c.relations)} used in edges`,
@@ -35,7 +38,9 @@ export function renderStats(path: string, s: CatalogStats): string {
     `  attributes  ${fmt(c.attributes)}`,
     `  labels and aliases ${fmt(c.aliases)}`,
     `  degree (edges in + out per entity): min ${s.degree.min}, median ${s.degree.median}, p99 ${s.degree.p99}, max ${s.degree.max}, mean ${s.degree.mean.toFixed(2)}`,
-    `  connected components ${fmt(s.components)} (largest ${fmt(s.largestComponent)} entities; ${fmt(s.isolated)} entities without edges; types without edges are not counted)`,
+    s.components === null
+      ? `  connected components: not computed (the edges are in the store); ${fmt(s.isolated)} entities without edges`
+      : `  connected components ${fmt(s.components)} (largest ${fmt(s.largestComponent ?? 0)} entities; ${fmt(s.isolated)} entities without edges; types without edges are not counted)`,
   ];
   if (s.hubs.length) {
     lines.push("  largest hubs:");
@@ -74,7 +79,9 @@ export function registerStats(program: Command): void {
         const path = catalogPath(opts.db);
         const cat = Catalog.open(path, { readonly: true });
         try {
-          const s = catalogStats(cat);
+          // an attached catalog: the store's counts from its binding (no request)
+          const b = readBinding(path, cat.version());
+          const s = catalogStats(cat, b ? { store: { endpoint: shownEndpoint(b.endpoint), graph: b.graph, attachedAt: b.attachedAt, edges: b.edges, degree: b.degree, relationEdges: b.relationEdges } } : {});
           process.stdout.write((opts.json ? JSON.stringify(s, null, 2) : renderStats(path, s)) + "\n");
         } finally {
           cat.close();

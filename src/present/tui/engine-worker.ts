@@ -24,7 +24,7 @@ try {
   send({ type: "open-failed", message: messageOf(e) });
 }
 
-port.on("message", (m: WorkerRequest) => {
+const handle = async (m: WorkerRequest): Promise<void> => {
   if (m.op === "close") {
     core?.session.close();
     port.close();
@@ -35,9 +35,15 @@ port.on("message", (m: WorkerRequest) => {
     return;
   }
   try {
-    const value = m.op === "ask" ? core.ask(m.question, m.pins, m.top) : m.op === "compose" ? core.compose(m.entity) : core.card(m.entity);
+    const value = m.op === "ask" ? await core.ask(m.question, m.pins, m.top) : m.op === "compose" ? await core.compose(m.entity) : await core.card(m.entity);
     send({ type: "reply", id: m.id, ok: true, value });
   } catch (e) {
     send({ type: "reply", id: m.id, ok: false, message: messageOf(e) });
   }
+};
+
+// one request at a time, in order (an attached catalog's requests await the store; the session's pulls must not interleave)
+let queue: Promise<void> = Promise.resolve();
+port.on("message", (m: WorkerRequest) => {
+  queue = queue.then(() => handle(m));
 });

@@ -219,9 +219,9 @@ export function buildComposeView(c: Composition): ComposeView {
 
 /** A one-line title for a session's catalog. */
 export function titleOf(session: Session, db: string | undefined): string {
-  const c = session.catalog.counts();
+  const c = session.counts();
   const name = db === undefined ? "demo catalog" : db.split(/[\\/]/).pop()!;
-  return `${name} · ${c.entities.toLocaleString("en")} entities · ${c.edges.toLocaleString("en")} edges`;
+  return `${name} · ${c.entities.toLocaleString("en")} entities · ${c.edges.toLocaleString("en")} edges${session.store ? ` in ${session.store.endpoint}` : ""}`;
 }
 
 /** Session-backed engine operations, shared by the in-process and the worker engines. */
@@ -236,22 +236,24 @@ export class SessionEngineCore {
   ) {
     this.labels = new Labels(session.catalog);
   }
-  /** Answers a question (synchronously). */
-  ask(question: string, pins: readonly PinView[], top: number): TuiResult {
+  /** Answers a question (through Session.askAsync: an attached catalog pulls from its store). */
+  async ask(question: string, pins: readonly PinView[], top: number): Promise<TuiResult> {
     const t0 = performance.now();
-    const outcome = this.session.ask(question, { top, pins, ...(this.timeLimitMs !== undefined ? { timeLimitMs: this.timeLimitMs } : {}) });
+    const outcome = await this.session.askAsync(question, { top, pins, ...(this.timeLimitMs !== undefined ? { timeLimitMs: this.timeLimitMs } : {}) });
     return buildTuiResult(this.session, outcome, this.labels, performance.now() - t0);
   }
-  /** An entity card (synchronously). */
-  card(id: string): EntityCard | null {
+  /** An entity card (an attached catalog pulls the entity's edges first). */
+  async card(id: string): Promise<EntityCard | null> {
+    const num = this.session.catalog.numOf(id);
+    if (num !== undefined) await this.session.around([num], 0);
     return buildCard(this.session.catalog, id);
   }
-  /** Questions whose only answer is entity `id` (synchronously; the composer is made on first use). */
-  compose(id: string): ComposeView | null {
+  /** Questions whose only answer is entity `id` (the composer is made on first use). */
+  async compose(id: string): Promise<ComposeView | null> {
     const num = this.session.catalog.numOf(id);
     if (num === undefined) return null;
     this.composer ??= new Composer(this.session);
-    return buildComposeView(this.composer.compose(num));
+    return buildComposeView(await this.composer.compose(num));
   }
 }
 
@@ -270,20 +272,21 @@ export async function inProcessEngine(source: EngineSource, onProgress?: (p: Ope
   await tick();
   const session = Session.open({ ...(source.db !== undefined ? { db: source.db } : {}), onProgress: (p) => onProgress?.(progressOf(p)) });
   const core = new SessionEngineCore(session, titleOf(session, source.db), source.timeLimitMs);
+  // one request at a time, in order (an attached catalog's requests await its store, and one pull must not interleave with another)
+  let queue: Promise<unknown> = Promise.resolve();
+  const serial = <T>(f: () => Promise<T>): Promise<T> => {
+    const r = queue.then(async () => {
+      await tick();
+      return f();
+    });
+    queue = r.catch(() => undefined);
+    return r;
+  };
   return {
     title: core.title,
-    async ask(question, pins, top) {
-      await tick();
-      return core.ask(question, pins, top);
-    },
-    async card(id) {
-      await tick();
-      return core.card(id);
-    },
-    async compose(id) {
-      await tick();
-      return core.compose(id);
-    },
+    ask: (question, pins, top) => serial(() => core.ask(question, pins, top)),
+    card: (id) => serial(() => core.card(id)),
+    compose: (id) => serial(() => core.compose(id)),
     close() {
       session.close();
     },
