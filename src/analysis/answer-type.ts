@@ -79,7 +79,7 @@ export function detectAnswerType(ws: readonly Word[], blocked: readonly boolean[
     if (blocked[i] || CLAUSE.has(ws[i]!.norm)) break;
     phrase.push(i);
   }
-  const match = longestTypeMatch(ws, phrase, model, options.maxModifiers ?? DEFAULTS.maxModifiers);
+  const match = longestTypeMatch(ws, phrase, model, options.maxModifiers ?? DEFAULTS.maxModifiers) ?? headAfterModifiers(ws, blocked, i, window, model);
   const whWord = ws[wh]!.norm;
 
   if (WH_PERSON.has(whWord) || WH_PLACE.has(whWord)) {
@@ -111,6 +111,30 @@ export function detectAnswerType(ws: readonly Word[], blocked: readonly boolean[
 function mostGeneral(nums: readonly number[], model: QuestionModel): number[] {
   const set = new Set(nums);
   return nums.filter((n) => !(model.typeByNum.get(n)?.ancestors ?? []).some((a) => a !== n && set.has(a))).sort((a, b) => a - b);
+}
+
+/**
+ * The head noun of a noun phrase whose pre-modifiers include linked names and compounds
+ * ("which *Arabic*-speaking *East African* country"): the phrase runs from `from` to the first
+ * clause word, linked words included; English noun phrases are head-final (Quirk et al. 1985
+ * §17.2), so the type words that end latest in it (the longest at that end) are the head.
+ */
+function headAfterModifiers(ws: readonly Word[], blocked: readonly boolean[], from: number, window: number, model: QuestionModel): { types: number[]; words: number[] } | undefined {
+  let best: { types: number[]; words: number[] } | undefined;
+  for (let e = from, unblocked = 0; e < ws.length && unblocked < window && !CLAUSE.has(ws[e]!.norm); e++) {
+    if (blocked[e]) continue;
+    unblocked++;
+    for (let len = Math.min(model.maxTypeWords, e - from + 1); len >= 1; len--) {
+      const idx = Array.from({ length: len }, (_, j) => e - len + 1 + j);
+      if (idx.some((k) => blocked[k]) || (len === 1 && isFunctionWord(ws[e]!.norm))) continue;
+      const types = model.typesByKey.get(idx.map((k) => ws[k]!.stem).join(" "));
+      if (types && types.length > 0) {
+        best = { types: [...types].sort((a, b) => a - b), words: idx };
+        break;
+      }
+    }
+  }
+  return best;
 }
 
 function longestTypeMatch(ws: readonly Word[], phrase: readonly number[], model: QuestionModel, maxModifiers: number): { types: number[]; words: number[] } | undefined {

@@ -121,6 +121,9 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
     const d = at >= s.end ? at - s.end : at < s.start ? s.start - after : 0;
     const gap = at >= s.end ? text.slice(s.end, at) : at < s.start ? text.slice(after, s.start) : "";
     if (COORDINATION.test(gap)) return d + 1e6;
+    // a verbal compound "N-Ving"/"N-Ved" ("Arabic-speaking", "Oslo-based"): the noun before
+    // the hyphen is the participle's argument (Quirk et al. 1985, App. I.44 ff., verbal compounds)
+    if (argument && at >= s.end && /^\s*[-‐‑]\s*$/.test(gap)) return -1;
     // a relation word whose object follows it with only function words between ("studied
     // *at* M", "works for Y", "cited by Z") takes that clue as its argument
     // (not a possessive clue: "the capital of *Peru's* neighbour E" — Peru's only determines E)

@@ -20,7 +20,7 @@ const LINES = [
   { kind: "type", id: "t:Vessel", label: "vessel", aliases: ["ship"] },
   { kind: "type", id: "t:Person", label: "person" },
   { kind: "relation", id: "r:commands", label: "commands" },
-  { kind: "relation", id: "r:homePort", label: "home port" },
+  { kind: "relation", id: "r:homePort", label: "home port", aliases: ["based at"] },
   { kind: "relation", id: "r:in", label: "located in" },
   { kind: "relation", id: "r:borders", label: "borders" },
   { kind: "attribute", id: "a:length", label: "length", unit: "m" },
@@ -101,6 +101,15 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     const s = ask("Which vessels have a Braskian home port?");
     expect(s.reading!.text).toBe("?answer (vessel) — home port → ?v1 (port) — located in → Brask; all that fit");
     expect(group(s)).toEqual(["s:morrow", "s:skell"]);
+  });
+
+  it("3. a verbal compound takes the name before its hyphen; the head noun stands after linked pre-modifiers", () => {
+    // "Vask-based": Vask is the argument of "based" (home port); "Braskian" and "Vask" pre-modify "ship"
+    const r = ask("Which Vask-based Braskian ship does Bo Tarrant command?");
+    expect(r.reading!.nodes[0]!.types).toEqual(["t:Vessel"]);
+    expect(edges(r)).toContainEqual(["p:vask", "r:homePort", "backward", "?answer"]);
+    // Bo Tarrant commands Morrow, based at Vask
+    expect(r.answers[0]!.id).toBe("s:morrow");
   });
 
   it("4. names not written as the catalog writes them: a misspelling, an official long form", () => {

@@ -55,7 +55,7 @@ export function relationalAnswerType(ws: readonly Word[], headPhrase: readonly n
   const starts = new Set(headPhrase.map((k) => ws[k]!.start));
   const cue = cues.filter((c) => c.score >= minScore && starts.has(c.start)).sort((a, b) => b.score - a.score || a.start - b.start)[0];
   if (!cue) return undefined;
-  const ofType = ofPhraseType(ws, Math.max(...headPhrase), model);
+  const ofType = ofPhraseType(ws, Math.max(...headPhrase), model) ?? ofPhraseRelation(ws, Math.max(...headPhrase), cues, cue, model, options);
   return farEnd(cue, clueNodes, model, options, ofType);
 }
 
@@ -80,6 +80,27 @@ function ofPhraseType(ws: readonly Word[], head: number, model: QuestionModel): 
     if (isFunctionWord(ws[m]!.norm)) break;
   }
   return undefined;
+}
+
+/**
+ * The types of an of-phrase headed by another relational noun ("the capitals of *the
+ * neighbours* of …"): the of-phrase's noun names a relation, so the node it stands for is at
+ * one of that relation's ends — its types are those found at either end (the of-genitive
+ * chains: Quirk et al. 1985 §17.38 ff.). Undefined when no other cue stands there.
+ */
+function ofPhraseRelation(ws: readonly Word[], head: number, cues: readonly RelationCue[], own: RelationCue, model: QuestionModel, options: RelationRangeOptions): number[] | undefined {
+  if (ws[head + 1]?.norm !== "of") return undefined;
+  let k = head + 2;
+  while (k < ws.length && isFunctionWord(ws[k]!.norm)) k++;
+  const minScore = options.minScore ?? DEFAULTS.minScore;
+  const minShare = options.minShare ?? DEFAULTS.minShare;
+  const inner = cues.filter((c) => c !== own && c.relation !== own.relation && c.score >= minScore && c.start === ws[k]?.start).sort((a, b) => b.score - a.score)[0];
+  if (!inner || !model.relationEnds) return undefined;
+  const ends = model.relationEnds();
+  const total = ends.edges(inner.relation);
+  if (!(total > 0)) return undefined;
+  const types = [false, true].flatMap((object) => ends.types(inner.relation, object).filter((t) => t.count >= minShare * total).map((t) => t.type));
+  return types.length > 0 ? [...new Set(types)] : undefined;
 }
 
 /**
