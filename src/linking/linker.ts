@@ -539,9 +539,10 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     for (let k = range[0]; k < range[1]; k++) blocked[k] = true;
     pinned.push({ first: range[0], last: range[1], num: nums[0]! });
   }
-  // capitals mark names only when some word besides the first has one: the first word of a
-  // sentence is capitalised by orthography, not because it is a name (common practice)
-  const allEligible = !toks.some((t, k) => k > 0 && t.upper > 0);
+  // capitals mark names only when some word that does not open a sentence has one: the first
+  // word of a sentence and the pronoun "I" are capitalised by orthography, not because they are
+  // names (common practice; text-spans.ts `initial`)
+  const allEligible = !toks.some((t) => !t.initial && t.upper > 0);
   const detected = detectMentions(toks, linker, blocked, allEligible);
   const vocabulary = linker.vocabularyOccurrences(toks);
   const { spans: described, replaced } = options.stop?.() ? { spans: [] as DetectedSpan[], replaced: new Set<DetectedSpan>() } : describedSpans(toks, detected.spans, blocked, vocabulary, linker, options.stop);
@@ -563,7 +564,13 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     const modified = modifiedTypes(vocabulary, toks, span, question);
     const named = modified ? asModifier(outside, modified) : outside;
     // context only decides between candidates; an unambiguous span skips it
-    return cands.map((c) => linker.evidence(c, query, named, cands.length > 1, modified));
+    const all = cands.map((c) => linker.evidence(c, query, named, cands.length > 1, modified));
+    // a loose one-edit spelling (mention-detection.ts: a lower-case word one edit from a short
+    // name, "take" ~ "make") names the candidate only when the question names, outside the word,
+    // a relation the candidate has an edge of ("what does purl depend on": perl depends on
+    // things); a type alone does not do ("which packages take …": most names are packages), and
+    // otherwise an English word is the likelier reading
+    return all.filter((e, k) => !cands[k]!.loose || e.relationCompat > 0);
   });
   // coherence is joint over the question's mentions; a very long text is scored mention by mention
   const coherent = evidence.length <= DEFAULTS.maxCoherentMentions;
@@ -630,8 +637,8 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     });
   }
   for (const u of det.unmatched) {
-    // a run is name-like when written like one: a capital beyond the first word, or a digit
-    if (u.relationWord || !toks.slice(u.first, u.last).some((t, k) => (t.marked && u.first + k > 0) || /\p{N}/u.test(t.norm))) continue;
+    // a run is name-like when written like one: a capital on a word that does not open a sentence, or a digit
+    if (u.relationWord || !toks.slice(u.first, u.last).some((t) => (t.marked && !t.initial) || /\p{N}/u.test(t.norm))) continue;
     const near = u.suggestions[0];
     notFound.push({ ...spanText(u.first, u.last), linked: false, nearest: near ? { ...cat.ref(near.num), similarity: round(near.similarity) } : null });
   }

@@ -7,7 +7,18 @@
  * anchor dictionary). Fuzzy spans: token corrections from a trigram index re-scored by edit
  * distance (fuzzy-index.ts), candidates gathered from the alias-token postings, and a span
  * similarity = Dice overlap of the span's and the alias's token sets where tokens match
- * exactly or with Jaro–Winkler ≥ `tokenMatch` (so word order does not matter).
+ * exactly or with Jaro–Winkler ≥ `tokenMatch` (so word order does not matter), or — a word of
+ * at least 4 letters that no name holds (fuzzy-index.ts `minLength`) — one edit away from a
+ * name's word, which counts as a match at `tokenMatch`: a single insertion, deletion or
+ * substitution is the most common misspelling (F. J. Damerau, "A technique for computer
+ * detection and correction of spelling errors", CACM 7, 1964: over 80 % of errors), while
+ * Jaro–Winkler rates such a pair of short words low when the edit is early ("purl" ~ "curl"
+ * 0.83, "wile" ~ "file" 0.83). The word then has every name one edit away as a candidate,
+ * linked as a fuzzy match the user sees and can pin; the verdict reads the other spellings as
+ * other senses (explain/verdict.ts rule 4). When the word is not written like a name (no capital
+ * beyond an orthographic one) such a candidate is `loose`: an English word one edit from a short
+ * name ("take" ~ "make") is far more likely than a misspelt name, so the linker keeps a loose
+ * candidate only when the rest of the question supports it (linker.ts).
  * Rules: a fuzzy span needs a word with a letter that is not a type or relation word (numbers
  * alone never become fuzzy names); a span may not end with a stop word, may start with one only when it is exactly an
  * alias ("the Dawn"), and a span that is only stop words or
@@ -104,6 +115,8 @@ export interface SpanCandidate {
   readonly match?: MatchKind;
   /** For a derived form: the suffix stripped from the question word and the name it was derived from. */
   readonly derivation?: { readonly suffix: string; readonly base: string };
+  /** Matched through a word one edit from the name's that is not written like a name (see the file header); the linker keeps it only with support. */
+  readonly loose?: boolean;
 }
 
 /** A candidate as found, with the stored text of the alias it matched (for the relation-word rule). */
@@ -137,7 +150,7 @@ export interface Detection {
 
 /** A found candidate without its alias text. */
 function plainCandidate(c: SpanCandidate): SpanCandidate {
-  return { num: c.num, similarity: c.similarity, kind: c.kind, ...(c.match ? { match: c.match } : {}), ...(c.derivation ? { derivation: c.derivation } : {}) };
+  return { num: c.num, similarity: c.similarity, kind: c.kind, ...(c.match ? { match: c.match } : {}), ...(c.derivation ? { derivation: c.derivation } : {}), ...(c.loose ? { loose: true } : {}) };
 }
 
 /** A candidate whose name is wholly or partly present inside a longer name phrase: `partialFactor` × its similarity. */
@@ -343,6 +356,15 @@ export function detectMentions(
     if (!hasNameIn(a, b)) return;
     const result = fuzzySpan(toks.slice(a, b), lex, caseBlind() ? { ...o, minSimilarity: Math.max(o.minSimilarity, o.blindSimilarity) } : o);
     if (result.candidates.length === 0) {
+      // a run that holds a relation word and matches no name as a whole ("purl depend"): the
+      // relation word is read as the relation, and the words on either side are tried alone
+      const cut = b - a > 1 && depth < 3 ? toks.slice(a, b).findIndex((_, k) => relationWord(a + k)) : -1;
+      if (cut >= 0) {
+        if (cut > 0) piece(a, a + cut, depth + 1);
+        if (a + cut + 1 < b) piece(a + cut + 1, b, depth + 1);
+        if (!covered[a + cut]) unmatched.push({ first: a + cut, last: a + cut + 1, suggestions: [], relationWord: true });
+        return;
+      }
       if (b - a === 1 && relationWord(a) && result.suggestions.length > 0) explained(a, result.suggestions);
       else unmatched.push({ first: a, last: b, suggestions: result.suggestions });
       return;
@@ -477,7 +499,7 @@ interface FuzzyResult {
 type TokenMatch = "exact" | "fuzzy" | "derived";
 
 /** Per run token: the alias tokens it may stand for, with similarity and how (besides exact equality). */
-type TokenAlternatives = ReadonlyMap<string, { readonly sim: number; readonly how: TokenMatch; readonly suffix?: string }>;
+type TokenAlternatives = ReadonlyMap<string, { readonly sim: number; readonly how: TokenMatch; readonly suffix?: string; readonly loose?: boolean }>;
 
 /** IDF weights of alias tokens (see {@link tokenWeight}). */
 export interface Weights {
@@ -517,6 +539,8 @@ interface SpanMatch {
   /** The least exact way a matched token matched ("exact" when all did). */
   readonly how: TokenMatch;
   readonly suffix?: string;
+  /** Some matched word is a loose one-edit spelling (see the file header). */
+  readonly loose: boolean;
 }
 
 /**
@@ -536,16 +560,19 @@ function spanSimilarity(run: readonly string[], alias: readonly string[], tokenM
   let plainMatched = 0;
   let how: TokenMatch = "exact";
   let suffix: string | undefined;
+  let loose = false;
   for (let r = 0; r < run.length; r++) {
     let best = 0;
     let at = -1;
     let bestHow: TokenMatch = "exact";
     let bestSuffix: string | undefined;
+    let bestLoose = false;
     for (let a = 0; a < alias.length; a++) {
       if (taken[a]) continue;
       let s: number;
       let h: TokenMatch = "exact";
       let sx: string | undefined;
+      let lx = false;
       if (run[r] === alias[a]) s = 1;
       else {
         // a derived form is read as one even when its spelling is also close ("Tarnuvian" ~ Tarnu)
@@ -554,6 +581,7 @@ function spanSimilarity(run: readonly string[], alias: readonly string[], tokenM
           s = alt.sim;
           h = alt.how;
           sx = alt.suffix;
+          lx = alt.loose === true;
         } else {
           const jw = jaroWinkler(run[r]!, alias[a]!);
           s = jw >= tokenMatch ? jw : 0;
@@ -565,6 +593,7 @@ function spanSimilarity(run: readonly string[], alias: readonly string[], tokenM
         at = a;
         bestHow = h;
         bestSuffix = sx;
+        bestLoose = lx;
       }
     }
     if (at >= 0 && best > 0) {
@@ -574,6 +603,7 @@ function spanSimilarity(run: readonly string[], alias: readonly string[], tokenM
       matched += best * w;
       runWeight += w;
       plainMatched += best;
+      if (bestLoose) loose = true;
       if (bestHow === "derived" || (bestHow === "fuzzy" && how === "exact")) {
         how = bestHow;
         suffix = bestSuffix;
@@ -584,7 +614,7 @@ function spanSimilarity(run: readonly string[], alias: readonly string[], tokenM
   for (const t of alias) aliasWeight += weights.of(t);
   const total = runWeight + aliasWeight;
   const sim = total > 0 ? (2 * matched) / total : (2 * plainMatched) / (run.length + alias.length);
-  return { sim, used, how, ...(suffix !== undefined ? { suffix } : {}) };
+  return { sim, used, how, loose, ...(suffix !== undefined ? { suffix } : {}) };
 }
 
 function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: Options): FuzzyResult {
@@ -593,15 +623,18 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: Options)
   // token alternatives: the token itself when known, else close vocabulary tokens; and the
   // vocabulary tokens the word may be derived from (derivation.ts)
   const lists: Int32Array[] = [];
-  const alts: (Map<string, { sim: number; how: TokenMatch; suffix?: string }> | undefined)[] = [];
+  const alts: (Map<string, { sim: number; how: TokenMatch; suffix?: string; loose?: boolean }> | undefined)[] = [];
   for (const t of run) {
     const id = snap.tokenId(t.norm);
-    const alt = new Map<string, { sim: number; how: TokenMatch; suffix?: string }>();
+    const alt = new Map<string, { sim: number; how: TokenMatch; suffix?: string; loose?: boolean }>();
     const merged = new Set<number>();
     const near = new Set<number>();
     if (id < 0) {
       for (const h of lex.fuzzy().nearest(t.norm)) {
         near.add(h.token);
+        // one edit away is a misspelling whatever the letters' order says (Jaro–Winkler rates
+        // "purl" ~ "curl" 0.83, below `tokenMatch`): it counts as a match at `tokenMatch`
+        if (h.edits === 1 && h.similarity < o.tokenMatch) alt.set(snap.vocab[h.token]!, { sim: o.tokenMatch, how: "fuzzy", loose: !(t.marked && !t.initial) });
         for (const e of snap.entitiesWithToken(h.token)) merged.add(e);
       }
     }
@@ -635,7 +668,7 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: Options)
   const runContent = runStop.filter((x) => !x).length;
   // each entity keeps its best alias by sim·(1 + covered)/(1 + |run|), counting content words:
   // a longer name that covers more of the run beats a short alias matching one word of it exactly
-  const scored: { num: number; sim: number; key: number; kind: number; used: boolean[]; alias: string; match: MatchKind; suffix?: string; base?: string }[] = [];
+  const scored: { num: number; sim: number; key: number; kind: number; used: boolean[]; alias: string; match: MatchKind; loose: boolean; suffix?: string; base?: string }[] = [];
   for (const [num] of ranked) {
     if (lex.isTypeEntity(num)) continue;
     let best: (typeof scored)[number] | undefined;
@@ -654,7 +687,7 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: Options)
       const key = (sim * (1 + covered)) / (1 + runContent);
       const match: MatchKind = exact ? (kind === 0 ? "label" : "alias") : sub.how === "exact" ? "partial" : sub.how;
       if (!best || key > best.key || (key === best.key && kind < best.kind)) {
-        best = { num, sim, key, kind, used: s.used, alias: text, match, ...(match === "derived" ? { suffix: sub.suffix ?? "", base: text } : {}) };
+        best = { num, sim, key, kind, used: s.used, alias: text, match, loose: !exact && sub.loose, ...(match === "derived" ? { suffix: sub.suffix ?? "", base: text } : {}) };
       }
     }
     if (best && best.sim > 0) scored.push(best);
@@ -680,7 +713,7 @@ function fuzzySpan(run: readonly QuestionToken[], lex: AliasLexicon, o: Options)
     .map((s) => {
       const own = contentIn(s.used.indexOf(true), s.used.lastIndexOf(true) + 1);
       const similarity = own < spanContent ? (s.sim * (1 + own)) / (1 + spanContent) : s.sim;
-      return { num: s.num, similarity, kind: s.kind, alias: s.alias, match: s.match, ...(s.suffix !== undefined ? { derivation: { suffix: s.suffix, base: s.base! } } : {}) };
+      return { num: s.num, similarity, kind: s.kind, alias: s.alias, match: s.match, ...(s.loose ? { loose: true } : {}), ...(s.suffix !== undefined ? { derivation: { suffix: s.suffix, base: s.base! } } : {}) };
     })
     .filter((s) => s.similarity >= o.minSimilarity);
   return { first, last, candidates, suggestions };

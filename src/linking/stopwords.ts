@@ -22,6 +22,10 @@ export const STOP_WORDS: ReadonlySet<string> = new Set(
     "not no yes also too very just only ever all any some each every both either neither " +
     "one ones other others another such same own more most much many few less least " +
     "whats whos wheres whens hows dont doesnt didnt isnt arent wasnt werent " +
+    // contractions of a pronoun and an auxiliary, and negated auxiliaries (closed class; those
+    // spelling another English word — "ill", "id", "well", "shell", "were" — are left out)
+    "im ive youre youve youll youd hes shes theyre theyve theyll theyd weve thats theres cant wont " +
+    "couldnt shouldnt wouldnt hasnt havent hadnt mustnt " +
     "please tell show give find list name named called known " +
     "s t"
   )

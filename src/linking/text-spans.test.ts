@@ -48,4 +48,12 @@ describe("questionTokens", () => {
       { numRuns: 300 },
     );
   });
+
+  it("marks orthographic capitals: a sentence's first word and the pronoun I, not abbreviations or initials", () => {
+    const initial = (q: string) => questionTokens(q).filter((t) => t.initial).map((t) => q.slice(t.start, t.end));
+    expect(initial("Could you tell me the capital of Peru? Thanks!")).toEqual(["Could", "Thanks"]);
+    expect(initial("Hi! I'm setting up a server: what does lighttpd need?")).toEqual(["Hi", "I'm"]);
+    expect(initial("Where does Dr. Brenn live? Which lab is I. Varrick in?")).toEqual(["Where", "Which"]);
+    expect(initial("It is a port. Which vessels use it?")).toEqual(["It", "Which"]);
+  });
 });

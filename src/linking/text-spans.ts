@@ -9,6 +9,15 @@
  * and `question.slice(start, end)` always yields the text the token was read from.
  * Per-cluster normalisation equals whole-string normalisation for everything but a few
  * cross-cluster compositions (e.g. conjoining Hangul jamo), which only affects those scripts.
+ *
+ * Sentence-initial words. English capitalises the first word of every sentence and the pronoun
+ * "I" by orthography, not because they are names (common practice in capitalisation-based name
+ * detection, cf. Mikheev, "Periods, capitalized words, etc.", Computational Linguistics 28,
+ * 2002): a token is `initial` when it opens the text, follows "!" or "?", or follows a "." after
+ * a word that is not a capitalised word of at most 3 letters or a single letter (so "Dr. Brenn"
+ * and "I. Varrick" stay names: a short capitalised word before a period is read as an
+ * abbreviation or an initial), or when it is the pronoun "I" (not followed by a period) alone or in a contraction
+ * ("I'm", "I've"). Such a capital marks no name by itself.
  */
 import { normalize, stemToken } from "../catalog/index.js";
 
@@ -26,7 +35,14 @@ export interface QuestionToken {
   readonly marked: boolean;
   /** Upper-case (or title-case) letters in the original word ("MICA's" 4, "Lives" 1, "lives" 0). */
   readonly upper: number;
+  /** True when the word's capital is orthographic: it opens a sentence, or is the pronoun "I" (see the header). */
+  readonly initial: boolean;
 }
+
+/** The pronoun "I" and its contractions, as written (apostrophes straight or curly). */
+const PRONOUN_I = /^I(?:['’](?:m|ve|d|ll))?$/u;
+/** A short capitalised word or a single letter before a period: an abbreviation or an initial ("Dr.", "I."), not a sentence end. */
+const ABBREVIATION = /^(?:\p{Lu}\p{Ll}{0,2}|\p{L})$/u;
 
 const MARK = /\p{M}/u;
 const UPPER = /\p{Lu}|\p{Lt}/u;
@@ -70,8 +86,22 @@ export function questionTokens(question: string): QuestionToken[] {
   let curEnd = -1;
   let marked = false;
   let upper = 0;
+  /** Where the previous token ended (its text decides whether a period after it ends a sentence). */
+  let prevStart = -1;
+  let prevEnd = -1;
+  const initialAt = (start: number, end: number): boolean => {
+    if (PRONOUN_I.test(question.slice(start, end)) && question[end] !== ".") return true;
+    if (prevEnd < 0) return true;
+    const between = question.slice(prevEnd, start);
+    if (/[!?]/u.test(between)) return true;
+    return /\.\s/u.test(between) && !ABBREVIATION.test(question.slice(prevStart, prevEnd));
+  };
   const flush = () => {
-    if (cur !== "") out.push({ norm: cur, stem: stemOf(cur), start: curStart, end: curEnd, marked, upper });
+    if (cur !== "") {
+      out.push({ norm: cur, stem: stemOf(cur), start: curStart, end: curEnd, marked, upper, initial: initialAt(curStart, curEnd) });
+      prevStart = curStart;
+      prevEnd = curEnd;
+    }
     cur = "";
     curStart = -1;
     marked = false;
