@@ -44,13 +44,55 @@ export interface ShortestPathTree {
   readonly via: Int32Array;
 }
 
-/** Binary min-heap of (key, node) pairs; ties by node. */
-class PairHeap {
-  private keys: number[] = [];
-  private nodes: number[] = [];
+/**
+ * Reusable arrays for repeated searches on one graph (Yen's spur searches, yen.ts): a
+ * node's distance and arc are valid where its stamp is the current search's; the binary
+ * min-heap of (key, node) pairs (ties by node) lives in typed arrays; nodes and arcs are
+ * blocked where their block stamp is the current one ({@link DijkstraScratch.block}).
+ */
+export class DijkstraScratch {
+  readonly dist: Float64Array;
+  readonly via: Int32Array;
+  private readonly seen: Uint32Array;
+  private readonly done: Uint32Array;
+  private readonly blockedNode: Uint32Array;
+  private readonly blockedArc: Uint32Array;
+  private stamp = 0;
+  private blockStamp = 0;
+  private keys = new Float64Array(64);
+  private nodes = new Int32Array(64);
+  private size = 0;
 
-  get size(): number {
-    return this.keys.length;
+  constructor(readonly g: ArcGraph) {
+    this.dist = new Float64Array(g.size);
+    this.via = new Int32Array(g.size);
+    this.seen = new Uint32Array(g.size);
+    this.done = new Uint32Array(g.size);
+    this.blockedNode = new Uint32Array(g.size);
+    this.blockedArc = new Uint32Array(g.heads.length);
+  }
+
+  /** Starts a new set of blocked nodes and arcs (empty); they apply to the searches until the next call. */
+  block(): void {
+    this.blockStamp++;
+  }
+
+  blockNode(u: number): void {
+    this.blockedNode[u] = this.blockStamp;
+  }
+
+  blockArc(e: number): void {
+    this.blockedArc[e] = this.blockStamp;
+  }
+
+  /** The node's distance of the last search (Infinity: unreached). */
+  distance(u: number): number {
+    return this.seen[u] === this.stamp ? this.dist[u]! : Infinity;
+  }
+
+  /** The arc the last search reached `u` by (-1: none). */
+  arcTo(u: number): number {
+    return this.seen[u] === this.stamp ? this.via[u]! : -1;
   }
 
   private less(i: number, j: number): boolean {
@@ -68,10 +110,18 @@ class PairHeap {
     this.nodes[j] = n;
   }
 
-  push(key: number, node: number): void {
-    this.keys.push(key);
-    this.nodes.push(node);
-    let i = this.keys.length - 1;
+  private push(key: number, node: number): void {
+    if (this.size === this.keys.length) {
+      const k = new Float64Array(this.size * 2);
+      k.set(this.keys);
+      this.keys = k;
+      const n = new Int32Array(this.size * 2);
+      n.set(this.nodes);
+      this.nodes = n;
+    }
+    let i = this.size++;
+    this.keys[i] = key;
+    this.nodes[i] = node;
     while (i > 0) {
       const p = (i - 1) >> 1;
       if (!this.less(i, p)) break;
@@ -81,21 +131,20 @@ class PairHeap {
   }
 
   /** Removes the smallest pair; returns its node (its key is in `lastKey`). */
-  pop(): number {
+  private pop(): number {
     const node = this.nodes[0]!;
     this.lastKey = this.keys[0]!;
-    const k = this.keys.pop()!;
-    const n = this.nodes.pop()!;
-    if (this.keys.length > 0) {
-      this.keys[0] = k;
-      this.nodes[0] = n;
+    const last = --this.size;
+    if (last > 0) {
+      this.keys[0] = this.keys[last]!;
+      this.nodes[0] = this.nodes[last]!;
       let i = 0;
       for (;;) {
         const l = 2 * i + 1;
         const r = l + 1;
         let m = i;
-        if (l < this.keys.length && this.less(l, m)) m = l;
-        if (r < this.keys.length && this.less(r, m)) m = r;
+        if (l < last && this.less(l, m)) m = l;
+        if (r < last && this.less(r, m)) m = r;
         if (m === i) break;
         this.swap(i, m);
         i = m;
@@ -104,36 +153,77 @@ class PairHeap {
     return node;
   }
 
-  lastKey = 0;
+  private lastKey = 0;
+
+  /**
+   * Cheapest paths from `source` (see the file header), stopping once `target` (when ≥ 0) is
+   * settled; with `blocked`, the nodes and arcs of the current {@link block} set are avoided.
+   */
+  search(source: number, target = -1, blocked = false): void {
+    const g = this.g;
+    const st = ++this.stamp;
+    const { dist, via, seen, done, blockedNode, blockedArc } = this;
+    const bs = blocked ? this.blockStamp : -1;
+    this.size = 0;
+    if (blockedNode[source] === bs) return;
+    dist[source] = 0;
+    via[source] = -1;
+    seen[source] = st;
+    this.push(0, source);
+    const offsets = g.offsets;
+    const heads = g.heads;
+    const costs = g.costs;
+    while (this.size > 0) {
+      const u = this.pop();
+      if (done[u] === st || this.lastKey > dist[u]!) continue;
+      done[u] = st;
+      if (u === target) break;
+      const du = dist[u]!;
+      for (let e = offsets[u]!, end = offsets[u + 1]!; e < end; e++) {
+        const v = heads[e]!;
+        if (done[v] === st || blockedNode[v] === bs || blockedArc[e] === bs) continue;
+        const d = du + costs[e]!;
+        if (seen[v] !== st || d < dist[v]!) {
+          seen[v] = st;
+          dist[v] = d;
+          via[v] = e;
+          this.push(d, v);
+        }
+      }
+    }
+  }
+
+  /** The arcs of the last search's tree path source → `to`, or null when `to` was not reached. */
+  arcsTo(source: number, to: number): number[] | null {
+    if (to === source) return [];
+    if (this.arcTo(to) < 0) return null;
+    const arcs: number[] = [];
+    for (let x = to; x !== source; ) {
+      const e = this.arcTo(x);
+      if (e < 0) return null;
+      arcs.push(e);
+      x = this.g.tails[e]!;
+    }
+    return arcs.reverse();
+  }
 }
 
 /** Cheapest paths from `source` (see the file header). */
 export function dijkstra(g: ArcGraph, source: number, options: DijkstraOptions = {}): ShortestPathTree {
   const dist = new Float64Array(g.size).fill(Infinity);
   const via = new Int32Array(g.size).fill(-1);
-  const done = new Uint8Array(g.size);
   const { target, blockedNode, blockStamp, blockedArcs } = options;
-  const blocked = (u: number) => blockedNode !== undefined && blockedNode[u] === blockStamp;
-  if (blocked(source)) return { dist, via };
-  dist[source] = 0;
-  const heap = new PairHeap();
-  heap.push(0, source);
-  while (heap.size > 0) {
-    const u = heap.pop();
-    if (done[u] || heap.lastKey > dist[u]!) continue;
-    done[u] = 1;
-    if (u === target) break;
-    const du = dist[u]!;
-    for (let e = g.offsets[u]!, end = g.offsets[u + 1]!; e < end; e++) {
-      const v = g.heads[e]!;
-      if (done[v] || blocked(v) || (blockedArcs !== undefined && blockedArcs.has(e))) continue;
-      const d = du + g.costs[e]!;
-      if (d < dist[v]!) {
-        dist[v] = d;
-        via[v] = e;
-        heap.push(d, v);
-      }
-    }
+  const s = new DijkstraScratch(g);
+  const blocked = blockedNode !== undefined || (blockedArcs !== undefined && blockedArcs.size > 0);
+  if (blocked) {
+    s.block();
+    if (blockedNode !== undefined) for (let u = 0; u < g.size; u++) if (blockedNode[u] === blockStamp) s.blockNode(u);
+    if (blockedArcs !== undefined) for (const e of blockedArcs) s.blockArc(e);
+  }
+  s.search(source, target ?? -1, blocked);
+  for (let u = 0; u < g.size; u++) {
+    dist[u] = s.distance(u);
+    via[u] = s.arcTo(u);
   }
   return { dist, via };
 }

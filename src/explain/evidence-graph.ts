@@ -35,8 +35,20 @@ import { DirectedGraph } from "graphology";
 import type { ArcGraph } from "./dijkstra.js";
 import type { FlatRows, PathCostModel } from "./path-cost.js";
 import { nodeBitsFor, type NodeBits } from "../ranking/index.js";
-import { scratch, type Stamped } from "./scratch.js";
+import { scratch } from "./scratch.js";
 import type { WalkGraph } from "./types.js";
+
+const hopBytes = new WeakMap<WalkGraph, Uint8Array>();
+
+/** A node-indexed byte array of `graph`, all zero (its user zeroes what it set before returning). */
+function hopBytesFor(graph: WalkGraph): Uint8Array {
+  let b = hopBytes.get(graph);
+  if (b === undefined || b.length < graph.nodeCount) {
+    b = new Uint8Array(graph.nodeCount);
+    hopBytes.set(graph, b);
+  }
+  return b;
+}
 
 /** Options of {@link buildEvidenceGraph}; all optional. */
 export interface EvidenceOptions {
@@ -111,18 +123,29 @@ export class EvidenceSubgraph implements ArcGraph {
 }
 
 /**
- * Multi-source hop distances up to `maxHops` into `dist` (a reset stamped array); starts are
- * always expanded in full (whatever the budgets, so every 1-hop path is kept), hubs (degree >
- * hubLimit) otherwise not; the budgets bound everything beyond the starts' neighbours. Returns the visited nodes in BFS order.
+ * A multi-source breadth-first search's visit: `seen` in BFS order, its hop layers as
+ * `ends` (layer d is seen[ends[d − 1]] … seen[ends[d] − 1], layer 0 the starts), so a
+ * node's distance is its layer and no node-indexed distance array is written.
  */
-function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubLimit: number, nodeBudget: number, workBudget: number, dist: Stamped, flat?: FlatRows, visited?: NodeBits): number[] {
+interface Ball {
+  readonly seen: number[];
+  readonly ends: number[];
+}
+
+/**
+ * Multi-source hop distances up to `maxHops` (as layers, {@link Ball}); `visited` (an empty
+ * bit set) gets every visited node. Starts are always expanded in full (whatever the budgets,
+ * so every 1-hop path is kept), hubs (degree > hubLimit) otherwise not; the budgets bound
+ * everything beyond the starts' neighbours.
+ */
+function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubLimit: number, nodeBudget: number, workBudget: number, visited: NodeBits, flat?: FlatRows): Ball {
   const seen: number[] = [];
   for (const s of starts) {
-    if (s < 0 || s >= graph.nodeCount || dist.has(s)) continue;
-    dist.set(s, 0);
-    visited?.add(s);
+    if (s < 0 || s >= graph.nodeCount || visited.has(s)) continue;
+    visited.add(s);
     seen.push(s);
   }
+  const ends = [seen.length];
   let work = 0;
   let lo = 0;
   for (let d = 1; d <= maxHops && seen.length < nodeBudget; d++) {
@@ -136,36 +159,34 @@ function ball(graph: WalkGraph, starts: readonly number[], maxHops: number, hubL
       if (flat !== undefined) {
         // the same entries in the same order as graph.forEach, read from the flat arrays
         const targets = flat.targets;
-        // `visited` mirrors dist's set nodes as bits (in cache) when given
         for (let e = flat.offsets[u]!, end = flat.offsets[u + 1]!; e < end; e++) {
           const v = targets[e]!;
-          if (visited !== undefined ? !visited.has(v) : !dist.has(v)) {
-            if (d === 1 || seen.length < nodeBudget) {
-              dist.set(v, d);
-              visited?.add(v);
-              seen.push(v);
-            }
+          if (!visited.has(v) && (d === 1 || seen.length < nodeBudget)) {
+            visited.add(v);
+            seen.push(v);
           }
         }
         continue;
       }
       graph.forEach(u, (v) => {
-        if (!dist.has(v) && (d === 1 || seen.length < nodeBudget)) {
-          dist.set(v, d);
+        if (!visited.has(v) && (d === 1 || seen.length < nodeBudget)) {
+          visited.add(v);
           seen.push(v);
         }
       });
     }
+    ends.push(seen.length);
     lo = hi;
   }
-  return seen;
+  return { seen, ends };
 }
 
 /** Hop distances from `start` up to `maxHops` (hubs above `hubLimit` not expanded, at most `nodeBudget` nodes). */
 export function bfsDistances(graph: WalkGraph, start: number, maxHops: number, hubLimit: number, nodeBudget: number): Map<number, number> {
-  const dist = scratch(graph, 0);
-  const seen = ball(graph, [start], maxHops, hubLimit, nodeBudget, Infinity, dist);
-  return new Map(seen.map((x) => [x, dist.get(x)]));
+  const { seen, ends } = ball(graph, [start], maxHops, hubLimit, nodeBudget, Infinity, nodeBitsFor(graph, "explain/ball-clues", graph.nodeCount));
+  const out = new Map<number, number>();
+  for (let d = 0, i = 0; d < ends.length; d++) for (; i < ends[d]!; i++) out.set(seen[i]!, d);
+  return out;
 }
 
 /**
@@ -186,25 +207,33 @@ export function evidenceSubgraph(
   // ranking's walk offers its flat rows: the loops below read them directly (same entries,
   // same order, same probabilities as forEach / forEachProbability)
   const walk = cost.flatWalk();
-  const dc = scratch(graph, 0);
-  const fromClues = ball(graph, clueNodes, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, dc, walk?.rows, nodeBitsFor(graph, "explain/ball-clues", graph.nodeCount));
-  const da = scratch(graph, 1);
-  ball(graph, answers, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, da, walk?.rows, nodeBitsFor(graph, "explain/ball-answers", graph.nodeCount));
+  const fromClues = ball(graph, clueNodes, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, nodeBitsFor(graph, "explain/ball-clues", graph.nodeCount), walk?.rows);
+  const reachedA = nodeBitsFor(graph, "explain/ball-answers", graph.nodeCount);
+  const fromAnswers = ball(graph, answers, o.maxHops, o.hubLimit, o.nodeBudget, o.workBudget, reachedA, walk?.rows);
+  // the answers' hop distances by node (1 + distance, 0 unset), one byte each; cleared below
+  const da = hopBytesFor(graph);
+  for (let d = 0, i = 0; d < fromAnswers.ends.length; d++) for (; i < fromAnswers.ends[d]!; i++) da[fromAnswers.seen[i]!] = d + 1;
   const endpoints = new Set([...clueNodes, ...answers].filter((x) => x >= 0 && x < graph.nodeCount));
+  // in the clues' BFS order (as before), with each node's dist(clues) + dist(answers)
   let inner: number[] = [];
-  for (const x of fromClues) {
-    if (endpoints.has(x)) continue;
-    const a = da.get(x);
-    if (a >= 0 && dc.get(x) + a <= o.maxHops) inner.push(x);
+  const sums: number[] = [];
+  for (let d = 0, i = 0; d < fromClues.ends.length; d++) {
+    for (; i < fromClues.ends[d]!; i++) {
+      const x = fromClues.seen[i]!;
+      if (!reachedA.has(x) || endpoints.has(x)) continue;
+      const sum = d + da[x]! - 1;
+      if (sum <= o.maxHops) {
+        inner.push(x);
+        sums.push(sum);
+      }
+    }
   }
+  for (const x of fromAnswers.seen) da[x] = 0;
   if (inner.length > o.maxNodes) {
     // fewest hops first, then lowest num: one packed key per node (hops · 2^31 + num, exact
     // in a double) sorted numerically, instead of a comparator reading both distances
     const packed = new Float64Array(inner.length);
-    for (let i = 0; i < inner.length; i++) {
-      const x = inner[i]!;
-      packed[i] = (dc.get(x) + da.get(x)) * 2147483648 + x;
-    }
+    for (let i = 0; i < inner.length; i++) packed[i] = sums[i]! * 2147483648 + inner[i]!;
     packed.sort();
     inner = Array.from(packed.subarray(0, o.maxNodes), (k) => k % 2147483648);
   }

@@ -416,14 +416,21 @@ export function explain<A extends ExplainAnalysis>(
   return { answers, verdict, coverage, ablation, suggestions, whyNot, labels: Object.fromEntries([...names.used].sort((a, b) => (a[0] < b[0] ? -1 : 1))) };
 }
 
-/** Adds the milliseconds since the previous lap to `into[name]` (nothing when `into` is absent). */
+/**
+ * Adds the milliseconds since the previous lap to `into[name]` and the CPU milliseconds of the
+ * process (process.cpuUsage, user + system) to `into[name + "Cpu"]` (nothing when `into` is absent).
+ */
 function lapTimer(into: Record<string, number> | undefined): (name: string) => void {
   if (into === undefined) return () => {};
   let last = performance.now();
+  let lastCpu = process.cpuUsage();
   return (name) => {
     const now = performance.now();
+    const cpu = process.cpuUsage();
     into[name] = (into[name] ?? 0) + (now - last);
+    into[name + "Cpu"] = (into[name + "Cpu"] ?? 0) + (cpu.user - lastCpu.user + cpu.system - lastCpu.system) / 1000;
     last = now;
+    lastCpu = cpu;
   };
 }
 

@@ -26,7 +26,7 @@
  */
 import type { Deadline } from "../model/index.js";
 import { bidirectionalBfs, type NumStep } from "./bidirectional-bfs.js";
-import { arcsTo, dijkstra, type ShortestPathTree } from "./dijkstra.js";
+import { arcsTo, dijkstra, DijkstraScratch, type ShortestPathTree } from "./dijkstra.js";
 import { evidenceSubgraph, type EvidenceSubgraph } from "./evidence-graph.js";
 import type { PathCostModel } from "./path-cost.js";
 import { patternWalks, relaxations, type PatternWalks } from "./pattern-path.js";
@@ -148,6 +148,8 @@ export function findPaths(
   const keyOf = (u: number): string => (u < ev.realCount ? String(ev.nums[u]) : `clue#${u - ev.realCount}`);
   const trees: (ShortestPathTree | undefined)[] = [];
   const treeOf = (ci: number): ShortestPathTree => (trees[ci] ??= dijkstra(ev, ev.virtualOf(ci)));
+  // the spur searches of every Yen call on this subgraph share one set of arrays
+  const spurScratch = new DijkstraScratch(ev);
   const toPath = (ci: number, a: number, arcs: readonly number[]): NumPath | undefined => {
     if (arcs.length < 2) return undefined;
     const start = ev.nums[ev.heads[arcs[0]!]!]!;
@@ -188,7 +190,7 @@ export function findPaths(
       if (target >= 0) {
         // the time budget: once spent, the first answer keeps its cheapest path only (no alternatives)
         if (ai < o.alternativesFor && o.alternatives > 0 && !(ai === 0 && deadline?.stop("paths"))) {
-          for (const p of yenOnArcs(ev, ev.virtualOf(ci), target, o.alternatives + 1, keyOf)) {
+          for (const p of yenOnArcs(ev, ev.virtualOf(ci), target, o.alternatives + 1, keyOf, spurScratch)) {
             const np = toPath(ci, a, p.arcs);
             if (np) paths.push(np);
           }

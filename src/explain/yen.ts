@@ -23,7 +23,7 @@
  */
 import type { DirectedGraph } from "graphology";
 import dijkstra from "graphology-shortest-path/dijkstra.js";
-import { arcsTo, dijkstra as arcDijkstra, type ArcGraph } from "./dijkstra.js";
+import { DijkstraScratch, type ArcGraph } from "./dijkstra.js";
 
 /** Options of {@link yenKShortestPaths}; all optional. */
 export interface YenOptions {
@@ -141,11 +141,10 @@ export interface ArcPath {
  * Candidates of equal cost are ordered by `keyOf` of their nodes (lexicographic), then by
  * length. Returns up to `k` loopless paths `source → target`, cheapest first.
  */
-export function yenOnArcs(g: ArcGraph, source: number, target: number, k: number, keyOf: (u: number) => string): ArcPath[] {
+export function yenOnArcs(g: ArcGraph, source: number, target: number, k: number, keyOf: (u: number) => string, scratch?: DijkstraScratch): ArcPath[] {
   if (!Number.isInteger(k) || k < 1) throw new RangeError(`explain/yen: k must be a positive integer, got ${k}`);
   if (source === target) return [{ nodes: [source], arcs: [], cost: 0 }];
-  const blockedNode = new Uint32Array(g.size);
-  let stamp = 1;
+  const s = scratch !== undefined && scratch.g === g ? scratch : new DijkstraScratch(g);
   const toPath = (from: number, arcs: readonly number[]): ArcPath => {
     const nodes = [from];
     let cost = 0;
@@ -155,7 +154,8 @@ export function yenOnArcs(g: ArcGraph, source: number, target: number, k: number
     }
     return { nodes, arcs, cost };
   };
-  const firstArcs = arcsTo(g, arcDijkstra(g, source, { target }), source, target);
+  s.search(source, target);
+  const firstArcs = s.arcsTo(source, target);
   if (firstArcs === null) return [];
   const accepted: ArcPath[] = [toPath(source, firstArcs)];
   const candidates: ArcPath[] = [];
@@ -172,13 +172,17 @@ export function yenOnArcs(g: ArcGraph, source: number, target: number, k: number
     const prev = accepted[accepted.length - 1]!;
     for (let i = 0; i + 1 < prev.nodes.length; i++) {
       const spur = prev.nodes[i]!;
-      const blockedArcs = new Set<number>();
+      // blocked for this spur search: the arcs leaving the spur node on accepted paths with
+      // the same root, and the root's nodes before the spur node
+      s.block();
       for (const p of accepted) {
-        if (p.nodes.length > i + 1 && prev.nodes.slice(0, i + 1).every((n, j) => p.nodes[j] === n)) blockedArcs.add(p.arcs[i]!);
+        let sameRoot = p.nodes.length > i + 1;
+        for (let j = 0; j <= i && sameRoot; j++) sameRoot = p.nodes[j] === prev.nodes[j];
+        if (sameRoot) s.blockArc(p.arcs[i]!);
       }
-      stamp++;
-      for (let j = 0; j < i; j++) blockedNode[prev.nodes[j]!] = stamp;
-      const spurArcs = arcsTo(g, arcDijkstra(g, spur, { target, blockedNode, blockStamp: stamp, blockedArcs }), spur, target);
+      for (let j = 0; j < i; j++) s.blockNode(prev.nodes[j]!);
+      s.search(spur, target, true);
+      const spurArcs = s.arcsTo(spur, target);
       if (spurArcs === null) continue;
       const rootArcs = prev.arcs.slice(0, i);
       let rootCost = 0;

@@ -147,14 +147,23 @@ export function pprFast(index: RelationIndex, seeds: readonly Seed[], options: F
         for (let i = 0; i < done; i++) {
           const v = ends[i]!;
           if (p[v] === 0 && q[v] === 0) ws.touch(v);
+          if (p[v] === 0) ws.settle(v);
           p[v]! += share;
         }
       }
     }
-    const distinct = ws.distinctTouched();
-    // push only: the residual left (a statistic) summed over the distinct touched nodes
-    if (walks === 0) for (let i = 0; i < distinct.length; i++) residualSum += q[distinct[i]!]! * mu[distinct[i]!]!;
-    const out = collect(distinct, p);
+    // push only: the residual left (a statistic) summed over the touched nodes, each once
+    if (walks === 0) {
+      for (let i = 0; i < ws.touchedCount; i++) {
+        const v = ws.touched[i]!;
+        if (ws.mark[v] === 1) continue;
+        ws.mark[v] = 1;
+        residualSum += q[v]! * mu[v]!;
+      }
+      for (let i = 0; i < ws.touchedCount; i++) ws.mark[ws.touched[i]!] = 0;
+    }
+    // the scores' nodes are those with p ≠ 0: the settled list (sorted), not the whole touched set
+    const out = collect(ws.settledNodes(), p);
     return {
       nodes: out.nodes,
       scores: out.scores,

@@ -59,6 +59,13 @@ export interface PushResult {
   readonly complete: boolean;
 }
 
+/** A copy of `a` with twice the room. */
+function doubled(a: Int32Array): Int32Array {
+  const t = new Int32Array(a.length * 2);
+  t.set(a);
+  return t;
+}
+
 /**
  * Dense scratch arrays reused across queries on one index (single-threaded). `q` holds the
  * residual in units of the node's measure, q(v) = r(v)/μ(v), so the push threshold is q > ε.
@@ -72,19 +79,28 @@ export class Workspace {
   /** Nodes whose p or q may be non-zero (may hold duplicates). */
   touched: Int32Array;
   touchedCount = 0;
+  /** Nodes whose p is non-zero, each once, in the order p became non-zero (pushes and walk ends). */
+  settled: Int32Array;
+  settledCount = 0;
   constructor(n: number) {
     this.p = new Float64Array(n);
     this.q = new Float64Array(n);
     this.mark = new Uint8Array(n);
     this.queue = new Int32Array(Math.max(1, n));
     this.touched = new Int32Array(1024);
+    this.settled = new Int32Array(1024);
+  }
+  /** Records that p(v) became non-zero. */
+  settle(v: number): void {
+    if (this.settledCount === this.settled.length) this.settled = doubled(this.settled);
+    this.settled[this.settledCount++] = v;
+  }
+  /** The nodes with a non-zero p, ascending (sorting the settled list, not the touched set). */
+  settledNodes(): Int32Array {
+    return this.settled.slice(0, this.settledCount).sort();
   }
   touch(v: number): void {
-    if (this.touchedCount === this.touched.length) {
-      const t = new Int32Array(this.touched.length * 2);
-      t.set(this.touched);
-      this.touched = t;
-    }
+    if (this.touchedCount === this.touched.length) this.touched = doubled(this.touched);
     this.touched[this.touchedCount++] = v;
   }
   /** Clears every touched entry (cost proportional to the touched set). */
@@ -95,6 +111,7 @@ export class Workspace {
       this.q[v] = 0;
     }
     this.touchedCount = 0;
+    this.settledCount = 0;
   }
   /** The distinct touched nodes, ascending. */
   distinctTouched(): Int32Array {
@@ -188,6 +205,7 @@ export function pushInto(
     const ru = q[u]! * mu[u]!;
     pushes++;
     work += end - start;
+    if (p[u] === 0) ws.settle(u);
     p[u]! += alpha * ru;
     q[u] = 0;
     const total = start === end ? 0 : walk.rowTotal(u);
