@@ -329,6 +329,21 @@ export class Catalog {
       .all(normalize(text), text) as number[];
   }
 
+  /**
+   * The entities a name refers to: by id, by exact label, then by normalised label, then by
+   * normalised alias (each entity once, by num) — `show`'s and `compose`'s lookup of a name.
+   */
+  resolveName(name: string): number[] {
+    const exact = this.byLabelOrId(name);
+    if (exact.length > 0) return exact;
+    const norm = normalize(name);
+    if (norm === "") return [];
+    const hits = this.byNorm(norm);
+    const labels = [...new Set(hits.filter((h) => h.kind === 0).map((h) => h.entity))];
+    if (labels.length > 0) return labels.sort((a, b) => a - b);
+    return [...new Set(hits.map((h) => h.entity))].sort((a, b) => a - b);
+  }
+
   /** All entity data that `show` needs. */
   entity(num: number): EntityInfo {
     const r = this.stmt("SELECT num, id, label, description FROM entity WHERE num = ?").get(num) as

@@ -33,7 +33,7 @@ Examples (the bundled demo catalog is used when --db is left out):
 Exit status: 0 success, 1 bad input (one line naming the file and line or field), 2 bad usage.`,
 );
 
-registerCommands(program);
+await registerCommands(program);
 
 try {
   await program.parseAsync(process.argv);

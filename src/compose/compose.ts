@@ -146,14 +146,7 @@ export interface Composition {
 
 /** The entities a name refers to: by id, by exact label, then by normalised label, then alias (also `show`'s lookup). */
 export function resolveTarget(cat: Catalog, name: string): number[] {
-  const exact = cat.byLabelOrId(name);
-  if (exact.length > 0) return exact;
-  const norm = normalize(name);
-  if (norm === "") return [];
-  const hits = cat.byNorm(norm);
-  const labels = [...new Set(hits.filter((h) => h.kind === 0).map((h) => h.entity))];
-  if (labels.length > 0) return labels.sort((a, b) => a - b);
-  return [...new Set(hits.map((h) => h.entity))].sort((a, b) => a - b);
+  return cat.resolveName(name);
 }
 
 /** Reads a difficulty: a number in [0, 1] or easy / medium / hard. */

@@ -10,7 +10,6 @@
 import { readFileSync } from "node:fs";
 import type { Command } from "commander";
 import { TiepointError } from "../../model/index.js";
-import { attachStore, existingBinding } from "../../pipeline/index.js";
 import { guarded } from "../run.js";
 
 /** The environment variable holding `user:password`. */
@@ -67,6 +66,7 @@ export function registerAttach(program: Command): void {
     .option("--credentials-file <file>", `a file whose first line is user:password (else ${CREDENTIALS_VARIABLE})`)
     .action((url: string | undefined, opts: { db: string; graph?: string; refresh?: boolean; timeout?: string; credentialsFile?: string }) =>
       guarded(async () => {
+        const { attachStore, existingBinding } = await import("../../pipeline/index.js");
         const timeoutMs = timeoutOption(opts.timeout);
         const credentials = storeCredentials(opts.credentialsFile);
         let endpoint = url;

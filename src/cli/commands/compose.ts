@@ -60,7 +60,7 @@ export function registerCompose(program: Command): void {
           }
           const nums = resolveTarget(session.catalog, name!);
           if (nums.length === 0) {
-            const near = nearNames(session.catalog, name!);
+            const near = await nearNames(session.catalog, name!);
             throw new TiepointError("compose/unknown-entity", `no entity with id or label ${JSON.stringify(name)}${near.length ? `; did you mean ${near.map((r) => `${r.label} [${r.id}]`).join(", ")}?` : ""}`);
           }
           if (nums.length > 1) {

@@ -4,18 +4,19 @@
  * member count. ENTITY is an id or an exact label; when no label matches exactly, the
  * normalised form is tried. An ambiguous label lists the candidates (ids and types) and
  * exits 1; an unknown one names the nearest entities ("did you mean").
+ *
+ * Start-up: this module imports only the catalog stage; the linker (for "did you mean") and
+ * the pipeline (for a catalog attached to a SPARQL store) are imported when they are needed,
+ * so showing a known entity loads about a third of the program's modules.
  */
 import type { Command } from "commander";
 import { distance } from "fastest-levenshtein";
 import { Catalog, demoCatalogPath, readBinding, typeMembers } from "../../catalog/index.js";
-import { resolveTarget } from "../../compose/index.js";
 import type { EntityInfo, NeighbourInfo } from "../../catalog/index.js";
-import { Linker, linkQuestion } from "../../linking/index.js";
 import { TiepointError } from "../../model/index.js";
 import type { EntityRef } from "../../model/index.js";
 import { guarded } from "../run.js";
 import { STORE_TIMEOUT_HELP, storeSessionOptions } from "./attach.js";
-import { StoreEdges } from "../../pipeline/index.js";
 
 /** Limits of `show`. */
 export const DEFAULTS = {
@@ -54,7 +55,7 @@ export function typeSummary(cat: Catalog, num: number): TypeSummary | undefined 
  * see README "How mentions are linked"); when that finds nothing, the labels and ids nearest
  * by Levenshtein distance (at most a third of the name's length) in a catalog small enough to scan.
  */
-export function nearNames(cat: Catalog, name: string, max = DEFAULTS.suggestions): EntityRef[] {
+export async function nearNames(cat: Catalog, name: string, max = DEFAULTS.suggestions): Promise<EntityRef[]> {
   const found = new Map<string, EntityRef>();
   const add = (r: EntityRef | null | undefined): void => {
     if (r && !found.has(r.id) && found.size < max) found.set(r.id, { id: r.id, label: r.label });
@@ -63,6 +64,7 @@ export function nearNames(cat: Catalog, name: string, max = DEFAULTS.suggestions
   const idLike = /^\S+$/.test(name) && /[:/#]/.test(name);
   if (idLike) for (const r of nearestByEdits(cat, name, max)) add(r);
   try {
+    const { Linker, linkQuestion } = await import("../../linking/index.js");
     const res = linkQuestion(name, Linker.fromCatalog(cat));
     for (const m of res.mentions) {
       add(m.entity);
@@ -98,7 +100,7 @@ export function catalogPath(db: string | undefined): string {
 }
 
 /** Finds the entity nums a name refers to: by id, by exact label, then by normalised label or alias (the compose stage's lookup). */
-export const resolveEntity: (cat: Catalog, name: string) => number[] = resolveTarget;
+export const resolveEntity = (cat: Catalog, name: string): number[] => cat.resolveName(name);
 
 function describe(cat: Catalog, num: number): string {
   const r = cat.ref(num);
@@ -153,10 +155,10 @@ export function registerShow(program: Command): void {
         try {
           // an attached catalog: the entity's edges come from its store (before any edge statement is prepared)
           const binding = readBinding(path, cat.version());
-          const store = binding ? new StoreEdges(cat, binding, storeSessionOptions(opts.timeout).store) : undefined;
+          const store = binding ? new (await import("../../pipeline/index.js")).StoreEdges(cat, binding, storeSessionOptions(opts.timeout).store) : undefined;
           const nums = resolveEntity(cat, name);
           if (nums.length === 0) {
-            const near = nearNames(cat, name);
+            const near = await nearNames(cat, name);
             throw new TiepointError("catalog/unknown-entity", `no entity with id or label ${JSON.stringify(name)}${near.length ? `; did you mean ${near.map((r) => `${r.label} [${r.id}]`).join(", ")}?` : ""}`);
           }
           if (nums.length > 1) {
