@@ -90,6 +90,32 @@ describe("decideVerdict with the question's reading and link facts", () => {
     // without a matching reading the score rules decide: tied at 0.95 ≥ 0.9
     expect(decideVerdict(input({ ref, reading: reading([], true) }, [c(1, 1), c(2, 0.95)])).status).toBe("tied");
   });
+  it("a clue held only by a neighbour constraint: a rival off the reading neither ties nor narrows the margin, one on it still does", () => {
+    // the ranking puts the matched candidate first even when a rival off the reading scores higher (2 against 1)
+    const open = (matched: number[]) => ({ ...reading(matched), open: 1 });
+    const v = decideVerdict(input({ ref, reading: open([1]) }, [c(1, 1), c(2, 2), c(3, 0.95)]));
+    expect(v.status).toBe("unique");
+    expect(v.margin).toBe(1);
+    // a rival that satisfies the reading too ties by the score rules (0.95 ≥ 0.9)
+    const t = decideVerdict(input({ ref, reading: open([1, 3]) }, [c(1, 1), c(2, 2), c(3, 0.95)]));
+    expect(t.status).toBe("tied");
+    expect(t.tiedWith).toEqual(["e3"]);
+    // a best answer off the reading: every candidate is a rival (E2 at 2 ≥ 0.9 × 1 ties)
+    expect(decideVerdict(input({ ref, reading: open([3]) }, [c(1, 1), c(2, 2), c(3, 0.95)])).tiedWith).toEqual(["e2", "e3"]);
+  });
+  it("an entity satisfying the reading counts as reached by every clue, even with no path found to it", () => {
+    // the path search found no path to E1 (another sense of the clue's own mention is a seed), but the reading's pattern reaches it
+    const v = decideVerdict(input({ ref, reading: reading([1]) }, [c(1, 1, [false, true]), c(2, 0.1)]));
+    expect(v.status).toBe("unique");
+    // when nothing satisfies the reading, no path still means not reached: weak
+    expect(decideVerdict(input({ ref, reading: reading([], true) }, [c(1, 1, [false, true]), c(2, 0.1)])).status).toBe("weak");
+  });
+  it("the other sense's answer that is the mention's chosen entity itself is no answer", () => {
+    // "the capital of Nim": read as the other Nim, the answer is the first Nim (s1) — the question named it
+    const v = decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.45, [{ id: "s1", label: "Nim" }])] }));
+    expect(v.status).toBe("unique");
+    expect(decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.45, [{ id: "s1", label: "Nim" }, { id: "e7", label: "E7" }])] })).tiedWith).toEqual(["e7"]);
+  });
   it("a sense in doubt with answers of its own ties with them, each carrying the sense", () => {
     const v = decideVerdict(input({ ref, reading: reading([1]), doubts: [doubt(0.45, [{ id: "e9", label: "E9" }])] }));
     expect(v.status).toBe("tied");

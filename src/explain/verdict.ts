@@ -26,9 +26,14 @@
  *    entities satisfy the whole reading, 2 or more of them are `tied` (a plural question asks
  *    for the set; a singular one has no single answer) and exactly one is `unique`; evidence
  *    along relations the question does not name never ties with it or breaks their tie.
+ *    An entity that satisfies the reading counts as reached by every clue (the reading's
+ *    patterns reach it) even when the path search found no path to it — as for another sense
+ *    of a clue's own mention, which is a seed of that clue.
  * 4. Link doubt, on top of rules 2–3 and 6: a clue mention whose next sense has at least
  *    `senseRatio` × the chosen sense's confidence is in doubt. When the question read with
- *    that other sense has answers that fit its reading and are not among this verdict's,
+ *    that other sense has answers that fit its reading and are not among this verdict's (nor
+ *    the mention's chosen entity itself: a question does not ask for what it names — "the
+ *    capital of Luxembourg" read as the city gives the country back),
  *    the verdict is `tied` with them (`senses` says which sense each comes from); when the
  *    other sense fits nothing and this reading matched, the question itself chose the sense
  *    and nothing changes; otherwise a `unique` becomes `weak`, naming the mention. A next
@@ -39,7 +44,11 @@
  * 5. Some clue's mention is not found (not all), or a name written like one (a capital, a
  *    digit) matches nothing and is no clue: `weak`, naming it — the answer rests on the rest.
  * 6. The score rules, when the reading decides nothing (no entity satisfies it, or a clue is
- *    unconstrained) — only here does evidence along relations the question does not name count:
+ *    unconstrained) — only here does evidence along relations the question does not name count,
+ *    and only when the best answer does not satisfy the reading: when it does (a clue held
+ *    only by a neighbour constraint — "a South American country" —, which orders the answers
+ *    but cannot decide the set: the question may mean a longer path), its rivals below are only
+ *    the candidates that satisfy the reading too:
  *    - `tied` — the best answer is reached by every clue and other candidates fit about
  *      equally well: either their score is at least `tieRatio` × the best score with the
  *      same clue coverage (and their paths follow the cued relations wherever the best
@@ -260,6 +269,12 @@ function baseVerdict(input: VerdictInput, ctx: VerdictContext, o: Required<Verdi
     }
   }
   if (input.clues.length === 0) return out({ status: "none", margin: 0, tiedWith: [], reason: "no part of the question was linked to a catalog entity" }, true);
+  // an entity that satisfies the reading is reached by every clue (the reading's patterns reach
+  // it), even where the path search found no path: one that is itself another sense of a clue
+  // ("Luxembourg", the city, for the mention "Luxembourg" read as the country) is a seed of it
+  if (r && readingMatched && input.candidates.some((c) => r.matched.has(c.node) && c.reached?.some((x) => !x))) {
+    input = { ...input, candidates: input.candidates.map((c) => (r.matched.has(c.node) && c.reached ? { ...c, reached: c.reached.map(() => true) } : c)) };
+  }
   const scored = scoreVerdict(input, o);
   if (scored.status === "none") return out(scored, true);
   // 3. the reading
@@ -275,6 +290,15 @@ function baseVerdict(input: VerdictInput, ctx: VerdictContext, o: Required<Verdi
     if (set.length === 1) {
       return out(scored.status === "unique" ? scored : { status: "unique", margin: scored.margin, tiedWith: [], reason: `only ${set[0]!.label} satisfies the reading of the question` }, false, true);
     }
+  }
+  // 6 with a reading that matched but does not decide (a clue held only by a neighbour
+  // constraint, or by a pattern longer than maxSteps): when the best answer satisfies the
+  // reading, only the candidates that satisfy it too are its rivals — evidence along relations
+  // the question does not name never ties with it
+  const top = input.candidates[0];
+  if (r && readingMatched && top && r.matched.has(top.node)) {
+    const fitting = input.candidates.filter((c, i) => i === 0 || r.matched.has(c.node));
+    if (fitting.length < input.candidates.length) return out(scoreVerdict({ ...input, candidates: fitting }, o), false, true);
   }
   return out(scored, false, readingMatched);
 }
@@ -309,7 +333,8 @@ function withDoubts(v: Verdict, doubts: readonly SenseDoubt[], strong: ReadonlyS
   const senses: SenseAnswer[] = [];
   for (const d of doubts) {
     for (const a of d.answers ?? []) {
-      if (have.has(a.id)) continue;
+      // the entity the mention names under its chosen sense is no answer of the question that names it
+      if (have.has(a.id) || a.id === d.mention.entity?.id) continue;
       have.add(a.id);
       senses.push({ id: a.id, label: a.label, mention: d.mention.text, sense: d.mention.next });
     }
