@@ -156,14 +156,20 @@ export function analyze(question: string, link: LinkResult, model: QuestionModel
     }
   }
   // "where" + a last relation word whose far end is not a place ("where did X study")
-  if (at.source === "where" && model.relationEnds) {
-    const places = new Set(model.placeTypes.flatMap((t) => model.typeByNum.get(t)?.descendants ?? [t]));
+  // "who" in a catalog with no person- or organisation-like type: likewise, the far end of the relation word
+  // (the wh-word opening the question, not a relative "whose" further on)
+  if ((at.source === "where" || (at.source === "who" && at.types.length === 0 && (at.usedWords[0] ?? 0) <= 1)) && model.relationEnds) {
+    const defaults = at.source === "where" ? model.placeTypes : model.agentTypes;
+    const places = new Set(defaults.flatMap((t) => model.typeByNum.get(t)?.descendants ?? [t]));
     const r = whereRangeType(cues, clues.map((c) => c.node), places, model, options.relationRange);
     if (r) {
       typeNums = r.types;
       typeSource = "relation";
       const labels = labelsOf(r.types);
-      notes.push(`"where" with "${r.cue.words.join(" ")}" (${r.cue.label}): answers expected of the types at its far end (${labels}), not places`);
+      const wh = at.source === "where" ? "where" : "who";
+      const k = notes.indexOf(at.notes[0] ?? "");
+      if (k >= 0) notes.splice(k, 1);
+      notes.push(`"${wh}" with "${r.cue.words.join(" ")}" (${r.cue.label}): answers expected of the types at its far end (${labels})${defaults.length > 0 ? `, not ${wh === "where" ? "places" : "persons"}` : ""}`);
     }
   }
   const answerTypes: AnswerType[] = typeNums.map((t) => {

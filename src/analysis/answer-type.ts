@@ -87,7 +87,7 @@ export function detectAnswerType(ws: readonly Word[], blocked: readonly boolean[
     const defaults = person ? model.agentTypes : model.placeTypes;
     const source: AnswerTypeSource = person ? "who" : "where";
     // "who is the captain of …": a copula then a noun naming one of the defaults' subtypes
-    const copula = wh + 1 < ws.length && COPULA.has(ws[wh + 1]!.norm);
+    const copula = (wh + 1 < ws.length && COPULA.has(ws[wh + 1]!.norm)) || whWord.endsWith("s") && whWord !== "whose";
     if (copula && match && match.types.every((t) => defaults.includes(t))) {
       return { types: match.types, source: "head-noun", usedWords: [wh, ...match.words], notes: [] };
     }

@@ -3,7 +3,7 @@
  */
 export { analyze, DEFAULTS as ANALYZE_DEFAULTS } from "./analyze.js";
 export type { Analysis, AnalyzeOptions, AnswerType, Clue } from "./analyze.js";
-export { buildQuestionModel, PERSON_WORDS, ORGANISATION_WORDS, PLACE_WORDS } from "./question-model.js";
+export { buildQuestionModel } from "./question-model.js";
 export type { QuestionModel, QuestionModelOptions, ModelType, ModelRelation } from "./question-model.js";
 export { relationalAnswerType, DEFAULTS as RELATION_RANGE_DEFAULTS } from "./relation-range.js";
 export type { RelationalType, RelationRangeOptions } from "./relation-range.js";

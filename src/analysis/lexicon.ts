@@ -38,6 +38,19 @@ export const DIMENSIONS: readonly Dimension[] = [
   { up: ["populous", "crowded"], down: [], hints: ["population", "inhabitants"] },
 ];
 
+/**
+ * The general nouns the wh-words of persons and places refer to: "who"/"whom"/"whose" ask
+ * for a person (Quirk et al. 1985 §6.35, the personal wh-pronoun; an organisation acting as
+ * one, as in "who made …"), "where" for a place (§8.46 ff., adverbials of place). A catalog
+ * type qualifies when it, or a supertype, is labelled (or aliased) by one of these nouns as a
+ * whole (question-model.ts); nothing else is listed: the catalog's hierarchy decides.
+ */
+export const WH_REFERENTS = {
+  person: ["person", "people", "human", "individual"],
+  organisation: ["organisation", "organization", "agent"],
+  place: ["place", "location"],
+} as const;
+
 /** Temporal adjectives (Quirk et al. 1985 §7.74): "up" = later (a larger year), "down" = earlier. */
 export const TEMPORAL = {
   up: ["new", "newer", "newest", "late", "later", "latest", "recent", "young", "younger", "youngest", "last"],
@@ -121,7 +134,7 @@ export const FUNCTION_WORDS: ReadonlySet<string> = new Set(
   (
     "a an the this that these those some any all both each every either neither no none other another such " +
     "i me my we us our you your he him his she her it its they them their one ones someone something anyone anything " +
-    "who whom whose which what where when why how whatever whichever " +
+    "who whom whose which what where when why how whatever whichever whats whos wheres " +
     "is are was were be been being am do does did done doing have has had having will would shall should can could may might must " +
     "of in on at by for with from to into onto upon about above below under over between among through during before after " +
     "against within without via per than as like near off out up down " +
@@ -153,9 +166,10 @@ export const DETERMINERS: ReadonlySet<string> = new Set(["a", "an", "the", "this
  * auxiliaries, prepositions, coordinators: Quirk et al. 1985 §17.9 ff., a postmodifier starts).
  */
 export const ANSWER_TYPE_WORDS = {
-  WH_WHICH: new Set(["which", "what"]) as ReadonlySet<string>,
-  WH_PERSON: new Set(["who", "whom", "whose"]) as ReadonlySet<string>,
-  WH_PLACE: new Set(["where"]) as ReadonlySet<string>,
+  // with the contracted copula as normalised ("what's" → "whats"; Quirk et al. 1985 §3.23, enclitic 's)
+  WH_WHICH: new Set(["which", "what", "whats"]) as ReadonlySet<string>,
+  WH_PERSON: new Set(["who", "whom", "whose", "whos"]) as ReadonlySet<string>,
+  WH_PLACE: new Set(["where", "wheres"]) as ReadonlySet<string>,
   IMPERATIVE: new Set(["name", "list", "identify", "find", "show", "give", "tell"]) as ReadonlySet<string>,
   SKIP: new Set(["is", "are", "was", "were", "the", "a", "an", "me", "us", "all", "of", "kind", "type", "sort", "class", "one", "ones", "please", "do", "you", "know"]) as ReadonlySet<string>,
   COPULA: new Set(["is", "are", "was", "were"]) as ReadonlySet<string>,

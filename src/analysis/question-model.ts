@@ -6,18 +6,19 @@
  *   (rdfs:subClassOf followed transitively) and the subtype closure.
  * - Relations: label and aliases as stem-token lists (content words only).
  * - Agent-like types for "who" and place-like types for "where": a type is person-like when
- *   its own label or an alias — or those of a supertype — is, as a whole (stemmed), a general
- *   English word for people (person, people, human, researcher, …; {@link PERSON_WORDS});
- *   organisation-like and place-like likewise ({@link ORGANISATION_WORDS},
- *   {@link PLACE_WORDS}). "who" asks for an agent: a person or an organisation ("who made
- *   the sonar?" — a company). The words are general English nouns, never catalog names;
- *   the decision is made on the catalog's own type labels and hierarchy, so it carries over
- *   to held-out catalogs. When no type qualifies, "who"/"where" set no type filter.
+ *   its own label or an alias — or those of a supertype — is, as a whole (stemmed), the
+ *   general noun the wh-word refers to (lexicon.ts {@link WH_REFERENTS}: "person", "people",
+ *   "organisation", "place", "location"); organisation-like and place-like likewise. The
+ *   catalog's type hierarchy does the rest ("researcher" ⊑ "person", "port" ⊑ "place"), so
+ *   no list of the catalog's own nouns is needed. "who" asks for an agent: a person or an
+ *   organisation ("who made the sonar?" — a company). When no type qualifies, "who"/"where"
+ *   take the far end of the question's relation word (relation-range.ts) or set no filter.
  */
 import type { Catalog } from "../catalog/index.js";
 import { stemKey, stemToken, tokens } from "../catalog/index.js";
 import type { EntityRef, RelationEnds } from "../model/index.js";
 import { isFunctionWord } from "./words.js";
+import { WH_REFERENTS } from "./lexicon.js";
 
 /** Options of {@link buildQuestionModel}; all optional. */
 export interface QuestionModelOptions {
@@ -82,33 +83,9 @@ export interface QuestionModel {
   readonly typesOf?: (num: number) => readonly number[];
 }
 
-/** General English words for people (common practice; no catalog names). */
-export const PERSON_WORDS: readonly string[] = [
-  "person", "people", "human", "individual", "man", "woman", "persona",
-  "researcher", "scientist", "scholar", "author", "writer", "artist", "engineer", "employee", "worker",
-  "staff", "officer", "captain", "pilot", "crew", "founder", "director", "leader", "politician",
-  "player", "athlete", "actor", "musician", "composer", "student", "teacher", "professor", "doctor",
-];
-
-/** General English words for organisations (common practice; no catalog names). */
-export const ORGANISATION_WORDS: readonly string[] = [
-  "organisation", "organization", "agent", "company", "firm", "corporation", "business", "enterprise",
-  "institution", "institute", "agency", "authority", "government", "university", "school", "college",
-  "laboratory", "lab", "society", "association", "club", "team", "band", "party", "union", "foundation",
-  "charity", "funder", "sponsor", "manufacturer", "publisher", "employer",
-];
-
-/** General English words for places (common practice; no catalog names). */
-export const PLACE_WORDS: readonly string[] = [
-  "place", "location", "site", "area", "region", "country", "nation", "state", "province", "county",
-  "district", "city", "town", "village", "settlement", "municipality", "port", "harbour", "harbor",
-  "island", "continent", "territory", "locality", "facility", "building", "venue", "station",
-  "landmark", "zone", "geographic", "geographical", "spatial",
-];
-
-const PERSON_KEYS = new Set(PERSON_WORDS.map(stemKey));
-const ORGANISATION_KEYS = new Set(ORGANISATION_WORDS.map(stemKey));
-const PLACE_KEYS = new Set(PLACE_WORDS.map(stemKey));
+const PERSON_KEYS = new Set(WH_REFERENTS.person.map(stemKey));
+const ORGANISATION_KEYS = new Set(WH_REFERENTS.organisation.map(stemKey));
+const PLACE_KEYS = new Set(WH_REFERENTS.place.map(stemKey));
 
 function closure(start: number, next: (n: number) => readonly number[]): number[] {
   const seen = new Set<number>([start]);

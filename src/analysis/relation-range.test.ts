@@ -16,8 +16,9 @@ let model: QuestionModel;
 
 beforeAll(() => {
   cat = writtenCatalog((w) => {
-    for (const [id, label] of [["t:Realm", "realm"], ["t:Town", "town"], ["t:Port", "port town"], ["t:Coin", "coin"], ["t:Noble", "noble"]] as const) w.label(id, label);
+    for (const [id, label] of [["t:Realm", "realm"], ["t:Town", "town"], ["t:Port", "port town"], ["t:Coin", "coin"], ["t:Noble", "noble"], ["t:Place", "place"]] as const) w.label(id, label);
     w.subclass("t:Port", "t:Town");
+    w.subclass("t:Town", "t:Place");
     w.predicateLabel("r:seat", "seat");
     w.predicateLabel("r:ruler", "ruler");
     w.predicateLabel("r:coin", "coin");
@@ -91,7 +92,7 @@ describe("relationalAnswerType, through analyze", () => {
   });
 
   it("'where' with a last relation word whose far end is no place: that end's types, not places", () => {
-    // realm is not a place-like word; town is (question-model.ts PLACE_WORDS)
+    // a realm is no place in this catalog; a town is (its supertype is labelled "place": lexicon.ts WH_REFERENTS)
     const q = "Where is Lord of Brisca the ruler?";
     const a = analyze(q, linkOf(q, ["Lord of Brisca"]), model);
     expect(a.answerTypeSource).toBe("relation");
@@ -101,6 +102,14 @@ describe("relationalAnswerType, through analyze", () => {
     const seat = "Where is the seat of Brisca?";
     const b = analyze(seat, linkOf(seat, ["Brisca"]), model);
     expect(b.answerTypeSource).toBe("where");
+  });
+
+  it("'who' in a catalog with no person-like type: the far end of the relation word", () => {
+    // no type here is (under) "person", "people", "organisation" …: the ruler's end gives the type
+    const q = "Who is the ruler of Brisca?";
+    const a = analyze(q, linkOf(q, ["Brisca"]), model);
+    expect(a.answerTypeSource).toBe("relation");
+    expect(ids(a)).toEqual(["t:Noble"]);
   });
 });
 
