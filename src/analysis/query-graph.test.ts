@@ -156,6 +156,10 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     const y = ask("Which vessels were launched after 2000?");
     expect(y.reading!.constraints).toEqual(["launch year > 2000", "all that fit"]);
     expect(group(y)).toEqual(["s:gull", "s:morrow"]);
+    // `matched` counts the entities after the conditions: Skell (1994) and Morrow (2003) have home port Vask, only Morrow after 2000
+    const m = ask("Which vessels whose home port is Vask were launched after 2000?");
+    expect(m.reading!.matched).toBe(1);
+    expect(m.answers[0]!.id).toBe("s:morrow");
   });
 
   it("9. direction from word order and voice: what X commands against who commands X", () => {

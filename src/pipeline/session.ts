@@ -284,7 +284,8 @@ export class Session {
       notes: [...limitNotes, ...link.notFound.filter((n) => n.linked).map(notFoundNote), ...facts.added.map(notFoundNote), ...analysis.notes, ...ranked.notes, ...sharedNotes, ...budgetNotes(deadline)],
       ...(link.notFound.length + facts.added.length > 0 ? { notFound: [...link.notFound, ...facts.added].sort((a, b) => a.start - b.start) } : {}),
       disclaimer: DISCLAIMER,
-      reading: readingDoc(reading, analysis, this.model, ranked.matched !== undefined ? { matched: ranked.matched, fallback: ranked.fallback === true } : { matched: null, fallback: false }),
+      // the entities that satisfy the reading and its conditions (the conditions' fit set after the filters)
+      reading: readingDoc(reading, analysis, this.model, ranked.matched !== undefined ? { matched: conditions && ranked.matched > 0 && ranked.fallback !== true ? conditions.fit.length : ranked.matched, fallback: ranked.fallback === true } : { matched: null, fallback: false }),
       ...(conditions ? { conditions: conditionDocs(cond.conditions, conditions) } : {}),
       ...(conditions?.count ? { count: countDoc(conditions, this.catalog)! } : {}),
       ...(explanation && explanation.suggestions.length > 0
