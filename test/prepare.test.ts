@@ -22,10 +22,10 @@ const dir = mkdtempSync(join(tmpdir(), "tiepoint-prepare-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 /** Loads `files` into `db` with streamed preparation; returns the report and the two files' bytes. */
-function streamedLoad(db: string, files: string[], replace = false) {
+function streamedLoad(db: string, files: string[], replace = false, ahead?: boolean) {
   const cat = Catalog.open(db, { create: true });
   try {
-    const sink = new LoadPreparation();
+    const sink = new LoadPreparation(undefined, ahead === undefined ? {} : { ahead });
     const report = loadFiles(cat, files, { sink, replace });
     const idx = existsSync(snapshotPath(db)) ? readFileSync(snapshotPath(db)) : undefined;
     const link = existsSync(LexicalSnapshot.pathFor(db)) ? readFileSync(LexicalSnapshot.pathFor(db)) : undefined;
@@ -49,12 +49,13 @@ function readBack(db: string): { idx: Buffer; link: Buffer } {
   return { idx: readFileSync(snapshotPath(db)), link: readFileSync(LexicalSnapshot.pathFor(db)) };
 }
 
-function expectSameAsReadBack(db: string, files: string[], replace = false): void {
-  const s = streamedLoad(db, files, replace);
+function expectSameAsReadBack(db: string, files: string[], replace = false, ahead?: boolean): LoadPreparation {
+  const s = streamedLoad(db, files, replace, ahead);
   expect(s.report.prepared, s.sink.reason).toBe(true);
   const r = readBack(db);
   expect(s.idx!.equals(r.idx)).toBe(true);
   expect(s.link!.equals(r.link)).toBe(true);
+  return s.sink;
 }
 
 function write(name: string, text: string): string {
@@ -95,6 +96,8 @@ describe("question indexes prepared during a load", () => {
       }
       // 3,000 entities give more than one batch of names (labels, aliases, descriptions): the thread ran
       expect(sink.threaded).toBe(true);
+      // the generator's relation IRIs carry labels only: their removal was foreseen, the files were built ahead
+      expect(sink.builtAhead).toBe(true);
       const streamed = { idx: readFileSync(snapshotPath(db)), link: readFileSync(LexicalSnapshot.pathFor(db)) };
       const r = readBack(db);
       expect(streamed.idx.equals(r.idx)).toBe(true);
@@ -143,6 +146,30 @@ describe("question indexes prepared during a load", () => {
     }
   });
 
+  it("equal the read-back build when built ahead (the rows all in), whether the removals were foreseen or not", () => {
+    const labelsOnly = write(
+      "ahead.nt",
+      [
+        "<urn:x:knows> <http://www.w3.org/2000/01/rdf-schema#label> \"knows\" .",
+        "<urn:x:knows> <http://www.w3.org/2004/02/skos/core#altLabel> \"is acquainted with\" .",
+        "<urn:x:a> <http://www.w3.org/2000/01/rdf-schema#label> \"Ada\" .",
+        "<urn:x:a> <urn:x:knows> <urn:x:b> .",
+        "<urn:x:b> <http://www.w3.org/2000/01/rdf-schema#label> \"Bo\" .",
+        "<urn:x:b> <http://www.w3.org/2000/01/rdf-schema#comment> \"Knows nobody.\" .",
+        "<urn:x:c> <urn:x:knows> <urn:x:a> .",
+        "",
+      ].join("\n"),
+    );
+    // the predicate entity urn:x:knows has labels only: removed at the end, as foreseen
+    expect(expectSameAsReadBack(join(dir, "ahead.db"), [labelsOnly], false, true).builtAhead).toBe(true);
+    // a predicate with an rdfs:domain edge and a unit IRI: not foreseen, built at the end as before
+    expect(expectSameAsReadBack(join(dir, "ahead-cases.db"), [join(dir, "cases.nt")], false, true).builtAhead).toBe(false);
+    // CSV (no removals) and --replace
+    const csv = write("ahead.csv", "id,label,knows\np:1,Ada,p:2\np:2,Bo,p:1\n");
+    expect(expectSameAsReadBack(join(dir, "ahead-csv.db"), [csv], false, true).builtAhead).toBe(true);
+    expect(expectSameAsReadBack(join(dir, "ahead-csv.db"), demoSourceFiles(), true, true).builtAhead).toBe(true);
+  });
+
   it("equal the read-back build for CSV rows and after --replace", () => {
     const csv = write("people.csv", "id,label,type,description,worksWith\np:1,Ada Vell,t:Person,Builds boats.,p:2\np:2,Bo Rill,t:Person,Mends nets.,p:1\np:3,Cy Rill,t:Person,,p:1\n");
     const db = join(dir, "csv.db");
@@ -166,6 +193,10 @@ describe("question indexes prepared during a load", () => {
     const cat = Catalog.open(db, { create: true });
     try {
       expect(() => loadFiles(cat, [bad], { sink: new LoadPreparation() })).toThrow();
+      // failing after the rows are all in (--strict: a warning of the end-of-load checks), the files built ahead are deleted
+      const unlabelled = write("unlabelled.nt", "<urn:x:a> <urn:x:r> <urn:x:b> .\n");
+      const sink = new LoadPreparation(undefined, { ahead: true });
+      expect(() => loadFiles(cat, [unlabelled], { sink, strict: true })).toThrow(/strict/);
     } finally {
       cat.close();
     }

@@ -6,7 +6,7 @@ export { fnv1a32 } from "./intern.js";
 export { SCHEMA_VERSION } from "./schema.js";
 export { loadFiles, formatOf } from "./load.js";
 export type { LoadOptions, LoadReport, FileReport, ImportFormat, LoadProgress, LoadWarning, WarningKind, UpdateSummary } from "./load.js";
-export type { LoadSink, PreparedFiles } from "./load-sink.js";
+export type { LoadSink, PreparedFiles, RowsWritten } from "./load-sink.js";
 export { catalogStats, nearestRank, typeMembers, unionFindComponents } from "./stats.js";
 export type { StoreEdgeCounts } from "./stats.js";
 export type { CatalogStats, Hub } from "./stats.js";

@@ -18,6 +18,29 @@ export interface PreparedFiles {
   discard(): void;
 }
 
+/**
+ * The catalog as it stands when a load's rows are all written (entity rows written, edges
+ * perhaps still held), and which entities the end-of-load steps may remove.
+ */
+export interface RowsWritten {
+  /** The catalog file. */
+  readonly path: string;
+  /** The largest entity and predicate nums, and the number of entity rows, now. */
+  readonly maxEntity: number;
+  readonly maxPredicate: number;
+  readonly entityCount: number;
+  /** The catalog stamp the commit will give. */
+  readonly stamp: { readonly uid: string; readonly generation: number };
+  /**
+   * Entities whose id is also a predicate's (RDF loads): the end-of-load step removes those
+   * that take no part in the graph (import/finish.ts); no other entity is removed when
+   * `onlyCandidates` holds.
+   */
+  readonly candidates: readonly number[];
+  /** False when other entities may be removed too (unit IRIs, writer.ts `writeUnits`). */
+  readonly onlyCandidates: boolean;
+}
+
 /** Receives the rows of a load into an empty catalog. */
 export interface LoadSink {
   /** A relation edge (entity, predicate, entity nums). */
@@ -36,10 +59,10 @@ export interface LoadSink {
   removed(entity: number): void;
   /**
    * The files' rows are all written; the end-of-load steps follow (SQLite's indexes, then
-   * fix-ups that may still remove entities): a sink may start work that does not depend on
-   * those removals.
+   * fix-ups that may still remove entities): a sink may start work now, from what `ahead`
+   * tells of the catalog the commit will give, and check at `finish` that it came true.
    */
-  rowsWritten?(): void;
+  rowsWritten?(ahead: RowsWritten): void;
   /**
    * Called inside the transaction after the last write: builds the derived files for the
    * catalog stamp the commit will give (`uid`, `generation`) under temporary names. Returns

@@ -214,7 +214,7 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
       }
       ctx.checkPending();
       if (ctx.errors.length === 0) {
-        sink?.rowsWritten?.();
+        if (sink?.rowsWritten) sink.rowsWritten(writer.rowsWritten(rdf));
         writer.restoreIndexes();
         updated = writer.applyReload();
         writer.writeUnits();

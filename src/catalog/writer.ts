@@ -12,7 +12,7 @@ import { labelFromId } from "./store.js";
 import type { Catalog } from "./store.js";
 import { PendingEntities, RowBatch, SortedEdges } from "./rows.js";
 import { IdTable } from "./intern.js";
-import type { LoadSink } from "./load-sink.js";
+import type { LoadSink, RowsWritten } from "./load-sink.js";
 import { ReloadTracker } from "./reload.js";
 import type { UpdateSummary } from "./reload.js";
 
@@ -446,6 +446,30 @@ export class CatalogWriter {
     for (const b of this.buffers()) b.flush();
     // whoever reads next may also delete rows: take the next num from the table again
     this.nextNum = 0;
+  }
+
+  /**
+   * Where the load stands when its files' rows are all in (for the sink, load-sink.ts): the
+   * rows of every table but the held edges are written (cheap; the edges wait for their
+   * sorted write), then the catalog's nums and counts are read, with the entities the
+   * end-of-load steps may remove.
+   */
+  rowsWritten(rdf: boolean): RowsWritten {
+    for (const b of [this.entities, this.aliases, this.types, this.attributes]) b.flush();
+    this.nextNum = 0;
+    const one = (sql: string) => (this.db.prepare(sql).get() as { n: number | null }).n ?? 0;
+    const v = this.cat.version();
+    let onlyCandidates = true;
+    for (const u of this.units.values()) if (u.rank === 2) onlyCandidates = false;
+    return {
+      path: this.cat.path,
+      maxEntity: one("SELECT max(num) AS n FROM entity"),
+      maxPredicate: one("SELECT max(num) AS n FROM predicate"),
+      entityCount: one("SELECT count(*) AS n FROM entity"),
+      stamp: { uid: v.uid, generation: v.generation + 1 },
+      candidates: rdf ? (this.db.prepare("SELECT e.num FROM predicate p JOIN entity e ON e.id = p.id ORDER BY e.num").pluck().all() as number[]) : [],
+      onlyCandidates,
+    };
   }
 
   private discardBuffers(): void {

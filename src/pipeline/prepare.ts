@@ -22,6 +22,17 @@
  * (`rowsWritten`), the thread sorts the edges at once (index-builder.ts `presort`) while the
  * load's thread has SQLite build its indexes; the end-of-load removals are applied after.
  *
+ * Built ahead: when the rows are all in (`rowsWritten`), the second thread builds both files
+ * at once, from what the load's thread tells of the catalog the commit will give (largest
+ * nums, entity count, stamp) and the entities the end-of-load step will remove — foreseen
+ * here only when they are certain: entities named like a predicate that take no part in any
+ * edge, type or subtype row (import/finish.ts removes exactly those; anything else, and unit
+ * IRIs, leaves the build to `finish`). So the files are written while the load's thread
+ * writes the edges, has SQLite build its indexes and commits, instead of after. `finish`
+ * keeps them only when what happened is what was foreseen: the same nums, counts and stamp,
+ * and exactly the foreseen removals after them (no other row); otherwise they are deleted
+ * and the files built as before — the same function of the same rows either way.
+ *
  * Before vouching for the files it checks that the distinct edges it saw are exactly the
  * catalog's edge rows (a count, read inside the load's transaction); a mismatch (a write path
  * it was not told about) leaves preparation to the read-back path after the commit.
@@ -29,7 +40,7 @@
 import { existsSync, renameSync, unlinkSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
-import type { Catalog, LoadSink, PreparedFiles } from "../catalog/index.js";
+import type { Catalog, LoadSink, PreparedFiles, RowsWritten } from "../catalog/index.js";
 import { LexicalSnapshot } from "../linking/index.js";
 import { IndexBuilder, snapshotPath, writeSnapshotTemp } from "../ranking/index.js";
 
@@ -72,8 +83,36 @@ export interface PrepareInput {
   readonly degrees?: Int32Array;
 }
 
-/** The outcome of {@link PrepareCore.build}. */
-export type PrepareOutput = { readonly ok: true; readonly temps: [string, string]; readonly stepMs: Record<string, number>; readonly ms: number } | { readonly ok: false; readonly reason: string; readonly stepMs: Record<string, number>; readonly ms: number };
+/**
+ * The outcome of {@link PrepareCore.build}: `edges` the distinct edges indexed; `ahead` when
+ * the files are the ones built when the rows were all in.
+ */
+export type PrepareOutput = { readonly ok: true; readonly temps: [string, string]; readonly edges: number; readonly ahead?: boolean; readonly stepMs: Record<string, number>; readonly ms: number } | { readonly ok: false; readonly reason: string; readonly stepMs: Record<string, number>; readonly ms: number };
+
+/** What the load's thread knows when the rows are all in (load-sink.ts `RowsWritten`), for the build ahead. */
+export interface AheadInput {
+  /** The input `finish` is expected to give, `edgeRows` not known yet (−1). */
+  readonly input: PrepareInput;
+  readonly candidates: readonly number[];
+  readonly onlyCandidates: boolean;
+}
+
+/** A build ahead and the rows that arrived after it. */
+interface Ahead {
+  readonly input: PrepareInput;
+  readonly removed: ReadonlySet<number>;
+  readonly output: PrepareOutput;
+  readonly indexRemoved: Set<number>;
+  readonly textRemoved: Set<number>;
+  other: boolean;
+}
+
+const sameSet = (a: ReadonlySet<number>, b: ReadonlySet<number>): boolean => a.size === b.size && [...a].every((x) => b.has(x));
+
+/** True when two inputs give the same files (the edge count is only checked). */
+function sameInput(a: PrepareInput, b: PrepareInput): boolean {
+  return a.maxEntity === b.maxEntity && a.maxPredicate === b.maxPredicate && a.entityCount === b.entityCount && a.path === b.path && a.stamp.uid === b.stamp.uid && a.stamp.generation === b.stamp.generation && a.degrees === undefined && b.degrees === undefined;
+}
 
 function remove(file: string): void {
   try {
@@ -83,16 +122,28 @@ function remove(file: string): void {
   }
 }
 
+function edgeMismatch(edges: number, rows: number): string {
+  return `the load's rows (${edges} edges) do not match the catalog (${rows} edge rows)`;
+}
+
 /** The two builders, fed batches of rows (in the load's thread or in the second one). @internal */
 export class PrepareCore {
   private readonly index = new IndexBuilder();
   private readonly lexical = LexicalSnapshot.builder();
 
+  /** The build ahead, while `finish` has not come (see the file header). */
+  private ahead: Ahead | undefined;
+
   /** Applies `n` rows of an index batch. */
   indexRows(batch: Int32Array, n: number): void {
     const index = this.index;
+    const ahead = this.ahead;
     for (let i = 0; i < 4 * n; i += 4) {
       const code = batch[i]!;
+      if (ahead !== undefined) {
+        if (code === REMOVED) ahead.indexRemoved.add(batch[i + 1]!);
+        else ahead.other = true;
+      }
       if (code === EDGE) index.edge(batch[i + 1]!, batch[i + 2]!, batch[i + 3]!);
       else if (code === TYPE) index.type(batch[i + 1]!, batch[i + 2]!);
       else if (code === SUBCLASS) index.subclass(batch[i + 1]!, batch[i + 2]!);
@@ -103,9 +154,14 @@ export class PrepareCore {
   /** Applies the rows of a name batch. */
   textRows(batch: readonly unknown[]): void {
     const lexical = this.lexical;
+    const ahead = this.ahead;
     for (let i = 0; i < batch.length; i += 4) {
       const code = batch[i] as number;
       const entity = batch[i + 1] as number;
+      if (ahead !== undefined) {
+        if (code === REMOVED) ahead.textRemoved.add(entity);
+        else ahead.other = true;
+      }
       if (code === ALIAS) lexical.alias(entity, batch[i + 2] as string, batch[i + 3] as string);
       else if (code === LABEL) lexical.label(entity, batch[i + 2] as string);
       else if (code === DESCRIPTION) lexical.description(entity, batch[i + 2] as string);
@@ -118,8 +174,61 @@ export class PrepareCore {
     this.index.presort();
   }
 
-  /** Builds both files under temporary names beside the catalog. */
+  /**
+   * Builds both files now, when the rows are all in, from what `ahead` foresees (see the file
+   * header); does nothing when the end-of-load removals cannot be foreseen.
+   */
+  buildAhead(ahead: AheadInput): void {
+    if (!ahead.onlyCandidates) return;
+    // a candidate in some edge, type or subtype row: whether it stays depends on its relations
+    if (this.index.touches(ahead.candidates).some((t) => t)) return;
+    const removed = new Set(ahead.candidates);
+    let maxEntity = ahead.input.maxEntity;
+    if (removed.has(maxEntity)) {
+      // the largest num goes: the next largest is known when the nums are 1 … n without a gap
+      if (maxEntity !== ahead.input.entityCount) return;
+      while (removed.has(maxEntity)) maxEntity--;
+    }
+    for (const e of removed) {
+      this.index.remove(e);
+      this.lexical.remove(e);
+    }
+    const input: PrepareInput = { ...ahead.input, maxEntity, entityCount: ahead.input.entityCount - removed.size, edgeRows: -1 };
+    const output = this.buildNow(input);
+    this.ahead = { input, removed, output, indexRemoved: new Set(), textRemoved: new Set(), other: false };
+  }
+
+  /** Deletes the files built ahead (the load failed). */
+  discardAhead(): void {
+    if (this.ahead?.output.ok) this.ahead.output.temps.forEach(remove);
+    this.ahead = undefined;
+  }
+
+  /**
+   * Builds both files under temporary names beside the catalog — or takes the ones built
+   * ahead, when what happened since is what was foreseen.
+   */
   build(input: PrepareInput, onProgress?: PrepareProgressFn): PrepareOutput {
+    const ahead = this.ahead;
+    this.ahead = undefined;
+    if (ahead !== undefined) {
+      const out = ahead.output;
+      if (out.ok && !ahead.other && sameSet(ahead.indexRemoved, ahead.removed) && sameSet(ahead.textRemoved, ahead.removed) && sameInput(ahead.input, input)) {
+        if (out.edges === input.edgeRows) return { ...out, ahead: true };
+        out.temps.forEach(remove);
+        return { ok: false, reason: edgeMismatch(out.edges, input.edgeRows), stepMs: out.stepMs, ms: out.ms };
+      }
+      if (out.ok) out.temps.forEach(remove);
+      // the builders hold the foreseen removals: a build now is right only when they all happened
+      for (const e of ahead.removed) {
+        if (!ahead.indexRemoved.has(e) || !ahead.textRemoved.has(e)) return { ok: false, reason: `entity ${e} was foreseen to be removed at the end of the load, and was not`, stepMs: {}, ms: 0 };
+      }
+    }
+    return this.buildNow(input, onProgress);
+  }
+
+  /** Builds both files under temporary names beside the catalog (`input.edgeRows` −1: the edge count is not checked). */
+  private buildNow(input: PrepareInput, onProgress?: PrepareProgressFn): PrepareOutput {
     const t0 = performance.now();
     const stepMs: Record<string, number> = {};
     const temps: string[] = [];
@@ -133,7 +242,7 @@ export class PrepareCore {
       onProgress?.(`sorting ${this.index.edgeRows.toLocaleString("en-US")} edges`);
       const { index, edges } = this.index.build(input.maxEntity, input.maxPredicate);
       step("sort");
-      if (edges !== input.edgeRows) return { ok: false, reason: `the load's rows (${edges} edges) do not match the catalog (${input.edgeRows} edge rows)`, stepMs, ms: performance.now() - t0 };
+      if (input.edgeRows >= 0 && edges !== input.edgeRows) return { ok: false, reason: edgeMismatch(edges, input.edgeRows), stepMs, ms: performance.now() - t0 };
       onProgress?.("writing the relation index");
       temps.push(writeSnapshotTemp(snapshotPath(input.path), index, input.stamp));
       step("relationIndex");
@@ -144,7 +253,7 @@ export class PrepareCore {
       const parts = this.lexical.finish(degree, input.entityCount);
       temps.push(LexicalSnapshot.fromParts(input.stamp.uid, input.stamp.generation, parts).saveTemp(LexicalSnapshot.pathFor(input.path)));
       step("nameIndex");
-      return { ok: true, temps: temps as [string, string], stepMs, ms: performance.now() - t0 };
+      return { ok: true, temps: temps as [string, string], edges, stepMs, ms: performance.now() - t0 };
     } catch (e) {
       temps.forEach(remove);
       return { ok: false, reason: (e as Error).message, stepMs, ms: performance.now() - t0 };
@@ -182,6 +291,12 @@ export class LoadPreparation implements LoadSink {
   waitMs = 0;
   /** True when the second thread built the files. */
   threaded = false;
+  /** True when the files published are the ones built when the rows were all in (see the file header). */
+  builtAhead = false;
+  /** Build the files when the rows are all in (default: when a second thread builds them). */
+  private readonly aheadOption: boolean | undefined;
+  /** True once a build ahead may have started (a failed load then waits for it, to delete its files). */
+  private aheadStarted = false;
 
   /**
    * @param options.thread use a second thread for loads that fill a batch (default true;
@@ -190,9 +305,10 @@ export class LoadPreparation implements LoadSink {
   /** Degrees for the name index when the edges are not in the load (an attached store's counts, pipeline/attach.ts). */
   private readonly degrees: ((cat: Catalog, nodeCount: number) => Int32Array) | undefined;
 
-  constructor(onProgress?: PrepareProgressFn, options: { thread?: boolean; readonly degrees?: (cat: Catalog, nodeCount: number) => Int32Array } = {}) {
+  constructor(onProgress?: PrepareProgressFn, options: { thread?: boolean; readonly degrees?: (cat: Catalog, nodeCount: number) => Int32Array; readonly ahead?: boolean } = {}) {
     this.onProgress = onProgress;
     this.degrees = options.degrees;
+    this.aheadOption = options.ahead;
     this.useThread = options.thread !== false && existsSync(fileURLToPath(WORKER_URL));
   }
 
@@ -225,15 +341,35 @@ export class LoadPreparation implements LoadSink {
     this.textRow(REMOVED, entity, null, null);
   }
 
-  rowsWritten(): void {
+  rowsWritten(at: RowsWritten): void {
     this.sendIndex(false);
     this.sendText(false);
-    if (this.thread) this.thread.worker.postMessage({ presort: true });
-    else (this.core ??= new PrepareCore()).presort();
+    const onDisk = at.path !== ":memory:" && at.path !== "";
+    const wanted = this.aheadOption ?? this.thread !== undefined;
+    const ahead: AheadInput | undefined =
+      onDisk && wanted && this.degrees === undefined
+        ? { input: { maxEntity: at.maxEntity, maxPredicate: at.maxPredicate, edgeRows: -1, entityCount: at.entityCount, path: at.path, stamp: { uid: at.stamp.uid, generation: at.stamp.generation } }, candidates: [...at.candidates], onlyCandidates: at.onlyCandidates }
+        : undefined;
+    this.aheadStarted = ahead !== undefined;
+    if (this.thread) this.thread.worker.postMessage({ presort: true, ahead });
+    else {
+      const core = (this.core ??= new PrepareCore());
+      core.presort();
+      if (ahead) core.buildAhead(ahead);
+    }
   }
 
   abort(): void {
     this.reason ??= "the catalog was not empty when the load began";
+    if (this.aheadStarted) {
+      // files built ahead are deleted before the failed load returns
+      this.aheadStarted = false;
+      if (this.thread && this.output === undefined) {
+        this.thread.worker.postMessage({ discard: true });
+        this.await(this.thread);
+      }
+      this.core?.discardAhead();
+    }
     this.stop();
   }
 
@@ -312,7 +448,11 @@ export class LoadPreparation implements LoadSink {
   private adopt(out: PrepareOutput): [string, string] | undefined {
     this.finishMs = out.ms;
     this.stepMs = out.stepMs;
-    if (out.ok) return out.temps;
+    this.aheadStarted = false;
+    if (out.ok) {
+      this.builtAhead = out.ahead === true;
+      return out.temps;
+    }
     this.reason = out.reason;
     return undefined;
   }

@@ -150,6 +150,18 @@ export class IndexBuilder {
     return [this.src.length, this.typed.length, this.sub.length];
   }
 
+  /** Which of `nums` appear in a row collected so far (an edge at either end, a type row on either side, a subtype pair): one pass over the rows. */
+  touches(nums: readonly number[]): boolean[] {
+    const mark = new Uint8Array(Math.max(this.maxNode, 0) + 1);
+    for (const v of nums) if (v >= 0 && v < mark.length) mark[v] = 1;
+    const hit = new Uint8Array(mark.length);
+    for (const col of [this.src, this.dst, this.typed, this.type_, this.sub, this.sup]) {
+      const data = view(col);
+      for (let i = 0; i < data.length; i++) if (mark[data[i]!] === 1) hit[data[i]!] = 1;
+    }
+    return nums.map((v) => v >= 0 && v < hit.length && hit[v] === 1);
+  }
+
   /** Edge rows collected so far (duplicates included). */
   get edgeRows(): number {
     return this.src.length;
