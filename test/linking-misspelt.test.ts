@@ -27,6 +27,9 @@ beforeAll(() => {
   ent("x:libz", "libz", ["t:Tool"], "A packing library.");
   ent("p:holm", "Holm", ["t:Port"], "A canal port.");
   ent("v:gull", "Gull", [], "A survey ship.");
+  ent("v:dredger", "Kessel Dredger", [], "A dredging ship.");
+  ent("v:tugA", "Holm Tug", [], "A harbour tug.");
+  ent("v:tugB", "Vask Tug", [], "Another harbour tug.");
   w.edge("x:mave", "r:dependsOn", "x:libq");
   w.edge("x:rave", "r:dependsOn", "x:libz");
   w.edge("v:gull", "r:homePort", "p:holm");
@@ -54,6 +57,17 @@ describe("a lower-case name one edit from two names", () => {
     const r = linkQuestion("which tools save time?", linker);
     expect(r.mentions.map((m) => m.entity.id)).not.toContain("x:mave");
     expect(r.mentions.map((m) => m.entity.id)).not.toContain("x:rave");
+  });
+});
+
+describe("a definite description by one word of one name, typed without capitals", () => {
+  it("links 'the dredger' to the one entity whose name holds the word", () => {
+    const r = linkQuestion("what is the home port of the dredger?", linker);
+    expect(r.mentions.map((m) => [m.text, m.entity.id])).toEqual([["dredger", "v:dredger"]]);
+  });
+  it("does not when the word is in two names, or the phrase is not definite", () => {
+    expect(linkQuestion("what is the home port of the tug?", linker).mentions).toEqual([]);
+    expect(linkQuestion("what is the home port of a dredger?", linker).mentions).toEqual([]);
   });
 });
 

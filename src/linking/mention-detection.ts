@@ -19,6 +19,9 @@
  * beyond an orthographic one) such a candidate is `loose`: an English word one edit from a short
  * name ("take" ~ "make") is far more likely than a misspelt name, so the linker keeps a loose
  * candidate only when the rest of the question supports it (linker.ts).
+ * In a case-blind question a fuzzy name needs `blindSimilarity`, except the one word of a
+ * definite description ("the kyat") that exactly one entity's names hold (`soleHolder`; cf.
+ * definite descriptions, Russell 1905, linker.ts): it refers to that entity.
  * Rules: a fuzzy span needs a word with a letter that is not a type or relation word (numbers
  * alone never become fuzzy names); a span may not end with a stop word, may start with one only when it is exactly an
  * alias ("the Dawn"), and a span that is only stop words or
@@ -352,9 +355,29 @@ export function detectMentions(
     return false;
   };
   /** Fuzzy-matches tokens [a, b); what the found name leaves on either side is absorbed (weak) or tried again. */
+  /**
+   * In a case-blind question, the one word of a definite description ("the kyat", ending the
+   * phrase) that exactly one entity's names hold: the entity the phrase refers to by a word of
+   * its name ("Burmese kyat"), as "the Dawn" names "Skerrin Dawn". Its own similarity stands
+   * (not the blind floor). Undefined when the word is not such a word.
+   */
+  const soleHolder = (a: number, b: number): number | undefined => {
+    if (b - a !== 1 || a === 0 || toks[a - 1]!.norm !== "the" || (b < n && !isStopWord(toks[b]!.norm))) return undefined;
+    const t = toks[a]!;
+    if (!nameWord(a) || relationWord(a) || lex.isTypeHead(t.norm, t.stem)) return undefined;
+    const id = lex.snapshot.tokenId(t.norm);
+    if (id < 0) return undefined;
+    const holders = [...lex.snapshot.entitiesWithToken(id)].filter((e) => !lex.isTypeEntity(e));
+    return holders.length === 1 ? holders[0] : undefined;
+  };
   const piece = (a: number, b: number, depth: number): void => {
     if (!hasNameIn(a, b)) return;
-    const result = fuzzySpan(toks.slice(a, b), lex, caseBlind() ? { ...o, minSimilarity: Math.max(o.minSimilarity, o.blindSimilarity) } : o);
+    let result = fuzzySpan(toks.slice(a, b), lex, caseBlind() ? { ...o, minSimilarity: Math.max(o.minSimilarity, o.blindSimilarity) } : o);
+    const sole = result.candidates.length === 0 && caseBlind() ? soleHolder(a, b) : undefined;
+    if (sole !== undefined) {
+      const own = fuzzySpan(toks.slice(a, b), lex, o);
+      result = { ...own, candidates: own.candidates.filter((c) => c.num === sole) };
+    }
     if (result.candidates.length === 0) {
       // a run that holds a relation word and matches no name as a whole ("purl depend"): the
       // relation word is read as the relation, and the words on either side are tried alone
