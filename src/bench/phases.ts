@@ -7,7 +7,7 @@ import { createHash } from "node:crypto";
 import { appendFileSync, existsSync, mkdirSync, rmSync, writeFileSync, readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { loadavg } from "node:os";
-import { Catalog, loadFiles } from "../catalog/index.js";
+import { Catalog, loadFiles, type LoadProgress } from "../catalog/index.js";
 import { generateCatalog } from "../gen/index.js";
 import { LoadPreparation, parseQuestionFile, rankOfExpected, Session } from "../pipeline/index.js";
 import {
@@ -53,6 +53,27 @@ export function loadAverage(): number {
   return Math.round(loadavg()[0]! * 100) / 100;
 }
 
+/** Clock ticks per second of /proc's CPU times (USER_HZ, 100 on Linux). */
+const USER_HZ = 100;
+
+/**
+ * CPU seconds from /proc/self/stat (Linux; undefined elsewhere): `thread` the calling
+ * thread's own (its task entry), `children` of the child processes waited for
+ * (cutime + cstime, proc(5)).
+ */
+export function procCpuSeconds(which: "thread" | "children"): number | undefined {
+  try {
+    const file = which === "thread" ? `/proc/self/task/${process.pid}/stat` : "/proc/self/stat";
+    const text = readFileSync(file, "utf8");
+    const f = text.slice(text.lastIndexOf(")") + 2).split(" ");
+    // fields after the name, counted from 3 (state): utime 14, stime 15, cutime 16, cstime 17
+    const at = (field: number) => Number(f[field - 3]);
+    return which === "thread" ? (at(14) + at(15)) / USER_HZ : (at(16) + at(17)) / USER_HZ;
+  } catch {
+    return undefined;
+  }
+}
+
 /** Paths of one size's working folder. */
 export function workPaths(work: string) {
   return { gen: join(work, "gen"), db: join(work, "catalog.db"), questions: join(work, "gen", "questions.tsv"), igraph: join(work, "igraph") };
@@ -80,16 +101,46 @@ export function phaseLoad(work: string): Record<string, unknown> {
   for (const f of [p.db, p.db + "-wal", p.db + "-shm", snapshotPath(p.db), LexicalSnapshot.pathFor(p.db)]) rmSync(f, { force: true });
   const files = (JSON.parse(readFileSync(join(p.gen, readdirDone(p.gen)), "utf8")) as string[]).sort();
   const cat = Catalog.open(p.db, { create: true });
-  const sink = new LoadPreparation();
+  // a progress line on stderr, as `tiepoint load` draws on a terminal (the bench's stderr is the user's)
+  let lastLine = 0;
+  const onProgress = (x: LoadProgress) => {
+    if (x.elapsedMs - lastLine < 5000) return;
+    lastLine = x.elapsedMs;
+    process.stderr.write(`  load: ${x.statements.toLocaleString("en-US")} statements, ${Math.round((x.statements * 1000) / Math.max(1, x.elapsedMs)).toLocaleString("en-US")}/s, load average ${loadAverage()}\n`);
+  };
+  const sink = new LoadPreparation((message) => process.stderr.write(`  load: preparing the question indexes: ${message}\n`));
+  let rowsAt = 0;
+  const rowsWritten = sink.rowsWritten.bind(sink);
+  sink.rowsWritten = (at) => {
+    rowsAt = performance.now();
+    process.stderr.write("  load: rows all in; SQLite indexes and commit (the question indexes are built in the second thread)\n");
+    rowsWritten(at);
+  };
+  const loadBefore = loadAverage();
+  const cpu0 = process.cpuUsage();
+  const thread0 = procCpuSeconds("thread");
   const t0 = performance.now();
-  const report = loadFiles(cat, files, { sink });
-  const seconds = (performance.now() - t0) / 1000;
+  const report = loadFiles(cat, files, { sink, onProgress });
+  const t1 = performance.now();
+  const seconds = (t1 - t0) / 1000;
+  const cpu = process.cpuUsage(cpu0);
+  const thread1 = procCpuSeconds("thread");
   const counts = cat.counts();
   cat.close();
   return {
     seconds,
     statements: report.statements,
     triplesPerSecond: report.statements / seconds,
+    /** CPU seconds of the whole process (both threads) and of the load's own thread. */
+    cpuSeconds: (cpu.user + cpu.system) / 1e6,
+    mainThreadCpuSeconds: thread0 !== undefined && thread1 !== undefined ? thread1 - thread0 : null,
+    triplesPerCpuSecond: report.statements / ((cpu.user + cpu.system) / 1e6),
+    /** From the last row to the end (SQLite's indexes, end-of-load steps, commit, publishing). */
+    secondsAfterLastRow: rowsAt > 0 ? (t1 - rowsAt) / 1000 : null,
+    /** Waited for the second thread after the commit. */
+    prepareWaitSeconds: sink.waitMs / 1000,
+    builtAhead: sink.builtAhead,
+    loadAverageStart: loadBefore,
     prepared: report.prepared,
     prepareFinishSeconds: sink.finishMs / 1000,
     prepareStepMs: sink.stepMs,
@@ -230,9 +281,17 @@ export function phaseReady(work: string, cli: string): Record<string, unknown> {
   const cat = Catalog.open(p.db, { readonly: true });
   const entity = cat.ref(Math.max(1, Math.floor(cat.maxEntityNum() / 2))).id;
   cat.close();
-  const ask = timed(["ask", q.question, "--db", p.db, "--json"]);
-  const show = timed(["show", entity, "--db", p.db]);
-  return { ...ask, show };
+  // CPU seconds per run: the children's CPU time this process has waited for (Linux)
+  const withCpu = (args: string[]) => {
+    const c0 = procCpuSeconds("children");
+    const r = timed(args);
+    const c1 = procCpuSeconds("children");
+    return "seconds" in r && c0 !== undefined && c1 !== undefined ? { ...r, cpuSeconds: (c1 - c0) / r.runs.length } : r;
+  };
+  const loadBefore = loadAverage();
+  const ask = withCpu(["ask", q.question, "--db", p.db, "--json"]);
+  const show = withCpu(["show", entity, "--db", p.db]);
+  return { ...ask, show, loadAverage: [loadBefore, loadAverage()] };
 }
 
 /** Top-k nodes (seeds excluded), best first, ties by node. */

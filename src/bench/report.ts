@@ -45,7 +45,10 @@ function ratio(r: SizeResult, a: string, b: string): string {
 
 const ROWS: Row[] = [
   { label: "import throughput, question indexes included (triples/s)", target: "≥ 150,000 (L)", value: (r) => num(r, "load.triplesPerSecond", 0) },
-  { label: "  import time / of which preparation after the last row (s)", target: "", value: (r) => `${num(r, "load.seconds", 1)} / ${num(r, "load.prepareFinishSeconds", 2)}` },
+  { label: "  import time / after the last row / of which waiting for the question indexes (s)", target: "", value: (r) => `${num(r, "load.seconds", 1)} / ${num(r, "load.secondsAfterLastRow", 1)} / ${num(r, "load.prepareWaitSeconds", 2)}` },
+  { label: "  import CPU time, both threads / the load's thread (s)", target: "", value: (r) => `${num(r, "load.cpuSeconds", 1)} / ${num(r, "load.mainThreadCpuSeconds", 1)}` },
+  { label: "  question indexes built in the second thread (s; ahead = from the last row, beside the commit)", target: "", value: (r) => `${num(r, "load.prepareFinishSeconds", 1)}${get(r, "load.builtAhead") === true ? " ahead" : ""}` },
+  { label: "  load average during import (1 min, start / end)", target: "", value: (r) => `${num(r, "load.loadAverageStart", 1)} / ${num(r, "load.loadAverage", 1)}` },
   { label: "  old way: preparing by reading the catalog back (s)", target: "", value: (r) => num(r, "index.readBackSeconds", 1) },
   { label: "load peak memory (MiB)", target: "", value: (r) => num(r, "load.peakMiB", 0) },
   { label: "index build from SQLite (s)", target: "", value: (r) => num(r, "index.buildSeconds", 2) },
@@ -53,6 +56,7 @@ const ROWS: Row[] = [
   { label: "snapshot size (MiB)", target: "", value: (r) => num(r, "index.snapshotMiB", 1) },
   { label: "process start → first answer (s)", target: "≤ 1.0 (L)", value: (r) => num(r, "ready.seconds", 2) },
   { label: "start-up: `show` of one entity (s)", target: "≤ 1.0 (L)", value: (r) => num(r, "ready.show.seconds", 2) },
+  { label: "  CPU time of that process (s) / load average (1 min)", target: "", value: (r) => `${num(r, "ready.show.cpuSeconds", 2)} / ${num(r, "ready.loadAverage.0", 1)}` },
   { label: "session open in process (s)", target: "", value: (r) => num(r, "ask.openSeconds", 2) },
   { label: "whole question, median (ms)", target: "≤ 8 (M), ≤ 15 (L)", value: (r) => num(r, "ask.latencyMs.median", 1) },
   { label: "whole question, p95 (ms)", target: "≤ 50 (L)", value: (r) => num(r, "ask.latencyMs.p95", 1) },
