@@ -13,6 +13,8 @@
  * 1:269–271, 1959. Lazy deletion in the heap instead of decrease-key is common practice.
  */
 
+import { grown } from "../ranking/index.js";
+
 /** A directed graph with non-negative arc costs as CSR arrays over node ids 0..size-1. */
 export interface ArcGraph {
   /** Number of nodes. */
@@ -112,12 +114,8 @@ export class DijkstraScratch {
 
   private push(key: number, node: number): void {
     if (this.size === this.keys.length) {
-      const k = new Float64Array(this.size * 2);
-      k.set(this.keys);
-      this.keys = k;
-      const n = new Int32Array(this.size * 2);
-      n.set(this.nodes);
-      this.nodes = n;
+      this.keys = grown(this.keys);
+      this.nodes = grown(this.nodes);
     }
     let i = this.size++;
     this.keys[i] = key;

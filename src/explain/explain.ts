@@ -172,6 +172,35 @@ class Names implements FactLookup {
   }
 }
 
+/**
+ * A ranked candidate as the verdict reads it: its id and label are read from the catalog
+ * only when the verdict asks for them (it names the top, the rivals and the tied ones; up to
+ * 200 candidates per ranking would be one row read each). Optional fields are set only when known.
+ */
+class NamedCandidate implements VerdictCandidate {
+  declare reached?: readonly boolean[];
+  declare hops?: readonly (number | null)[];
+  declare cued?: readonly boolean[];
+  declare chainFit?: number;
+  declare chainMissed?: readonly number[];
+  private ref: EntityRef | undefined;
+
+  constructor(
+    readonly node: number,
+    readonly score: number,
+    readonly covered: number,
+    private readonly names: Names,
+  ) {}
+
+  get id(): string {
+    return (this.ref ??= this.names.ref(this.node)).id;
+  }
+
+  get label(): string {
+    return (this.ref ??= this.names.ref(this.node)).label;
+  }
+}
+
 function toAnswerPath(p: NumPath, names: Names): AnswerPath {
   names.note(p);
   return {
@@ -306,27 +335,15 @@ export function explain<A extends ExplainAnalysis>(
     cands.map((c, k) => {
       // only the best candidate's pattern misses matter to the verdict
       const chainMissed = k === 0 && chainMissOf ? chainMissOf(c.node) : undefined;
-      let r: EntityRef | undefined;
-      const name = (): EntityRef => (r ??= names.ref(c.node));
-      const reached = withPaths ? reachedOf(c.node, skip) : undefined;
-      const hops = withPaths ? hopsOf(c.node, skip) : undefined;
-      const cuedPaths = withPaths ? cuedOf(c.node, skip) : undefined;
-      return {
-        node: c.node,
-        get id(): string {
-          return name().id;
-        },
-        get label(): string {
-          return name().label;
-        },
-        score: c.score,
-        covered: c.covered,
-        ...(reached ? { reached } : {}),
-        ...(hops ? { hops } : {}),
-        ...(cuedPaths ? { cued: cuedPaths } : {}),
-        ...(c.chainFit !== undefined ? { chainFit: c.chainFit } : {}),
-        ...(chainMissed && chainMissed.length > 0 ? { chainMissed } : {}),
-      };
+      const v = new NamedCandidate(c.node, c.score, c.covered, names);
+      if (withPaths && byNode.has(c.node)) {
+        v.reached = reachedOf(c.node, skip);
+        v.hops = hopsOf(c.node, skip);
+        v.cued = cuedOf(c.node, skip);
+      }
+      if (c.chainFit !== undefined) v.chainFit = c.chainFit;
+      if (chainMissed && chainMissed.length > 0) v.chainMissed = chainMissed;
+      return v;
     });
   const topPaths = shown.length > 0 ? pathSet.answers[0] : undefined;
   lap("paths");

@@ -24,7 +24,7 @@
  * "leads" then "supervises", over the leader, reached through "leads" alone).
  */
 import { csrOf, type RelationIndex } from "./relation-index.js";
-import { stampedFor } from "./stamped.js";
+import { grown, stampedFor } from "./stamped.js";
 
 /** Options of {@link cueReach}; all optional. */
 export interface CuePathOptions {
@@ -53,7 +53,7 @@ export const MAX_CUES = 8;
  * reaches it, as a list of non-dominated bit masks — bit 2i: `cues[i]` walked in the
  * expected direction, bit 2i + 1: walked the other way. Null when the budget ran out.
  */
-export function cueReach(index: RelationIndex, source: number, cues: readonly number[], options: CuePathOptions = {}): Map<number, number[]> | null {
+export function cueReach(index: RelationIndex, source: number, cues: readonly number[], options: CuePathOptions = {}): CueReached | null {
   const maxHops = options.maxHops ?? DEFAULTS.maxHops;
   const maxVisits = options.maxVisits ?? DEFAULTS.maxVisits;
   const within = options.within;
@@ -74,7 +74,7 @@ export function cueReach(index: RelationIndex, source: number, cues: readonly nu
   // the node it was entered from (−2: from two or more different nodes, so no step out of
   // it is a step straight back); the node → first entry map is a stamped scratch array
   // a source outside the index reaches nothing but itself
-  if (!(Number.isInteger(source) && source >= 0 && source < index.nodeCount)) return new Map([[source, [0]]]);
+  if (!(Number.isInteger(source) && source >= 0 && source < index.nodeCount)) return CueReached.of([source], [[0]]);
   const head = stampedFor(index, "cue-paths/heads", index.nodeCount);
   const st = new StateList();
   const order: number[] = [];
@@ -137,13 +137,102 @@ export function cueReach(index: RelationIndex, source: number, cues: readonly nu
     }
     frontier = next;
   }
-  const reached = new Map<number, number[]>();
+  // flat: per reached node (in first-reach order) its masks in list order, found through an open-addressing table
+  const reached = new CueReached(order.length);
   for (const v of order) {
-    const masks: number[] = [];
-    for (let e = head.get(v); e >= 0; e = st.next[e]!) masks.push(st.mask[e]!);
-    reached.set(v, masks);
+    reached.begin(v);
+    for (let e = head.get(v); e >= 0; e = st.next[e]!) reached.mask(st.mask[e]!);
   }
   return reached;
+}
+
+/**
+ * What {@link cueReach} found: per reached node its non-dominated masks, in flat arrays (no
+ * object per node): `find(v)` gives v's entry i (or −1), whose masks are
+ * `masks[start(i)] … masks[end(i) − 1]`; `get(v)` copies them into an array.
+ */
+export class CueReached {
+  /** Open-addressing table: node per slot (−1 empty) and its entry. */
+  private readonly slotNode: Int32Array;
+  private readonly slotEntry: Int32Array;
+  private readonly shift: number;
+  private readonly starts: Int32Array;
+  masks: Int32Array;
+  private entries = 0;
+  private maskCount = 0;
+
+  constructor(nodes: number) {
+    let bits = 4;
+    while (1 << bits < 2 * nodes + 2) bits++;
+    this.slotNode = new Int32Array(1 << bits).fill(-1);
+    this.slotEntry = new Int32Array(1 << bits);
+    this.shift = 32 - bits;
+    this.starts = new Int32Array(nodes + 1);
+    this.masks = new Int32Array(Math.max(4, nodes * 2));
+  }
+
+  /** A table from explicit lists (one node per list). */
+  static of(nodes: readonly number[], masks: readonly (readonly number[])[]): CueReached {
+    const r = new CueReached(nodes.length);
+    nodes.forEach((v, i) => {
+      r.begin(v);
+      for (const m of masks[i]!) r.mask(m);
+    });
+    return r;
+  }
+
+  private slot(v: number): number {
+    // Fibonacci hashing (Knuth, TAOCP vol. 3, 6.4), linear probing
+    let h = Math.imul(v, 0x9e3779b1) >>> this.shift;
+    const size = this.slotNode.length;
+    while (this.slotNode[h] !== -1 && this.slotNode[h] !== v) h = (h + 1) & (size - 1);
+    return h;
+  }
+
+  /** Starts node v's entry (each node once); its masks follow through {@link mask}. @internal */
+  begin(v: number): void {
+    const h = this.slot(v);
+    this.slotNode[h] = v;
+    this.slotEntry[h] = this.entries;
+    this.starts[this.entries++] = this.maskCount;
+    this.starts[this.entries] = this.maskCount;
+  }
+
+  /** Appends a mask to the entry begun last. @internal */
+  mask(m: number): void {
+    if (this.maskCount === this.masks.length) this.masks = grown(this.masks);
+    this.masks[this.maskCount++] = m;
+    this.starts[this.entries] = this.maskCount;
+  }
+
+  /** v's entry, or −1 when v was not reached. */
+  find(v: number): number {
+    const h = this.slot(v);
+    return this.slotNode[h] === v ? this.slotEntry[h]! : -1;
+  }
+
+  start(i: number): number {
+    return this.starts[i]!;
+  }
+
+  end(i: number): number {
+    return this.starts[i + 1]!;
+  }
+
+  has(v: number): boolean {
+    return this.find(v) >= 0;
+  }
+
+  /** v's masks (a copy), or undefined when v was not reached. */
+  get(v: number): number[] | undefined {
+    const i = this.find(v);
+    return i < 0 ? undefined : Array.from(this.masks.subarray(this.starts[i]!, this.starts[i + 1]!));
+  }
+
+  /** Reached nodes. */
+  get size(): number {
+    return this.entries;
+  }
 }
 
 /** Growable flat storage of (mask, previous node, next entry) state entries. */
@@ -154,14 +243,9 @@ class StateList {
   private count = 0;
   add(mask: number, prev: number, next: number): number {
     if (this.count === this.mask.length) {
-      const grow = (a: Int32Array) => {
-        const b = new Int32Array(a.length * 2);
-        b.set(a);
-        return b;
-      };
-      this.mask = grow(this.mask);
-      this.prev = grow(this.prev);
-      this.next = grow(this.next);
+      this.mask = grown(this.mask);
+      this.prev = grown(this.prev);
+      this.next = grown(this.next);
     }
     const e = this.count++;
     this.mask[e] = mask;

@@ -4,7 +4,7 @@
  */
 export { RelationIndex } from "./relation-index.js";
 export { mulberry32 } from "./prng.js";
-export { NodeBits, nodeBitsFor, Stamped, stampedFor } from "./stamped.js";
+export { grown, NodeBits, nodeBitsFor, Stamped, stampedFor } from "./stamped.js";
 export type { Random } from "./prng.js";
 export type { IndexProgress, IndexProgressFn, RelationEndTable } from "./relation-index.js";
 export { openIndex, snapshotPath, readSnapshot, writeSnapshot, writeSnapshotTemp, SNAPSHOT } from "./snapshot.js";

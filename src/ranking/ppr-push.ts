@@ -26,6 +26,7 @@
 import type { RelationIndex } from "./relation-index.js";
 import type { Csr } from "./relation-index.js";
 import { Walk } from "./transition.js";
+import { grown } from "./stamped.js";
 import { checkAlpha, checkPositive, normaliseSeeds, PPR_DEFAULTS, type PprOptions, type Seed, type SparseScores } from "./ppr-options.js";
 
 /** Defaults of {@link pprPush}. */
@@ -59,13 +60,6 @@ export interface PushResult {
   readonly complete: boolean;
 }
 
-/** A copy of `a` with twice the room. */
-function doubled(a: Int32Array): Int32Array {
-  const t = new Int32Array(a.length * 2);
-  t.set(a);
-  return t;
-}
-
 /**
  * Dense scratch arrays reused across queries on one index (single-threaded). `q` holds the
  * residual in units of the node's measure, q(v) = r(v)/μ(v), so the push threshold is q > ε.
@@ -92,7 +86,7 @@ export class Workspace {
   }
   /** Records that p(v) became non-zero. */
   settle(v: number): void {
-    if (this.settledCount === this.settled.length) this.settled = doubled(this.settled);
+    if (this.settledCount === this.settled.length) this.settled = grown(this.settled);
     this.settled[this.settledCount++] = v;
   }
   /** The nodes with a non-zero p, ascending (sorting the settled list, not the touched set). */
@@ -100,7 +94,7 @@ export class Workspace {
     return this.settled.slice(0, this.settledCount).sort();
   }
   touch(v: number): void {
-    if (this.touchedCount === this.touched.length) this.touched = doubled(this.touched);
+    if (this.touchedCount === this.touched.length) this.touched = grown(this.touched);
     this.touched[this.touchedCount++] = v;
   }
   /** Clears every touched entry (cost proportional to the touched set). */

@@ -524,32 +524,50 @@ function cueFitOf(
     }
     return m;
   };
-  // the exhaustive search over one mask per clue (one closure for every candidate)
-  const none = [0];
-  const lists: number[][] = reaches.map(() => none);
+  // the exhaustive search over one mask per clue (one closure for every candidate): per
+  // clue the range of its masks in `reaches[c].masks` (a node not reached: the one mask 0)
+  const C = reaches.length;
+  const from = new Int32Array(C);
+  const to = new Int32Array(C);
+  const lists: Int32Array[] = reaches.map((r) => r.masks);
+  const NONE = Int32Array.of(0);
   let best = Infinity;
   const walk = (i: number, union: number): void => {
-    if (i === lists.length) {
+    if (i === C) {
       best = Math.min(best, missingOf(union));
       return;
     }
-    for (const m of lists[i]!) walk(i + 1, union | m);
+    const l = lists[i]!;
+    for (let k = from[i]!; k < to[i]!; k++) walk(i + 1, union | l[k]!);
   };
   return (v) => {
-    for (let c = 0; c < reaches.length; c++) lists[c] = reaches[c]!.get(v) ?? none;
+    let combos = 1;
+    for (let c = 0; c < C; c++) {
+      const r = reaches[c]!;
+      const e = r.find(v);
+      if (e < 0) {
+        lists[c] = NONE;
+        from[c] = 0;
+        to[c] = 1;
+      } else {
+        lists[c] = r.masks;
+        from[c] = r.start(e);
+        to[c] = r.end(e);
+      }
+      combos *= to[c]! - from[c]!;
+    }
     // one mask per clue, the union leaving the least cue weight unused: exhaustive while
     // the combinations are few, greedy (clue by clue) beyond
-    let combos = 1;
-    for (const l of lists) combos *= l.length;
     if (combos <= 512) {
       best = Infinity;
       walk(0, 0);
       return best;
     }
     let union = 0;
-    for (const l of lists) {
-      let pick = l[0]!;
-      for (const m of l) if (missingOf(union | m) < missingOf(union | pick)) pick = m;
+    for (let c = 0; c < C; c++) {
+      const l = lists[c]!;
+      let pick = l[from[c]!]!;
+      for (let k = from[c]!; k < to[c]!; k++) if (missingOf(union | l[k]!) < missingOf(union | pick)) pick = l[k]!;
       union |= pick;
     }
     return missingOf(union);

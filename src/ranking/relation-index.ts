@@ -415,7 +415,8 @@ export class RelationIndex {
     const c = this.#c;
     if (!(u >= 0 && u < this.nodeCount)) return false;
     for (let i = c.typeOffsets[u]!; i < c.typeOffsets[u + 1]!; i++) {
-      for (const t of this.supertypesClosure(c.typeList[i]!)) if (typeSet.has(t)) return true;
+      const closure = this.supertypesClosure(c.typeList[i]!);
+      for (let k = 0; k < closure.length; k++) if (typeSet.has(closure[k]!)) return true;
     }
     return false;
   }

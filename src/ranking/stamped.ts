@@ -117,3 +117,10 @@ export class NodeBits {
 export function nodeBitsFor(owner: object, name: string, n: number): NodeBits {
   return kept(owner, name, n, (k) => new NodeBits(k)).clear();
 }
+
+/** A typed array of the same kind with room for at least `n` items (twice the length when that is more), `a`'s items copied. */
+export function grown<T extends Int32Array | Uint32Array | Uint8Array | Float64Array>(a: T, n: number = a.length + 1): T {
+  const b = new (a.constructor as new (n: number) => T)(Math.max(n, a.length * 2));
+  b.set(a);
+  return b;
+}
