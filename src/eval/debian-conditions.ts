@@ -132,6 +132,12 @@ async function main(argv: readonly string[]): Promise<void> {
   if (file === null) throw new Error("no Debian Packages file in /var/lib/apt/lists (run apt-get update, or give --in FILE)");
   const dir = at("--dir") ?? join(tmpdir(), "tiepoint-bench-debian");
   const text = readPackagesText(file);
+  const out = at("--questions-out");
+  if (out !== undefined) {
+    // the questions alone, one a line (for bench:store, which asks them through a SPARQL store)
+    writeFileSync(out, benchQuestions(debianReference(text)).map((q) => q.question).join("\n") + "\n");
+    return;
+  }
   const t0 = performance.now();
   if (!existsSync(join(dir, "debian.db"))) process.stderr.write(`building the Debian catalog in ${dir} …\n`);
   const db = debianCatalog(dir, text);

@@ -18,11 +18,14 @@
 import type { Pin, Linker } from "../linking/index.js";
 import type { RelationIndex } from "../ranking/index.js";
 import type { AskResult } from "../model/index.js";
+import type { QueryGraph } from "../analysis/index.js";
 
 /** What one question's run returns (the part the edge access reads and amends). */
 export interface QuestionRun {
   readonly result: AskResult;
   readonly timings: { readonly total: number };
+  /** The question's reading (query graph): an attached catalog sends it to its store for the exact matches. */
+  readonly reading?: QueryGraph;
 }
 
 /** What a session gives its edge access: the catalog-wide relation index (types, degrees) and the linker. */

@@ -40,21 +40,28 @@ import { RelationIndex } from "../ranking/index.js";
 import { TiepointError } from "../model/index.js";
 import { inGraph } from "./attach.js";
 import type { EdgeAccess, EdgeContext, EdgeCounts, QuestionRun, StoreDescription } from "./edge-access.js";
+import type { QueryGraph } from "../analysis/index.js";
 
 /** Pull limits (README "Attaching a SPARQL store"). */
 export const DEFAULTS = {
-  /** Rings of neighbours pulled around the linked clue entities. */
+  /** Rings of neighbours pulled around the linked clue entities (the reading's exact matches come from the store itself, step 3). */
   rings: 2,
+  /** A ring after the first is pulled only when its rows (the store's counts) number at most this many (else the walk's mass leaves the pulled region there, transition.ts). */
+  ringRows: 5000,
   /** Entities with more edges than this (the store's count) are not expanded in the rings. */
   hubCap: 1000,
   /** Entities with more edges than this are never pulled (their edges reach the question only from their neighbours' rows). */
   maxRow: 50_000,
   /** Entities per VALUES block. */
   maxValues: 1000,
+  /** Requests in flight at once (a store serves a few HTTP threads; Virtuoso's default ServerThreads is 10, the test server's 4). */
+  parallel: 2,
   /** Passes for what the final run still asked for. */
   extraRounds: 2,
   /** Best answers whose own rings are pulled when a clue does not reach them (the path search then meets in the middle). */
   answerRings: 3,
+  /** Rows of the reading's exact-match query asked of the store (its variables' entities are pulled, hubs not). */
+  matchCap: 2000,
 };
 
 /** Options of a store session. */
@@ -72,6 +79,10 @@ export interface PullFigures {
   /** Hubs left unexpanded, and entities over `maxRow`. */
   hubs: number;
   tooLarge: number;
+  /** The reading's exact-match query returned `matchCap` rows (more matches may exist). */
+  matchesCut?: boolean;
+  /** Rings not pulled for `ringRows`. */
+  ringsCut?: number;
 }
 
 const NOT_EDGES = [VOCABULARY.type, VOCABULARY.subClassOf, ...Object.keys(UNIT_VOCABULARY)];
@@ -195,7 +206,14 @@ export class StoreEdges implements EdgeAccess {
     }
     if (cur.length > 0) batches.push(cur);
     // an entity with more edges than the store answers whole is pulled alone, in pages
-    await Promise.all(batches.map((b) => (b.length === 1 && this.degree(b[0]!) > this.client.pageSize ? this.pullPaged(b[0]!) : this.pullBatch(b))));
+    let next = 0;
+    const worker = async () => {
+      while (next < batches.length) {
+        const b = batches[next++]!;
+        await (b.length === 1 && this.degree(b[0]!) > this.client.pageSize ? this.pullPaged(b[0]!) : this.pullBatch(b));
+      }
+    };
+    await Promise.all(Array.from({ length: Math.min(DEFAULTS.parallel, batches.length) }, worker));
     this.figures.ms += performance.now() - t0;
   }
 
@@ -232,7 +250,8 @@ export class StoreEdges implements EdgeAccess {
           // the store's row limit cut the answer: smaller batches
           this.client.pageSize = Math.max(1, Math.min(this.client.pageSize, r.cutAt ?? r.rows.length));
           const half = Math.ceil(batch.length / 2);
-          await Promise.all([this.pullBatch(batch.slice(0, half)), this.pullBatch(batch.slice(half))]);
+          await this.pullBatch(batch.slice(0, half));
+          await this.pullBatch(batch.slice(half));
           return;
         }
         if (cut) {
@@ -267,6 +286,51 @@ export class StoreEdges implements EdgeAccess {
     }
   }
 
+  /**
+   * The reading's exact matches, asked of the store: the query graph (analysis query-graph.ts)
+   * written as one SPARQL SELECT — each edge's relation options a UNION, in their stored
+   * direction, the clue entities as IRIs — returning the entities bound to its variables and
+   * its answer, at most `matchCap` rows. Only readings with a variable (two hops or more): a
+   * one-hop reading's matches are in the clue's own row. Undefined when the reading cannot be
+   * written (an edge with no relation word, a blank-node clue).
+   */
+  async readingMatches(reading: QueryGraph): Promise<number[] | undefined> {
+    if (!reading.nodes.some((n) => n.kind === "variable") || reading.edges.length === 0) return undefined;
+    const term = (i: number): string | undefined => {
+      const n = reading.nodes[i]!;
+      if (n.kind !== "constant") return `?n${i}`;
+      return n.name.startsWith("_:") ? undefined : iriRef(n.name);
+    };
+    const relId = new Map([...this.predicateNum].map(([id, num]) => [num, id]));
+    const parts: string[] = [];
+    for (const e of reading.edges) {
+      const from = term(e.from);
+      const to = term(e.to);
+      if (from === undefined || to === undefined || e.options.length === 0) return undefined;
+      const alts = e.options.map((o) => {
+        const id = relId.get(o.relation);
+        return id === undefined ? undefined : inGraph(this.binding.graph, o.inverse ? `${to} ${iriRef(id)} ${from}` : `${from} ${iriRef(id)} ${to}`);
+      });
+      if (alts.some((a) => a === undefined)) return undefined;
+      parts.push(alts.length === 1 ? alts[0]! : alts.map((a) => `{ ${a} }`).join(" UNION "));
+    }
+    const vars = reading.nodes.map((n, i) => (n.kind === "constant" ? "" : `?n${i}`)).filter(Boolean);
+    const before = this.client.requests;
+    const r = await this.client.select(`SELECT DISTINCT ${vars.join(" ")} WHERE { ${parts.join(" . ")} } LIMIT ${DEFAULTS.matchCap}`);
+    this.figures.requests += this.client.requests - before;
+    this.figures.rows += r.rows.length;
+    if (r.rows.length >= DEFAULTS.matchCap || r.cutAt !== undefined) this.figures.matchesCut = true;
+    const out = new Set<number>();
+    for (const row of r.rows) {
+      for (const t of Object.values(row)) {
+        if (t.type === "literal") continue;
+        const num = this.numOfId(nodeId(t));
+        if (num !== undefined && this.degree(num) <= DEFAULTS.hubCap) out.add(num);
+      }
+    }
+    return [...out];
+  }
+
   /** Neighbours of `nums` in the pulled rows. */
   neighboursOf(nums: ReadonlySet<number>): Set<number> {
     const out = new Set<number>();
@@ -283,10 +347,21 @@ export class StoreEdges implements EdgeAccess {
     return RelationIndex.withPulledEdges(base, base.relationCount, { src: Int32Array.from(this.src), rel: Int32Array.from(this.rel), dst: Int32Array.from(this.dst), n }, this.binding.degree);
   }
 
-  /** The next ring around `ring`: its neighbours not in `visited` (which it extends), hubs left out. */
+  /** True when `ring` (the `r`-th, 0 the clues) may be pulled: the first two always, later ones when their rows fit in `ringRows`. */
+  ringFits(ring: ReadonlySet<number>, r: number): boolean {
+    if (r <= 1) return true;
+    let rows = 0;
+    for (const n of ring) if (!this.pulled.has(n)) rows += this.degree(n);
+    if (rows <= DEFAULTS.ringRows) return true;
+    this.figures.ringsCut = (this.figures.ringsCut ?? 0) + 1;
+    return false;
+  }
+
+  /** The next ring around `ring`: the neighbours of its members that are no hubs (a hub clue's row is pulled, its neighbours' rows are not), not in `visited` (which it extends), hubs left out. */
   nextRing(ring: ReadonlySet<number>, visited: Set<number>): Set<number> {
     const next = new Set<number>();
-    for (const v of this.neighboursOf(ring)) {
+    const sources = new Set([...ring].filter((n) => this.degree(n) <= DEFAULTS.hubCap));
+    for (const v of this.neighboursOf(sources)) {
       if (visited.has(v)) continue;
       visited.add(v);
       if (this.degree(v) > DEFAULTS.hubCap) {
@@ -302,6 +377,7 @@ export class StoreEdges implements EdgeAccess {
   notes(): string[] {
     const out: string[] = [];
     if (this.figures.tooLarge > 0) out.push(`${this.figures.tooLarge} entit${this.figures.tooLarge === 1 ? "y has" : "ies have"} more than ${DEFAULTS.maxRow.toLocaleString("en-US")} edges in the store and ${this.figures.tooLarge === 1 ? "was" : "were"} not pulled: their edges count only where a neighbour's row holds them (README "Attaching a SPARQL store")`);
+    if (this.figures.matchesCut) out.push(`the reading's exact matches in the store number more than ${DEFAULTS.matchCap.toLocaleString("en-US")}; the edges of the first ${DEFAULTS.matchCap.toLocaleString("en-US")} were pulled (README "Attaching a SPARQL store")`);
     return out;
   }
 
@@ -323,6 +399,7 @@ export class StoreEdges implements EdgeAccess {
     const visited = new Set(ring);
     for (let r = 0; r < rings && ring.size > 0; r++) {
       ring = this.nextRing(ring, visited);
+      if (!this.ringFits(ring, r + 1)) break;
       await this.pull(ring);
     }
     return this.index(ctx.index);
@@ -358,9 +435,11 @@ export class StoreEdges implements EdgeAccess {
     const visited = new Set(ring);
     for (let r = 0; r < DEFAULTS.rings && ring.size > 0; r++) {
       ring = this.nextRing(ring, visited);
+      if (!this.ringFits(ring, r + 1)) break;
       await this.pull(ring);
     }
-    // 3. the pipeline on the pulled neighbourhood; what it still asked for is pulled and it runs again
+    // 3. the pipeline on the pulled neighbourhood; the reading's exact matches (asked of the
+    // store) and what it still asked for are pulled and it runs again
     let out: O;
     let answersExpanded = false;
     for (let round = 0; ; round++) {
@@ -370,6 +449,8 @@ export class StoreEdges implements EdgeAccess {
       const need = new Set(this.takeDemand());
       if (!answersExpanded) {
         answersExpanded = true;
+        const matches = out.reading ? await this.readingMatches(out.reading) : undefined;
+        for (const n of matches ?? []) if (!this.pulled.has(n)) need.add(n);
         const clues = out.result.mentions.length;
         const unreached = out.result.answers.slice(0, DEFAULTS.answerRings).filter((a) => new Set(a.paths.map((p) => p.from)).size < clues);
         if (unreached.length > 0) {
@@ -384,6 +465,7 @@ export class StoreEdges implements EdgeAccess {
             await this.pull(need);
             need.clear();
             around = this.nextRing(around, seen);
+            if (!this.ringFits(around, r + 1)) break;
             for (const n of around) need.add(n);
           }
         }

@@ -23,6 +23,13 @@
  * - Dangling nodes (degree 0, or W(u) = 0 because every relation at u has weight 0) send
  *   their mass back to the seed (restart) distribution. This differs from Page et al. 1999,
  *   who spread it uniformly; for a personalized walk it keeps all mass near the question.
+ * - A partial index (an attached catalog's pulled neighbourhood, `RelationIndex.withPulledEdges`)
+ *   may hold only some of a node's entries; it carries every node's whole-graph degree. W(u)
+ *   is then scaled to the whole row, W(u)·deg(u)/entries(u) (the missing entries taken at the
+ *   present ones' mean weight), so the missing entries' share of the mass leaves the walk, as
+ *   it would leave the pulled region on the whole graph, instead of flowing back into it; a
+ *   random walk that takes such an entry stops as at a dangling node. Nodes whose row is whole
+ *   (every entry present) are unchanged.
  *
  * PageRank with restart probability α and restart distribution s is then the fixed point
  *     π = α s + (1 − α) P'ᵀ π,   P' = P with dangling rows replaced by sᵀ,
@@ -54,6 +61,8 @@ interface HubTables {
   readonly hub: Float64Array;
   /** W(u) with ρ = 1. */
   readonly rowTotal: Float64Array;
+  /** Per node deg(u)/entries(u) of a partial index (≥ 1), null when every row is whole. */
+  readonly rowScale: Float64Array | null;
   /** μ₀(u) = deg(u)^(−β) · W(u) with ρ = 1 (the walk's stationary measure up to a constant); 1 at dangling nodes. */
   readonly measure: Float64Array;
   /** Prefix sums of hub[target] along each row (built on first sampling). */
@@ -87,15 +96,19 @@ function hubTables(c: Csr, beta: number): HubTables {
       hub[u] = d === 0 ? 1 : beta === 0 ? 1 : Math.pow(d, -beta);
     }
     const rowTotal = new Float64Array(n);
+    const rowScale = c.degrees ? new Float64Array(n).fill(1) : null;
     for (let u = 0; u < n; u++) {
       let s = 0;
       const end = c.offsets[u + 1]!;
       for (let e = c.offsets[u]!; e < end; e++) s += hub[c.targets[e]!]!;
-      rowTotal[u] = s;
+      // a partial row: scaled to the whole row (file header)
+      const have = end - c.offsets[u]!;
+      if (rowScale && have > 0 && c.degrees![u]! > have) rowScale[u] = c.degrees![u]! / have;
+      rowTotal[u] = rowScale ? s * rowScale[u]! : s;
     }
     const measure = new Float64Array(n);
     for (let u = 0; u < n; u++) measure[u] = rowTotal[u]! > 0 ? hub[u]! * rowTotal[u]! : 1;
-    t = { hub, rowTotal, measure, cum: null, rowCache: null, rowStamp: null, stamp: 0, stampKey: null, scaled: null, hubAt: null };
+    t = { hub, rowTotal, rowScale, measure, cum: null, rowCache: null, rowStamp: null, stamp: 0, stampKey: null, scaled: null, hubAt: null };
     byBeta.set(beta, t);
   }
   return t;
@@ -152,6 +165,7 @@ export function adoptWalkTables(index: RelationIndex, tables: WalkTables): void 
   byBeta.set(tables.hubExponent, {
     hub: tables.hub,
     rowTotal: tables.rowTotal,
+    rowScale: null,
     measure: tables.measure,
     cum: null,
     rowCache: null,
@@ -283,6 +297,7 @@ export class Walk implements Transition {
     let s = 0;
     const end = c.offsets[u + 1]!;
     for (let e = c.offsets[u]!; e < end; e++) s += rho[links[e]! >>> 1]! * hubAt[e]!;
+    if (this.tables.rowScale) s *= this.tables.rowScale[u]!;
     this.rowCache[u] = s;
     this.rowStamp[u] = this.stamp;
     return s;
@@ -319,6 +334,8 @@ export class Walk implements Transition {
     const rowSum = this.tables.rowTotal[u]!;
     for (let tries = 0; tries < 32; tries++) {
       const x = random() * rowSum;
+      // a partial row: beyond its present entries the walk left the pulled region (file header)
+      if (x >= cum[end - 1]!) return -1;
       // first e in [start, end) with cum[e] > x (cum is the inclusive prefix within the row)
       let lo = start;
       let hi = end - 1;
@@ -339,6 +356,7 @@ export class Walk implements Transition {
       x -= this.weight(e);
       if (x < 0) return c.targets[e]!;
     }
+    if (this.tables.rowScale && this.tables.rowScale[u]! > 1) return -1;
     for (let e = end - 1; e >= start; e--) if (this.weight(e) > 0) return c.targets[e]!;
     return -1;
   }
