@@ -233,6 +233,14 @@ describe("clues", () => {
     expect(b.clues.map((c) => c.weight)).toEqual([1, 1]);
   });
 
+  it("reads a mention that is a number with its unit as the quantity, unless the entity's label holds the number", () => {
+    const q = "Which ship is longer than 60 metres?";
+    const a = analyze(q, linked(q, [["60 metres", "i:halo", 0.5]]), model);
+    expect(a.mentions).toEqual([]);
+    expect(a.clues).toEqual([]);
+    expect(a.notes.join(" ")).toMatch(/"60 metres" read as a quantity, not a name/);
+  });
+
   it("notes when nothing is linked", () => {
     expect(analyze("Which ship?", { mentions: [], unlinked: [] }, model).notes.join(" ")).toMatch(/no clue entity/);
   });

@@ -14,6 +14,7 @@ import type { EntityRef } from "../model/index.js";
 import { detectAnswerType, type AnswerTypeOptions, type AnswerTypeSource } from "./answer-type.js";
 import type { QuestionModel } from "./question-model.js";
 import { relationCues, type RelationCue, type RelationCueOptions } from "./relation-cues.js";
+import { findQuantities } from "./quantity.js";
 import { relationalAnswerType, whereRangeType, type RelationRangeOptions } from "./relation-range.js";
 import { isFunctionWord, words } from "./words.js";
 import { DETERMINERS } from "./lexicon.js";
@@ -94,10 +95,29 @@ function modifierOf(question: string, mentions: readonly LinkedMention[], i: num
   return between.every((w) => model.typesByKey.has(w.stem)) ? j : undefined;
 }
 
+/**
+ * A mention that is a written quantity — a number with its unit word, as quantity.ts reads
+ * it ("2000 KiB", "-30 degrees") — whose entity's label does not hold that number is the
+ * quantity, not a name: the linker's fuzzy match on it is dropped (with a note), so the
+ * conditions read the number. A name holding the number ("Apollo 11") stays.
+ */
+function withoutQuantities(question: string, link: LinkResult, notes: string[]): LinkResult {
+  const qs = findQuantities(question).filter((q) => q.unit !== undefined);
+  if (qs.length === 0) return link;
+  const keep = link.mentions.filter((m) => {
+    const q = qs.find((x) => x.start <= m.start + 1 && m.end <= x.end && m.end - m.start >= (x.end - x.start) / 2);
+    if (!q || m.entity.label.includes(q.text.replace(/^[+\u2212-]/, ""))) return true;
+    notes.push(`"${m.text}" read as a quantity, not a name (it only resembles ${m.entity.label})`);
+    return false;
+  });
+  return keep.length === link.mentions.length ? link : { ...link, mentions: keep };
+}
+
 /** Analyses one linked question against the catalog's vocabulary. */
-export function analyze(question: string, link: LinkResult, model: QuestionModel, options: AnalyzeOptions = {}): Analysis {
+export function analyze(question: string, linked: LinkResult, model: QuestionModel, options: AnalyzeOptions = {}): Analysis {
   const ws = words(question);
   const notes: string[] = [];
+  const link = withoutQuantities(question, linked, notes);
   const clueMention: boolean[] = link.mentions.map((m) => !model.typeByNum.has(m.num));
   link.mentions.forEach((m, i) => {
     if (!clueMention[i]) notes.push(`"${m.text}" names a type (${m.entity.label}), not a clue`);

@@ -21,6 +21,18 @@ describe("parseNumber", () => {
     expect(parseNumber("12 500")).toBe(12500); // SI brochure §5.4.4: digits grouped in threes by a space
     expect(parseNumber("3.25")).toBe(3.25);
     expect(parseNumber("-40")).toBe(-40);
+    expect(parseNumber("\u221240")).toBe(-40); // U+2212 MINUS SIGN (Unicode 15, Mathematical Operators block)
+  });
+});
+
+describe("findQuantities: signed numbers", () => {
+  it("keeps the sign in the value and the text, and starts the span at the first digit (a word of the question)", () => {
+    const q = "latitude below -30?";
+    const [n] = findQuantities(q);
+    expect(n).toMatchObject({ kind: "number", lo: -30, hi: -30, text: "-30" });
+    expect(q.slice(n!.start, n!.end)).toBe("30");
+    expect(findQuantities("code +47")[0]).toMatchObject({ lo: 47, text: "+47" });
+    expect(findQuantities("below \u221215 degrees")[0]).toMatchObject({ lo: -15, unit: "degrees" });
   });
 });
 

@@ -27,7 +27,7 @@ export interface Quantity {
   readonly hi: number;
   /** The text as written (without the unit). */
   readonly text: string;
-  /** UTF-16 offset of the first character. */
+  /** UTF-16 offset of the first character; of the first digit when a sign precedes it (the sign is in `text` and the value). */
   readonly start: number;
   /** UTF-16 offset one past the last character (unit included when there is one). */
   readonly end: number;
@@ -62,8 +62,10 @@ function daysIn(y: number, m: number): number {
  */
 export function parseNumber(text: string): number | null {
   const t = text.trim().replace(/\u00a0|\u202f/g, " ");
-  if (/^[+-]?(\d{1,3}(,\d{3})+|\d{1,3}( \d{3})+|\d+)(\.\d+)?$/.test(t)) return Number(t.replace(/[, ]/g, ""));
-  if (/^[+-]?\.\d+$/.test(t)) return Number(t);
+  // a sign may be written as the minus sign U+2212 (Unicode's mathematical operator) as well as the hyphen-minus
+  const u = t.replace(/^\u2212/, "-");
+  if (/^[+-]?(\d{1,3}(,\d{3})+|\d{1,3}( \d{3})+|\d+)(\.\d+)?$/.test(u)) return Number(u.replace(/[, ]/g, ""));
+  if (/^[+-]?\.\d+$/.test(u)) return Number(u);
   return null;
 }
 
@@ -84,7 +86,7 @@ export function parseIsoDate(text: string): { lo: number; hi: number; kind: "yea
 }
 
 const TOKEN =
-  /(?:\b(early|mid|late)[- ])?\b(?:the )?(\d{3}0)['’]?s\b|\b(\d{4}-\d{2}(?:-\d{2})?)\b|(?<![\w.])([+-]?(?:\d{1,3}(?:,\d{3})+|\d+)(?:\.\d+)?)(?![\w,.]\d)(?:\s+(thousand|million|billion)\b)?/giu;
+  /(?:\b(early|mid|late)[- ])?\b(?:the )?(\d{3}0)['’]?s\b|\b(\d{4}-\d{2}(?:-\d{2})?)\b|(?<![\w.])([+\u2212-]?(?:\d{1,3}(?:,\d{3})+|\d+)(?:\.\d+)?)(?![\w,.]\d)(?:\s+(thousand|million|billion)\b)?/giu;
 const UNIT_AFTER = /^\s*([\p{L}][\p{L}\p{N}²³/.]*|%)/u;
 
 /** Every quantity in `text`, in order. */
@@ -119,7 +121,10 @@ export function findQuantities(text: string, options: QuantityOptions = {}): Qua
       unit = after[1]!.toLowerCase().replace(/\.$/, "");
       end += after[0].length - (after[1]!.endsWith(".") ? 1 : 0);
     }
-    out.push({ ...q, start, end, ...(unit !== undefined ? { unit } : {}) });
+    // a sign is part of the value and of `text`, not of the span: the span starts at the first
+    // digit, so it begins on a word of the question (words are letter and digit runs, words.ts)
+    const signed = q.kind === "number" && /^[+\u2212-]/.test(q.text) ? 1 : 0;
+    out.push({ ...q, start: start + signed, end, ...(unit !== undefined ? { unit } : {}) });
   }
   return out;
 }
