@@ -20,7 +20,7 @@ import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Catalog } from "../src/catalog/index.js";
+import { Catalog, NUMERIC_COLUMN_SQL } from "../src/catalog/index.js";
 import { Session } from "../src/pipeline/index.js";
 import { buildDebianSliceCatalog } from "./helpers/debian-catalog.js";
 
@@ -156,13 +156,15 @@ function planProblems(h: Database.Database, statements: Iterable<string>): strin
 describe("query plans of the question path (SQLite EXPLAIN QUERY PLAN)", () => {
   it("records the statements of the question path", () => {
     expect(recorded.size).toBeGreaterThan(5);
-    // the numeric column read of conditions is among them, and no per-entity number read
-    expect([...recorded].some((s) => /FROM attribute WHERE predicate = \?/.test(s))).toBe(true);
+    // the numeric columns of conditions come from the columns file (PATH.num, written when the
+    // session opened the catalog): no question reads a column with SQL
+    expect(recorded.has(NUMERIC_COLUMN_SQL)).toBe(false);
   });
 
   it("no statement scans a growing table or searches an index that does not lead with its bound columns", () => {
     const h = new Database(db, { readonly: true });
-    const problems = planProblems(h, recorded);
+    // with the column read that a catalog changed since its columns file was written falls back to
+    const problems = planProblems(h, [...recorded, NUMERIC_COLUMN_SQL]);
     h.close();
     expect(problems).toEqual([]);
   });

@@ -7,7 +7,7 @@ import { createHash } from "node:crypto";
 import { appendFileSync, existsSync, mkdirSync, rmSync, writeFileSync, readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { loadavg } from "node:os";
-import { Catalog, loadFiles, type LoadProgress } from "../catalog/index.js";
+import { Catalog, loadFiles, numericColumnsPath, type LoadProgress } from "../catalog/index.js";
 import { generateCatalog } from "../gen/index.js";
 import { LoadPreparation, parseQuestionFile, rankOfExpected, Session } from "../pipeline/index.js";
 import {
@@ -98,7 +98,7 @@ export function phaseGenerate(work: string, entities: number, edges: number, que
  */
 export function phaseLoad(work: string): Record<string, unknown> {
   const p = workPaths(work);
-  for (const f of [p.db, p.db + "-wal", p.db + "-shm", snapshotPath(p.db), LexicalSnapshot.pathFor(p.db)]) rmSync(f, { force: true });
+  for (const f of [p.db, p.db + "-wal", p.db + "-shm", snapshotPath(p.db), LexicalSnapshot.pathFor(p.db), numericColumnsPath(p.db)]) rmSync(f, { force: true });
   const files = (JSON.parse(readFileSync(join(p.gen, readdirDone(p.gen)), "utf8")) as string[]).sort();
   const cat = Catalog.open(p.db, { create: true });
   // a progress line on stderr, as `tiepoint load` draws on a terminal (the bench's stderr is the user's)

@@ -8,7 +8,8 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { Catalog, loadFiles, NumericColumn, NumericColumns } from "./index.js";
+import { existsSync, renameSync } from "node:fs";
+import { Catalog, CatalogWriter, loadFiles, NumericColumn, NumericColumns, numericColumnsPath, readNumericColumn, writeNumericColumnsTemp } from "./index.js";
 
 describe("numeric columns", () => {
   it("groups (entity, value) pairs by entity, each row smallest first", () => {
@@ -47,6 +48,45 @@ describe("numeric columns", () => {
       expect(cols.column(depth).size).toBe(carried);
       // "deep" (no number) on the 60 multiples of 5 below 300 except the 9 multiples of 35 (arithmetic)
       expect(carried).toBe(300 - (60 - 9));
+      cat.close();
+    } finally {
+      rmSync(d, { recursive: true, force: true });
+    }
+  });
+
+  it("the columns file written with a load gives the columns the catalog gives; a stale one is replaced", () => {
+    const d = mkdtempSync(join(tmpdir(), "tp-numfile-"));
+    try {
+      const rows: object[] = [{ kind: "attribute", id: "depth", label: "depth" }, { kind: "attribute", id: "year", label: "year" }];
+      for (let i = 0; i < 200; i++) rows.push({ id: `s${i}`, label: `Site ${i}`, attributes: { depth: i % 3 === 0 ? [i, -i] : i / 4, ...(i % 2 === 0 ? { year: 1900 + (i % 50) } : {}) } });
+      writeFileSync(join(d, "a.jsonl"), rows.map((r) => JSON.stringify(r)).join("\n") + "\n");
+      const path = join(d, "c.db");
+      const cat = Catalog.open(path, { create: true });
+      loadFiles(cat, [join(d, "a.jsonl")]);
+      const nums = ["depth", "year"].map((id) => cat.predicates().find((p) => p.id === id)!.num);
+      // as a load writes it (pipeline/prepare.ts), stamped with the catalog's uid and generation
+      renameSync(writeNumericColumnsTemp(cat, path, cat.version()), numericColumnsPath(path));
+      const same = (a: NumericColumn, b: NumericColumn) => {
+        expect(Array.from(a.entities)).toEqual(Array.from(b.entities));
+        expect(Array.from(a.offsets)).toEqual(Array.from(b.offsets));
+        expect(Array.from(a.values)).toEqual(Array.from(b.values));
+      };
+      const opened = NumericColumns.open(cat);
+      for (const p of nums) same(opened.column(p), readNumericColumn(cat, p));
+      expect(opened.column(nums[0]!).size).toBe(200);
+      expect(opened.column(nums[1]!).size).toBe(100);
+      // a predicate without numbers (a relation, here the label's predicate if any): an empty column
+      expect(opened.column(99999).size).toBe(0);
+      // a later load bumps the generation: the file no longer applies, the catalog is read and the file written again
+      const w = new CatalogWriter(cat);
+      w.begin();
+      w.label("s0", "Site zero");
+      w.commit();
+      const again = NumericColumns.open(cat);
+      for (const p of nums) same(again.column(p), readNumericColumn(cat, p));
+      expect(existsSync(numericColumnsPath(path))).toBe(true);
+      const third = NumericColumns.open(cat);
+      for (const p of nums) same(third.column(p), readNumericColumn(cat, p));
       cat.close();
     } finally {
       rmSync(d, { recursive: true, force: true });

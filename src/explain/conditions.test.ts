@@ -16,4 +16,8 @@ describe("formatValue", () => {
     expect(formatValue(551695, false)).toBe("551,695");
     expect(formatValue(62, false)).toBe("62");
   });
+  it("writes integers as en-US number formatting does (ECMA-402 Intl.NumberFormat, the reference), fractions through it", () => {
+    const ref = (v: number) => v.toLocaleString("en-US", { maximumFractionDigits: 6 });
+    for (const v of [10000, -10000, 99999, 100000, 1234567, -987654321, 2 ** 53 - 1, 12345.5, -43210.1234567, 1e6 + 0.25]) expect(formatValue(v, false)).toBe(ref(v));
+  });
 });

@@ -6,11 +6,13 @@
  * Theoretical Computer Science 92, 1992 (the q-gram lemma: one edit destroys at most q
  * q-grams, so a token within k edits keeps at least |grams| − 3k of the query's trigrams);
  * V. I. Levenshtein 1966; Jaro 1989 / Winkler 1990 (see jaro-winkler.ts).
- * Built lazily, only when a question has a content word the exact index does not know, so
- * start-up on a large catalog never pays for it.
+ * The trigram postings are a compressed sparse row table (Saad 2003, §3.4) built with the
+ * name index at load time (lexical-builder.ts) and saved in it (lexical-snapshot.ts), read on
+ * a session's first question with an unknown content word: no question builds it.
  */
 import { distance } from "fastest-levenshtein";
 import { jaroWinkler } from "./jaro-winkler.js";
+import { sortedIndexOf } from "./sorted-search.js";
 
 /** Options of {@link FuzzyTokenIndex.nearest}. */
 export const DEFAULTS = {
@@ -32,30 +34,69 @@ export interface FuzzyHit {
   readonly similarity: number;
 }
 
-function trigrams(token: string): string[] {
+/** The trigrams of a token padded with `$` at both ends, each as a number (three UTF-16 code units: c0·2³² + c1·2¹⁶ + c2, exact in a double), distinct, in first-seen order. */
+function trigramKeys(token: string): number[] {
   const p = `$${token}$`;
-  const out: string[] = [];
-  for (let i = 0; i + 3 <= p.length; i++) out.push(p.slice(i, i + 3));
+  const out: number[] = [];
+  for (let i = 0; i + 3 <= p.length; i++) {
+    const k = p.charCodeAt(i) * 4294967296 + p.charCodeAt(i + 1) * 65536 + p.charCodeAt(i + 2);
+    if (!out.includes(k)) out.push(k);
+  }
   return out;
+}
+
+/**
+ * The trigram postings of a vocabulary as a compressed sparse row table: `keys` the distinct
+ * trigram keys ascending, token ids of key `g` at `postings[offsets[g] .. offsets[g+1])`,
+ * ascending. Built once per catalog with the name index (lexical-builder.ts) and saved in it,
+ * so a question opens it instead of building it.
+ */
+export interface TrigramTable {
+  readonly keys: Float64Array;
+  readonly offsets: Int32Array;
+  readonly postings: Int32Array;
+}
+
+/** Builds the trigram table of `vocab` (one pass to number the keys, a counting sort into rows, the rows put in key order). */
+export function trigramTable(vocab: readonly string[]): TrigramTable {
+  const idOf = new Map<number, number>();
+  const pairKey: number[] = [];
+  const pairTok: number[] = [];
+  for (let t = 0; t < vocab.length; t++) {
+    for (const k of trigramKeys(vocab[t]!)) {
+      let id = idOf.get(k);
+      if (id === undefined) idOf.set(k, (id = idOf.size));
+      pairKey.push(id);
+      pairTok.push(t);
+    }
+  }
+  const G = idOf.size;
+  const keyOfId = new Float64Array(G);
+  for (const [k, id] of idOf) keyOfId[id] = k;
+  const keys = keyOfId.slice().sort();
+  const rowOfId = new Int32Array(G);
+  const rank = new Map<number, number>();
+  keys.forEach((k, g) => rank.set(k, g));
+  for (let id = 0; id < G; id++) rowOfId[id] = rank.get(keyOfId[id]!)!;
+  const offsets = new Int32Array(G + 1);
+  for (const id of pairKey) offsets[rowOfId[id]! + 1]!++;
+  for (let g = 0; g < G; g++) offsets[g + 1]! += offsets[g]!;
+  const fill = offsets.slice(0, G);
+  const postings = new Int32Array(pairKey.length);
+  // tokens arrive ascending, so each row is ascending
+  for (let i = 0; i < pairKey.length; i++) postings[fill[rowOfId[pairKey[i]!]!]!++] = pairTok[i]!;
+  return { keys, offsets, postings };
 }
 
 /** Trigram index over a token vocabulary. */
 export class FuzzyTokenIndex {
   private readonly vocab: readonly string[];
-  private readonly grams = new Map<string, number[]>();
+  private readonly table: TrigramTable;
 
-  constructor(vocab: readonly string[]) {
+  /** @param table the vocabulary's trigram table (the name index's saved one; built from `vocab` when absent) */
+  constructor(vocab: readonly string[], table?: TrigramTable) {
     this.vocab = vocab;
-    for (let i = 0; i < vocab.length; i++) {
-      const seen = new Set<string>();
-      for (const g of trigrams(vocab[i]!)) {
-        if (seen.has(g)) continue;
-        seen.add(g);
-        let list = this.grams.get(g);
-        if (!list) this.grams.set(g, (list = []));
-        list.push(i);
-      }
-    }
+    this.table = table ?? trigramTable(vocab);
   }
 
   /** Vocabulary tokens within the edit budget of `query`, best first (ties by token). */
@@ -64,14 +105,18 @@ export class FuzzyTokenIndex {
     if (query.length < minLength) return [];
     const maxEdits = options.maxEdits ?? (query.length <= (options.oneEditUpTo ?? DEFAULTS.oneEditUpTo) ? 1 : 2);
     const limit = options.limit ?? DEFAULTS.limit;
-    const qg = [...new Set(trigrams(query))];
+    const qg = trigramKeys(query);
     // a string within k edits keeps at least |grams| − 3k of the query's trigrams
     const need = Math.max(1, qg.length - 3 * maxEdits);
     const count = new Map<number, number>();
+    const { keys, offsets, postings } = this.table;
     for (const g of qg) {
-      const list = this.grams.get(g);
-      if (!list || list.length > 50_000) continue; // extremely common trigrams filter nothing
-      for (const t of list) count.set(t, (count.get(t) ?? 0) + 1);
+      const row = sortedIndexOf(keys, g);
+      if (row < 0) continue;
+      const from = offsets[row]!;
+      const to = offsets[row + 1]!;
+      if (to - from > 50_000) continue; // extremely common trigrams filter nothing
+      for (let i = from; i < to; i++) count.set(postings[i]!, (count.get(postings[i]!) ?? 0) + 1);
     }
     const hits: FuzzyHit[] = [];
     for (const [t, c] of count) {

@@ -3,8 +3,9 @@
  * ======================================
  *
  * Accumulates what the linker's lexical snapshot (lexical-snapshot.ts) holds — the alias
- * token vocabulary with its postings, the hash set of alias keys, and the context-term
- * document frequencies for BM25 — from alias rows and entity texts in any order, so a load can
+ * token vocabulary with its postings and trigram table (fuzzy-index.ts), the hash set of
+ * alias keys, the context-term document frequencies for BM25 and the inverted index of the
+ * descriptions (description-match.ts) — from alias rows and entity texts in any order, so a load can
  * build it from the rows it writes instead of reading the catalog back afterwards. The same
  * builder serves the read-back path (`LexicalSnapshot.build`), so both give the same snapshot.
  *
@@ -19,6 +20,8 @@
  */
 import { stemToken, tokens } from "../catalog/index.js";
 import { isStopWord } from "./stopwords.js";
+import { DescriptionTableBuilder, type DescriptionTable } from "./description-match.js";
+import { trigramTable, type TrigramTable } from "./fuzzy-index.js";
 
 /** Builder settings; all optional. */
 export const DEFAULTS = {
@@ -59,6 +62,10 @@ export interface LexicalParts {
   readonly terms: string[];
   readonly df: Int32Array;
   readonly avgDocLength: number;
+  /** The vocabulary's trigram postings (fuzzy-index.ts). */
+  readonly grams: TrigramTable;
+  /** The inverted index of the description stems (description-match.ts). */
+  readonly descriptions: DescriptionTable;
 }
 
 /** Collects alias rows and entity texts; makes the lexical snapshot's parts at the end. */
@@ -76,7 +83,7 @@ export class LexicalBuilder {
   /** Context terms (stems) by id. */
   private readonly termIds = new Map<string, number>();
   private readonly termList: string[] = [];
-  /** Text statistics records: [non-stop token count, distinct stems k, stem id × k]. */
+  /** Text statistics records: [non-stop token count, distinct stems k, stem id × k, count of each × k]. */
   private readonly records = new IntList();
   /** Per entity num: the record of its current label / description (−1: none). */
   private labelAt: Int32Array = new Int32Array(1024).fill(-1);
@@ -149,6 +156,7 @@ export class LexicalBuilder {
     const at = this.records.length;
     let count = 0;
     const ids: number[] = [];
+    const tfs: number[] = [];
     for (const t of tokens(text)) {
       if (isStopWord(t)) continue;
       count++;
@@ -159,11 +167,16 @@ export class LexicalBuilder {
         this.termIds.set(s, id);
         this.termList.push(s);
       }
-      if (!ids.includes(id)) ids.push(id);
+      const k = ids.indexOf(id);
+      if (k < 0) {
+        ids.push(id);
+        tfs.push(1);
+      } else tfs[k]!++;
     }
     this.records.push(count);
     this.records.push(ids.length);
     for (const id of ids) this.records.push(id);
+    for (const tf of tfs) this.records.push(tf);
     return at;
   }
 
@@ -251,6 +264,20 @@ export class LexicalBuilder {
     }
     const terms = this.termList.filter((_, id) => seen[id] === 1).sort();
     const df = Int32Array.from(terms, (t) => Math.min(entityCount, dfSum[this.termIds.get(t)!]!));
-    return { entityCount, degree, vocab, offsets, postings, keys, maxAliasTokens, terms, df, avgDocLength: entityCount > 0 ? totalLength / entityCount : 0 };
+
+    // the description index (description-match.ts): every description's stems with their counts, entities ascending
+    const descriptions = new DescriptionTableBuilder();
+    for (let num = 0; num <= this.maxText && num < this.descAt.length; num++) {
+      const d = this.descAt[num]!;
+      if (d < 0 || gone.has(num)) continue;
+      const k = rec[d + 1]!;
+      const stems: [string, number][] = [];
+      for (let j = 0; j < k; j++) stems.push([this.termList[rec[d + 2 + j]!]!, rec[d + 2 + k + j]!]);
+      descriptions.add(num, stems, rec[d]!);
+    }
+    return {
+      entityCount, degree, vocab, offsets, postings, keys, maxAliasTokens, terms, df, avgDocLength: entityCount > 0 ? totalLength / entityCount : 0,
+      grams: trigramTable(vocab), descriptions: descriptions.finish(),
+    };
   }
 }

@@ -9,6 +9,9 @@
  *   (entity nums, sorted, unique) — partial and reordered names, fuzzy correction;
  * - a 32-bit FNV-1a hash set of every alias's normalised and stemmed key, so n-gram spans
  *   that cannot match skip the SQLite lookup (a false positive only costs one lookup);
+ * - the alias vocabulary's trigram table (fuzzy-index.ts) and the inverted index of the
+ *   descriptions (description-match.ts), read from the file only when a question first needs
+ *   them (one read; the sections after the others), so opening the snapshot does not pay for them;
  * - context-term document frequencies for BM25 (stemmed). An entity's context document is its
  *   description, its neighbours' labels and (at half weight) its neighbours' descriptions, in
  *   the spirit of extended gloss overlap (S. Banerjee and T. Pedersen, CICLing 2002). The
@@ -18,14 +21,25 @@
  * Building reads the edge, alias and entity tables once each (no per-question scans), or takes
  * the rows a load writes (lexical-builder.ts: the same builder either way).
  */
-import { closeSync, fstatSync, openSync, readSync, renameSync, writeFileSync, unlinkSync } from "node:fs";
+import { closeSync, openSync, readSync, renameSync, writeFileSync, unlinkSync } from "node:fs";
 import type { Catalog } from "../catalog/index.js";
 import { fnv1a32 } from "../catalog/index.js";
 import { sortedIndexOf } from "./sorted-search.js";
 import { LexicalBuilder, NEIGHBOUR_DESCRIPTION_WEIGHT, type LexicalParts } from "./lexical-builder.js";
+import type { TrigramTable } from "./fuzzy-index.js";
+import type { DescriptionTable } from "./description-match.js";
 
 /** Format tag written at the start of the snapshot file. */
-const MAGIC = "tiepoint-link-3";
+const MAGIC = "tiepoint-link-4";
+
+/** Sections read when a question first needs them (the trigram table, the description index), not at open. */
+const LAZY = ["gramKeys", "gramOffsets", "gramPostings", "descOffsets", "descPostings", "descTf", "descLengths", "descTerms"] as const;
+
+/** The snapshot file's header. */
+interface Header {
+  magic: string; uid: string; generation: number; entityCount: number; maxAliasTokens: number; avgDocLength: number;
+  vocabSize: number; termCount: number; descTermCount: number; descDocuments: number; descAvgLength: number; sections: Record<string, [number, number]>;
+}
 
 export { NEIGHBOUR_DESCRIPTION_WEIGHT };
 
@@ -53,21 +67,34 @@ class HashSet32 {
   }
 }
 
-/** The whole file in a buffer of its own, starting at offset 0 (so 8-aligned sections can be viewed as typed arrays). */
-function readAligned(path: string): Buffer {
-  const fd = openSync(path, "r");
-  try {
-    const size = fstatSync(fd).size;
-    const bytes = new Uint8Array(new ArrayBuffer(size));
-    for (let off = 0; off < size; ) {
-      const got = readSync(fd, bytes, off, Math.min(size - off, 1 << 26), off);
-      if (got === 0) throw new RangeError("linking/lexical-snapshot: file ended early");
-      off += got;
-    }
-    return Buffer.from(bytes.buffer, 0, size);
-  } finally {
-    closeSync(fd);
+/** `length` bytes of the open file from `position`, in a buffer of its own starting at offset 0 (so 8-aligned sections can be viewed as typed arrays). */
+function readRange(fd: number, position: number, length: number): Buffer {
+  const bytes = new Uint8Array(new ArrayBuffer(length));
+  for (let off = 0; off < length; ) {
+    const got = readSync(fd, bytes, off, Math.min(length - off, 1 << 26), position + off);
+    if (got === 0) throw new RangeError("linking/lexical-snapshot: file ended early");
+    off += got;
   }
+  return Buffer.from(bytes.buffer, 0, length);
+}
+
+/** The header of an open snapshot file and where its sections start. */
+function readHeader(fd: number): { h: Header; base: number } {
+  const hl = readRange(fd, 0, 8).readUInt32LE(0);
+  const h = JSON.parse(readRange(fd, 8, hl).toString("utf8")) as Header;
+  return { h, base: 8 + hl + ((8 - ((8 + hl) % 8)) % 8) };
+}
+
+/** The byte range [from, to) of the named sections, relative to the sections' start. */
+function spanOf(sections: Record<string, [number, number]>, names: readonly string[]): [number, number] {
+  let from = Infinity;
+  let to = 0;
+  for (const name of names) {
+    const [o, n] = sections[name]!;
+    from = Math.min(from, o);
+    to = Math.max(to, o + n);
+  }
+  return from === Infinity ? [0, 0] : [from, to];
 }
 
 /** The lexical snapshot of one catalog generation. */
@@ -92,11 +119,19 @@ export class LexicalSnapshot {
   readonly df: Int32Array;
   /** Average context-document length in terms. */
   readonly avgDocLength: number;
+  /** The trigram table and the description index: in memory, or still in the file (read on first use). */
+  private gramTable: TrigramTable | undefined;
+  private descTable: DescriptionTable | undefined;
+  private readonly file: { readonly path: string; readonly sections: Record<string, [number, number]> } | undefined;
 
   private constructor(p: {
     uid: string; generation: number; entityCount: number; degree: Int32Array; vocab: string[]; offsets: Int32Array; postings: Int32Array;
     keys: Uint32Array; maxAliasTokens: number; terms: string[]; df: Int32Array; avgDocLength: number;
+    grams?: TrigramTable; descriptions?: DescriptionTable; file?: { path: string; sections: Record<string, [number, number]> };
   }) {
+    this.gramTable = p.grams;
+    this.descTable = p.descriptions;
+    this.file = p.file;
     this.uid = p.uid;
     this.generation = p.generation;
     this.entityCount = p.entityCount;
@@ -109,6 +144,48 @@ export class LexicalSnapshot {
     this.terms = p.terms;
     this.df = p.df;
     this.avgDocLength = p.avgDocLength;
+  }
+
+  /** The vocabulary's trigram table (fuzzy-index.ts); undefined when the file no longer holds this generation's. */
+  grams(): TrigramTable | undefined {
+    if (!this.gramTable) this.readLazy();
+    return this.gramTable;
+  }
+
+  /** The description index's table (description-match.ts); undefined when the file no longer holds this generation's. */
+  descriptions(): DescriptionTable | undefined {
+    if (!this.descTable) this.readLazy();
+    return this.descTable;
+  }
+
+  /** Reads the lazy sections with one read, after checking that the file is still this snapshot's. */
+  private readLazy(): void {
+    if (!this.file) return;
+    let fd: number | undefined;
+    try {
+      fd = openSync(this.file.path, "r");
+      const { h, base } = readHeader(fd);
+      if (h.magic !== MAGIC || h.uid !== this.uid || h.generation !== this.generation || JSON.stringify(h.sections) !== JSON.stringify(this.file.sections)) return;
+      const [from, to] = spanOf(h.sections, LAZY);
+      const buf = readRange(fd, base + from, to - from);
+      const sec = (name: string) => {
+        const [o, n] = h.sections[name]!;
+        return buf.subarray(o - from, o - from + n);
+      };
+      const ints = (name: string) => {
+        const b = sec(name);
+        return new Int32Array(b.buffer, b.byteOffset, b.length / 4);
+      };
+      const gk = sec("gramKeys");
+      this.gramTable = { keys: new Float64Array(gk.buffer, gk.byteOffset, gk.length / 8), offsets: ints("gramOffsets"), postings: ints("gramPostings") };
+      const terms = h.descTermCount === 0 ? [] : sec("descTerms").toString("utf8").split("\n");
+      if (terms.length !== h.descTermCount) return;
+      this.descTable = { terms, offsets: ints("descOffsets"), postings: ints("descPostings"), tf: ints("descTf"), lengths: ints("descLengths"), documents: h.descDocuments, avgLength: h.descAvgLength };
+    } catch {
+      /* a damaged or replaced file: the caller builds what it needs */
+    } finally {
+      if (fd !== undefined) closeSync(fd);
+    }
   }
 
   /** Degree of an entity num (0 when unknown). */
@@ -180,6 +257,10 @@ export class LexicalSnapshot {
   saveTemp(path: string): string {
     const vocabBuf = Buffer.from(this.vocab.join("\n"), "utf8");
     const termBuf = Buffer.from(this.terms.join("\n"), "utf8");
+    const grams = this.grams();
+    const desc = this.descriptions();
+    if (!grams || !desc) throw new Error("linking/lexical-snapshot: the snapshot's file changed since it was read; build it again to save it");
+    const view = (a: Int32Array | Float64Array) => Buffer.from(a.buffer, a.byteOffset, a.byteLength);
     const parts: [string, Buffer][] = [
       ["degree", Buffer.from(this.degree.buffer, this.degree.byteOffset, this.degree.byteLength)],
       ["offsets", Buffer.from(this.offsets.buffer, this.offsets.byteOffset, this.offsets.byteLength)],
@@ -188,6 +269,15 @@ export class LexicalSnapshot {
       ["df", Buffer.from(this.df.buffer, this.df.byteOffset, this.df.byteLength)],
       ["vocab", vocabBuf],
       ["terms", termBuf],
+      // read on first use (LAZY)
+      ["gramKeys", view(grams.keys)],
+      ["gramOffsets", view(grams.offsets)],
+      ["gramPostings", view(grams.postings)],
+      ["descOffsets", view(desc.offsets)],
+      ["descPostings", view(desc.postings)],
+      ["descTf", view(desc.tf)],
+      ["descLengths", view(desc.lengths)],
+      ["descTerms", Buffer.from(desc.terms.join("\n"), "utf8")],
     ];
     const sections: Record<string, [number, number]> = {};
     let at = 0;
@@ -198,7 +288,8 @@ export class LexicalSnapshot {
     const header = Buffer.from(
       JSON.stringify({
         magic: MAGIC, uid: this.uid, generation: this.generation, entityCount: this.entityCount,
-        maxAliasTokens: this.maxAliasTokens, avgDocLength: this.avgDocLength, vocabSize: this.vocab.length, termCount: this.terms.length, sections,
+        maxAliasTokens: this.maxAliasTokens, avgDocLength: this.avgDocLength, vocabSize: this.vocab.length, termCount: this.terms.length,
+        descTermCount: desc.terms.length, descDocuments: desc.documents, descAvgLength: desc.avgLength, sections,
       }),
       "utf8",
     );
@@ -223,23 +314,22 @@ export class LexicalSnapshot {
 
   /** Loads a snapshot saved for exactly this uid and generation; undefined when missing or stale. */
   static load(path: string, uid: string, generation: number): LexicalSnapshot | undefined {
-    let buf: Buffer;
+    let fd: number;
     try {
-      buf = readAligned(path);
+      fd = openSync(path, "r");
     } catch {
       return undefined;
     }
     try {
-      const hl = buf.readUInt32LE(0);
-      const h = JSON.parse(buf.subarray(8, 8 + hl).toString("utf8")) as {
-        magic: string; uid: string; generation: number; entityCount: number; maxAliasTokens: number; avgDocLength: number;
-        vocabSize: number; termCount: number; sections: Record<string, [number, number]>;
-      };
+      const { h, base } = readHeader(fd);
       if (h.magic !== MAGIC || h.uid !== uid || h.generation !== generation) return undefined;
-      const base = 8 + hl + ((8 - ((8 + hl) % 8)) % 8);
+      // the sections a question always needs, with one read; the lazy ones come after them
+      const eager = Object.keys(h.sections).filter((name) => !(LAZY as readonly string[]).includes(name));
+      const [, end] = spanOf(h.sections, eager);
+      const buf = readRange(fd, base, end);
       const sec = (name: string) => {
         const [o, n] = h.sections[name]!;
-        return buf.subarray(base + o, base + o + n);
+        return buf.subarray(o, o + n);
       };
       // sections start at multiples of 8 in a buffer of their own: views, no copies
       const ints = (name: string) => {
@@ -255,10 +345,12 @@ export class LexicalSnapshot {
       if (vocab.length !== h.vocabSize || terms.length !== h.termCount) return undefined;
       return new LexicalSnapshot({
         uid, generation, entityCount: h.entityCount, degree: ints("degree"), vocab, offsets: ints("offsets"), postings: ints("postings"),
-        keys, maxAliasTokens: h.maxAliasTokens, terms, df: ints("df"), avgDocLength: h.avgDocLength,
+        keys, maxAliasTokens: h.maxAliasTokens, terms, df: ints("df"), avgDocLength: h.avgDocLength, file: { path, sections: h.sections },
       });
     } catch {
       return undefined; // a damaged snapshot is rebuilt, never trusted
+    } finally {
+      closeSync(fd);
     }
   }
 

@@ -335,7 +335,7 @@ export class Linker implements AliasLexicon {
 
   /** @internal */
   fuzzy(): FuzzyTokenIndex {
-    return (this.fuzzyIndex ??= new FuzzyTokenIndex(this.snapshot.vocab));
+    return (this.fuzzyIndex ??= new FuzzyTokenIndex(this.snapshot.vocab, this.snapshot.grams()));
   }
 
   /** @internal vocabulary tokens a word may be derived from (derivation.ts; cached). */
@@ -344,14 +344,16 @@ export class Linker implements AliasLexicon {
   }
 
   /**
-   * @internal the description index (description-match.ts), built on first use; undefined
-   * when `stop` (the question's time budget) ended the build early (nothing is kept, a later
-   * question builds it again).
+   * @internal the description index (description-match.ts): the name index's table (made at
+   * load time), read on first use; when the name index holds none, built from the catalog, and
+   * undefined when `stop` (the question's time budget) ended that build early (nothing is
+   * kept, a later question builds it again).
    */
   descriptions(stop?: () => boolean): DescriptionIndex | undefined {
     if (this.descriptionIndex) return this.descriptionIndex;
-    const built = new DescriptionIndex(this.catalog, stop);
-    if (built.cut) return undefined;
+    const table = this.snapshot.descriptions();
+    const built = table ? new DescriptionIndex(table) : DescriptionIndex.fromCatalog(this.catalog, stop);
+    if (built === undefined) return undefined;
     return (this.descriptionIndex = built);
   }
 

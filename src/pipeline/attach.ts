@@ -34,6 +34,7 @@ import {
   iriRef,
   loadFiles,
   nodeId,
+  numericColumnsPath,
   ntTerm,
   readBinding,
   writeBinding,
@@ -96,9 +97,9 @@ function removeQuietly(file: string): void {
   }
 }
 
-/** The files of a catalog path (catalog, relation snapshot, name index, binding). */
+/** The files of a catalog path (catalog, relation snapshot, name index, numeric columns, binding). */
 function catalogFiles(path: string): string[] {
-  return [path, snapshotPath(path), LexicalSnapshot.pathFor(path), bindingPath(path), `${path}-wal`, `${path}-shm`];
+  return [path, snapshotPath(path), LexicalSnapshot.pathFor(path), numericColumnsPath(path), bindingPath(path), `${path}-wal`, `${path}-shm`];
 }
 
 /** Reads the binding of an existing attached catalog (for `--refresh`). */
@@ -282,6 +283,7 @@ export async function attachStore(endpoint: string, db: string, options: AttachO
     for (const f of [`${db}-wal`, `${db}-shm`]) removeQuietly(f);
     renameSync(snapshotPath(temp), snapshotPath(db));
     renameSync(LexicalSnapshot.pathFor(temp), LexicalSnapshot.pathFor(db));
+    renameSync(numericColumnsPath(temp), numericColumnsPath(db));
     renameSync(bindingPath(temp), bindingPath(db));
     renameSync(temp, db);
     published = true;

@@ -2,9 +2,11 @@
  * Question indexes prepared during a load
  * =======================================
  *
- * A {@link LoadSink} that builds the two files a question process opens — the relation index
- * snapshot `PATH.idx` (ranking/snapshot.ts, with its walk tables) and the name index
- * `PATH.link` (linking/lexical-snapshot.ts) — from the rows a load into an empty catalog
+ * A {@link LoadSink} that builds the files a question process opens — the relation index
+ * snapshot `PATH.idx` (ranking/snapshot.ts, with its walk tables), the name index
+ * `PATH.link` (linking/lexical-snapshot.ts) and the numeric attribute columns `PATH.num`
+ * (catalog/numeric-column.ts, read from the catalog inside the load's transaction, in the
+ * load's thread) — from the rows a load into an empty catalog
  * writes, instead of reading the finished catalog back: edges, types and subtype pairs go to
  * ranking's `IndexBuilder` (radix sorted into the index's canonical order at the end), alias
  * rows and entity texts to linking's `LexicalBuilder` (term statistics computed as the texts
@@ -40,7 +42,7 @@
 import { existsSync, renameSync, unlinkSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
-import type { Catalog, LoadSink, PreparedFiles, RowsWritten } from "../catalog/index.js";
+import { numericColumnsPath, writeNumericColumnsTemp, type Catalog, type LoadSink, type PreparedFiles, type RowsWritten } from "../catalog/index.js";
 import { LexicalSnapshot } from "../linking/index.js";
 import { IndexBuilder, snapshotPath, writeSnapshotTemp } from "../ranking/index.js";
 
@@ -468,29 +470,41 @@ export class LoadPreparation implements LoadSink {
     this.sendIndex(false);
     this.sendText(false);
     const thread = this.thread;
+    // the numeric attribute columns (catalog numeric-column.ts), read in this thread inside the load's transaction
+    const columns = () => writeNumericColumnsTemp(cat, cat.path, stamp);
     if (thread === undefined) {
+      const numTemp = columns();
       const temps = this.adopt((this.core ?? new PrepareCore()).build(input, this.onProgress));
       this.core = undefined;
-      if (temps === undefined) return undefined;
-      return { publish: () => this.publish(cat.path, temps), discard: () => temps.forEach(remove) };
+      if (temps === undefined) {
+        remove(numTemp);
+        return undefined;
+      }
+      return { publish: () => this.publish(cat.path, temps, numTemp), discard: () => [...temps, numTemp].forEach(remove) };
     }
     this.onProgress?.("building the question indexes in a second thread");
     thread.worker.postMessage({ finish: input });
+    // (while the second thread builds the other files)
+    const numTemp = columns();
     const built = () => this.adopt(this.await(thread));
     const path = cat.path;
     return {
       publish: () => {
         const temps = built();
-        if (temps === undefined) throw new Error(this.reason);
-        this.publish(path, temps);
+        if (temps === undefined) {
+          remove(numTemp);
+          throw new Error(this.reason);
+        }
+        this.publish(path, temps, numTemp);
       },
-      discard: () => built()?.forEach(remove),
+      discard: () => [...(built() ?? []), numTemp].forEach(remove),
     };
   }
 
-  /** Moves the two temporary files over the catalog's `PATH.idx` and `PATH.link`. */
-  private publish(path: string, [idxTemp, linkTemp]: [string, string]): void {
+  /** Moves the temporary files over the catalog's `PATH.idx`, `PATH.link` and `PATH.num`. */
+  private publish(path: string, [idxTemp, linkTemp]: [string, string], numTemp: string): void {
     renameSync(idxTemp, snapshotPath(path));
     renameSync(linkTemp, LexicalSnapshot.pathFor(path));
+    renameSync(numTemp, numericColumnsPath(path));
   }
 }

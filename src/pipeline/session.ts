@@ -117,14 +117,14 @@ export class Session {
   /** Where the relation edges come from (edge-access.ts): the catalog file, or the SPARQL store an attached catalog's edges are pulled from (store-edges.ts). */
   readonly edges: EdgeAccess;
 
-  private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions, edges: EdgeAccess) {
+  private constructor(catalog: Catalog, index: RelationIndex, linker: Linker, model: QuestionModel, rankOptions: RankOptions, edges: EdgeAccess, numericColumns: NumericColumns) {
     this.edges = edges;
     this.catalog = catalog;
     this.index = index;
     this.linker = linker;
     this.model = model;
     this.rankOptions = rankOptions;
-    this.numericColumns = new NumericColumns(catalog);
+    this.numericColumns = numericColumns;
   }
 
   /** Opens the catalog (read-only), its relation index (snapshot or rebuilt), linker and question model. */
@@ -149,8 +149,10 @@ export class Session {
       const linker = Linker.fromCatalog(catalog);
       progress?.({ phase: "model" });
       const model = buildQuestionModel(catalog, { relationEdgeCounts: binding ? binding.relationEdges : index.relationEdgeCounts(), relationEnds: () => index.relationEnds(), typesOf: (n) => index.typesOf(n) });
+      // the numeric attribute columns (catalog numeric-column.ts): the file written with the load, opened per column on first use
+      const columns = NumericColumns.open(catalog);
       progress?.({ phase: "ready" });
-      return new Session(catalog, index, linker, model, options.rank ?? {}, store ?? new LocalEdges());
+      return new Session(catalog, index, linker, model, options.rank ?? {}, store ?? new LocalEdges(), columns);
     } catch (e) {
       endRead(catalog);
       catalog.close();
@@ -161,7 +163,7 @@ export class Session {
   /** This session's catalog, linker and model over another relation index (an attached store's pull); the index's own session when it is this one's. */
   withIndex(index: RelationIndex): Session {
     if (index === this.index) return this;
-    const s = new Session(this.catalog, index, this.linker, this.model, this.rankOptions, new LocalEdges());
+    const s = new Session(this.catalog, index, this.linker, this.model, this.rankOptions, new LocalEdges(), this.numericColumns);
     s.explainPhaseMs = this.explainPhaseMs;
     return s;
   }

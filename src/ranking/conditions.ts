@@ -160,10 +160,10 @@ const MEMBER_SETS_KEPT = 8;
 interface AttributeValues {
   /** The values of `node`, smallest first (empty: none). */
   list(node: number): readonly number[];
-  /** The largest ("max") or smallest value of `node`; NaN when it has none. */
-  extreme(node: number, order: "max" | "min"): number;
   /** True when some value of `node` passes `test`. */
   some(node: number, test: (v: number) => boolean): boolean;
+  /** The largest ("max") or smallest value of each of `nodes`, NaN for none (one merge pass over the column while `nodes` ascend, as a set enumerated by num does). */
+  extremes(nodes: readonly number[], order: "max" | "min"): Float64Array;
 }
 
 function attributeValues(lookup: AttributeLookup, predicate: number): AttributeValues {
@@ -175,25 +175,38 @@ function attributeValues(lookup: AttributeLookup, predicate: number): AttributeV
         const r = rowIndex(entities, n);
         return r < 0 ? [] : Array.from(values.subarray(offsets[r]!, offsets[r + 1]!));
       },
-      extreme: (n, order) => {
-        const r = rowIndex(entities, n);
-        return r < 0 ? NaN : order === "max" ? values[offsets[r + 1]! - 1]! : values[offsets[r]!]!;
-      },
       some: (n, test) => {
         const r = rowIndex(entities, n);
         if (r < 0) return false;
         for (let k = offsets[r]!; k < offsets[r + 1]!; k++) if (test(values[k]!)) return true;
         return false;
       },
+      extremes: (nodes, order) => {
+        const out = new Float64Array(nodes.length);
+        let at = 0;
+        let ascending = true;
+        for (let i = 0; i < nodes.length; i++) {
+          const n = nodes[i]!;
+          if (i > 0 && n < nodes[i - 1]!) ascending = false;
+          let r: number;
+          if (ascending) {
+            while (at < entities.length && entities[at]! < n) at++;
+            r = at < entities.length && entities[at] === n ? at : -1;
+          } else r = rowIndex(entities, n);
+          out[i] = r < 0 ? NaN : order === "max" ? values[offsets[r + 1]! - 1]! : values[offsets[r]!]!;
+        }
+        return out;
+      },
     };
   }
   return {
     list: (n) => lookup.numbers(n, predicate),
-    extreme: (n, order) => {
-      const vs = lookup.numbers(n, predicate);
-      return vs.length === 0 ? NaN : order === "max" ? vs[vs.length - 1]! : vs[0]!;
-    },
     some: (n, test) => lookup.numbers(n, predicate).some(test),
+    extremes: (nodes, order) =>
+      Float64Array.from(nodes, (n) => {
+        const vs = lookup.numbers(n, predicate);
+        return vs.length === 0 ? NaN : order === "max" ? vs[vs.length - 1]! : vs[0]!;
+      }),
   };
 }
 
@@ -242,17 +255,11 @@ export function applyConditions(
     const kept = membersCache.get(index)?.get(key);
     if (kept) order = [...kept];
     else {
-      let done = true;
-      for (let v = 0; v < index.nodeCount; v++) {
-        // the time budget, looked at every 4,096 nodes: the candidates enumerated so far are kept
-        if ((v & 4095) === 0 && v > 0 && options.deadline?.stop("conditions")) {
-          notes.push(`time limit reached: only the entities numbered below ${v} of ${index.nodeCount} were considered`);
-          done = false;
-          break;
-        }
-        if (!typeSet.has(v) && index.isA(v, typeSet)) order.push(v);
-      }
-      if (done) {
+      // the time budget, looked at every 4,096 nodes: the candidates enumerated so far are kept
+      const members = index.membersOf(typeSet, options.deadline ? () => options.deadline!.stop("conditions") : undefined);
+      order = members.nodes;
+      if (members.cut !== undefined) notes.push(`time limit reached: only the entities numbered below ${members.cut} of ${index.nodeCount} were considered`);
+      else {
         const perIndex = membersCache.get(index) ?? new Map<string, readonly number[]>();
         if (perIndex.size >= MEMBER_SETS_KEPT) perIndex.delete(perIndex.keys().next().value!);
         perIndex.set(key, order.slice());
@@ -298,9 +305,9 @@ export function applyConditions(
     let best: AttributeChoice | null = null;
     let bestCarry = 0;
     for (const a of choices) {
-      const vals = valuesOf(a.num);
+      const keys = valuesOf(a.num).extremes(scope, "min");
       let carry = 0;
-      for (const v of scope) if (!Number.isNaN(vals.extreme(v, "min"))) carry++;
+      for (let i = 0; i < keys.length; i++) if (!Number.isNaN(keys[i]!)) carry++;
       if (carry === 0) continue;
       if (best === null || a.score > best.score + 1e-9 || (Math.abs(a.score - best.score) <= 1e-9 && carry > bestCarry)) {
         best = a;
@@ -387,13 +394,11 @@ export function applyConditions(
       for (const v of order) (isFit(v) ? inFit : rest).push(v);
     }
     // one key per fit candidate (largest value for "max", smallest for "min"), NaN: none
-    const keys = new Float64Array(inFit.length);
+    const keys = vals.extremes(inFit, dir);
     const withIdx: number[] = [];
     const without: number[] = [];
     for (let i = 0; i < inFit.length; i++) {
-      const key = vals.extreme(inFit[i]!, dir);
-      keys[i] = key;
-      if (Number.isNaN(key)) without.push(inFit[i]!);
+      if (Number.isNaN(keys[i]!)) without.push(inFit[i]!);
       else withIdx.push(i);
     }
     const better = (i: number, j: number) => (dir === "max" ? keys[j]! - keys[i]! : keys[i]! - keys[j]!) || i - j;

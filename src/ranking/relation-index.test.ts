@@ -73,6 +73,28 @@ describe("RelationIndex.fromEdges", () => {
     expect(index.isA(3, new Set([8]))).toBe(true);
     expect(index.typesOf(42)).toEqual([]);
   });
+
+  it("lists the members of a set of types as isA judges every node, and stops when asked", () => {
+    // a random typed graph: membersOf equals the nodes (other than the types) isA accepts, for every set of one or two types
+    let seed = 7;
+    const rnd = (n: number) => ((seed = (seed * 1103515245 + 12345) % 2147483648), seed % n);
+    const N = 5000;
+    const types: [number, number][] = [];
+    for (let u = 20; u < N; u++) for (let k = rnd(3); k > 0; k--) types.push([u, 1 + rnd(15)]);
+    const subs: [number, number][] = [[2, 1], [3, 1], [4, 2], [5, 4], [6, 6], [7, 8], [8, 7], [9, 3]];
+    const index = RelationIndex.fromEdges(N, 1, [], types, subs);
+    for (const set of [[1], [2], [4], [7], [9, 12], [6, 14]]) {
+      const ts = new Set(set);
+      const want: number[] = [];
+      for (let u = 0; u < N; u++) if (!ts.has(u) && index.isA(u, ts)) want.push(u);
+      expect(index.membersOf(ts).nodes).toEqual(want);
+      expect(want.length).toBeGreaterThan(0);
+    }
+    // a stop after the first check: only nodes below 4,096 are listed, and the cut says where
+    const cut = index.membersOf(new Set([1]), () => true);
+    expect(cut.cut).toBe(4096);
+    expect(cut.nodes.every((u) => u < 4096)).toBe(true);
+  });
 });
 
 describe("RelationIndex.fromCatalog", () => {

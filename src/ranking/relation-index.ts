@@ -410,6 +410,39 @@ export class RelationIndex {
     this.#ends = undefined;
   }
 
+  /**
+   * Every node that {@link isA} one of `typeSet` (the types themselves left out), ascending:
+   * each type of the catalog judged once, then one pass over the direct-type lists. `stop`
+   * is asked every 4,096 nodes; when it says so the nodes found so far are returned with
+   * `cut` (how far the pass got).
+   */
+  membersOf(typeSet: ReadonlySet<number>, stop?: () => boolean): { readonly nodes: number[]; readonly cut?: number } {
+    const c = this.#c;
+    const n = this.nodeCount;
+    // per type num: 0 not judged yet, 1 in the set's closure, 2 not
+    const judged = new Uint8Array(n);
+    const nodes: number[] = [];
+    for (let u = 0; u < n; u++) {
+      if ((u & 4095) === 0 && u > 0 && stop?.()) return { nodes, cut: u };
+      const from = c.typeOffsets[u]!;
+      const to = c.typeOffsets[u + 1]!;
+      if (from === to || typeSet.has(u)) continue;
+      for (let i = from; i < to; i++) {
+        const t = c.typeList[i]!;
+        let j = t >= 0 && t < n ? judged[t]! : 0;
+        if (j === 0) {
+          j = this.supertypesClosure(t).some((x) => typeSet.has(x)) ? 1 : 2;
+          if (t >= 0 && t < n) judged[t] = j;
+        }
+        if (j === 1) {
+          nodes.push(u);
+          break;
+        }
+      }
+    }
+    return { nodes };
+  }
+
   /** True when one of `u`'s direct types, or one of their supertypes, is in `typeSet`. */
   isA(u: number, typeSet: ReadonlySet<number>): boolean {
     const c = this.#c;
