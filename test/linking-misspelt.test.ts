@@ -21,6 +21,7 @@ beforeAll(() => {
   type("t:Port", "port");
   rel("r:dependsOn", "depends on");
   rel("r:homePort", "home port");
+  rel("r:maintainedBy", "maintained by");
   ent("x:mave", "mave", ["t:Tool"], "A build driver.");
   ent("x:rave", "rave", ["t:Tool"], "A report generator.");
   ent("x:libq", "libq", ["t:Tool"], "A queue library.");
@@ -33,6 +34,9 @@ beforeAll(() => {
   w.edge("x:mave", "r:dependsOn", "x:libq");
   w.edge("x:rave", "r:dependsOn", "x:libz");
   w.edge("v:gull", "r:homePort", "p:holm");
+  ent("g:ora", "Ora Vell", [], "A maintainer.");
+  w.edge("x:mave", "r:maintainedBy", "g:ora");
+  w.edge("x:rave", "r:maintainedBy", "g:ora");
   w.commit();
   linker = Linker.fromCatalog(cat);
 });
@@ -50,6 +54,12 @@ describe("a lower-case name one edit from two names", () => {
     expect(both).toEqual(expect.arrayContaining(["x:mave", "x:rave"]));
     // the two spellings are equally near: neither is clearly ahead
     expect(m.alternatives[0]!.confidence).toBeGreaterThanOrEqual(0.5 * m.confidence);
+  });
+
+  it("also when a word of the relation's label names it ('maintains' of 'maintained by')", () => {
+    const m = linkQuestion("who maintains wave?", linker).mentions;
+    expect(m.map((x) => x.text)).toEqual(["wave"]);
+    expect([m[0]!.entity.id, ...m[0]!.alternatives.map((a) => a.id)]).toEqual(expect.arrayContaining(["x:mave", "x:rave"]));
   });
 
   it("leaves an English word alone when the question names no relation of the names it resembles", () => {

@@ -210,6 +210,8 @@ export class Linker implements AliasLexicon {
   private readonly phraseWords = new Set<string>();
   /** Porter stems of the content words (not stop words) of every relation label and alias. */
   private readonly relationStems = new Set<string>();
+  /** Per content-word stem of a relation label or alias: the relations it is a word of. */
+  private readonly relationsByStem = new Map<string, Set<number>>();
   /** Last words (normalised and stemmed) of every type label and alias: the types' head nouns. */
   private readonly typeHeads = new Set<string>();
   /** Longest type or relation phrase, in tokens. */
@@ -279,7 +281,14 @@ export class Linker implements AliasLexicon {
     for (const p of cat.predicates()) {
       for (const text of [p.label, ...p.aliases]) {
         add(this.phraseRelations, text, p.num);
-        for (const t of tokens(text)) if (!isStopWord(t)) this.relationStems.add(stemToken(t));
+        for (const t of tokens(text)) {
+          if (isStopWord(t)) continue;
+          const st = stemToken(t);
+          this.relationStems.add(st);
+          let rs = this.relationsByStem.get(st);
+          if (!rs) this.relationsByStem.set(st, (rs = new Set()));
+          rs.add(p.num);
+        }
       }
     }
     this.maxPhrase = maxPhrase;
@@ -331,6 +340,16 @@ export class Linker implements AliasLexicon {
   /** @internal */
   isRelationWord(norm: string, stem: string): boolean {
     return this.relationStems.has(stem) || this.relationStems.has(norm);
+  }
+
+  /** @internal true when the entity has an edge of a relation one of whose label or alias words has one of these stems ("maintains" of "maintained by"). */
+  hasRelationOfWord(num: number, stems: readonly string[]): boolean {
+    for (const st of stems) {
+      for (const r of this.relationsByStem.get(st) ?? []) {
+        if (this.relationEdges.get(`${num} ${r}`, () => this.catalog.hasRelationEdge(num, r))) return true;
+      }
+    }
+    return false;
   }
 
   /** @internal */
@@ -569,10 +588,12 @@ export function linkQuestion(question: string, linker: Linker, options: LinkOpti
     const all = cands.map((c) => linker.evidence(c, query, named, cands.length > 1, modified));
     // a loose one-edit spelling (mention-detection.ts: a lower-case word one edit from a short
     // name, "take" ~ "make") names the candidate only when the question names, outside the word,
-    // a relation the candidate has an edge of ("what does purl depend on": perl depends on
-    // things); a type alone does not do ("which packages take …": most names are packages), and
-    // otherwise an English word is the likelier reading
-    return all.filter((e, k) => !cands[k]!.loose || e.relationCompat > 0);
+    // a relation the candidate has an edge of — by a phrase of the relation's, or by a word of
+    // it ("what does purl depend on", "who maintains purl": perl depends on things and is
+    // maintained by someone); a type alone does not do ("which packages take …": most names
+    // are packages), and otherwise an English word is the likelier reading
+    const words = toks.filter((t, k) => (k < span.first || k >= span.last) && !isStopWord(t.norm)).map((t) => t.stem);
+    return all.filter((e, k) => !cands[k]!.loose || e.relationCompat > 0 || linker.hasRelationOfWord(e.num, words));
   });
   // coherence is joint over the question's mentions; a very long text is scored mention by mention
   const coherent = evidence.length <= DEFAULTS.maxCoherentMentions;
