@@ -414,9 +414,13 @@ export function explain<A extends ExplainAnalysis>(
       verdict.tiedWith.length > 0
         ? verdict.tiedWith.map((id) => idToNode.get(id)!).filter((x) => x !== undefined)
         : ranked.candidates.slice(1).filter((c, j) => j === 0 || c.score >= 0.5 * s1).map((c) => c.node);
-    const pct = salienceOf(index).percentile;
-    names.salience = (n) => pct[n] ?? 0;
-    suggestions = suggestClues(index, names, analysis.question, shown[0]!.node, rivals, seedNodes, options.suggest);
+    // the salience (a global PageRank, computed once per index) is asked for the budget after each iteration: cut, no suggestions
+    const sal = deadline ? salienceOf(index, {}, () => deadline.stop("suggestions")) : salienceOf(index);
+    if (sal) {
+      const pct = sal.percentile;
+      names.salience = (n) => pct[n] ?? 0;
+      suggestions = suggestClues(index, names, analysis.question, shown[0]!.node, rivals, seedNodes, options.suggest);
+    }
   }
 
   lap("suggestions");

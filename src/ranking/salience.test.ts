@@ -36,6 +36,19 @@ describe("salienceOf", () => {
     const order = Array.from({ length: n - 1 }, (_, i) => i + 1).sort((a, b) => sal.pagerank[a]! - sal.pagerank[b]!);
     expect(sal.percentile[order.at(-1)!]).toBe(1);
     expect(sal.percentile[order[0]!]).toBe(0);
+    // a time budget asked after each iteration: spent after the first, nothing is returned or kept; never spent, the same figures
+    const fresh = RelationIndex.fromEdges(n, 1, edges);
+    let asked = 0;
+    expect(
+      salienceOf(fresh, {}, () => {
+        asked++;
+        return true;
+      }),
+    ).toBeUndefined();
+    expect(asked).toBe(1);
+    const whole = salienceOf(fresh, {}, () => false)!;
+    expect(Array.from(whole.pagerank)).toEqual(Array.from(salienceOf(RelationIndex.fromEdges(n, 1, edges)).pagerank));
+    expect(salienceOf(fresh)).toBe(whole);
   });
 
   it("gives a star's centre percentile 1 and its tied leaves 0; an unlinked node 0 (hand-derived)", () => {

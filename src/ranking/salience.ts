@@ -50,8 +50,14 @@ export interface Salience {
 
 const cache = new WeakMap<RelationIndex, Salience>();
 
-/** The salience of every node of `index` (computed on first use with the default options, then kept). */
-export function salienceOf(index: RelationIndex, options: SalienceOptions = {}): Salience {
+/**
+ * The salience of every node of `index` (computed on first use with the default options, then
+ * kept). With `stop` (a question's time budget, asked after each power iteration) the
+ * computation may end early: undefined then, and nothing is kept (a later call computes it again).
+ */
+export function salienceOf(index: RelationIndex, options?: SalienceOptions): Salience;
+export function salienceOf(index: RelationIndex, options: SalienceOptions, stop: () => boolean): Salience | undefined;
+export function salienceOf(index: RelationIndex, options: SalienceOptions = {}, stop?: () => boolean): Salience | undefined {
   const custom = options.damping !== undefined || options.tolerance !== undefined || options.maxIterations !== undefined;
   if (!custom) {
     const hit = cache.get(index);
@@ -100,6 +106,7 @@ export function salienceOf(index: RelationIndex, options: SalienceOptions = {}):
       x = y;
       y = t;
       if (change < tolerance) break;
+      if (stop?.()) return undefined;
     }
   }
   const pr = x;
