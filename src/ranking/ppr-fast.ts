@@ -152,18 +152,16 @@ export function pprFast(index: RelationIndex, seeds: readonly Seed[], options: F
         }
       }
     }
-    // push only: the residual left (a statistic) summed over the touched nodes, each once
-    if (walks === 0) {
-      for (let i = 0; i < ws.touchedCount; i++) {
-        const v = ws.touched[i]!;
-        if (ws.mark[v] === 1) continue;
-        ws.mark[v] = 1;
-        residualSum += q[v]! * mu[v]!;
-      }
-      for (let i = 0; i < ws.touchedCount; i++) ws.mark[ws.touched[i]!] = 0;
-    }
     // the scores' nodes are those with p ≠ 0: the settled list (sorted), not the whole touched set
     const out = collect(ws.settledNodes(), p);
+    // push only: the residual left (a statistic), by conservation of mass (push and dangling
+    // steps move mass between p and r, the seeds' weights sum to 1): 1 − Σ p, read from the
+    // settled nodes, not from the whole touched set
+    if (walks === 0) {
+      let settled = 0;
+      for (let i = 0; i < out.scores.length; i++) settled += out.scores[i]!;
+      residualSum = Math.max(0, 1 - settled);
+    }
     return {
       nodes: out.nodes,
       scores: out.scores,

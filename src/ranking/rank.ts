@@ -346,11 +346,12 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   }
 
   const typeSet = new Set(analysis.answerTypes.map((t) => t.num));
+  const isAnswerType = index.isATest(typeSet);
   // eligible candidates as pool slots, in pool order
   let eligible: number[] = poolNodes.map((_, slot) => slot);
   let typeFiltered = false;
   if (typeSet.size > 0) {
-    const typed = eligible.filter((slot) => index.isA(poolNodes[slot]!, typeSet));
+    const typed = eligible.filter((slot) => isAnswerType(poolNodes[slot]!));
     if (typed.length > 0) {
       eligible = typed;
       typeFiltered = true;
@@ -436,7 +437,7 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     const sets: ReadonlySet<number>[] = [...(chainCheck?.exact ?? []), ...adjacency].sort((a, b) => a.size - b.size);
     whole = [];
     for (const v of sets[0] ?? []) {
-      if (isSeed(v) || (typeFiltered && !index.isA(v, typeSet))) continue;
+      if (isSeed(v) || (typeFiltered && !isAnswerType(v))) continue;
       let all = true;
       for (let k = 1; k < sets.length && all; k++) all = sets[k]!.has(v);
       if (all) whole.push(v);

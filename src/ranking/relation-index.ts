@@ -443,6 +443,30 @@ export class RelationIndex {
     return { nodes };
   }
 
+  /**
+   * {@link isA} for one `typeSet`, as a function that keeps its answer per direct type (a
+   * ranking asks about thousands of nodes of a few types).
+   */
+  isATest(typeSet: ReadonlySet<number>): (u: number) => boolean {
+    const c = this.#c;
+    const memo = new Map<number, boolean>();
+    return (u) => {
+      if (!(u >= 0 && u < this.nodeCount)) return false;
+      for (let i = c.typeOffsets[u]!; i < c.typeOffsets[u + 1]!; i++) {
+        const t = c.typeList[i]!;
+        let ok = memo.get(t);
+        if (ok === undefined) {
+          ok = false;
+          const closure = this.supertypesClosure(t);
+          for (let k = 0; k < closure.length && !ok; k++) ok = typeSet.has(closure[k]!);
+          memo.set(t, ok);
+        }
+        if (ok) return true;
+      }
+      return false;
+    };
+  }
+
   /** True when one of `u`'s direct types, or one of their supertypes, is in `typeSet`. */
   isA(u: number, typeSet: ReadonlySet<number>): boolean {
     const c = this.#c;
