@@ -84,6 +84,12 @@ export interface ChainStep {
   readonly options: readonly StepOption[];
   /** Type nums the node reached by this hop should have (a type noun before the next hop's word); empty: any. */
   readonly types: readonly number[];
+  /**
+   * "whose *only* neighbour is C", "whose *sole* dependencies are A and B": the node reached by
+   * this hop has exactly this many edges of the hop's relations back towards the clue side
+   * (query-graph.ts `exclusiveSteps`). Absent: no count.
+   */
+  readonly only?: number;
 }
 
 /** The relation-path pattern implied for one clue. */

@@ -51,6 +51,16 @@ export const WH_REFERENTS = {
   place: ["place", "location"],
 } as const;
 
+/**
+ * Exclusive focusing words before a relational noun ("whose *only* neighbour", "its *sole*
+ * supplier"): Quirk et al. 1985 §8.116 (exclusive subjuncts: only, solely) and the exclusive
+ * adjectives sole, single, lone (§7.36, restrictive adjectives).
+ */
+export const EXCLUSIVE_WORDS: ReadonlySet<string> = new Set(["only", "sole", "single", "lone"]);
+
+/** Possessive determiners that tie a relational noun to the node before it ("the country *whose* only neighbour …"; Quirk et al. 1985 §6.28, §17.12 whose). */
+export const POSSESSIVE_DETERMINERS: ReadonlySet<string> = new Set(["whose", "its", "their", "his", "her"]);
+
 /** Temporal adjectives (Quirk et al. 1985 §7.74): "up" = later (a larger year), "down" = earlier. */
 export const TEMPORAL = {
   up: ["new", "newer", "newest", "late", "later", "latest", "recent", "young", "younger", "youngest", "last"],

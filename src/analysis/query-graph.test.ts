@@ -22,13 +22,14 @@ const LINES = [
   { kind: "relation", id: "r:commands", label: "commands" },
   { kind: "relation", id: "r:homePort", label: "home port", aliases: ["based at"] },
   { kind: "relation", id: "r:in", label: "located in" },
-  { kind: "relation", id: "r:borders", label: "borders" },
+  { kind: "relation", id: "r:borders", label: "borders", aliases: ["neighbour"] },
   { kind: "attribute", id: "a:length", label: "length", unit: "m" },
   { kind: "attribute", id: "a:launched", label: "launch year" },
   { kind: "attribute", id: "a:condition", label: "condition" },
   { id: "k:brask", label: "Brask", types: ["t:Realm"], description: "An island realm of fjords in the cold sea." },
   { id: "k:ostrelia", label: "Ostrelia", types: ["t:Realm"], description: "A lowland realm of canals.", relations: { "r:borders": ["k:brask"] } },
   { id: "k:quenland", label: "Quenland", types: ["t:Realm"], description: "A forested realm east of Brask.", relations: { "r:borders": ["k:brask"] } },
+  { id: "k:marsk", label: "Marsk", types: ["t:Realm"], description: "A marsh realm west of Ostrelia.", relations: { "r:borders": ["k:ostrelia"] } },
   { id: "p:vask", label: "Vask", types: ["t:Port"], description: "A deep-water port in a fjord.", relations: { "r:in": ["k:brask"] } },
   { id: "p:holm", label: "Holm", types: ["t:Port"], description: "A canal port with a lock.", relations: { "r:in": ["k:ostrelia"] } },
   { id: "p:kess", label: "Kess", types: ["t:Port"], description: "A river port in the forest.", relations: { "r:in": ["k:quenland"] } },
@@ -110,6 +111,14 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     expect(edges(r)).toContainEqual(["p:vask", "r:homePort", "backward", "?answer"]);
     // Bo Tarrant commands Morrow, based at Vask
     expect(r.answers[0]!.id).toBe("s:morrow");
+  });
+
+  it("2. a described middle node: 'whose only neighbour is X' counts the node's relations", () => {
+    // Brask's neighbours: Ostrelia and Quenland; Ostrelia also borders Marsk, Quenland borders Brask alone; Kess is Quenland's port
+    const r = ask("Which port is located in the realm whose only neighbour is Brask?");
+    expect(r.reading!.edges.find((e) => e.only !== undefined)).toMatchObject({ only: 1, relations: [{ id: "r:borders" }] });
+    expect(r.answers[0]!.id).toBe("p:kess");
+    expect(r.verdict.status).toBe("unique");
   });
 
   it("4. names not written as the catalog writes them: a misspelling, an official long form", () => {

@@ -23,7 +23,7 @@
 import type { Analysis } from "./analyze.js";
 import type { Condition, ConditionAnalysis, EntityComparison, ValueQuestion } from "./conditions.js";
 import { cueChains, type CueChain, type CueChainOptions, type StepOption } from "./cue-chains.js";
-import { isPluralNoun, PLURAL_COPULAS, SET_WORDS } from "./lexicon.js";
+import { EXCLUSIVE_WORDS, isPluralNoun, PLURAL_COPULAS, POSSESSIVE_DETERMINERS, SET_WORDS } from "./lexicon.js";
 import type { QuestionModel } from "./question-model.js";
 import type { ReadingDoc } from "../model/index.js";
 import { isFunctionWord, words } from "./words.js";
@@ -50,6 +50,8 @@ export interface QueryEdge {
   readonly direction: "forward" | "backward" | "either" | "any";
   /** The question words of the relation. */
   readonly words: readonly string[];
+  /** "whose only R is C": the `to` node has exactly this many edges of these relations (cue-chains.ts `ChainStep.only`). */
+  readonly only?: number;
 }
 
 /** The reading of one question. */
@@ -108,6 +110,7 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
     }
   }
   if (model) chains = bridgeAnswer(bridgeChains(chains, analysis, model, share), analysis, model, share);
+  chains = exclusiveSteps(chains, analysis);
   const cueOf = (i: number) => (i < 0 ? undefined : (analysis.relationCues[i] ?? headCue));
   const nodes: QueryNode[] = [{ name: "?answer", kind: "answer", types: analysis.answerTypes.map((t) => t.num) }];
   const edges: QueryEdge[] = [];
@@ -140,7 +143,7 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
         nodes.push({ name: `?v${nodes.filter((n) => n.kind === "variable").length + 1}`, kind: "variable", types: st.types });
         to = nodes.length - 1;
       }
-      for (const p of prev) edges.push(edgeOf(p, to, st.options));
+      for (const p of prev) edges.push(st.only !== undefined ? { ...edgeOf(p, to, st.options), only: st.only } : edgeOf(p, to, st.options));
       prev = [to];
     });
   });
@@ -201,6 +204,30 @@ function orientChains(chains: readonly CueChain[], analysis: Analysis, model: Qu
     });
     return { ...ch, steps };
   });
+}
+
+/**
+ * A relational noun after a possessive and an exclusive word ("the country *whose only
+ * neighbour* is South Africa", "*whose sole* dependencies are A and B") says how many such
+ * relations the node it belongs to has: exactly as many as the clues it names (the
+ * coordinated group's size). The count goes on the hop from those clues to that node
+ * (`ChainStep.only`); the ranking keeps only nodes with that many edges of the hop's
+ * relations (Quirk et al. 1985 §8.116, exclusive focus). "the only neighbour *of* X" is a
+ * presupposition about X, not a test of the node, and sets nothing.
+ */
+function exclusiveSteps(chains: CueChain[], analysis: Analysis): CueChain[] {
+  const ws = words(analysis.question);
+  let changed = false;
+  const out = chains.map((ch) => {
+    const first = ch.steps[0];
+    if (!first) return ch;
+    const k = ws.findIndex((w) => w.start === first.at);
+    if (k < 2 || !EXCLUSIVE_WORDS.has(ws[k - 1]!.norm) || !POSSESSIVE_DETERMINERS.has(ws[k - 2]!.norm)) return ch;
+    changed = true;
+    const n = ch.conjuncts?.length ?? 1;
+    return { ...ch, steps: [{ ...first, only: n }, ...ch.steps.slice(1)] };
+  });
+  return changed ? out : chains;
 }
 
 /** True when the two type sets share a type. */
@@ -429,7 +456,7 @@ export function readingText(g: QueryGraph, analysis: Analysis, model: QuestionMo
     if (n.kind === "constant") return analysis.clues[n.clue!]?.label ?? n.name;
     return `${n.name}${typeLabel(n.types)}`;
   };
-  const relText = (e: QueryEdge) => [...new Set(e.options.map((o) => relationRef(o, g, analysis, model).label))].join("|");
+  const relText = (e: QueryEdge) => [...new Set(e.options.map((o) => relationRef(o, g, analysis, model).label))].join("|") + (e.only !== undefined ? ` (only ${e.only})` : "");
   // each path is written from the answer back to its clue(s): "?answer ← capital — ?v1 ← borders — A & B"
   const into = new Map<number, QueryEdge[]>();
   for (const e of g.edges) into.set(e.to, [...(into.get(e.to) ?? []), e]);
@@ -493,6 +520,7 @@ export function readingDoc(g: QueryGraph, analysis: Analysis, model: QuestionMod
       relations: e.options.map((o) => ({ ...relationRef(o, g, analysis, model), inverse: o.inverse })),
       direction: e.direction,
       words: e.words,
+      ...(e.only !== undefined ? { only: e.only } : {}),
     })),
     constraints: constraintTexts(g, analysis),
     plural: g.plural,

@@ -228,6 +228,8 @@ export interface ReadingEdgeDoc {
   readonly direction: "forward" | "backward" | "either" | "any";
   /** The question words that named the relation. */
   readonly words: readonly string[];
+  /** "whose only neighbour is C": the `to` node has exactly this many edges of these relations (absent: no count). */
+  readonly only?: number;
 }
 
 /** The question's reading as a query graph (`reading`, additive; README "Reading"). */

@@ -605,6 +605,25 @@ function cuesWithoutDropped(analysis: Analysis, chains: readonly CueChain[], dro
  * ignored). When a type noun names an intermediate node, the typed directed pattern comes
  * first and the untyped directed one counts as loose. The clues' factors are combined like their scores (weighted geometric mean).
  */
+/** Share of a relation's edges a type needs at an end to count for {@link symmetricEnds}. */
+const END_SHARE = 0.02;
+const symmetricMemo = new WeakMap<RelationIndex, Map<number, boolean>>();
+
+/** True when the catalog finds the same types at both ends of `rel` (each on ≥ 2 % of its edges): a relation read either way ("borders", "collaborates with"). */
+function symmetricEnds(index: RelationIndex, rel: number): boolean {
+  let memo = symmetricMemo.get(index);
+  if (!memo) symmetricMemo.set(index, (memo = new Map()));
+  const known = memo.get(rel);
+  if (known !== undefined) return known;
+  const ends = index.relationEnds();
+  const total = Math.max(ends.edges(rel), 1);
+  const at = (object: boolean) => new Set(ends.types(rel, object).filter((e) => e.count / total >= END_SHARE).map((e) => e.type));
+  const [s, o] = [at(false), at(true)];
+  const same = s.size > 0 && s.size === o.size && [...s].every((t) => o.has(t));
+  memo.set(rel, same);
+  return same;
+}
+
 function chainFitOf(
   chains: readonly CueChain[],
   clues: readonly Clue[],
@@ -637,8 +656,21 @@ function chainFitOf(
     const hops = ch.steps.map((st) => st.options);
     // intermediate types (a type noun between two relation words); the last hop's node is the answer
     const typeSets = ch.steps.map((st, h) => (h < ch.steps.length - 1 && st.types.length > 0 ? new Set(st.types) : undefined));
-    const typed = typeSets.some((t) => t !== undefined);
-    const keep = (h: number, v: number) => typeSets[h] === undefined || index.isA(v, typeSets[h]!);
+    // a count on a hop ("whose only neighbour is C": ChainStep.only): the node it reaches has exactly that many edges of the hop's relations back towards the clue
+    const counts = ch.steps.map((st) => st.only);
+    const typed = typeSets.some((t) => t !== undefined) || counts.some((n) => n !== undefined);
+    // the partners counted are v's neighbours over the hop's relations back towards the clue;
+    // a relation with the same types at both ends ("borders") counts them either way, once each
+    const countOk = (h: number, v: number): boolean => {
+      const n = counts[h];
+      if (n === undefined) return true;
+      const partners = new Set<number>();
+      index.forEach(v, (w, rel, inverse) => {
+        if (hops[h]!.some((o) => o.relation === rel && (o.inverse !== inverse || symmetricEnds(index, rel)))) partners.add(w);
+      });
+      return partners.size === n;
+    };
+    const keep = (h: number, v: number) => (typeSets[h] === undefined || index.isA(v, typeSets[h]!)) && countOk(h, v);
     const base = { ...options.chainReach };
     const typedExact = typed ? chainReach(index, clue.node, hops, { ...base, directed: true, keep }) : null;
     const exact = chainReach(index, clue.node, hops, { ...base, directed: true });
