@@ -50,6 +50,11 @@ export interface Salience {
 
 const cache = new WeakMap<RelationIndex, Salience>();
 
+/** Takes `s` as the salience of `index` at the default options (read from the snapshot, snapshot.ts). */
+export function adoptSalience(index: RelationIndex, s: Salience): void {
+  cache.set(index, s);
+}
+
 /**
  * The salience of every node of `index` (computed on first use with the default options, then
  * kept). With `stop` (a question's time budget, asked after each power iteration) the

@@ -12,6 +12,7 @@ import { Catalog, loadFiles } from "../catalog/index.js";
 import { openIndex, readSnapshot, snapshotPath, type IndexProgress, type RelationIndex } from "./index.js";
 import { crc32, crc32Table } from "./snapshot.js";
 import { walkTables, DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
+import { salienceOf } from "./salience.js";
 
 const dir = mkdtempSync(join(tmpdir(), "tiepoint-snap-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -97,6 +98,24 @@ describe("openIndex and the PATH.idx snapshot", () => {
       }
       // hub[v] = deg(v)^(−1/2) (transition.ts), e.g. the lab with two members: 2^(−1/2)
       expect(Math.max(...Array.from(stored.hub).filter((h) => h < 1))).toBeCloseTo(Math.SQRT1_2, 12);
+    } finally {
+      cat.close();
+    }
+  });
+
+  it("stores the salience: the loaded PageRank and percentiles equal the ones computed from the index", () => {
+    const cat = freshCatalog("s.db");
+    try {
+      const stored = salienceOf(savedIndex(cat));
+      const fresh = salienceOf(openIndex(cat, { noSnapshot: true }));
+      expect(Array.from(stored.pagerank)).toEqual(Array.from(fresh.pagerank));
+      expect(Array.from(stored.percentile)).toEqual(Array.from(fresh.percentile));
+      expect(stored.iterations).toBe(fresh.iterations);
+      // PageRank sums to 1 over the linked entities; here each of the three has two adjacency
+      // entries, so their ranks tie and share the lower percentile, 0 (salience.ts)
+      expect(Array.from(stored.pagerank).reduce((a, b) => a + b, 0)).toBeCloseTo(1, 9);
+      expect(Array.from(stored.pagerank).filter((x) => x > 0)).toHaveLength(3);
+      expect(Array.from(stored.percentile).every((x) => x === 0)).toBe(true);
     } finally {
       cat.close();
     }

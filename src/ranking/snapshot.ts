@@ -12,7 +12,7 @@
  *
  *   offset size  field
  *   0      8     magic "TPRIDX\0\1"
- *   8      4     format version (u32, = 3)
+ *   8      4     format version (u32, = 4)
  *   12     4     header length in bytes (u32, = 128)
  *   16     8     catalog generation (f64)
  *   24     4     nodeCount n (u32)
@@ -33,7 +33,10 @@
  *                (about 0.8 s at 1,000,000 nodes / 5,000,000 edges); then the
  *                relation-end type table (relation-index.ts `RelationEndTable`, about
  *                0.2 s to count at that size): totals f64[2·max(relationCount, 1)],
- *                keys i32[k], types i32[k], counts f64[k]
+ *                keys i32[k], types i32[k], counts f64[k]; then the salience at the default
+ *                options (salience.ts, a global PageRank by power iteration: 1.0 s at M,
+ *                ~10 s at L, which a question process would otherwise run before its first
+ *                suggestions): iterations f64, pagerank f64[n], percentile f32[n]
  *
  * Writing goes to a temporary file in the same folder, fsync, then rename over `PATH.idx`
  * (atomic on POSIX), so a reader sees the old file or the new one, never half of one.
@@ -47,11 +50,12 @@ import * as zlib from "node:zlib";
 import type { Catalog } from "../catalog/index.js";
 import { RelationIndex, csrOf, type Csr, type IndexProgressFn, type RelationEndTable } from "./relation-index.js";
 import { adoptWalkTables, walkTables, DEFAULTS as TRANSITION_DEFAULTS, type WalkTables } from "./transition.js";
+import { adoptSalience, salienceOf, type Salience } from "./salience.js";
 
 /** Snapshot format constants. */
 export const SNAPSHOT = Object.freeze({
   magic: "TPRIDX\u0000\u0001",
-  version: 3,
+  version: 4,
   headerLength: 128,
   /** File name suffix beside the catalog. */
   suffix: ".idx",
@@ -89,8 +93,8 @@ export type SnapshotRead = { readonly ok: true; readonly index: RelationIndex } 
 
 const align8 = (x: number) => (x + 7) & ~7;
 
-function sections(c: Csr, w: WalkTables, e: RelationEndTable): ArrayBufferView[] {
-  return [c.offsets, c.targets, c.links, c.typeOffsets, c.typeList, c.superOffsets, c.superList, new Float64Array([w.hubExponent]), w.hub, w.rowTotal, w.measure, w.scaled, w.hubAt, e.totals, e.keys, e.types, e.counts];
+function sections(c: Csr, w: WalkTables, e: RelationEndTable, s: Salience): ArrayBufferView[] {
+  return [c.offsets, c.targets, c.links, c.typeOffsets, c.typeList, c.superOffsets, c.superList, new Float64Array([w.hubExponent]), w.hub, w.rowTotal, w.measure, w.scaled, w.hubAt, e.totals, e.keys, e.types, e.counts, new Float64Array([s.iterations]), s.pagerank, s.percentile];
 }
 
 /** Writes the snapshot of `index` for the catalog stamp `(uid, generation)` atomically to `file`. */
@@ -106,7 +110,7 @@ export function writeSnapshotTemp(file: string, index: RelationIndex, stamp: { u
   if (endianness() !== "LE") throw new RangeError("ranking/snapshot: snapshots are little-endian; this machine is big-endian");
   const c = csrOf(index);
   const ends = index.endTable();
-  const parts = sections(c, walkTables(index, TRANSITION_DEFAULTS.hubExponent), ends);
+  const parts = sections(c, walkTables(index, TRANSITION_DEFAULTS.hubExponent), ends, salienceOf(index));
   let length = SNAPSHOT.headerLength;
   for (const p of parts) length += align8(p.byteLength);
   const header = Buffer.alloc(SNAPSHOT.headerLength);
@@ -194,7 +198,7 @@ export function readSnapshot(file: string, stamp: { uid: string; generation: num
     const expected = header.readDoubleLE(48);
     const k = header.readUInt32LE(124);
     const R = Math.max(relationCount, 1);
-    const lengths = [4 * (n + 1), 4 * m, 4 * m, 4 * (n + 1), 4 * nt, 4 * (n + 1), 4 * ns, 8, 8 * n, 8 * n, 8 * n, 8 * m, 8 * m, 16 * R, 4 * k, 4 * k, 8 * k];
+    const lengths = [4 * (n + 1), 4 * m, 4 * m, 4 * (n + 1), 4 * nt, 4 * (n + 1), 4 * ns, 8, 8 * n, 8 * n, 8 * n, 8 * m, 8 * m, 16 * R, 4 * k, 4 * k, 8 * k, 8, 8 * n, 4 * n];
     let length = SNAPSHOT.headerLength;
     for (const l of lengths) length += align8(l);
     if (length !== expected || size !== expected) return { ok: false, reason: "torn", detail: `file has ${size} bytes, its header promises ${expected} (arrays need ${length})` };
@@ -238,6 +242,8 @@ export function readSnapshot(file: string, stamp: { uid: string; generation: num
       hubAt: take(f64, lengths[12]!),
     };
     const ends: RelationEndTable = { totals: take(f64, lengths[13]!), keys: take(i32, lengths[14]!), types: take(i32, lengths[15]!), counts: take(f64, lengths[16]!) };
+    const iterations = take(f64, lengths[17]!)[0]!;
+    const salience: Salience = { iterations, pagerank: take(f64, lengths[18]!), percentile: take((b, o, bytes) => new Float32Array(b, o, bytes / 4), lengths[19]!) };
     for (let i = 0; i < k; i++) {
       const key = ends.keys[i]!;
       if (!(key >= 0 && key < 2 * R) || (i > 0 && key < ends.keys[i - 1]!)) return { ok: false, reason: "torn", detail: "relation-end table out of order" };
@@ -245,6 +251,7 @@ export function readSnapshot(file: string, stamp: { uid: string; generation: num
     const index = new RelationIndex(csr);
     adoptWalkTables(index, walk);
     index.adoptEndTable(ends);
+    adoptSalience(index, salience);
     return { ok: true, index };
   } finally {
     closeSync(fd);
