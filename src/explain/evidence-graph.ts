@@ -316,6 +316,9 @@ export function evidenceSubgraph(
   const da = sc.answerHops;
   for (let d = 0, i = 0; d < fromAnswers.ends.length; d++) for (; i < fromAnswers.ends[d]!; i++) da[fromAnswers.seen[i]!] = d + 1;
   const endpoints = new Set([...clueNodes, ...answers].filter((x) => x >= 0 && x < graph.nodeCount));
+  // the kept nodes as bits: the endpoints now, the inner nodes once chosen
+  const kept = sc.keptBits;
+  for (const x of endpoints) kept[x >>> 5]! |= 1 << (x & 31);
   // in the clues' BFS order, with each node's dist(clues) + dist(answers)
   let inner: number[] = [];
   const sums: number[] = [];
@@ -323,7 +326,7 @@ export function evidenceSubgraph(
   for (let d = 0, i = 0; d < fromClues.ends.length; d++) {
     for (; i < fromClues.ends[d]!; i++) {
       const x = fromClues.seen[i]!;
-      if (!hasBit(answerBits, x) || endpoints.has(x)) continue;
+      if (!hasBit(answerBits, x) || hasBit(kept, x)) continue;
       const sum = d + da[x]! - 1;
       if (sum <= o.maxHops) {
         inner.push(x);
@@ -334,20 +337,12 @@ export function evidenceSubgraph(
   for (let i = 0; i < fromAnswers.count; i++) da[fromAnswers.seen[i]!] = 0;
   clearBits(sc.clueBits, fromClues.seen, fromClues.count);
   clearBits(sc.answerBits, fromAnswers.seen, fromAnswers.count);
-  if (inner.length > o.maxNodes) {
-    // fewest hops first, then lowest num: one packed key per node (hops · 2^31 + num, exact
-    // in a double) sorted numerically, instead of a comparator reading both distances
-    const packed = new Float64Array(inner.length);
-    for (let i = 0; i < inner.length; i++) packed[i] = sums[i]! * 2147483648 + inner[i]!;
-    packed.sort();
-    inner = Array.from(packed.subarray(0, o.maxNodes), (k) => k % 2147483648);
-  }
+  if (inner.length > o.maxNodes) inner = fewestHops(inner, sums, o.maxNodes, o.maxHops);
   const nodes = Int32Array.from([...endpoints, ...inner]).sort();
   const N = nodes.length;
   const local = sc.local;
   // the kept nodes also as bits: the row scans below test every entry, and the bit array
   // stays in cache where the node-indexed local ids would cost a miss per entry on a large graph
-  const kept = sc.keptBits;
   for (let i = 0; i < N; i++) {
     local[nodes[i]!] = i;
     kept[nodes[i]! >>> 5]! |= 1 << (nodes[i]! & 31);
@@ -464,6 +459,28 @@ export function evidenceSubgraph(
   const tails = new Int32Array(k);
   for (let u = 0; u + 1 < offsets.length; u++) for (let e = offsets[u]!; e < offsets[u + 1]!; e++) tails[e] = u;
   return new EvidenceSubgraph(nodes, N, offsets, heads.subarray(0, k), tails, costs.subarray(0, k), rels.subarray(0, k), invs.subarray(0, k));
+}
+
+/**
+ * The `max` nodes of `nodes` with the fewest hops (`sums`, whole numbers 0…maxHops), ties by
+ * lowest num, as a set (in no particular order: the caller sorts the kept nodes by num): the
+ * hop counts below the cut whole, the cut's own hop count by lowest num.
+ */
+function fewestHops(nodes: readonly number[], sums: readonly number[], max: number, maxHops: number): number[] {
+  const perSum = new Int32Array(maxHops + 1);
+  for (const x of sums) perSum[x]!++;
+  let cut = 0;
+  let below = 0;
+  while (below + perSum[cut]! < max) below += perSum[cut++]!;
+  const out: number[] = [];
+  const atCut: number[] = [];
+  for (let i = 0; i < nodes.length; i++) {
+    if (sums[i]! < cut) out.push(nodes[i]!);
+    else if (sums[i] === cut) atCut.push(nodes[i]!);
+  }
+  const lowest = Int32Array.from(atCut).sort();
+  for (let i = 0; i < max - below; i++) out.push(lowest[i]!);
+  return out;
 }
 
 /**
