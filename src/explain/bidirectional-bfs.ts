@@ -18,6 +18,7 @@
  * Pohl, "Bi-directional Search", Machine Intelligence 6, 1971 (the bidirectional scheme);
  * Moore 1959 (breadth-first search).
  */
+import { linkInverse, linkRelation } from "../ranking/index.js";
 import type { PathCostModel } from "./path-cost.js";
 import { scratch } from "./scratch.js";
 import type { WalkGraph } from "./types.js";
@@ -68,8 +69,8 @@ export function cheapestStep(graph: WalkGraph, cost: PathCostModel, u: number, v
     }
     let found: NumStep | undefined;
     for (let i = 0; i < keys.length; i++) {
-      const rel = keys[i]! >>> 1;
-      const inverse = (keys[i]! & 1) === 1;
+      const rel = linkRelation(keys[i]!);
+      const inverse = linkInverse(keys[i]!);
       const c = ps[i]! > 0 ? cost.hopCost - Math.log(ps[i]!) : Infinity;
       if (found === undefined || c < found.cost || (c === found.cost && (rel < found.rel || (rel === found.rel && !inverse && found.inverse)))) {
         found = { from: u, to: v, rel, inverse, cost: c };

@@ -34,7 +34,7 @@
 import { DirectedGraph } from "graphology";
 import type { ArcGraph } from "./dijkstra.js";
 import type { FlatRows, PathCostModel } from "./path-cost.js";
-import { grown } from "../ranking/index.js";
+import { grown, linkInverse, linkRelation } from "../ranking/index.js";
 import type { WalkGraph } from "./types.js";
 
 /** Options of {@link buildEvidenceGraph}; all optional. */
@@ -394,7 +394,7 @@ export function evidenceSubgraph(
         const v = targets[e]!;
         if ((kept[v >>> 5]! & (1 << (v & 31))) === 0 || v === u) continue;
         const l = links[e]!;
-        keep(v, local[v]!, u, ui, l >>> 1, (l & 1) === 1, total > 0 ? walk.weight(e) / total : 0);
+        keep(v, local[v]!, u, ui, linkRelation(l), linkInverse(l), total > 0 ? walk.weight(e) / total : 0);
       }
     } else {
       cost.forEachProbability(u, (v, rel, inverse, p) => {

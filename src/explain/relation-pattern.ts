@@ -14,6 +14,7 @@
  * word, as in SPARQL 1.1 property paths (W3C Recommendation 2013, §9: sequence paths and
  * inverse paths `^p`); the frontier-by-frontier evaluation is common practice.
  */
+import { packLink } from "../ranking/index.js";
 import type { FlatRows } from "./path-cost.js";
 import { scratch } from "./scratch.js";
 import type { WalkGraph } from "./types.js";
@@ -60,7 +61,7 @@ export function matchPattern(graph: WalkGraph, start: number, pattern: readonly 
       : (u: number, want: number, hit: (v: number) => boolean | void): void => {
           let done = false;
           graph.forEach(u, (v, rel, inverse) => {
-            if (!done && rel * 2 + (inverse ? 1 : 0) === want && hit(v) === true) done = true;
+            if (!done && packLink(rel, inverse) === want && hit(v) === true) done = true;
           });
         };
   const targets = options.targets;
@@ -68,7 +69,7 @@ export function matchPattern(graph: WalkGraph, start: number, pattern: readonly 
   let front: number[] = start >= 0 && start < graph.nodeCount ? [start] : [];
   for (let i = 0; i < forward && front.length > 0; i++) {
     const step = pattern[i]!;
-    const want = step.rel * 2 + (step.inverse ? 1 : 0);
+    const want = packLink(step.rel, step.inverse);
     const seen = scratch(graph, 5);
     const next: number[] = [];
     for (const u of front) {

@@ -10,7 +10,7 @@ export type { IndexProgress, IndexProgressFn, RelationEndTable } from "./relatio
 export { openIndex, snapshotPath, readSnapshot, writeSnapshot, writeSnapshotTemp, SNAPSHOT } from "./snapshot.js";
 export { IndexBuilder } from "./index-builder.js";
 export type { OpenIndexOptions, SnapshotRead, SnapshotRejection } from "./snapshot.js";
-export { transition, DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
+export { linkInverse, linkRelation, packLink, transition, DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
 export type { Transition, TransitionOptions, TransitionRows } from "./transition.js";
 export { PPR_DEFAULTS } from "./ppr-options.js";
 export type { Seed, PprOptions, SparseScores } from "./ppr-options.js";

@@ -126,6 +126,25 @@ export interface TransitionRows {
 }
 
 /**
+ * The packed link of an adjacency entry (`TransitionRows.links[e]`): relation num · 2 + 1 when
+ * the entry walks its stored triple backwards. Relation nums must be below 2^31 (links are
+ * 32-bit unsigned); {@link linkRelation} and {@link linkInverse} read it back.
+ */
+export function packLink(rel: number, inverse: boolean): number {
+  return rel * 2 + (inverse ? 1 : 0);
+}
+
+/** The relation num of a packed link ({@link packLink}). */
+export function linkRelation(link: number): number {
+  return link >>> 1;
+}
+
+/** True when a packed link ({@link packLink}) walks its stored triple backwards. */
+export function linkInverse(link: number): boolean {
+  return (link & 1) === 1;
+}
+
+/**
  * The walk's precomputed arrays for one β (what the relation-index snapshot stores, so a
  * query process does not rebuild them): per node deg^(−β), the unit-weight row total W₁ and
  * the measure μ₀; per adjacency entry hub[target]/μ₀(target) and hub[target].
