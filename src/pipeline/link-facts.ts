@@ -20,8 +20,9 @@
  * `maxSenses` such mentions are evaluated: the question is read again with the mention pinned
  * to the other sense, and the answers that satisfy that reading (ranking `Ranked.matched`,
  * after the conditions' filters) are the other sense's answers — when every clue of that
- * reading is held by a relation-path pattern (otherwise the reading selects nothing and the
- * other sense is not evaluated).
+ * reading is held by a relation-path pattern, or, for an other sense of the very same name,
+ * when the reading matched with a clue held by a neighbour constraint (otherwise the reading
+ * selects nothing and the other sense is not evaluated).
  *
  * A name in close apposition after a common noun ("the engineer Ilse Varrick", "the vessel
  * Harnesk": Quirk, Greenbaum, Leech & Svartvik 1985, *A Comprehensive Grammar of the English
@@ -86,8 +87,9 @@ export interface LinkFactsSource {
   /**
    * The answers of the question with mention text `text` read as entity `id` that satisfy the
    * reading (empty: none does); null when it cannot be evaluated (a value question, the time budget).
+   * `sameName`: the entity has the very label of the mention's chosen one (two senses of one name).
    */
-  readonly otherSense: (text: string, id: string) => readonly EntityRef[] | null;
+  readonly otherSense: (text: string, id: string, sameName: boolean) => readonly EntityRef[] | null;
 }
 
 /** The link facts of one question (see the file header). */
@@ -129,7 +131,7 @@ export function linkFacts(
     const next = m.alternatives[0];
     if (!next || next.confidence < faintRatio * m.confidence || doubts.length >= maxSenses) continue;
     const other = { id: next.id, label: next.label, confidence: next.confidence };
-    doubts.push({ mention: { ...base, next: other }, answers: source.otherSense(m.text, next.id), modified: closeAppositive(question, m.start) });
+    doubts.push({ mention: { ...base, next: other }, answers: source.otherSense(m.text, next.id, next.label === m.entity.label), modified: closeAppositive(question, m.start) });
   }
   // names written like one that nothing linked to (linking notFound, `linked: false`): the answer cannot rest on them
   const unlinked: MentionFacts[] = link.notFound

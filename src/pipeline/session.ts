@@ -233,7 +233,7 @@ export class Session {
     // the link facts of the verdict: names not found, senses in doubt (each evaluated once more)
     const facts = linkFacts(question, analysis, ranked.clues, link, {
       names: (num) => this.catalog.aliasRows(num).map((r) => r[0]),
-      otherSense: (text, id) => (deadline.stop("other senses") ? null : this.otherSenseAnswers(question, text, id, options.pins ?? [], deadline)),
+      otherSense: (text, id, sameName) => (deadline.stop("other senses") ? null : this.otherSenseAnswers(question, text, id, options.pins ?? [], deadline, sameName)),
     });
     const verdictContext: VerdictContext = {
       reading: { graph: reading, matched: matchedNodes!, fallback: ranked.fallback === true, open: ranked.open ?? 0 },
@@ -342,12 +342,16 @@ export class Session {
    * The answers of the question with the words `text` read as entity `id` (pinned) that
    * satisfy that reading and its conditions (link-facts.ts); null for a value question.
    */
-  private otherSenseAnswers(question: string, text: string, id: string, pins: readonly Pin[], deadline: Deadline): EntityRef[] | null {
+  private otherSenseAnswers(question: string, text: string, id: string, pins: readonly Pin[], deadline: Deadline, sameName = false): EntityRef[] | null {
     const link = capMentions(linkQuestion(question, this.linker, { pins: [...pins, { text, entity: id }] }));
     const { ranked, conditions, matchedNodes, reading } = this.readAndRank(question, link, deadline);
     if (!ranked || !matchedNodes) return null;
-    // a reading with a clue no pattern holds selects nothing: the other sense is not evaluated
-    if (!readingHolds(reading, ranked)) return null;
+    // a reading with a clue no pattern holds selects nothing: the other sense is not evaluated —
+    // unless the other sense has the very same name and the reading matched, a clue held by a
+    // neighbour constraint included ("In which country is the city of Kingston?": both cities
+    // are one hop from their country); a sense of another name ("Americas" for "South
+    // American") is held to the full reading
+    if (!readingHolds(reading, ranked) && !(sameName && ranked.fallback !== true && matchedNodes.size > 0 && reading.chains.every((ch) => ch.steps.length <= VERDICT_DEFAULTS.maxSteps))) return null;
     // a count: the counted entities; otherwise the entities that satisfy the reading and the conditions
     const nodes = conditions?.count ? conditions.count.entities : ranked.candidates.map((c) => c.node).filter((n) => matchedNodes.has(n));
     return nodes.map((n) => this.ref(n));
