@@ -245,6 +245,27 @@ describe.skipIf(!HAVE_VIRTUOSO)("a catalog attached to a SPARQL store (Virtuoso 
     expect(readFileSync(html, "utf8")).toContain("<html");
   });
 
+  it("the reading's exact matches, asked of the store as one SPARQL query, hold the gold answer and middle entity (test/fixtures/eval/world.tsv w001, w002)", async () => {
+    const { Session, StoreEdges } = await import("../src/pipeline/index.js");
+    const s = Session.open({ db: attached });
+    try {
+      const edges = s.edges as InstanceType<typeof StoreEdges>;
+      const ids = async (q: string) => new Set((await edges.readingMatches(s.readingOf(q, undefined)))!.map((n) => s.ref(n).id));
+      // w001: SELECT ?x WHERE { ?c w:capital city:VNM ; w:currency ?x } — the gold cur:VND through c:VNM
+      const a = await ids("What is the currency of the country whose capital is Hanoi?");
+      expect(a.has("http://world.example/currency/VND")).toBe(true);
+      expect(a.has("http://world.example/country/VNM")).toBe(true);
+      // w002: SELECT ?x WHERE { ?c w:currency cur:MGA ; w:capital ?x } — Antananarivo through Madagascar
+      const b = await ids("What's the capital of the country that uses the Malagasy ariary?");
+      expect(b.has("http://world.example/city/MDG")).toBe(true);
+      expect(b.has("http://world.example/country/MDG")).toBe(true);
+      // a one-hop reading has no variable: its matches are in the clue's own row, nothing is asked
+      expect(await edges.readingMatches(s.readingOf("What is the capital of Kenya?", undefined))).toBeUndefined();
+    } finally {
+      s.close();
+    }
+  });
+
   it("a hostile label is asked about and shown through the store like any other", async () => {
     const r = await run(["ask", 'Which country borders "Quote " and backslash \\ and > and } and # end"?', "--db", attached, "--json"]);
     expect(r.status, r.stderr).toBe(0);

@@ -28,10 +28,11 @@ export interface QuestionRun {
   readonly reading?: QueryGraph;
 }
 
-/** What a session gives its edge access: the catalog-wide relation index (types, degrees) and the linker. */
+/** What a session gives its edge access: the catalog-wide relation index (types, degrees), the linker, and the reading of a question without ranking it. */
 export interface EdgeContext {
   readonly index: RelationIndex;
   readonly linker: Linker;
+  readingOf?(question: string, pins: readonly Pin[] | undefined): QueryGraph;
 }
 
 /** Counts of the relation edges, for `stats` and titles. */

@@ -302,12 +302,10 @@ export class Session {
    * Reads a linked question (analysis, conditions, the query graph) and, unless it is a value
    * or comparison question, ranks it and applies its conditions.
    */
-  private readAndRank(question: string, link: LinkResult, deadline: Deadline, dropClues?: readonly number[]): ReadAndRank {
-    // conditions (comparisons, superlatives, exclusions, counts): src/analysis/conditions.ts
-    // the attribute vocabulary (a scan of every literal) is read only when the condition
-    // detector reaches a quantity or dimension word, not for every question's first ask
+  /** The attribute vocabulary for the condition detector, read only when it reaches a quantity or dimension word (a scan of every literal), not for every question's first ask. */
+  private lazyAttributes(): AttributeModel {
     const session = this;
-    const lazyAttributes: AttributeModel = {
+    return {
       get attributes() {
         return session.attributes().attributes;
       },
@@ -316,8 +314,18 @@ export class Session {
       },
       textValues: (p: number, texts: readonly string[]) => session.catalog.attributeValuesIn(p, texts),
     };
+  }
+
+  /** The reading (query graph) of a question, without ranking it (an attached catalog sends it to its store before the first run, store-edges.ts). */
+  readingOf(question: string, pins: readonly Pin[] | undefined): QueryGraph {
+    const link = capMentions(linkQuestion(question, this.linker, pins !== undefined ? { pins } : {}));
+    return readQuestion(detectConditions(analyze(question, link, this.model), this.model, this.lazyAttributes()), this.model);
+  }
+
+  private readAndRank(question: string, link: LinkResult, deadline: Deadline, dropClues?: readonly number[]): ReadAndRank {
+    // conditions (comparisons, superlatives, exclusions, counts): src/analysis/conditions.ts
     const t0 = performance.now();
-    const cond = detectConditions(analyze(question, link, this.model), this.model, lazyAttributes);
+    const cond = detectConditions(analyze(question, link, this.model), this.model, this.lazyAttributes());
     const analysis = cond.analysis;
     const reading = readQuestion(cond, this.model);
     const readMs = performance.now() - t0;

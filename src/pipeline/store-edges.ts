@@ -431,15 +431,21 @@ export class StoreEdges implements EdgeAccess {
         if (num !== undefined) ring.add(num);
       }
     }
+    // the reading's exact matches, asked of the store while the rings are pulled; their rows go with the last ring
+    const reading = ctx.readingOf?.(question, pinned);
+    const matches = reading ? this.readingMatches(reading) : Promise.resolve(undefined);
+    matches.catch(() => undefined); // awaited below; a failure is reported there
     await this.pull(ring);
     const visited = new Set(ring);
     for (let r = 0; r < DEFAULTS.rings && ring.size > 0; r++) {
       ring = this.nextRing(ring, visited);
       if (!this.ringFits(ring, r + 1)) break;
-      await this.pull(ring);
+      if (r + 1 < DEFAULTS.rings) await this.pull(ring);
+      else break;
     }
-    // 3. the pipeline on the pulled neighbourhood; the reading's exact matches (asked of the
-    // store) and what it still asked for are pulled and it runs again
+    await this.pull([...(ring.size > 0 && this.figures.ringsCut === undefined ? ring : []), ...((await matches) ?? [])]);
+    // 3. the pipeline on the pulled neighbourhood; what it still asked for, and the rings of
+    // answers a clue does not reach, are pulled and it runs again
     let out: O;
     let answersExpanded = false;
     for (let round = 0; ; round++) {
@@ -449,8 +455,6 @@ export class StoreEdges implements EdgeAccess {
       const need = new Set(this.takeDemand());
       if (!answersExpanded) {
         answersExpanded = true;
-        const matches = out.reading ? await this.readingMatches(out.reading) : undefined;
-        for (const n of matches ?? []) if (!this.pulled.has(n)) need.add(n);
         const clues = out.result.mentions.length;
         const unreached = out.result.answers.slice(0, DEFAULTS.answerRings).filter((a) => new Set(a.paths.map((p) => p.from)).size < clues);
         if (unreached.length > 0) {

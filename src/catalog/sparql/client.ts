@@ -101,7 +101,7 @@ export class SparqlClient {
   }
 
   /** Runs one SELECT query. */
-  async select(query: string): Promise<SelectResult> {
+  async select(query: string, retried = false): Promise<SelectResult> {
     const t0 = performance.now();
     const headers: Record<string, string> = { accept: "application/sparql-results+json", "content-type": "application/x-www-form-urlencoded" };
     if (this.#auth) headers.authorization = this.#auth;
@@ -114,6 +114,8 @@ export class SparqlClient {
       const err = e as { name?: string; cause?: { code?: string; message?: string }; message?: string };
       if (err.name === "TimeoutError" || err.name === "AbortError") this.fail("timeout", `no answer within ${this.timeoutMs} ms (--timeout)`);
       const code = err.cause?.code;
+      // a kept-alive connection the store had closed meanwhile: a SELECT is safe to send once more on a new one
+      if (!retried && (code === "ECONNRESET" || code === "UND_ERR_SOCKET")) return this.select(query, true);
       const why =
         code === "ECONNREFUSED"
           ? "connection refused (is the store running?)"
