@@ -56,6 +56,18 @@ export interface Analysis {
   readonly typeWords?: readonly TypeWord[];
   /** UTF-16 spans of the words the answer type was read from (wh-word and head noun phrase). @default none */
   readonly answerTypeWords?: readonly { readonly start: number; readonly end: number }[];
+  /** Which of `notes` say what the analysis could not find (a later stage that explains it drops that note by this record, not by its wording). @default none */
+  readonly noteFacts?: NoteFacts;
+}
+
+/** The notes of an analysis that report something missing, each as the note string it made. */
+export interface NoteFacts {
+  /** No answer-type filter: no question word, or a head noun (or none) naming no type. */
+  readonly answerTypeGap?: { readonly kind: "no-question-word" | "head-noun"; readonly note: string };
+  /** Words that matched no catalog entity (not read as relation words). */
+  readonly unmatched: readonly { readonly text: string; readonly note: string }[];
+  /** No clue entity was linked. */
+  readonly noClue?: string;
 }
 
 /** Options of {@link analyze}; all optional. */
@@ -151,12 +163,18 @@ export function analyze(question: string, linked: LinkResult, model: QuestionMod
     if (head !== undefined) notes.push(`"${m.text}" qualifies "${link.mentions[head]!.text}": weighed as a weaker clue`);
     clues.push({ node: m.num, id: m.entity.id, label: m.entity.label, weight: m.confidence * (head !== undefined ? modifierWeight : 1), mention: i });
   });
+  const unmatched: { text: string; note: string }[] = [];
   for (const u of link.unlinked) {
     const near = u.suggestions.slice(0, 3).map((s) => s.label).join(", ");
     if (u.relationWord) notes.push(`"${u.text}" read as a relation word, not a name${near !== "" ? ` (it only resembles ${near})` : ""}`);
-    else notes.push(`"${u.text}" matched no catalog entity${near !== "" ? ` (did you mean ${near}?)` : ""}`);
+    else {
+      const note = `"${u.text}" matched no catalog entity${near !== "" ? ` (did you mean ${near}?)` : ""}`;
+      notes.push(note);
+      unmatched.push({ text: u.text, note });
+    }
   }
-  if (clues.length === 0) notes.push("no clue entity linked: nothing to start from");
+  const noClue = clues.length === 0 ? "no clue entity linked: nothing to start from" : undefined;
+  if (noClue !== undefined) notes.push(noClue);
 
   // a head noun naming a relation, not a type: the answer is typed like that relation's far end
   let typeNums = at.types;
@@ -197,5 +215,12 @@ export function analyze(question: string, linked: LinkResult, model: QuestionMod
     return { num: t, id: mt.id, label: mt.label };
   });
   const answerTypeWords = [...at.usedWords, ...(at.headPhrase ?? [])].sort((a, b) => a - b).map((k) => ({ start: ws[k]!.start, end: ws[k]!.end }));
-  return { question, mentions: link.mentions, answerTypes, answerTypeSource: typeSource, relationCues: cues, clues, notes, typeWords, answerTypeWords };
+  // the answer-type gap, while its note stands (a relation or a far end may have replaced it above)
+  const gapNote = at.gap !== undefined ? at.notes[0] : undefined;
+  const noteFacts: NoteFacts = {
+    ...(at.gap !== undefined && gapNote !== undefined && notes.includes(gapNote) ? { answerTypeGap: { kind: at.gap, note: gapNote } } : {}),
+    unmatched,
+    ...(noClue !== undefined ? { noClue } : {}),
+  };
+  return { question, mentions: link.mentions, answerTypes, answerTypeSource: typeSource, relationCues: cues, clues, notes, typeWords, answerTypeWords, noteFacts };
 }

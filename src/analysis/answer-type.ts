@@ -41,6 +41,8 @@ export interface AnswerTypeResult {
   readonly notes: readonly string[];
   /** Indexes of the head noun phrase's words when it named no type (a relational noun may stand there: "the *capital* of"). */
   readonly headPhrase?: readonly number[];
+  /** Why there is no answer-type filter, when `notes[0]` says so: no question word, or a head noun (or none) that names no type. */
+  readonly gap?: "no-question-word" | "head-noun";
 }
 
 const { WH_WHICH, WH_PERSON, WH_PLACE, IMPERATIVE, SKIP, COPULA, CLAUSE } = ANSWER_TYPE_WORDS;
@@ -64,7 +66,7 @@ export function detectAnswerType(ws: readonly Word[], blocked: readonly boolean[
       break;
     }
   }
-  if (wh < 0) return { types: [], source: "none", usedWords: [], notes: ["no question word (which/what/who/where/name…) found: no answer-type filter"] };
+  if (wh < 0) return { types: [], source: "none", usedWords: [], notes: ["no question word (which/what/who/where/name…) found: no answer-type filter"], gap: "no-question-word" };
 
   // the head noun phrase window
   let i = wh + 1;
@@ -103,6 +105,7 @@ export function detectAnswerType(ws: readonly Word[], blocked: readonly boolean[
     source: "none",
     usedWords: [wh],
     notes: [np === "" ? "no head noun after the question word: no answer-type filter" : `"${np}" names no type of the catalog: no answer-type filter`],
+    gap: "head-noun",
     headPhrase: phrase,
   };
 }

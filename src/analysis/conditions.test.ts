@@ -9,7 +9,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Catalog, loadFiles } from "../catalog/index.js";
-import { buildAttributeModel, buildQuestionModel, detectConditions, type Analysis, type AttributeModel, type ComparisonCondition, type QuestionModel } from "./index.js";
+import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, type Analysis, type AttributeModel, type ComparisonCondition, type QuestionModel } from "./index.js";
 
 let cat: Catalog;
 let model: QuestionModel;
@@ -87,5 +87,22 @@ describe("detectConditions", () => {
     const c = r.conditions[0] as ComparisonCondition;
     expect(c.choices).toEqual([]);
     expect(r.analysis.notes.some((n) => /no attribute of the catalog matches/.test(n))).toBe(true);
+  });
+
+  it("drops the analysis's notes of what it did not find by their records (analyze.ts noteFacts), not by wording", () => {
+    // "How many ships were built before 1980?": no question word (the count names the type), "1980" matched no entity (the comparison reads it)
+    const q = "How many ships were built before 1980?";
+    const a = analyze(q, { mentions: [], unlinked: [{ text: "1980", start: q.indexOf("1980"), end: q.indexOf("1980") + 4, suggestions: [] }] } as never, model);
+    expect(a.noteFacts?.answerTypeGap?.kind).toBe("no-question-word");
+    expect(a.noteFacts?.unmatched.map((u) => u.text)).toEqual(["1980"]);
+    expect(a.noteFacts?.noClue).toBeDefined();
+    for (const n of [a.noteFacts!.answerTypeGap!.note, a.noteFacts!.unmatched[0]!.note, a.noteFacts!.noClue!]) expect(a.notes).toContain(n);
+    const r = detectConditions(a, model, attributes);
+    expect(r.analysis.answerTypes.map((t) => t.id)).toEqual(["t:Ship"]);
+    // each note the conditions explain is gone: the type from "how many ships", the number, the clue-less start (every ship is a candidate)
+    for (const n of [a.noteFacts!.answerTypeGap!.note, a.noteFacts!.unmatched[0]!.note, a.noteFacts!.noClue!]) expect(r.analysis.notes).not.toContain(n);
+    // a note with the same wording but not recorded as a fact stays (no wording match)
+    const lookalike = { ...a, notes: [...a.notes, "no clue entity linked: nothing to start from (copied)"] };
+    expect(detectConditions(lookalike, model, attributes).analysis.notes).toContain("no clue entity linked: nothing to start from (copied)");
   });
 });

@@ -472,7 +472,8 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
     // the value or the comparison explains the question: no count, no superlative of its own words
     const span = direct.value ?? direct.compare!;
     const rest = conditions.filter((c) => c.kind === "exclusion" || c.end <= span.start || c.start >= span.end);
-    const notesLeft = analysis.notes.filter((n) => !/^"[^"]+" names no type of the catalog|^no question word|^no head noun/.test(n));
+    const gap = analysis.noteFacts?.answerTypeGap?.note;
+    const notesLeft = analysis.notes.filter((n) => n !== gap);
     return { analysis: { ...analysis, notes: notesLeft }, conditions: rest, ...direct };
   }
   if (conditions.length === 0) return { analysis, conditions };
@@ -500,13 +501,13 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   const usedSpans = [...used].map((k) => ws[k]!);
   const explained = (text: string) =>
     words(text).every((x) => usedSpans.some((w) => w.text === x.text) || quantities.some((q) => question.slice(q.start, q.end).includes(x.text)));
-  const baseNotes = analysis.notes.filter((n) => {
-    if (answerTypes !== analysis.answerTypes && /^no question word/.test(n)) return false;
-    const m = /^"([^"]+)" matched no catalog entity/.exec(n);
-    if (m && explained(m[1]!)) return false;
-    if (/^no clue entity linked/.test(n) && answerTypes.length > 0) return false;
-    return true;
-  });
+  // the analysis's notes of what it did not find (analyze.ts NoteFacts), dropped where the conditions explain it
+  const facts = analysis.noteFacts;
+  const dropped = new Set<string>();
+  if (answerTypes !== analysis.answerTypes && facts?.answerTypeGap?.kind === "no-question-word") dropped.add(facts.answerTypeGap.note);
+  for (const u of facts?.unmatched ?? []) if (explained(u.text)) dropped.add(u.note);
+  if (facts?.noClue !== undefined && answerTypes.length > 0) dropped.add(facts.noClue);
+  const baseNotes = analysis.notes.filter((n) => !dropped.has(n));
   for (const c of conditions) if (c.kind === "exclusion") notes.push(`"${c.words}": ${c.label} is excluded, not used as a clue`);
   return { analysis: { ...analysis, answerTypes, relationCues, clues, notes: [...baseNotes, ...notes] }, conditions };
 }

@@ -2,7 +2,7 @@
  * Question analysis: expected answer types, relation cues and clues of one linked question.
  */
 export { analyze, DEFAULTS as ANALYZE_DEFAULTS } from "./analyze.js";
-export type { Analysis, AnalyzeOptions, AnswerType, Clue } from "./analyze.js";
+export type { Analysis, AnalyzeOptions, AnswerType, Clue, NoteFacts } from "./analyze.js";
 export { buildQuestionModel } from "./question-model.js";
 export type { QuestionModel, QuestionModelOptions, ModelType, ModelRelation } from "./question-model.js";
 export { relationalAnswerType, DEFAULTS as RELATION_RANGE_DEFAULTS } from "./relation-range.js";
