@@ -144,6 +144,12 @@ describe("expected answer type", () => {
     expect(typeOf("Tolvane and the Lumen Ray").notes.join(" ")).toMatch(/no question word/);
   });
 
+  it("takes the type from the subject complement when the wh-phrase is a name ('Which X is the largest ship?')", () => {
+    const q = "Which Halo is the largest ship?";
+    const a = analyze(q, linked(q, [["Halo", "i:halo"]]), model);
+    expect(ids(a.answerTypes)).toEqual(["t:Vessel"]);
+  });
+
   it("never takes a word inside a linked mention as the head noun", () => {
     const ws = words("Which Vessel Works carries it?");
     const blocked = ws.map((w) => w.start >= 6 && w.end <= 18);

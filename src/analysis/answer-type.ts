@@ -81,7 +81,7 @@ export function detectAnswerType(ws: readonly Word[], blocked: readonly boolean[
     if (blocked[i] || CLAUSE.has(ws[i]!.norm)) break;
     phrase.push(i);
   }
-  const match = longestTypeMatch(ws, phrase, model, options.maxModifiers ?? DEFAULTS.maxModifiers) ?? headAfterModifiers(ws, blocked, i, window, model);
+  const match = longestTypeMatch(ws, phrase, model, options.maxModifiers ?? DEFAULTS.maxModifiers) ?? headAfterModifiers(ws, blocked, i, window, model) ?? copulaComplement(ws, blocked, i, model, options.maxModifiers ?? DEFAULTS.maxModifiers);
   const whWord = ws[wh]!.norm;
 
   if (WH_PERSON.has(whWord) || WH_PLACE.has(whWord)) {
@@ -138,6 +138,23 @@ function headAfterModifiers(ws: readonly Word[], blocked: readonly boolean[], fr
     }
   }
   return best;
+}
+
+/**
+ * "Which *editor* is the second largest *package* …": the wh-phrase names no type, so the
+ * type is the head of the subject complement after the copula (Quirk et al. 1985 §10.8,
+ * the subject complement identifies the subject): after "is"/"are" and an article, up to
+ * `maxModifiers` + 1 pre-modifiers, the first type label or alias.
+ */
+function copulaComplement(ws: readonly Word[], blocked: readonly boolean[], from: number, model: QuestionModel, maxModifiers: number): { types: number[]; words: number[] } | undefined {
+  let k = from;
+  while (k < ws.length && blocked[k]) k++;
+  if (k === from || !COPULA.has(ws[k]?.norm ?? "")) return undefined;
+  k++;
+  while (k < ws.length && (ws[k]!.norm === "the" || ws[k]!.norm === "a" || ws[k]!.norm === "an")) k++;
+  const phrase: number[] = [];
+  for (; k < ws.length && phrase.length < maxModifiers + 2 && !blocked[k] && !CLAUSE.has(ws[k]!.norm); k++) phrase.push(k);
+  return longestTypeMatch(ws, phrase, model, maxModifiers + 1);
 }
 
 function longestTypeMatch(ws: readonly Word[], phrase: readonly number[], model: QuestionModel, maxModifiers: number): { types: number[]; words: number[] } | undefined {
