@@ -5,7 +5,7 @@ import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Catalog, CatalogWriter } from "../catalog/index.js";
 import { TiepointError } from "../model/index.js";
-import { linkingFixture, writeLinkingFixture } from "../../test/linking-fixture.js";
+import { catalogShorthands, linkingFixture, writeLinkingFixture } from "../../test/linking-fixture.js";
 import { DescriptionIndex } from "./description-match.js";
 import { FuzzyTokenIndex, trigramTable } from "./fuzzy-index.js";
 import { LexicalSnapshot, Linker, linkQuestion, parsePin } from "./index.js";
@@ -130,6 +130,33 @@ describe("linkQuestion on the fixture catalog", () => {
   it("is deterministic", () => {
     const q = "Did Ada and Zoë Ñandú work at Tidewater Lab in Brill?";
     expect(link(q)).toEqual(link(q));
+  });
+});
+
+describe("a name that is a relation word only by its stem", () => {
+  it("is linked as a modifier before a type noun, and left to the relation elsewhere", () => {
+    // invented: a priority level named "required" beside a relation aliased "requires" (Porter stems both "requir")
+    const c = Catalog.open(":memory:", { create: true });
+    const w = new CatalogWriter(c);
+    w.begin();
+    const { type, rel, ent } = catalogShorthands(w);
+    type("t:Kit", "kit");
+    type("t:Level", "level");
+    rel("r:needs", "depends on", ["requires"]);
+    rel("r:level", "has level");
+    ent("l:required", "required", ["t:Level"]);
+    ent("k:a", "Alder", ["t:Kit"]);
+    ent("k:b", "Birch", ["t:Kit"]);
+    w.edge("k:a", "r:needs", "k:b");
+    w.edge("k:a", "r:level", "l:required");
+    w.commit();
+    const l = Linker.fromCatalog(c);
+    const names = (q: string) => linkQuestion(q, l).mentions.map((m) => m.entity.id);
+    expect(names("Which required kits depend on Birch?")).toEqual(["l:required", "k:b"]);
+    // no type noun after it: the relation reading stands; "requires" is the relation's own phrase
+    expect(names("Which kits are required by Alder?")).toEqual(["k:a"]);
+    expect(names("Which kit requires Birch?")).toEqual(["k:b"]);
+    c.close();
   });
 });
 

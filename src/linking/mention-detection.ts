@@ -39,7 +39,10 @@
  * the cue for proper names and codes: common practice in gazetteer matching, cf. Mikheev,
  * Moens and Grover, "Named entity recognition without gazetteers", EACL 1999.) Questions typed
  * without capitals, or with every word capitalised, are case-blind: there only an exact,
- * non-code match keeps a relation word linked.
+ * non-code match keeps a relation word linked. A word that is a type or relation phrase only
+ * by its stem ("required" ~ the alias "requires") but written exactly as a name, right before
+ * a type noun ("which *required* packages"), is a modifier naming that entity (an attributive
+ * participle, Quirk et al. 1985 §7.15 ff.), not the relation: it stays a mention.
  */
 import type { AliasHit } from "../catalog/index.js";
 import type { MatchKind } from "../model/index.js";
@@ -288,7 +291,10 @@ export function detectMentions(
       if (isStopWord(toks[i + len - 1]!.norm) || (leadingStop && len < 2)) continue;
       const normKey = lex.snapshot.mayBeKey(kn);
       const stemKey = !leadingStop && lex.snapshot.mayBeKey(ks);
-      if ((!normKey && !stemKey) || lex.isVocabularyPhrase(kn, ks)) continue;
+      if (!normKey && !stemKey) continue;
+      // a word that is a type or relation phrase only by its stem ("required" ~ "requires") but is
+      // written exactly as a name, before a type noun ("required packages"), is that name used as a modifier
+      if (lex.isVocabularyPhrase(kn, ks) && !(len === 1 && normKey && !lex.isVocabularyPhrase(kn, kn) && modifiesTypeNoun(i + 1))) continue;
       let hits: readonly AliasHit[] = [];
       if (normKey) {
         hits = lex.byNorm(kn);
