@@ -152,8 +152,15 @@ export interface ExclusionCondition extends ConditionBase {
   readonly mention: number;
   /** "other": "other than X" (X itself, and its linked entities when X is not of the answer type); "not": X and every entity linked to it. */
   readonly mode: "other" | "not";
-  /** Relation nums cued between the cue and the mention ("not bordering X"): only links of these relations count; empty: any. */
+  /** Relation nums in the negation's scope ("not bordering X", "not in the X section"): only links of these relations count; empty: any. */
   readonly relations: readonly number[];
+  /**
+   * Per relation (same order): true when the link from the excluded entity to an excluded
+   * candidate walks against the stored triple (the entity is the relation's object). With
+   * relations, "not" excludes the entities so linked, not the entity itself ("packages that
+   * do not depend on X": X does not depend on itself). Absent: either direction, the entity too.
+   */
+  readonly inverse?: readonly boolean[];
 }
 
 /** A literal condition on a text attribute: keep candidates whose value equals `value` (negated: differs). */
@@ -444,10 +451,22 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
         const gap = question.slice(cueEnd, m.start);
         const between = words(gap);
         if (!/[,;:]/.test(gap) && between.length <= o.negationWindow) {
-          const relations = analysis.relationCues.filter((c) => c.start >= cueEnd && c.start < m.start).map((c) => c.relation);
+          const scope = negationScope(analysis, ws, cueEnd, m);
           excluded.add(best);
           for (let k = i; k < i + len; k++) used.add(k);
-          conditions.push({ kind: "exclusion", node: m.num, id: m.entity.id, label: m.entity.label, mention: best, mode, relations, words: question.slice(ws[i]!.start, m.end), start: ws[i]!.start, end: m.end });
+          conditions.push({
+            kind: "exclusion",
+            node: m.num,
+            id: m.entity.id,
+            label: m.entity.label,
+            mention: best,
+            mode,
+            relations: scope.relations.map((r) => r.relation),
+            ...(scope.relations.length > 0 ? { inverse: scope.relations.map((r) => r.inverse) } : {}),
+            words: question.slice(ws[i]!.start, scope.end),
+            start: ws[i]!.start,
+            end: scope.end,
+          });
         }
       }
       break;
@@ -510,6 +529,38 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   const baseNotes = analysis.notes.filter((n) => !dropped.has(n));
   for (const c of conditions) if (c.kind === "exclusion") notes.push(`"${c.words}": ${c.label} is excluded, not used as a clue`);
   return { analysis: { ...analysis, answerTypes, relationCues, clues, notes: [...baseNotes, ...notes] }, conditions };
+}
+
+/**
+ * The scope of a negation before a mention (Quirk et al. 1985 §10.64 ff.: the scope runs from
+ * the negation to the end of the clause element it precedes): the relation words between the
+ * cue and the mention ("not *depend on* X": the mention is their object, so the hop from X to
+ * the answer walks against the stored triple, voice flip included, as in cue-chains.ts) and
+ * a relation noun that heads the noun phrase the mention pre-modifies ("not in the devel
+ * *section*": Quirk et al. 1985 §17.104, nouns as pre-modifiers; the noun names X's role, so
+ * X is its object too). Returns those relations with the direction of the walk from X, and
+ * the end of the scope.
+ */
+function negationScope(analysis: Analysis, ws: readonly Word[], cueEnd: number, m: { start: number; end: number }): { relations: { relation: number; inverse: boolean }[]; end: number } {
+  const relations: { relation: number; inverse: boolean }[] = [];
+  const add = (relation: number, inverse: boolean) => {
+    if (!relations.some((r) => r.relation === relation && r.inverse === inverse)) relations.push({ relation, inverse });
+  };
+  let end = m.end;
+  const next = ws.find((w) => w.start >= m.end);
+  const head = next !== undefined && /^\s*$/.test(analysis.question.slice(m.end, next.start)) ? next : undefined;
+  for (const c of analysis.relationCues) {
+    for (const p of c.occurrences ?? [{ start: c.start, flip: c.flip }]) {
+      if (p.start >= cueEnd && p.start < m.start) add(c.relation, !p.flip);
+      else if (head !== undefined && p.start === head.start) {
+        add(c.relation, !p.flip);
+        let k = ws.indexOf(head);
+        while (k + 1 < ws.length && c.words.includes(ws[k + 1]!.text)) k++;
+        end = Math.max(end, ws[k]!.end);
+      }
+    }
+  }
+  return { relations, end };
 }
 
 function range(a: number, b: number): number[] {

@@ -152,10 +152,25 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
   it("7. negation over a relation excludes, and its relation word makes no hop of the other clue", () => {
     const r = ask("Which vessels whose home port is Vask are not commanded by Ada Quell?");
     expect(edges(r)).toEqual([["p:vask", "r:homePort", "backward", "?answer"]]);
-    expect(r.reading!.constraints).toContain("not Ada Quell (nor what is linked to it)");
+    expect(r.reading!.constraints).toContain("not commanded by Ada Quell");
     // Skell and Morrow are based at Vask; Ada Quell commands Skell
     expect(r.answers[0]!.id).toBe("s:morrow");
     expect(r.answers.map((a) => a.id)).not.toContain("s:skell");
+  });
+
+  it("7. negation scope: a negated directed relation removes what is so linked, not the named entity; a relation noun heading the name's phrase is in the scope", () => {
+    // Ostrelia and Quenland border Brask; nobody borders Quenland (Quenland borders only Brask):
+    // Quenland does not border itself, so both stay
+    const r = ask("Which realms that border Brask do not border Quenland?");
+    expect(r.reading!.constraints).toContain("not border Quenland");
+    expect(group(r)).toEqual(["k:ostrelia", "k:quenland"]);
+    // "the Holm home port": "home port" heads the phrase Holm stands in, so it is negated with
+    // it and makes no hop; Cyl Venn commands Lune (home port Holm) and Gull (home port Kess)
+    const h = ask("Which vessel commanded by Cyl Venn does not have the Holm home port?");
+    expect(edges(h)).toEqual([["x:cyl", "r:commands", "forward", "?answer"]]);
+    expect(h.reading!.constraints).toEqual(["not have the Holm home port"]);
+    expect(h.answers[0]!.id).toBe("s:gull");
+    expect(h.verdict.status).toBe("unique");
   });
 
   it("8. literal conditions: a text value and a year", () => {

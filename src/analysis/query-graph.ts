@@ -493,7 +493,7 @@ export function constraintTexts(g: QueryGraph, analysis: Analysis): string[] {
     const attr = "choices" in c ? (c.choices[0]?.label ?? "no attribute") : "";
     if (c.kind === "comparison") out.push(`${attr} ${c.operator} ${c.values.join(" and ")}`);
     else if (c.kind === "superlative") out.push(`${c.position > 1 ? `place ${c.position} ` : ""}${c.order === "max" ? "largest" : "smallest"} by ${attr}`);
-    else if (c.kind === "exclusion") out.push(`not ${c.label}${c.mode === "not" ? " (nor what is linked to it)" : ""}`);
+    else if (c.kind === "exclusion") out.push(c.inverse !== undefined && c.mode === "not" ? c.words : `not ${c.label}${c.mode === "not" ? " (nor what is linked to it)" : ""}`);
     else if (c.kind === "literal") out.push(`${attr} ${c.negated ? "!=" : "="} ${c.value}`);
     else out.push("count");
   }

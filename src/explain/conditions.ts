@@ -90,7 +90,8 @@ export function conditionSteps(node: number, conditions: readonly Condition[], o
     } else if (c.kind === "literal") {
       text = `${c.choices[0]!.label}: ${ch.texts?.join(", ") || "no value"} ${ch.satisfied ? "satisfies" : "fails"} ${c.negated ? "!=" : "="} ${c.value}`;
     } else if (c.kind === "exclusion") {
-      text = ch.satisfied ? `not ${c.label} and not linked to it` : `excluded: ${ch.excludedBy === node ? "is" : "is linked to"} ${c.label}`;
+      const directed = c.mode === "not" && c.inverse !== undefined;
+      text = ch.satisfied ? (directed ? c.words : `not ${c.label} and not linked to it`) : directed ? `excluded by "${c.words}"` : `excluded: ${ch.excludedBy === node ? "is" : "is linked to"} ${c.label}`;
     } else text = "counted";
     return {
       condition: ch.condition,

@@ -28,7 +28,7 @@
  * capped at the one before it (a running minimum), so scores stay best first.
  */
 import type { Deadline } from "../model/index.js";
-import type { AttributeChoice, Analysis, Condition, ComparisonCondition, SuperlativeCondition } from "../analysis/index.js";
+import type { AttributeChoice, Analysis, Condition, ComparisonCondition, ExclusionCondition, SuperlativeCondition } from "../analysis/index.js";
 import { words } from "../analysis/index.js";
 import { rowIndex } from "../catalog/index.js";
 import type { Ranked, RankedCandidate } from "./rank.js";
@@ -321,14 +321,8 @@ export function applyConditions(
   conditions.forEach((c, ci) => {
     const before = order.length;
     if (c.kind === "exclusion") {
-      const linked = new Set<number>([c.node]);
+      const linked = exclusionSet(c, typeSet, index);
       const selfOnly = c.mode === "other" && typeSet.size > 0 && index.isA(c.node, typeSet);
-      if (!selfOnly && c.node >= 0 && c.node < index.nodeCount) {
-        const rels = new Set(c.relations);
-        index.forEach(c.node, (v, rel) => {
-          if (rels.size === 0 || rels.has(rel)) linked.add(v);
-        });
-      }
       order = order.filter((v) => !linked.has(v));
       filters.push((v) => (linked.has(v) ? { condition: ci, values: [], satisfied: false, excludedBy: c.node } : { condition: ci, values: [], satisfied: true }));
       applied.push({ condition: c, attribute: null, before, after: order.length });
@@ -488,6 +482,43 @@ export function applyConditions(
     ...(count ? { count } : {}),
     ...(tiedWith !== undefined ? { tiedWith } : {}),
   };
+}
+
+/**
+ * The entities an exclusion removes: the excluded entity itself for "other than X" of the
+ * answer type; otherwise the entities linked to it by the relations in the negation's scope
+ * (any relation when none) and the entity too — except for the negation of a directed
+ * relation ("do not depend on X"): the entities linked in the sentence's direction only, X
+ * itself kept (it does not depend on itself). A relation stored both ways at X (each of X's
+ * edges of it has its reverse: "borders") has no direction to read: X and its partners go,
+ * as "which neighbour of B does not border X" presupposes the answer is not X.
+ */
+export function exclusionSet(c: ExclusionCondition, typeSet: ReadonlySet<number>, index: RelationIndex): Set<number> {
+  const inNodes = c.node >= 0 && c.node < index.nodeCount;
+  const rels = new Set(c.relations);
+  const directed = c.mode === "not" && c.inverse !== undefined && c.relations.length > 0 && inNodes && !reciprocalAt(index, c.node, rels);
+  const linked = new Set<number>(directed ? [] : [c.node]);
+  const selfOnly = c.mode === "other" && typeSet.size > 0 && index.isA(c.node, typeSet);
+  if (selfOnly || !inNodes) return linked;
+  index.forEach(c.node, (v, rel, inverse) => {
+    if (rels.size === 0) linked.add(v);
+    else if (directed ? c.relations.some((r, k) => r === rel && c.inverse![k] === inverse) : rels.has(rel)) linked.add(v);
+  });
+  return linked;
+}
+
+/** True when every edge of `rels` at `node` is stored both ways (and there is one): the relation is symmetric there. */
+function reciprocalAt(index: RelationIndex, node: number, rels: ReadonlySet<number>): boolean {
+  const seen = new Set<string>();
+  index.forEach(node, (v, rel, inverse) => {
+    if (rels.has(rel)) seen.add(`${v}:${rel}:${inverse ? 1 : 0}`);
+  });
+  if (seen.size === 0) return false;
+  for (const k of seen) {
+    const [v, rel, inv] = k.split(":");
+    if (!seen.has(`${v}:${rel}:${inv === "1" ? 0 : 1}`)) return false;
+  }
+  return true;
 }
 
 /** The direction of a superlative on the chosen attribute: a temporal word on a non-temporal attribute ("oldest" on an age) flips. */
