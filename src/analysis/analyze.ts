@@ -113,8 +113,8 @@ function modifierOf(question: string, mentions: readonly LinkedMention[], i: num
  * quantity, not a name: the linker's fuzzy match on it is dropped (with a note), so the
  * conditions read the number. A name holding the number ("Apollo 11") stays.
  */
-function withoutQuantities(question: string, link: LinkResult, notes: string[]): LinkResult {
-  const qs = findQuantities(question).filter((q) => q.unit !== undefined);
+function withoutQuantities(question: string, link: LinkResult, notes: string[], units?: readonly string[]): LinkResult {
+  const qs = findQuantities(question, units ? { units } : {}).filter((q) => q.unit !== undefined);
   if (qs.length === 0) return link;
   const keep = link.mentions.filter((m) => {
     const q = qs.find((x) => x.start <= m.start + 1 && m.end <= x.end && m.end - m.start >= (x.end - x.start) / 2);
@@ -129,7 +129,7 @@ function withoutQuantities(question: string, link: LinkResult, notes: string[]):
 export function analyze(question: string, linked: LinkResult, model: QuestionModel, options: AnalyzeOptions = {}): Analysis {
   const ws = words(question);
   const notes: string[] = [];
-  const link = withoutQuantities(question, linked, notes);
+  const link = withoutQuantities(question, linked, notes, model.units);
   const clueMention: boolean[] = link.mentions.map((m) => !model.typeByNum.has(m.num));
   link.mentions.forEach((m, i) => {
     if (!clueMention[i]) notes.push(`"${m.text}" names a type (${m.entity.label}), not a clue`);

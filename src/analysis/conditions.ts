@@ -35,7 +35,7 @@ import type { Catalog } from "../catalog/index.js";
 import { stemToken, tokens } from "../catalog/index.js";
 import type { Analysis, AnswerType } from "./analyze.js";
 import type { QuestionModel } from "./question-model.js";
-import { findQuantities, type Quantity } from "./quantity.js";
+import { findQuantities, unitMatches, type Quantity } from "./quantity.js";
 import { isFunctionWord, words, type Word } from "./words.js";
 import { AFTER_QUANTITY, BEFORE_QUANTITY, COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
 
@@ -262,7 +262,7 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   const question = analysis.question;
   const ws = words(question);
   // a mention that is only a number inside a quantity ("20" of "20,000") is the quantity, not a name
-  const allQuantities = findQuantities(question);
+  const allQuantities = findQuantities(question, { units: attributes.attributes.flatMap((a) => (a.unit !== undefined ? [a.unit] : [])) });
   const numeric = new Set<number>();
   analysis.mentions.forEach((m, mi) => {
     if (/^[\d.,\s]+$/.test(m.text) && allQuantities.some((q) => q.start <= m.start && m.end <= q.end)) numeric.add(mi);
@@ -710,7 +710,8 @@ function chooseAttributes(
     const hinted = hints.some((x) => a.surfaces.some((sf) => sf.includes(x)) || a.id.toLowerCase() === x);
     // a unit alone does not pick an attribute against the adjective ("wider than 10 metres" is no length)
     const unitOk = dimension === undefined || best > 0 || hinted;
-    if (unitOk && unitStems.length > 0 && a.unitStems.length > 0 && a.unitStems.every((u) => unitStems.some((x) => credit(u, x, o) > 0))) best += o.unitBonus;
+    const unitHit = (unitStems.length > 0 && a.unitStems.length > 0 && a.unitStems.every((u) => unitStems.some((x) => credit(u, x, o) > 0))) || (a.unit !== undefined && quantities.some((q) => q.unit !== undefined && unitMatches(q.unit, a.unit!)));
+    if (unitOk && unitHit) best += o.unitBonus;
     // a unit word written in the question without a number ("most inhabitants") matches like a label word
     if (best === 0 && quantities.length === 0 && a.unitStems.length > 0 && a.unitStems.every((u) => free.some((k) => credit(u, ws[k]!.stem, o) === 1))) {
       best = 0.6;

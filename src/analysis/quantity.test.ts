@@ -6,7 +6,7 @@
  * (leap year rule: divisible by 4, except centuries not divisible by 400 — 2000 leap, 1900 not).
  */
 import { describe, expect, it } from "vitest";
-import { findQuantities, parseIsoDate, parseNumber, yearFraction } from "./quantity.js";
+import { abbreviates, findQuantities, parseIsoDate, parseNumber, unitMatches, yearFraction } from "./quantity.js";
 
 describe("parseNumber", () => {
   it("refuses text that is not a number", () => {
@@ -95,5 +95,23 @@ describe("findQuantities", () => {
     const qs = findQuantities("between 40 and 70 metres");
     expect(qs.map((q) => q.lo)).toEqual([40, 70]);
     expect(qs[1]!.unit).toBe("metres");
+  });
+});
+
+describe("units written as the catalog declares them, or abbreviated", () => {
+  // short forms against their definitions as Schwartz & Hearst 2003 match them: in order, first letter starting a word
+  it("matches an abbreviation to its long form, and nothing else", () => {
+    expect(abbreviates("KiB", "kibibytes")).toBe(true); // IEC 80000-13: KiB is the symbol of the kibibyte
+    expect(abbreviates("km", "square kilometres")).toBe(true);
+    expect(abbreviates("kg", "kilometres")).toBe(false); // no g
+    expect(abbreviates("mb", "kibibytes")).toBe(false); // m starts no word
+    expect(unitMatches("km²", "km²")).toBe(true);
+    expect(unitMatches("Metres", "metre")).toBe(true);
+    expect(unitMatches("tonnes", "kibibytes")).toBe(false);
+  });
+  it("reads a four-digit number before a declared unit as a number, else as a year", () => {
+    expect(findQuantities("larger than 2000 KiB", { units: ["kibibytes"] })[0]).toMatchObject({ kind: "number", lo: 2000, unit: "kib" });
+    expect(findQuantities("larger than 2000 KiB")[0]).toMatchObject({ kind: "year", lo: 2000 });
+    expect(findQuantities("launched in 1994 carry", { units: ["kibibytes"] })[0]).toMatchObject({ kind: "year" });
   });
 });

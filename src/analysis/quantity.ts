@@ -11,7 +11,9 @@
  * the first, middle or last part of it (common usage: early = years 0–3, mid = 3–6, late =
  * 7–9). Plain numbers are points (lo = hi). Thousands separators ("12,500"), decimals
  * ("3.5"), and the multipliers "thousand", "million", "billion" are read; the word right
- * after the number is kept as its unit ("km²", "metres", "tonnes").
+ * after the number is kept as its unit ("km²", "metres", "tonnes"). A four-digit number
+ * followed by a unit the catalog declares, written out or abbreviated ("2000 KiB" for
+ * kibibytes; abbreviation matching of Schwartz & Hearst 2003), is that many units, not a year.
  */
 import { DECADE_PART, MULTIPLIER, NOT_UNIT } from "./lexicon.js";
 
@@ -39,6 +41,11 @@ export interface Quantity {
 export interface QuantityOptions {
   /** A bare whole number in this range is read as a year. @default [1000, 2999] */
   readonly yearRange?: readonly [number, number];
+  /**
+   * The catalog's declared units: a four-digit number followed by one of them (as written or
+   * abbreviated, {@link unitMatches}) is a number with that unit, not a year ("2000 KiB"). @default none
+   */
+  readonly units?: readonly string[];
 }
 
 /** Defaults of {@link QuantityOptions}. */
@@ -85,6 +92,46 @@ export function parseIsoDate(text: string): { lo: number; hi: number; kind: "yea
   return { lo: yearFraction(y, mo, d), hi, kind: "date" };
 }
 
+/** Letters and digits of a unit, lower-cased ("km²" → "km", "KiB" → "kib"). */
+function unitChars(u: string): string {
+  return u.toLowerCase().replace(/[^\p{L}\p{N}\s]/gu, "").trim();
+}
+
+/**
+ * True when `short` abbreviates `long`: every character of the short form occurs in the long
+ * form in order, and its first character starts a word of the long form ("KiB" ~ "kibibytes",
+ * "km" ~ "square kilometres"). The matching of Schwartz & Hearst 2003 ("A simple algorithm for
+ * identifying abbreviation definitions in biomedical text", Pacific Symposium on
+ * Biocomputing), read right to left as there.
+ */
+export function abbreviates(short: string, long: string): boolean {
+  const s = unitChars(short).replace(/\s+/g, "");
+  const l = unitChars(long);
+  if (s.length === 0 || s.length >= l.replace(/\s+/g, "").length) return false;
+  let li = l.length - 1;
+  for (let si = s.length - 1; si >= 0; si--) {
+    const c = s[si]!;
+    // the first character must also start a word of the long form
+    while (li >= 0 && (l[li] !== c || (si === 0 && li > 0 && /\p{L}|\p{N}/u.test(l[li - 1]!)))) li--;
+    if (li < 0) return false;
+    li--;
+  }
+  return true;
+}
+
+/**
+ * True when a unit written in a question is a declared unit of the catalog: the same letters
+ * (ignoring case, symbols such as "²", and a plural -s), or either abbreviating the other
+ * ({@link abbreviates}).
+ */
+export function unitMatches(written: string, declared: string): boolean {
+  const w = unitChars(written);
+  const d = unitChars(declared);
+  if (w === "" || d === "") return false;
+  if (w === d || w.replace(/s$/, "") === d.replace(/s$/, "")) return true;
+  return abbreviates(written, declared) || abbreviates(declared, written);
+}
+
 const TOKEN =
   /(?:\b(early|mid|late)[- ])?\b(?:the )?(\d{3}0)['’]?s\b|\b(\d{4}-\d{2}(?:-\d{2})?)\b|(?<![\w.])([+\u2212-]?(?:\d{1,3}(?:,\d{3})+|\d+)(?:\.\d+)?)(?![\w,.]\d)(?:\s+(thousand|million|billion)\b)?/giu;
 const UNIT_AFTER = /^\s*([\p{L}][\p{L}\p{N}²³/.]*|%)/u;
@@ -111,7 +158,10 @@ export function findQuantities(text: string, options: QuantityOptions = {}): Qua
       if (v === null) continue;
       const mult = m[5] ? MULTIPLIER[m[5].toLowerCase()]! : 1;
       v *= mult;
-      const isYear = mult === 1 && /^\d{4}$/.test(m[4]) && v >= ylo && v <= yhi;
+      // a four-digit number before a unit of the catalog is that many units ("2000 KiB"), not a year
+      const unitNext = UNIT_AFTER.exec(text.slice(end))?.[1];
+      const measured = unitNext !== undefined && (options.units ?? []).some((u) => unitMatches(unitNext, u));
+      const isYear = mult === 1 && /^\d{4}$/.test(m[4]) && v >= ylo && v <= yhi && !measured;
       q = isYear ? { kind: "year", lo: v, hi: v + 1, text: m[0] } : { kind: "number", lo: v, hi: v, text: m[0] };
     }
     if (!q) continue;

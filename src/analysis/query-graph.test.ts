@@ -186,6 +186,13 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     expect(m.answers[0]!.id).toBe("s:morrow");
   });
 
+  it("8. a four-digit number before the catalog's unit is a quantity of that unit, not a year", () => {
+    // length is declared in "m": "2000 m" is a length (all four vessels are shorter); read as a year it would be launch year < 2000 (Skell, Lune)
+    const r = ask("Which vessels are shorter than 2000 m?");
+    expect(r.reading!.constraints).toEqual(["length < 2000", "all that fit"]);
+    expect(group(r)).toEqual(["s:gull", "s:lune", "s:morrow", "s:skell"]);
+  });
+
   it("9. direction from word order and voice: what X commands against who commands X", () => {
     const out = ask("What does Ada Quell command?");
     expect(edges(out)).toEqual([["x:ada", "r:commands", "forward", "?answer"]]);

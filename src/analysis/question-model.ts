@@ -81,6 +81,8 @@ export interface QuestionModel {
   readonly relationEnds?: () => RelationEnds;
   /** See {@link QuestionModelOptions.typesOf}. */
   readonly typesOf?: (num: number) => readonly number[];
+  /** The units the catalog declares for its attributes (quantity.ts reads "2000 KiB" as a number by them). @default none */
+  readonly units?: readonly string[];
 }
 
 const PERSON_KEYS = new Set(WH_REFERENTS.person.map(stemKey));
@@ -167,6 +169,7 @@ export function buildQuestionModel(cat: Catalog, options: QuestionModelOptions =
   }
   return {
     types, typeByNum, typesByKey, maxTypeWords, relations, personTypes, organisationTypes, agentTypes, placeTypes, functionCueStems,
+    units: [...new Set(cat.predicateUnits().values())].sort(),
     ...(options.relationEnds ? { relationEnds: options.relationEnds } : {}),
     ...(options.typesOf ? { typesOf: options.typesOf } : {}),
   };
