@@ -11,7 +11,8 @@
  *
  * - comparison: before/after/since/until/in/during a year, date or decade; more than, over,
  *   above, at least, at most, less/fewer than, under, below, "X or more", an adjective's
- *   comparative ("longer than"), between X and Y, from X to Y;
+ *   comparative ("longer than"), between X and Y, from X to Y; a compass point + "of" and
+ *   the attribute's words ("south of latitude -50", lexicon.ts `COMPASS_COMPARATIVES`);
  * - superlative: an adjective's superlative (largest, oldest, …), "most"/"least"/"fewest"
  *   + the attribute's words, first/last; an ordinal before it ("second largest") gives the
  *   position;
@@ -37,7 +38,7 @@ import type { Analysis, AnswerType } from "./analyze.js";
 import type { QuestionModel } from "./question-model.js";
 import { findQuantities, unitMatches, type Quantity } from "./quantity.js";
 import { isFunctionWord, words, type Word } from "./words.js";
-import { AFTER_QUANTITY, BEFORE_QUANTITY, COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
+import { AFTER_QUANTITY, BEFORE_QUANTITY, COMPASS_COMPARATIVES, COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
 
 /** Options of {@link detectConditions}; all optional. */
 export interface ConditionOptions {
@@ -361,6 +362,17 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
         dimension = dim;
       } else if (/er$/.test(adj)) op = ">";
       if (op !== undefined) opStart = qw - 2;
+    }
+    // a compass point before "of", the attribute's words between it and the number: "south of latitude -50"
+    for (let gap = 0; op === undefined && gap <= 2; gap++) {
+      const at = qw - gap - 2;
+      if (at < 0 || inMention[at] || ws[at + 1]!.norm !== "of") continue;
+      const between = range(at + 2, qw);
+      if (between.some((k) => inMention[k] || isFunctionWord(ws[k]!.norm))) continue;
+      const dir = COMPASS_COMPARATIVES[ws[at]!.norm];
+      if (dir === undefined || (gap > 0 && !attributeWordNear(ws, inMention, qw, attributes, o))) continue;
+      op = dir;
+      opStart = at;
     }
     // trailing "or more", "or earlier"
     let lastWord = afterQ - 1;

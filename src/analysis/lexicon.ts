@@ -76,6 +76,15 @@ export const ORDINALS: Readonly<Record<string, number>> = {
   "2nd": 2, "3rd": 3, "4th": 4, "5th": 5, "6th": 6, "7th": 7, "8th": 8, "9th": 9, "10th": 10,
 };
 
+/**
+ * Compass points before "of" compare a coordinate ("south of latitude -50" → latitude < -50):
+ * ISO 6709:2008 (standard representation of geographic point location by coordinates) counts
+ * latitude positive north of the equator and longitude positive east of the prime meridian,
+ * so "north of"/"east of" a value mean a greater one, "south of"/"west of" a smaller one. The
+ * coordinate is the attribute the question names (conditions.ts), never guessed from the word.
+ */
+export const COMPASS_COMPARATIVES: Readonly<Record<string, ">" | "<">> = { north: ">", east: ">", south: "<", west: "<" };
+
 /** Comparatives of quantity that compare without an adjective of dimension ("which has more …"); common practice. */
 export const QUANTITY_COMPARATIVES: Readonly<Record<string, "max" | "min">> = { more: "max", fewer: "min", less: "min" };
 

@@ -26,13 +26,14 @@ const LINES = [
   { kind: "attribute", id: "a:length", label: "length", unit: "m" },
   { kind: "attribute", id: "a:launched", label: "launch year" },
   { kind: "attribute", id: "a:condition", label: "condition" },
+  { kind: "attribute", id: "a:lat", label: "latitude", unit: "degrees" },
   { id: "k:brask", label: "Brask", types: ["t:Realm"], description: "An island realm of fjords in the cold sea." },
   { id: "k:ostrelia", label: "Ostrelia", types: ["t:Realm"], description: "A lowland realm of canals.", relations: { "r:borders": ["k:brask"] } },
   { id: "k:quenland", label: "Quenland", types: ["t:Realm"], description: "A forested realm east of Brask.", relations: { "r:borders": ["k:brask"] } },
   { id: "k:marsk", label: "Marsk", types: ["t:Realm"], description: "A marsh realm west of Ostrelia.", relations: { "r:borders": ["k:ostrelia"] } },
-  { id: "p:vask", label: "Vask", types: ["t:Port"], description: "A deep-water port in a fjord.", relations: { "r:in": ["k:brask"] } },
-  { id: "p:holm", label: "Holm", types: ["t:Port"], description: "A canal port with a lock.", relations: { "r:in": ["k:ostrelia"] } },
-  { id: "p:kess", label: "Kess", types: ["t:Port"], description: "A river port in the forest.", relations: { "r:in": ["k:quenland"] } },
+  { id: "p:vask", label: "Vask", types: ["t:Port"], description: "A deep-water port in a fjord.", relations: { "r:in": ["k:brask"] }, attributes: { "a:lat": 61.5 } },
+  { id: "p:holm", label: "Holm", types: ["t:Port"], description: "A canal port with a lock.", relations: { "r:in": ["k:ostrelia"] }, attributes: { "a:lat": 52 } },
+  { id: "p:kess", label: "Kess", types: ["t:Port"], description: "A river port in the forest.", relations: { "r:in": ["k:quenland"] }, attributes: { "a:lat": -3.25 } },
   { id: "s:skell", label: "Skell", types: ["t:Vessel"], description: "A survey ship that maps the sea floor.", relations: { "r:homePort": ["p:vask"] }, attributes: { "a:length": 41, "a:launched": 1994, "a:condition": "poor" } },
   { id: "s:morrow", label: "Morrow", types: ["t:Vessel"], description: "A cargo ship that carries timber.", relations: { "r:homePort": ["p:vask"] }, attributes: { "a:length": 63, "a:launched": 2003, "a:condition": "good" } },
   { id: "s:lune", label: "Lune", types: ["t:Vessel"], description: "A small ferry across the canal.", relations: { "r:homePort": ["p:holm"] }, attributes: { "a:length": 28, "a:launched": 1988, "a:condition": "poor" } },
@@ -191,6 +192,19 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     const r = ask("Which vessels are shorter than 2000 m?");
     expect(r.reading!.constraints).toEqual(["length < 2000", "all that fit"]);
     expect(group(r)).toEqual(["s:gull", "s:lune", "s:morrow", "s:skell"]);
+  });
+
+  it("8. a compass point compares the coordinate the question names, a signed number included", () => {
+    // latitudes: Vask 61.5, Holm 52, Kess -3.25 (ISO 6709: south = smaller latitude)
+    const r = ask("Which ports lie south of latitude 55?");
+    expect(r.reading!.constraints).toEqual(["latitude < 55", "all that fit"]);
+    expect(group(r)).toEqual(["p:holm", "p:kess"]);
+    const n = ask("Which ports lie north of latitude 55?");
+    expect(n.reading!.constraints).toEqual(["latitude > 55", "all that fit"]);
+    expect(group(n)).toEqual(["p:vask"]);
+    const m = ask("Which ports lie south of latitude -1?");
+    expect(m.reading!.constraints).toEqual(["latitude < -1", "all that fit"]);
+    expect(group(m)).toEqual(["p:kess"]);
   });
 
   it("9. direction from word order and voice: what X commands against who commands X", () => {
