@@ -202,6 +202,19 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
   const t0 = performance.now();
   const session = Session.open({ db: p.db });
   const openSeconds = (performance.now() - t0) / 1000;
+  const r = timeQuestions(session, items, warmUp.map((w) => w.question));
+  session.close();
+  return { openSeconds, ...r };
+}
+
+/**
+ * Asks each of `items` once through `session` (as `ask` does: ablation and suggestions on,
+ * the default time budget), after asking the `warmUp` questions uncounted (none given: the
+ * first item once): the whole question's wall and CPU time (median, p95), the per-stage split
+ * (link, read, rank, explain and its paths, verdict, ablation, suggestions, the JSON), the
+ * answer digest, Hits@1 where answers are expected, and the peak memory.
+ */
+export function timeQuestions(session: Session, items: readonly { question: string; expected: readonly string[] }[], warmUp: readonly string[]): Record<string, unknown> {
   const totals: number[] = [];
   const cpu: number[] = [];
   const loadBefore = loadAverage();
@@ -210,7 +223,8 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
   const digest = createHash("sha256");
   let hits = 0;
   let withExpected = 0;
-  if (warmUp.length > 0) for (const w of warmUp) session.ask(w.question);
+  const each: { question: string; ms: number; cpuMs: number; stages: Record<string, number> }[] = [];
+  if (warmUp.length > 0) for (const w of warmUp) session.ask(w);
   else if (items[0]) session.ask(items[0].question); // too few questions: one warm-up, not counted
   for (const item of items) {
     const t = performance.now();
@@ -232,14 +246,13 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
       withExpected++;
       if (rankOfExpected(out.result, item.expected) === 1) hits++;
     }
+    const at = totals.length - 1;
+    each.push({ question: item.question, ms: totals[at]!, cpuMs: cpu[at]!, stages: Object.fromEntries(Object.entries(stages).map(([k, xs]) => [k, xs[at]!])) });
   }
-  const peak = peakMiB();
-  session.close();
   const med = (xs: number[]) => quantiles(xs).median;
   return {
     questions: items.length,
     warmUp: warmUp.length > 0 ? warmUp.length : Math.min(1, items.length),
-    openSeconds,
     latencyMs: quantiles(totals),
     cpuMs: quantiles(cpu),
     loadAverage: [loadBefore, loadAverage()],
@@ -248,7 +261,9 @@ export function phaseAsk(work: string, limit: number): Record<string, unknown> {
     digest: digest.digest("hex").slice(0, 16),
     hits1: withExpected > 0 ? hits / withExpected : null,
     withExpected,
-    peakMiB: peak,
+    peakMiB: peakMiB(),
+    /** The questions that took the most CPU time, with their stage split (where the p95 comes from). */
+    slowest: each.sort((a, b) => b.cpuMs - a.cpuMs).slice(0, 10),
   };
 }
 

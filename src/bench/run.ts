@@ -12,7 +12,8 @@
  * top-20 agreement; the column is skipped with a note when igraph is absent).
  *
  * Writes bench-results/bench-SIZES-TIME.json and .md, and bench-results/latest.md.
- * Options: --size S|M|L (repeatable or comma-separated), --questions N (default 200),
+ * Options: --size S|M|L|H (repeatable or comma-separated; H: the hub case over the catalog of
+ * --hubs-db, src/bench/hubs.ts), --questions N (default 200),
  * --phases generate,load,index,ready,ask,ppr,compose,graph (a subset, in that order; default all but
  * graph; `compose` times `tiepoint compose` per target (src/bench/compose.ts, issue 22); later phases reuse the catalog the earlier ones left in the work folder; `graph`
  * repeats the PageRank comparison on a seeded power-law graph of the size's node and edge
@@ -27,6 +28,7 @@ import { fileURLToPath } from "node:url";
 import { phaseAsk, phaseGenerate, phaseGraph, phaseIndex, phaseLoad, phasePpr, phaseReady } from "./phases.js";
 import { findIgraph } from "./igraph.js";
 import { phaseCompose } from "./compose.js";
+import { phaseHubs } from "./hubs.js";
 import { renderMarkdown, type SizeResult } from "./report.js";
 
 /** The three catalog sizes of issue 9, and per-size query counts. */
@@ -36,7 +38,10 @@ export const SIZES = {
   L: { entities: 1_000_000, edges: 5_000_000, exact: 30, igraph: 10 },
 } as const;
 
-type SizeName = keyof typeof SIZES;
+/** The hub-catalog case (hubs.ts): a real catalog given by --hubs-db, not generated. */
+const HUB_SIZE = "H";
+
+type SizeName = keyof typeof SIZES | typeof HUB_SIZE;
 
 const HERE = dirname(fileURLToPath(import.meta.url));
 const ROOT = resolve(HERE, "../..");
@@ -44,8 +49,12 @@ const CLI = join(ROOT, "dist/cli/main.js");
 
 const USAGE = `usage: npm run bench -- [--size S|M|L]… [--questions N] [--work DIR] [--out DIR] [--phases LIST]
 
-  --size S|M|L     catalog size(s), repeatable or comma-separated (default S,M):
-                   S 10,000 entities / 50,000 edges, M 100,000 / 500,000, L 1,000,000 / 5,000,000
+  --size S|M|L|H   catalog size(s), repeatable or comma-separated (default S,M):
+                   S 10,000 entities / 50,000 edges, M 100,000 / 500,000, L 1,000,000 / 5,000,000;
+                   H the hub case: questions written from the catalog of --hubs-db around its
+                   entities of 20,000+ edges, timed like the ask phase (src/bench/hubs.ts)
+  --hubs-db PATH   the catalog of the hub case (default $TMPDIR/tiepoint-bench-debian/debian.db,
+                   the Debian package index that npm run bench:conditions builds)
   --questions N    generated questions asked per size (default 200)
   --work DIR       where generated catalogs, snapshots and igraph files go (default $TMPDIR/tiepoint-bench)
   --out DIR        where the JSON and Markdown results go (default bench-results/)
@@ -65,6 +74,7 @@ function args(argv: readonly string[]) {
   const sizes: SizeName[] = [];
   let questions = 200;
   let work = join(tmpdir(), "tiepoint-bench");
+  let hubsDb = join(tmpdir(), "tiepoint-bench-debian", "debian.db");
   let out = join(ROOT, "bench-results");
   let phase: string | undefined;
   let phases = ["generate", "load", "index", "ready", "ask", "ppr", "compose"];
@@ -77,13 +87,14 @@ function args(argv: readonly string[]) {
     const next = () => argv[++i] ?? usage(`${a} needs a value`);
     if (a === "--size") for (const s of next().split(",")) {
       const u = s.trim().toUpperCase();
-      if (!(u in SIZES)) usage(`unknown size "${s}" (use S, M or L)`);
+      if (!(u in SIZES) && u !== HUB_SIZE) usage(`unknown size "${s}" (use S, M, L or H)`);
       sizes.push(u as SizeName);
     }
     else if (a === "--questions") {
       questions = Number(next());
       if (!Number.isInteger(questions) || questions < 1) usage("--questions needs a positive whole number");
     } else if (a === "--work") work = resolve(next());
+    else if (a === "--hubs-db") hubsDb = resolve(next());
     else if (a === "--out") out = resolve(next());
     else if (a === "--phase") phase = next();
     else if (a === "--phases") {
@@ -92,12 +103,12 @@ function args(argv: readonly string[]) {
     }
     else usage(`unknown option ${a}`);
   }
-  return { sizes: sizes.length > 0 ? sizes : (["S", "M"] as SizeName[]), questions, work, out, phase, phases };
+  return { sizes: sizes.length > 0 ? sizes : (["S", "M"] as SizeName[]), questions, work, out, phase, phases, hubsDb };
 }
 
 /** Runs one phase in a child process; returns its JSON record. */
-function child(phase: string, size: SizeName, workBase: string, questions: number): Record<string, unknown> {
-  const r = spawnSync(process.execPath, ["--max-old-space-size=4096", fileURLToPath(import.meta.url), "--phase", phase, "--size", size, "--work", workBase, "--questions", String(questions)], {
+function child(phase: string, size: SizeName, workBase: string, questions: number, hubsDb: string): Record<string, unknown> {
+  const r = spawnSync(process.execPath, ["--max-old-space-size=4096", fileURLToPath(import.meta.url), "--phase", phase, "--size", size, "--work", workBase, "--questions", String(questions), "--hubs-db", hubsDb], {
     encoding: "utf8",
     stdio: ["ignore", "pipe", "inherit"],
     maxBuffer: 1 << 26,
@@ -111,7 +122,9 @@ function child(phase: string, size: SizeName, workBase: string, questions: numbe
   }
 }
 
-function runPhase(phase: string, size: SizeName, work: string, questions: number): Record<string, unknown> | Promise<Record<string, unknown>> {
+function runPhase(phase: string, size: SizeName, work: string, questions: number, hubsDb: string): Record<string, unknown> | Promise<Record<string, unknown>> {
+  if (phase === "hubs") return phaseHubs(hubsDb);
+  if (size === HUB_SIZE) usage(`size ${HUB_SIZE} has only the hubs phase`);
   const s = SIZES[size];
   switch (phase) {
     case "generate":
@@ -139,7 +152,7 @@ function main(): void {
     const size = o.sizes[0]!;
     const work = join(o.work, size);
     mkdirSync(work, { recursive: true });
-    void Promise.resolve(runPhase(o.phase, size, work, o.questions)).then((r) => process.stdout.write("\n" + JSON.stringify(r) + "\n"));
+    void Promise.resolve(runPhase(o.phase, size, work, o.questions, o.hubsDb)).then((r) => process.stdout.write("\n" + JSON.stringify(r) + "\n"));
     return;
   }
   const machine = {
@@ -153,6 +166,15 @@ function main(): void {
   };
   const results: SizeResult[] = [];
   for (const size of o.sizes) {
+    if (size === HUB_SIZE) {
+      // the hub case: one child process, its record in the ask phase's place (same table rows)
+      process.stderr.write(`bench H: the hub case over ${o.hubsDb}…\n`);
+      const t = performance.now();
+      const ask = child("hubs", size, o.work, o.questions, o.hubsDb);
+      process.stderr.write(`bench H: done in ${((performance.now() - t) / 1000).toFixed(1)} s\n`);
+      results.push({ size, entities: Number(ask.entities ?? 0), edges: Number(ask.edges ?? 0), phases: { ask } });
+      continue;
+    }
     const work = join(o.work, size);
     mkdirSync(work, { recursive: true });
     const s = SIZES[size];
@@ -166,7 +188,7 @@ function main(): void {
         continue;
       }
       const t = performance.now();
-      r.phases[phase] = child(phase, size, o.work, o.questions);
+      r.phases[phase] = child(phase, size, o.work, o.questions, o.hubsDb);
       process.stderr.write(`bench ${size}: ${phase} done in ${((performance.now() - t) / 1000).toFixed(1)} s\n`);
     }
     results.push(r);
