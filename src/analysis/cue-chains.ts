@@ -32,6 +32,7 @@
  * Pure string positions: no catalog names or words are involved.
  */
 import type { Analysis } from "./analyze.js";
+import type { Condition } from "./conditions.js";
 import type { RelationCue } from "./relation-cues.js";
 import { isFunctionWord, words } from "./words.js";
 
@@ -90,6 +91,12 @@ export interface ChainStep {
    * (query-graph.ts `exclusiveSteps`). Absent: no count.
    */
   readonly only?: number;
+  /**
+   * Conditions on the node this hop reaches, an inner node of the query graph ("the capital of
+   * the *largest* country in R"; query-graph.ts `attachConditions`): the ranking keeps the
+   * entities at that node that satisfy them before the next hop. Absent: none.
+   */
+  readonly conditions?: readonly Condition[];
 }
 
 /** The relation-path pattern implied for one clue. */

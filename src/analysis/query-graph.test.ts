@@ -150,6 +150,16 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     expect(r.verdict.status).toBe("unique");
   });
 
+  it("6. a superlative on a middle node: it orders the nouns it modifies, and the chain goes on from the one it selects", () => {
+    // Cyl Venn commands Lune (28 m, home port Holm) and Gull (50 m, home port Kess)
+    const r = ask("What is the home port of the longest vessel that Cyl Venn commands?");
+    expect(r.reading!.text).toBe("?answer (port) ← home port — ?v1 (vessel; largest by length) ← commands — Cyl Venn");
+    expect(r.reading!.constraints).toEqual([]);
+    expect(r.reading!.matched).toBe(1);
+    expect(r.answers[0]!.id).toBe("p:kess");
+    expect(r.verdict.status).toBe("unique");
+  });
+
   it("7. negation over a relation excludes, and its relation word makes no hop of the other clue", () => {
     const r = ask("Which vessels whose home port is Vask are not commanded by Ada Quell?");
     expect(edges(r)).toEqual([["p:vask", "r:homePort", "backward", "?answer"]]);

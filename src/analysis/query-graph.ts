@@ -22,6 +22,7 @@
  */
 import type { Analysis } from "./analyze.js";
 import type { Condition, ConditionAnalysis, EntityComparison, ValueQuestion } from "./conditions.js";
+import { attachConditions } from "./attach-conditions.js";
 import { cueChains, type CueChain, type CueChainOptions, type StepOption } from "./cue-chains.js";
 import { EXCLUSIVE_WORDS, isPluralNoun, PLURAL_COPULAS, POSSESSIVE_DETERMINERS, SET_WORDS } from "./lexicon.js";
 import type { QuestionModel } from "./question-model.js";
@@ -38,6 +39,8 @@ export interface QueryNode {
   readonly clue?: number;
   /** Type nums the node must have (empty: any). */
   readonly types: readonly number[];
+  /** Variables: conditions on the node ("the *largest* country"; attach-conditions.ts). */
+  readonly conditions?: readonly Condition[];
 }
 
 /** An edge of the query graph, from the clue side (`from`) towards the answer (`to`). */
@@ -61,7 +64,7 @@ export interface QueryGraph {
   readonly edges: readonly QueryEdge[];
   /** The per-clue relation-path patterns the graph was built from (same order as `Analysis.clues`); the ranking evaluates them. */
   readonly chains: readonly CueChain[];
-  /** Conditions on the answer (comparisons, superlatives, exclusions, counts). */
+  /** Conditions on the answer (comparisons, superlatives, exclusions, counts); those on an inner node are on its node and hop. */
   readonly conditions: readonly Condition[];
   readonly value?: ValueQuestion;
   readonly compare?: EntityComparison;
@@ -111,6 +114,9 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
   }
   if (model) chains = bridgeAnswer(bridgeChains(chains, analysis, model, share), analysis, model, share);
   chains = exclusiveSteps(chains, analysis);
+  // conditions on an inner node ("the capital of the *largest* country in R") go on its hop
+  const attached = model ? attachConditions(chains, cond.conditions, analysis, model) : { chains, answer: [...cond.conditions] };
+  chains = attached.chains;
   const cueOf = (i: number) => (i < 0 ? undefined : (analysis.relationCues[i] ?? headCue));
   const nodes: QueryNode[] = [{ name: "?answer", kind: "answer", types: analysis.answerTypes.map((t) => t.num) }];
   const edges: QueryEdge[] = [];
@@ -140,7 +146,7 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
       const last = h === ch.steps.length - 1;
       let to = 0;
       if (!last) {
-        nodes.push({ name: `?v${nodes.filter((n) => n.kind === "variable").length + 1}`, kind: "variable", types: st.types });
+        nodes.push({ name: `?v${nodes.filter((n) => n.kind === "variable").length + 1}`, kind: "variable", types: st.types, ...(st.conditions ? { conditions: st.conditions } : {}) });
         to = nodes.length - 1;
       }
       for (const p of prev) edges.push(st.only !== undefined ? { ...edgeOf(p, to, st.options), only: st.only } : edgeOf(p, to, st.options));
@@ -151,7 +157,7 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
     nodes,
     edges,
     chains,
-    conditions: cond.conditions,
+    conditions: attached.answer,
     ...(cond.value ? { value: cond.value } : {}),
     ...(cond.compare ? { compare: cond.compare } : {}),
     plural: asksForSet(analysis),
@@ -454,6 +460,10 @@ export function readingText(g: QueryGraph, analysis: Analysis, model: QuestionMo
   const nodeText = (i: number) => {
     const n = g.nodes[i]!;
     if (n.kind === "constant") return analysis.clues[n.clue!]?.label ?? n.name;
+    if (n.conditions && n.conditions.length > 0) {
+      const t = n.types.map((x) => model.typeByNum.get(x)?.label ?? String(x)).join(" or ");
+      return `${n.name} (${[...(t ? [t] : []), ...n.conditions.map(conditionText)].join("; ")})`;
+    }
     return `${n.name}${typeLabel(n.types)}`;
   };
   const relText = (e: QueryEdge) => [...new Set(e.options.map((o) => relationRef(o, g, analysis, model).label))].join("|") + (e.only !== undefined ? ` (only ${e.only})` : "");
@@ -486,17 +496,20 @@ export function readingText(g: QueryGraph, analysis: Analysis, model: QuestionMo
   return [paths.join("; "), ...extras].join("; ");
 }
 
+/** One condition in words ("area > 500000", "largest by area", "not X (nor what is linked to it)", …). */
+function conditionText(c: Condition): string {
+  const attr = "choices" in c ? (c.choices[0]?.label ?? "no attribute") : "";
+  if (c.kind === "comparison") return `${attr} ${c.operator} ${c.values.join(" and ")}`;
+  if (c.kind === "superlative") return `${c.position > 1 ? `place ${c.position} ` : ""}${c.order === "max" ? "largest" : "smallest"} by ${attr}`;
+  if (c.kind === "exclusion") return c.inverse !== undefined && c.mode === "not" ? c.words : `not ${c.label}${c.mode === "not" ? " (nor what is linked to it)" : ""}`;
+  if (c.kind === "literal") return `${attr} ${c.negated ? "!=" : "="} ${c.value}`;
+  return "count";
+}
+
 /** The conditions of a reading in words ("area > 500000", "largest by area", …). */
 export function constraintTexts(g: QueryGraph, analysis: Analysis): string[] {
   const out: string[] = [];
-  for (const c of g.conditions) {
-    const attr = "choices" in c ? (c.choices[0]?.label ?? "no attribute") : "";
-    if (c.kind === "comparison") out.push(`${attr} ${c.operator} ${c.values.join(" and ")}`);
-    else if (c.kind === "superlative") out.push(`${c.position > 1 ? `place ${c.position} ` : ""}${c.order === "max" ? "largest" : "smallest"} by ${attr}`);
-    else if (c.kind === "exclusion") out.push(c.inverse !== undefined && c.mode === "not" ? c.words : `not ${c.label}${c.mode === "not" ? " (nor what is linked to it)" : ""}`);
-    else if (c.kind === "literal") out.push(`${attr} ${c.negated ? "!=" : "="} ${c.value}`);
-    else out.push("count");
-  }
+  for (const c of g.conditions) out.push(conditionText(c));
   if (g.value) out.push(`value: ${g.value.choices[0]?.label ?? "no attribute"} of ${analysis.mentions[g.value.mention]?.entity.label ?? "?"}`);
   if (g.compare) out.push(`compare: ${g.compare.mentions.map((m) => analysis.mentions[m]?.entity.label ?? "?").join(" vs ")} by ${g.compare.choices[0]?.label ?? "no attribute"} (${g.compare.order === "max" ? "larger" : "smaller"} wins)`);
   if (g.plural) out.push("all that fit");

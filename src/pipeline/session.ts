@@ -229,7 +229,9 @@ export class Session {
       return this.directOutcome(question, analysis, reading, direct, [...limitNotes, ...whyNotNote], top, { link: t1 - t0, analyze: tRead - t1 }, t0);
     }
     const ranked = maybeRanked!;
-    const withConditions = (r: Ranked) => (cond.conditions.length > 0 ? applyConditions(analysis, r, cond.conditions, this.index, lookup).ranked : r);
+    // the answer's conditions (those on an inner node are the reading's, applied in the ranking's pattern check)
+    const answerConditions = reading.conditions;
+    const withConditions = (r: Ranked) => (answerConditions.length > 0 ? applyConditions(analysis, r, answerConditions, this.index, lookup).ranked : r);
     // the link facts of the verdict: names not found, senses in doubt (each evaluated once more)
     const facts = linkFacts(question, analysis, ranked.clues, link, {
       names: (num) => this.catalog.aliasRows(num).map((r) => r[0]),
@@ -237,7 +239,7 @@ export class Session {
     });
     const verdictContext: VerdictContext = {
       reading: { graph: reading, matched: matchedNodes!, fallback: ranked.fallback === true, open: ranked.open ?? 0 },
-      ...(conditions ? { conditions: { list: cond.conditions, outcome: conditions } } : {}),
+      ...(conditions ? { conditions: { list: answerConditions, outcome: conditions } } : {}),
       notFound: facts.notFound,
       partial: facts.partial,
       // a number the conditions read ("built in the 1970s") is no name
@@ -257,12 +259,12 @@ export class Session {
       const nodeOf = new Map(ranked.candidates.slice(0, top).map((c) => [this.ref(c.node).id, c.node]));
       answers = answers.map((a) => {
         const node = nodeOf.get(a.id);
-        return node === undefined ? a : { ...a, values: conditionSteps(node, cond.conditions, conditions) };
+        return node === undefined ? a : { ...a, values: conditionSteps(node, answerConditions, conditions) };
       });
       // a question with no clue has no explanation of its own; a tie gets the clues that would single out the first answer
       if (!made.explanation || verdict.status === "tied") made.explanation = conditionExplanation(question, answers, verdict, conditions, this.index, this.catalog, made.explanation, { suggestions: parts.suggestions, deadline });
     }
-    let explanation = whyNot.length > 0 ? this.completeWhyNot(whyNot, made.explanation, answers, verdict, analysis, ranked, conditions ? { list: cond.conditions, outcome: conditions } : undefined) : made.explanation;
+    let explanation = whyNot.length > 0 ? this.completeWhyNot(whyNot, made.explanation, answers, verdict, analysis, ranked, conditions ? { list: answerConditions, outcome: conditions } : undefined) : made.explanation;
     if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {
       const want = answers[0].id;
       // each re-ask gets what is left of the budget; once it is spent the rest stay unchecked
@@ -288,7 +290,7 @@ export class Session {
       disclaimer: DISCLAIMER,
       // the entities that satisfy the reading and its conditions (the conditions' fit set after the filters)
       reading: readingDoc(reading, analysis, this.model, ranked.matched !== undefined ? { matched: conditions && ranked.matched > 0 && ranked.fallback !== true ? conditions.fit.length : ranked.matched, fallback: ranked.fallback === true } : { matched: null, fallback: false }),
-      ...(conditions ? { conditions: conditionDocs(cond.conditions, conditions) } : {}),
+      ...(conditions ? { conditions: conditionDocs(answerConditions, conditions) } : {}),
       ...(conditions?.count ? { count: countDoc(conditions, this.catalog)! } : {}),
       ...(explanation && explanation.suggestions.length > 0
         ? { suggestions: explanation.suggestions.map((sg) => ({ text: sg.text, question: sg.question, triple: sg.triple, rulesOut: sg.rulesOut, ...(sg.verified !== undefined ? { verified: sg.verified } : {}) })) }
@@ -322,6 +324,16 @@ export class Session {
     return readQuestion(detectConditions(analyze(question, link, this.model), this.model, this.lazyAttributes()), this.model);
   }
 
+  /** Attribute values for the conditions: numbers through per-predicate columns, texts and value lookups from the catalog. */
+  private attributeLookup() {
+    return {
+      numbers: (e: number, p: number) => this.numericColumns.numbers(e, p),
+      column: (p: number) => this.numericColumns.column(p),
+      texts: (e: number, p: number) => this.catalog.attributeTexts(e, p),
+      entitiesWith: (p: number, v: string) => this.catalog.entitiesWithValue(p, v),
+    };
+  }
+
   private readAndRank(question: string, link: LinkResult, deadline: Deadline, dropClues?: readonly number[]): ReadAndRank {
     // conditions (comparisons, superlatives, exclusions, counts): src/analysis/conditions.ts
     const t0 = performance.now();
@@ -330,17 +342,12 @@ export class Session {
     const reading = readQuestion(cond, this.model);
     const readMs = performance.now() - t0;
     // numeric values through per-predicate columns (one statement per attribute, kept by the session)
-    const lookup = {
-      numbers: (e: number, p: number) => this.numericColumns.numbers(e, p),
-      column: (p: number) => this.numericColumns.column(p),
-      texts: (e: number, p: number) => this.catalog.attributeTexts(e, p),
-      entitiesWith: (p: number, v: string) => this.catalog.entitiesWithValue(p, v),
-    };
+    const lookup = this.attributeLookup();
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();
     if (cond.value || cond.compare) return { cond, analysis, reading, lookup, pprMemo, readMs };
-    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, deadline, ...(dropClues ? { dropClues } : {}) });
-    const conditions = cond.conditions.length > 0 ? applyConditions(analysis, ranked0, cond.conditions, this.index, lookup, { deadline }) : undefined;
+    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, deadline, attributes: lookup, ...(dropClues ? { dropClues } : {}) });
+    const conditions = reading.conditions.length > 0 ? applyConditions(analysis, ranked0, reading.conditions, this.index, lookup, { deadline }) : undefined;
     // the entities that satisfy the reading (all of them, not only the ranking's first `matched`), before any filter or reordering
     const matchedNodes = new Set(ranked0.fallback ? [] : (ranked0.matchedNodes?.() ?? ranked0.candidates.slice(0, ranked0.matched ?? 0).map((c) => c.node)));
     return { cond, analysis, reading, lookup, pprMemo, readMs, ranked: conditions?.ranked ?? ranked0, matchedNodes, ...(conditions ? { conditions } : {}) };
@@ -449,7 +456,7 @@ export class Session {
       ...(this.rankOptions.hubExponent !== undefined ? { hubExponent: this.rankOptions.hubExponent } : {}),
       // re-ranking without a clue reuses the other clues' walks (same relation weights, pprMemo)
       rerank: (a, drop) => {
-        const r = rank(a, this.index, { ...this.rankOptions, pprMemo, walkWeights: ranked.relationWeights, ...(extra.reading ? { reading: extra.reading } : {}), dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
+        const r = rank(a, this.index, { ...this.rankOptions, pprMemo, walkWeights: ranked.relationWeights, attributes: this.attributeLookup(), ...(extra.reading ? { reading: extra.reading } : {}), dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
         return extra.rerankWith ? extra.rerankWith(r) : r;
       },
       whyNot: extra.whyNot ?? [],

@@ -6,7 +6,8 @@
  * SIAM J. Comput. 24(6)): the frontier after hop i is every node reached from the previous
  * frontier through one of step i's relations in its stored direction (or in either
  * direction when `directed` is false), optionally restricted by a per-hop node test (the
- * type a noun of the question gives the node in between). The search stops after `maxVisits` adjacency entries
+ * type a noun of the question gives the node in between) and a per-hop selection of the frontier
+ * (a condition on the node in between, node-select.ts). The search stops after `maxVisits` adjacency entries
  * and then returns null, so the caller does not penalise nodes it never looked at.
  */
 import type { RelationIndex } from "./relation-index.js";
@@ -19,6 +20,8 @@ export interface ChainReachOptions {
   readonly maxVisits?: number;
   /** Only nodes passing this test stay in the frontier after hop `hop` (0-based), e.g. an intermediate type. @default all */
   readonly keep?: (hop: number, node: number) => boolean;
+  /** The frontier after hop `hop` (0-based) replaced by a subset of it (conditions on an inner node, node-select.ts). @default all kept */
+  readonly select?: (hop: number, frontier: Set<number>) => Set<number>;
 }
 
 /** Defaults of {@link ChainReachOptions}. */
@@ -48,7 +51,7 @@ export function chainReach(index: RelationIndex, source: number, hops: readonly 
         if (a !== undefined && a & (inverse ? 2 : 1) && (keep === undefined || keep(h, v))) next.add(v);
       });
     }
-    frontier = next;
+    frontier = options.select && h < hops.length - 1 ? options.select(h, next) : next;
     if (frontier.size === 0) break;
   }
   return frontier;

@@ -28,11 +28,13 @@
  * capped at the one before it (a running minimum), so scores stay best first.
  */
 import type { Deadline } from "../model/index.js";
-import type { AttributeChoice, Analysis, Condition, ComparisonCondition, ExclusionCondition, SuperlativeCondition } from "../analysis/index.js";
+import type { AttributeChoice, Analysis, Condition, ComparisonCondition, SuperlativeCondition } from "../analysis/index.js";
 import { words } from "../analysis/index.js";
-import { rowIndex } from "../catalog/index.js";
 import type { Ranked, RankedCandidate } from "./rank.js";
 import type { RelationIndex } from "./relation-index.js";
+import { attributeValues, exclusionSet, orderOf, pickAttribute, satisfies, type AttributeLookup, type AttributeValues } from "./attribute-values.js";
+
+export { satisfies, type AttributeLookup };
 
 /** Options of {@link applyConditions}; all optional. */
 export interface ApplyConditionsOptions {
@@ -48,18 +50,6 @@ export interface ApplyConditionsOptions {
 
 /** Defaults of {@link ApplyConditionsOptions}. */
 export const DEFAULTS = { maxHops: 3, maxVisits: 200000, limit: 200 } as const;
-
-/** Reads numeric attribute values (the catalog's `attributeNumbers`). */
-export interface AttributeLookup {
-  /** Numeric values of `predicate` on `entity`, smallest first. */
-  numbers(entity: number, predicate: number): readonly number[];
-  /** Text values of `predicate` on `entity`, as stored (literal conditions). @default none */
-  texts?(entity: number, predicate: number): readonly string[];
-  /** Entities with the literal `value` of `predicate` (a literal condition without a clue). @default none */
-  entitiesWith?(predicate: number, value: string): readonly number[];
-  /** The predicate's numbers as a CSR column (catalog numeric-column.ts): ascending entities, row offsets, values smallest first per row. @default read through `numbers` */
-  column?(predicate: number): { readonly entities: Int32Array; readonly offsets: Int32Array; readonly values: Float64Array };
-}
 
 /** How one condition went for one candidate. */
 export interface ConditionCheck {
@@ -102,13 +92,6 @@ export interface ConditionOutcome {
   readonly count?: { readonly value: number; readonly entities: readonly number[] };
   /** A superlative: the candidates sharing the asked value with the first answer (ties), besides it. */
   readonly tiedWith?: readonly number[];
-}
-
-/** True when the value lies in the comparison's range (negated: outside it). */
-export function satisfies(c: ComparisonCondition, v: number): boolean {
-  const inRange =
-    (c.min === undefined || (c.minStrict ? v > c.min : v >= c.min)) && (c.max === undefined || (c.maxStrict ? v < c.max : v <= c.max));
-  return c.negated ? !inRange : inRange;
 }
 
 /**
@@ -155,60 +138,6 @@ function unmatchedNote(question: string, c: ComparisonCondition | SuperlativeCon
 /** The entities of a set of types, per index (the clue-less candidates), at most {@link MEMBER_SETS_KEPT} sets per index. */
 const membersCache = new WeakMap<RelationIndex, Map<string, readonly number[]>>();
 const MEMBER_SETS_KEPT = 8;
-
-/** One numeric attribute's values per entity, read through the attribute's CSR column when the lookup has one. */
-interface AttributeValues {
-  /** The values of `node`, smallest first (empty: none). */
-  list(node: number): readonly number[];
-  /** True when some value of `node` passes `test`. */
-  some(node: number, test: (v: number) => boolean): boolean;
-  /** The largest ("max") or smallest value of each of `nodes`, NaN for none (one merge pass over the column while `nodes` ascend, as a set enumerated by num does). */
-  extremes(nodes: readonly number[], order: "max" | "min"): Float64Array;
-}
-
-function attributeValues(lookup: AttributeLookup, predicate: number): AttributeValues {
-  const col = lookup.column?.(predicate);
-  if (col) {
-    const { entities, offsets, values } = col;
-    return {
-      list: (n) => {
-        const r = rowIndex(entities, n);
-        return r < 0 ? [] : Array.from(values.subarray(offsets[r]!, offsets[r + 1]!));
-      },
-      some: (n, test) => {
-        const r = rowIndex(entities, n);
-        if (r < 0) return false;
-        for (let k = offsets[r]!; k < offsets[r + 1]!; k++) if (test(values[k]!)) return true;
-        return false;
-      },
-      extremes: (nodes, order) => {
-        const out = new Float64Array(nodes.length);
-        let at = 0;
-        let ascending = true;
-        for (let i = 0; i < nodes.length; i++) {
-          const n = nodes[i]!;
-          if (i > 0 && n < nodes[i - 1]!) ascending = false;
-          let r: number;
-          if (ascending) {
-            while (at < entities.length && entities[at]! < n) at++;
-            r = at < entities.length && entities[at] === n ? at : -1;
-          } else r = rowIndex(entities, n);
-          out[i] = r < 0 ? NaN : order === "max" ? values[offsets[r + 1]! - 1]! : values[offsets[r]!]!;
-        }
-        return out;
-      },
-    };
-  }
-  return {
-    list: (n) => lookup.numbers(n, predicate),
-    some: (n, test) => lookup.numbers(n, predicate).some(test),
-    extremes: (nodes, order) =>
-      Float64Array.from(nodes, (n) => {
-        const vs = lookup.numbers(n, predicate);
-        return vs.length === 0 ? NaN : order === "max" ? vs[vs.length - 1]! : vs[0]!;
-      }),
-  };
-}
 
 /** How a filter or an ordering judges one node, asked only for the nodes shown (answers, why-not). */
 type Judge = (node: number) => ConditionCheck;
@@ -301,20 +230,7 @@ export function applyConditions(
   const orderings: Judge[] = [];
   const pick = (choices: readonly AttributeChoice[]): AttributeChoice | null => {
     const pool = fit === null ? order : order.filter(isFit);
-    const scope = pool.length > 0 ? pool : order;
-    let best: AttributeChoice | null = null;
-    let bestCarry = 0;
-    for (const a of choices) {
-      const keys = valuesOf(a.num).extremes(scope, "min");
-      let carry = 0;
-      for (let i = 0; i < keys.length; i++) if (!Number.isNaN(keys[i]!)) carry++;
-      if (carry === 0) continue;
-      if (best === null || a.score > best.score + 1e-9 || (Math.abs(a.score - best.score) <= 1e-9 && carry > bestCarry)) {
-        best = a;
-        bestCarry = carry;
-      }
-    }
-    return best;
+    return pickAttribute(choices, pool.length > 0 ? pool : order, valuesOf);
   };
 
   // filters first: exclusions and comparisons
@@ -482,50 +398,6 @@ export function applyConditions(
     ...(count ? { count } : {}),
     ...(tiedWith !== undefined ? { tiedWith } : {}),
   };
-}
-
-/**
- * The entities an exclusion removes: the excluded entity itself for "other than X" of the
- * answer type; otherwise the entities linked to it by the relations in the negation's scope
- * (any relation when none) and the entity too — except for the negation of a directed
- * relation ("do not depend on X"): the entities linked in the sentence's direction only, X
- * itself kept (it does not depend on itself). A relation stored both ways at X (each of X's
- * edges of it has its reverse: "borders") has no direction to read: X and its partners go,
- * as "which neighbour of B does not border X" presupposes the answer is not X.
- */
-export function exclusionSet(c: ExclusionCondition, typeSet: ReadonlySet<number>, index: RelationIndex): Set<number> {
-  const inNodes = c.node >= 0 && c.node < index.nodeCount;
-  const rels = new Set(c.relations);
-  const directed = c.mode === "not" && c.inverse !== undefined && c.relations.length > 0 && inNodes && !reciprocalAt(index, c.node, rels);
-  const linked = new Set<number>(directed ? [] : [c.node]);
-  const selfOnly = c.mode === "other" && typeSet.size > 0 && index.isA(c.node, typeSet);
-  if (selfOnly || !inNodes) return linked;
-  index.forEach(c.node, (v, rel, inverse) => {
-    if (rels.size === 0) linked.add(v);
-    else if (directed ? c.relations.some((r, k) => r === rel && c.inverse![k] === inverse) : rels.has(rel)) linked.add(v);
-  });
-  return linked;
-}
-
-/** True when every edge of `rels` at `node` is stored both ways (and there is one): the relation is symmetric there. */
-function reciprocalAt(index: RelationIndex, node: number, rels: ReadonlySet<number>): boolean {
-  const seen = new Set<string>();
-  index.forEach(node, (v, rel, inverse) => {
-    if (rels.has(rel)) seen.add(`${v}:${rel}:${inverse ? 1 : 0}`);
-  });
-  if (seen.size === 0) return false;
-  for (const k of seen) {
-    const [v, rel, inv] = k.split(":");
-    if (!seen.has(`${v}:${rel}:${inv === "1" ? 0 : 1}`)) return false;
-  }
-  return true;
-}
-
-/** The direction of a superlative on the chosen attribute: a temporal word on a non-temporal attribute ("oldest" on an age) flips. */
-function orderOf(c: SuperlativeCondition, attr: AttributeChoice): "max" | "min" {
-  const temporalAttr = attr.unit !== undefined ? /year|date/i.test(attr.unit) : true;
-  if (c.temporal && !temporalAttr) return c.order === "max" ? "min" : "max";
-  return c.order;
 }
 
 /**

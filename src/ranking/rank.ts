@@ -51,6 +51,8 @@ import type { Seed, SparseScores } from "./ppr-options.js";
 import { pprFast, type FastOptions } from "./ppr-fast.js";
 import { cueReach, MAX_CUES, type CuePathOptions } from "./cue-paths.js";
 import type { RelationIndex } from "./relation-index.js";
+import type { AttributeLookup } from "./attribute-values.js";
+import { selectAt } from "./node-select.js";
 import { nodeBitsFor, stampedFor } from "./stamped.js";
 import { DEFAULTS as TRANSITION_DEFAULTS } from "./transition.js";
 
@@ -130,6 +132,8 @@ export interface RankOptions extends CombineOptions {
    * check, and the cue check counts either direction of a cued relation as expected
    */
   readonly reading?: RankReading;
+  /** Attribute values, for the conditions on an inner node of the reading (node-select.ts). @default none: such conditions are not applied */
+  readonly attributes?: AttributeLookup;
   /** Options of the pattern search (chain-reach.ts). */
   readonly chainReach?: ChainReachOptions;
   /** The question's time budget: once spent, the cue-path check (an ordering refinement) is left out and "ranking" is recorded as cut. @default none */
@@ -658,7 +662,9 @@ function chainFitOf(
     const typeSets = ch.steps.map((st, h) => (h < ch.steps.length - 1 && st.types.length > 0 ? new Set(st.types) : undefined));
     // a count on a hop ("whose only neighbour is C": ChainStep.only): the node it reaches has exactly that many edges of the hop's relations back towards the clue
     const counts = ch.steps.map((st) => st.only);
-    const typed = typeSets.some((t) => t !== undefined) || counts.some((n) => n !== undefined);
+    // conditions on an inner node ("the *largest* country in R"): the frontier there is selected (node-select.ts)
+    const conds = ch.steps.map((st, h) => (h < ch.steps.length - 1 && st.conditions && st.conditions.length > 0 && options.attributes ? st.conditions : undefined));
+    const typed = typeSets.some((t) => t !== undefined) || counts.some((n) => n !== undefined) || conds.some((x) => x !== undefined);
     // the partners counted are v's neighbours over the hop's relations back towards the clue;
     // a relation with the same types at both ends ("borders") counts them either way, once each
     const countOk = (h: number, v: number): boolean => {
@@ -672,7 +678,8 @@ function chainFitOf(
     };
     const keep = (h: number, v: number) => (typeSets[h] === undefined || index.isA(v, typeSets[h]!)) && countOk(h, v);
     const base = { ...options.chainReach };
-    const typedExact = typed ? chainReach(index, clue.node, hops, { ...base, directed: true, keep }) : null;
+    const select = conds.some((x) => x !== undefined) ? (h: number, frontier: Set<number>) => (conds[h] ? selectAt(frontier, conds[h]!, options.attributes!, index, new Set(ch.steps[h]!.types)) : frontier) : undefined;
+    const typedExact = typed ? chainReach(index, clue.node, hops, { ...base, directed: true, keep, ...(select ? { select } : {}) }) : null;
     const exact = chainReach(index, clue.node, hops, { ...base, directed: true });
     const undirected = chainReach(index, clue.node, hops, { ...base, directed: false });
     const pattern = (withTypes: boolean, directed: boolean): RankedPattern => ({ hops, types: ch.steps.map((st, h) => (withTypes && typeSets[h] ? st.types : [])), directed });
