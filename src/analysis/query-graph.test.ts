@@ -228,6 +228,14 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     expect(group(m)).toEqual(["p:kess"]);
   });
 
+  it("8. a text value of a node one hop from the answer: the answers are linked by the cued relation to the entities that carry it", () => {
+    // condition poor: Skell (commanded by Ada Quell) and Lune (commanded by Cyl Venn); no person has a condition
+    const r = ask("Which persons command a vessel whose condition is poor?");
+    expect(r.reading!.constraints).toEqual(["condition = poor", "all that fit"]);
+    expect(group(r)).toEqual(["x:ada", "x:cyl"]);
+    expect(r.verdict.status).toBe("tied");
+  });
+
   it("9. direction from word order and voice: what X commands against who commands X", () => {
     const out = ask("What does Ada Quell command?");
     expect(edges(out)).toEqual([["x:ada", "r:commands", "forward", "?answer"]]);

@@ -173,11 +173,27 @@ export function applyConditions(
   let matchedAll: number | undefined;
   const usable = conditions.some((c) => c.kind === "count" || c.kind === "exclusion" || c.choices.length > 0);
   const literalSeed = conditions.find((c) => c.kind === "literal" && !c.negated);
+  /** A literal value that describes a node one hop from the answer (its entities are of none of the expected types). */
+  let hoppedLiteral: Condition | undefined;
   if (ranked.clues.length === 0 && literalSeed?.kind === "literal" && lookup.entitiesWith) {
     // no clue: the entities that carry the asked value (of the expected type) are the candidates
-    order = lookup.entitiesWith(literalSeed.choices[0]!.num, literalSeed.value).filter((v) => typeSet.size === 0 || index.isA(v, typeSet));
+    const attr = literalSeed.choices[0]!;
+    const seeds = lookup.entitiesWith(attr.num, literalSeed.value);
+    order = seeds.filter((v) => typeSet.size === 0 || index.isA(v, typeSet));
     fit = null;
-    notes.push(`no clue entity: the entities whose ${literalSeed.choices[0]!.label} is ${literalSeed.value} are the candidates (${order.length})`);
+    if (order.length === 0 && seeds.length > 0 && typeSet.size > 0) {
+      // the value belongs to a node one hop from the answer ("countries that use a currency
+      // whose symbol is ₩"): the entities of the expected types linked to the value's entities,
+      // by the relations the question's words cue (any relation when they cue none)
+      const cued = new Set(analysis.relationCues.map((c) => c.relation));
+      const reached = new Set<number>();
+      for (const u of seeds) index.forEach(u, (v, rel) => {
+        if ((cued.size === 0 || cued.has(rel)) && index.isA(v, typeSet)) reached.add(v);
+      });
+      order = [...reached].sort((a, b) => a - b);
+      hoppedLiteral = literalSeed;
+      notes.push(`no clue entity: the ${analysis.answerTypes.map((t) => t.label).join(" or ")} entities linked${cued.size > 0 ? " by the cued relation" : ""} to the ${seeds.length} whose ${attr.label} is ${literalSeed.value} are the candidates (${order.length})`);
+    } else notes.push(`no clue entity: the entities whose ${attr.label} is ${literalSeed.value} are the candidates (${order.length})`);
   } else if (ranked.clues.length === 0 && typeSet.size > 0 && usable) {
     // every entity of the expected types: a function of the index alone, enumerated once per index and kept
     const key = [...typeSet].sort((a, b) => a - b).join(",");
@@ -245,6 +261,11 @@ export function applyConditions(
       notes.push(`${c.words}: ${before - order.length} candidate${before - order.length === 1 ? "" : "s"} excluded (${selfOnly ? `${c.label} itself` : `${c.label} and what is linked to it${c.relations.length > 0 ? " by the cued relation" : ""}`})`);
     } else if (c.kind === "literal") {
       const attr = c.choices[0]!;
+      if (c === hoppedLiteral) {
+        // met one hop away: the candidates were reached from the entities that carry the value
+        applied.push({ condition: c, attribute: attr, before, after: before });
+        return;
+      }
       const want = c.value.toLowerCase();
       const texts = (v: number) => (lookup.texts ? lookup.texts(v, attr.num) : []);
       // an attribute no candidate carries describes another node of the question ("the capital of the *landlocked* country"): not applied here
