@@ -186,13 +186,26 @@ export interface LiteralCondition extends ConditionBase {
   readonly choices: readonly AttributeChoice[];
 }
 
+/**
+ * An absence: a negated relation with no named object ("countries that do not border any
+ * other country"): the node has no edge of these relations, walked in the sentence's
+ * direction, to an entity of `types` (empty: any).
+ */
+export interface AbsenceCondition extends ConditionBase {
+  readonly kind: "absence";
+  /** The negated relations, each with the direction of the walk from the node that must lack it (true: against the stored triple). */
+  readonly relations: readonly { readonly relation: number; readonly inverse: boolean }[];
+  /** Types of the missing partner (a type noun in the scope: "any other *country*"); empty: any. */
+  readonly types: readonly number[];
+}
+
 /** A count question: the answer is the number of entities that fit. */
 export interface CountCondition extends ConditionBase {
   readonly kind: "count";
 }
 
 /** One recognised condition. */
-export type Condition = ComparisonCondition | SuperlativeCondition | ExclusionCondition | CountCondition | LiteralCondition;
+export type Condition = ComparisonCondition | SuperlativeCondition | ExclusionCondition | CountCondition | LiteralCondition | AbsenceCondition;
 
 /** The result of {@link detectConditions}. */
 export interface ConditionAnalysis {
@@ -493,6 +506,12 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
             end: scope.end,
           });
         }
+      } else if (mode === "not") {
+        const absence = absenceAt(analysis, ws, i + len, inMention);
+        if (absence) {
+          for (let k = i; k <= absence.last; k++) used.add(k);
+          conditions.push({ kind: "absence", relations: absence.relations, types: absence.types, words: question.slice(ws[i]!.start, ws[absence.last]!.end), start: ws[i]!.start, end: ws[absence.last]!.end });
+        }
       }
       break;
     }
@@ -529,7 +548,7 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   const usedText = new Set([...used].map((k) => ws[k]!.text));
   // a relation word inside an exclusion ("not *commanded* by X") says what to exclude: it
   // makes no hop of the other clues' patterns (its other places, if any, still do)
-  const exclusions = conditions.filter((c) => c.kind === "exclusion");
+  const exclusions = conditions.filter((c) => c.kind === "exclusion" || c.kind === "absence");
   const inExclusion = (start: number) => exclusions.some((c) => start >= c.start && start < c.end);
   const relationCues = analysis.relationCues
     .filter((c) => !c.words.every((w) => usedText.has(w)))
@@ -589,6 +608,46 @@ function negationScope(analysis: Analysis, ws: readonly Word[], cueEnd: number, 
     }
   }
   return { relations, end };
+}
+
+/** Most words between a negated relation word and the type noun of its missing object ("border *any other* country"). */
+const ABSENCE_GAP = 2;
+
+/**
+ * A negated relation with no named object (Quirk et al. 1985 §10.58 ff.: "not … any" is the
+ * negative of an existential, "no R at all"): a relation word right after the negation, with
+ * no clue mention after the negation at all. The sentence's subject stands left of the verb,
+ * so the walk from the node that must lack the relation runs along the stored triple (against
+ * it for a passive: the cue's flip). A type noun after the word, with at most `ABSENCE_GAP`
+ * function words between ("any other country"), types the missing partner and ends the scope.
+ */
+function absenceAt(analysis: Analysis, ws: readonly Word[], at: number, inMention: readonly boolean[]): { relations: { relation: number; inverse: boolean }[]; types: number[]; last: number } | undefined {
+  const w = ws[at];
+  if (!w || inMention.slice(at).some((x) => x)) return undefined;
+  const relations: { relation: number; inverse: boolean }[] = [];
+  let last = at;
+  for (const c of analysis.relationCues) {
+    for (const p of c.occurrences ?? [{ start: c.start, flip: c.flip }]) {
+      if (p.start !== w.start) continue;
+      if (!relations.some((r) => r.relation === c.relation && r.inverse === p.flip)) relations.push({ relation: c.relation, inverse: p.flip });
+      let k = at;
+      while (k + 1 < ws.length && c.words.includes(ws[k + 1]!.text)) k++;
+      last = Math.max(last, k);
+    }
+  }
+  if (relations.length === 0) return undefined;
+  let types: number[] = [];
+  for (let k = last + 1; k < ws.length && k <= last + 1 + ABSENCE_GAP; k++) {
+    const t = (analysis.typeWords ?? []).find((x) => x.start === ws[k]!.start);
+    if (t) {
+      types = [...t.types];
+      last = ws.findIndex((x) => x.start >= t.end) - 1;
+      if (last < 0) last = ws.length - 1;
+      break;
+    }
+    if (!isFunctionWord(ws[k]!.norm) && ws[k]!.norm !== "other") break;
+  }
+  return { relations, types, last };
 }
 
 function range(a: number, b: number): number[] {

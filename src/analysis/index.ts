@@ -26,6 +26,7 @@ export type {
   ComparisonOperator,
   SuperlativeCondition,
   ExclusionCondition,
+  AbsenceCondition,
   CountCondition,
   ConditionAnalysis,
   ConditionOptions,

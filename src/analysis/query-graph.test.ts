@@ -195,6 +195,14 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     expect(h.verdict.status).toBe("unique");
   });
 
+  it("7. a negated relation with no object is an absence: no edge of it, in the sentence's direction", () => {
+    // Ostrelia, Quenland and Marsk each border a realm (stored subject → object); Brask borders none (it is only bordered)
+    const r = ask("Which realms do not border any other realm?");
+    expect(r.reading!.constraints).toContain("not border any other realm");
+    expect(r.reading!.ignored).toEqual([]);
+    expect(r.answers.map((a) => a.id)).toEqual(["k:brask"]);
+  });
+
   it("8. literal conditions: a text value and a year", () => {
     const r = ask("Which vessels are in poor condition?");
     expect(r.reading!.constraints).toEqual(["condition = poor", "all that fit"]);

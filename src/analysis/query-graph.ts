@@ -503,6 +503,7 @@ function conditionText(c: Condition): string {
   if (c.kind === "superlative") return `${c.position > 1 ? `place ${c.position} ` : ""}${c.order === "max" ? "largest" : "smallest"} by ${attr}`;
   if (c.kind === "exclusion") return c.inverse !== undefined && c.mode === "not" ? c.words : `not ${c.label}${c.mode === "not" ? " (nor what is linked to it)" : ""}`;
   if (c.kind === "literal") return `${attr} ${c.negated ? "!=" : "="} ${c.value}`;
+  if (c.kind === "absence") return c.words;
   return "count";
 }
 

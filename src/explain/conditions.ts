@@ -89,6 +89,8 @@ export function conditionSteps(node: number, conditions: readonly Condition[], o
       text = ch.values.length === 0 ? `${a?.label ?? "attribute"}: no value, so not ordered` : `${a?.label}: ${shown}${unit}, place ${ch.place} by ${c.order === "max" ? "largest" : "smallest"} first`;
     } else if (c.kind === "literal") {
       text = `${c.choices[0]!.label}: ${ch.texts?.join(", ") || "no value"} ${ch.satisfied ? "satisfies" : "fails"} ${c.negated ? "!=" : "="} ${c.value}`;
+    } else if (c.kind === "absence") {
+      text = ch.satisfied ? c.words : `has such a link, against "${c.words}"`;
     } else if (c.kind === "exclusion") {
       const directed = c.mode === "not" && c.inverse !== undefined;
       text = ch.satisfied ? (directed ? c.words : `not ${c.label} and not linked to it`) : directed ? `excluded by "${c.words}"` : `excluded: ${ch.excludedBy === node ? "is" : "is linked to"} ${c.label}`;

@@ -74,7 +74,7 @@ export interface AnswerPath {
 
 /** One recognised condition in `ask --json` (`conditions`, additive). */
 export interface ConditionDoc {
-  readonly kind: "comparison" | "superlative" | "exclusion" | "count" | "literal";
+  readonly kind: "comparison" | "superlative" | "exclusion" | "count" | "literal" | "absence";
   /** The question words that expressed it. */
   readonly words: string;
   readonly start: number;

@@ -46,6 +46,8 @@ function conditionText(c: ConditionDoc): string {
       return `${c.attribute?.label ?? ""} ${c.operator ?? "="} ${(c.values ?? []).join(", ")}  ["${c.words}"]`;
     case "exclusion":
       return `not ${c.entity?.label ?? ""} [${c.entity?.id ?? ""}]${c.mode === "not" ? " nor what is linked to it" : ""}  ["${c.words}"]`;
+    case "absence":
+      return `no such link  ["${c.words}"]`;
     default:
       return `count the answers  ["${c.words}"]`;
   }

@@ -10,7 +10,7 @@
  * exclusion is an anti-join with the excluded entity's neighbourhood (NOT EXISTS in SQL,
  * ISO/IEC 9075).
  */
-import type { AttributeChoice, ComparisonCondition, ExclusionCondition, SuperlativeCondition } from "../analysis/index.js";
+import type { AbsenceCondition, AttributeChoice, ComparisonCondition, ExclusionCondition, SuperlativeCondition } from "../analysis/index.js";
 import { rowIndex } from "../catalog/index.js";
 import type { RelationIndex } from "./relation-index.js";
 
@@ -154,4 +154,17 @@ export function pickAttribute(choices: readonly AttributeChoice[], scope: readon
     }
   }
   return best;
+}
+
+/** True for an entity with no edge of the absence's relations, in its direction, to an entity of its types (NOT EXISTS). */
+export function absenceTest(c: AbsenceCondition, index: RelationIndex): (v: number) => boolean {
+  const types = new Set(c.types);
+  return (v) => {
+    if (!(v >= 0 && v < index.nodeCount)) return true;
+    let found = false;
+    index.forEach(v, (w, rel, inverse) => {
+      if (!found && c.relations.some((r) => r.relation === rel && r.inverse === inverse) && (types.size === 0 || index.isA(w, types))) found = true;
+    });
+    return !found;
+  };
 }

@@ -32,7 +32,7 @@ import type { AttributeChoice, Analysis, Condition, ComparisonCondition, Superla
 import { words } from "../analysis/index.js";
 import type { Ranked, RankedCandidate } from "./rank.js";
 import type { RelationIndex } from "./relation-index.js";
-import { attributeValues, exclusionSet, orderOf, pickAttribute, satisfies, type AttributeLookup, type AttributeValues } from "./attribute-values.js";
+import { absenceTest, attributeValues, exclusionSet, orderOf, pickAttribute, satisfies, type AttributeLookup, type AttributeValues } from "./attribute-values.js";
 
 export { satisfies, type AttributeLookup };
 
@@ -171,7 +171,7 @@ export function applyConditions(
   let fit: ReadonlySet<number> | null;
   let extra = { score: 1, perClue: [] as readonly number[], covered: 0 };
   let matchedAll: number | undefined;
-  const usable = conditions.some((c) => c.kind === "count" || c.kind === "exclusion" || c.choices.length > 0);
+  const usable = conditions.some((c) => c.kind === "count" || c.kind === "exclusion" || c.kind === "absence" || c.choices.length > 0);
   const literalSeed = conditions.find((c) => c.kind === "literal" && !c.negated);
   /** A literal value that describes a node one hop from the answer (its entities are of none of the expected types). */
   let hoppedLiteral: Condition | undefined;
@@ -259,6 +259,12 @@ export function applyConditions(
       filters.push((v) => (linked.has(v) ? { condition: ci, values: [], satisfied: false, excludedBy: c.node } : { condition: ci, values: [], satisfied: true }));
       applied.push({ condition: c, attribute: null, before, after: order.length });
       notes.push(`${c.words}: ${before - order.length} candidate${before - order.length === 1 ? "" : "s"} excluded (${selfOnly ? `${c.label} itself` : `${c.label} and what is linked to it${c.relations.length > 0 ? " by the cued relation" : ""}`})`);
+    } else if (c.kind === "absence") {
+      const lacks = absenceTest(c, index);
+      order = order.filter(lacks);
+      filters.push((v) => ({ condition: ci, values: [], satisfied: lacks(v) }));
+      applied.push({ condition: c, attribute: null, before, after: order.length });
+      notes.push(`${c.words}: ${before - order.length} candidate${before - order.length === 1 ? "" : "s"} removed (they have such a link)`);
     } else if (c.kind === "literal") {
       const attr = c.choices[0]!;
       if (c === hoppedLiteral) {

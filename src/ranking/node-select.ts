@@ -14,7 +14,7 @@
  * set can be tested on (no choice carried, no literal value) leaves the set as it is.
  */
 import type { AttributeChoice, Condition } from "../analysis/index.js";
-import { attributeValues, exclusionSet, orderOf, pickAttribute, satisfies, type AttributeLookup } from "./attribute-values.js";
+import { absenceTest, attributeValues, exclusionSet, orderOf, pickAttribute, satisfies, type AttributeLookup } from "./attribute-values.js";
 import type { RelationIndex } from "./relation-index.js";
 
 /** The entities of `nodes` that satisfy `conditions` (filters first, then each ordering keeps its asked place); `types`: the node's types (an "other than X" of that type removes X alone). */
@@ -22,7 +22,8 @@ export function selectAt(nodes: ReadonlySet<number>, conditions: readonly Condit
   let set = [...nodes].sort((a, b) => a - b);
   const pick = (choices: readonly AttributeChoice[]) => pickAttribute(choices, set, (a) => attributeValues(lookup, a));
   for (const c of conditions) {
-    if (c.kind === "exclusion") {
+    if (c.kind === "absence") set = set.filter(absenceTest(c, index));
+    else if (c.kind === "exclusion") {
       const out = exclusionSet(c, types, index);
       set = set.filter((v) => !out.has(v));
     } else if (c.kind === "comparison") {
