@@ -45,7 +45,7 @@
  * after score.
  */
 import type { Analysis, Clue, CueChain, QueryGraph } from "../analysis/index.js";
-import { chainReach, type ChainHop, type ChainReachOptions } from "./chain-reach.js";
+import { chainReach, type ChainHop, type ChainReachOptions, type NodeSet } from "./chain-reach.js";
 import { combineClueScores, DEFAULTS as COMBINE_DEFAULTS, type CombineOptions } from "./combine.js";
 import type { Seed, SparseScores } from "./ppr-options.js";
 import { pprFast, type FastOptions } from "./ppr-fast.js";
@@ -225,6 +225,9 @@ export interface RankedPattern {
   /** False when the hops' directions were not required. */
   readonly directed: boolean;
 }
+
+/** A node set as the whole-reading intersection reads it (a pattern's end set or a clue's neighbours). */
+type NodeTest = { readonly size: number; has(v: number): boolean; [Symbol.iterator](): Iterator<number> };
 
 /** The pattern of a clue constrained to its neighbours: one hop of any relation. */
 const ANY_HOP: RankedPattern = { hops: [[]], types: [[]], directed: false };
@@ -438,7 +441,7 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   const matchedNodes = (): readonly number[] => {
     if (whole) return whole;
     if (matched.length === 0) return (whole = []);
-    const sets: ReadonlySet<number>[] = [...(chainCheck?.exact ?? []), ...adjacency].sort((a, b) => a.size - b.size);
+    const sets: NodeTest[] = [...(chainCheck?.exact ?? []), ...adjacency].sort((a, b) => a.size - b.size);
     whole = [];
     for (const v of sets[0] ?? []) {
       if (isSeed(v) || (typeFiltered && !isAnswerType(v))) continue;
@@ -635,13 +638,13 @@ function chainFitOf(
   index: RelationIndex,
   eligible: ReadonlySet<number>,
   options: RankOptions,
-): { fit: (v: number) => number; misses: (v: number) => number[]; ignored: number; patterns: readonly (RankedPattern | undefined)[]; exact: readonly ReadonlySet<number>[] } | undefined {
+): { fit: (v: number) => number; misses: (v: number) => number[]; ignored: number; patterns: readonly (RankedPattern | undefined)[]; exact: readonly NodeSet[] } | undefined {
   const miss = options.chainMiss ?? DEFAULTS.chainMiss;
   const loose = options.chainLoose ?? DEFAULTS.chainLoose;
   const maxSteps = options.chainMaxSteps ?? DEFAULTS.chainMaxSteps;
   if (miss >= 1) return undefined;
-  const hits = (set: Set<number> | null) => set !== null && [...set].some((v) => eligible.has(v));
-  const checks: { exact: Set<number>; loose: Set<number> | null; weight: number; group: number; clue: number }[] = [];
+  const hits = (set: NodeSet | null) => set !== null && set.some((v) => eligible.has(v));
+  const checks: { exact: NodeSet; loose: NodeSet | null; weight: number; group: number; clue: number }[] = [];
   const patterns: (RankedPattern | undefined)[] = [];
   // coordinated clues ("both A and B") share one pattern that must hold from each: one group
   // (named by its first clue present here), whose factor is its members' minimum

@@ -104,6 +104,11 @@ export class NodeBits {
     }
   }
 
+  /** The members, ascending. */
+  sorted(): Int32Array {
+    return Int32Array.from(this.members).sort();
+  }
+
   /** Empties the set (word by word for a few members, else the whole array); returns this. */
   clear(): this {
     if (this.members.length * 8 > this.words.length) this.words.fill(0);
