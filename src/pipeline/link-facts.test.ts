@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { closeAppositive, codeMismatch, writtenWord } from "./link-facts.js";
+import { closeAppositive, codeMismatch, partOfLongerName, wholeName, writtenWord } from "./link-facts.js";
 
 // Hand-made cases; the expected words and verdicts are read off the strings.
 describe("link facts: the written word of a mention, codes, close apposition", () => {
@@ -28,5 +28,22 @@ describe("link facts: the written word of a mention, codes, close apposition", (
     expect(closeAppositive(s, s.indexOf("Harnesk"))).toBe(false);
     const t = "In which country is the city of Kingston?";
     expect(closeAppositive(t, t.indexOf("Kingston"))).toBe(false);
+  });
+});
+
+describe("link facts: other senses that take a whole name's word as one word of a longer name", () => {
+  // invented names: "Braskian" derived from the realm Brask, also one word of "Braskian Sea Company" and derived within "North Brask"
+  const m = { text: "Braskian", start: 6, end: 14, entity: { id: "k:brask", label: "Brask" }, num: 1, confidence: 0.3, alternatives: [], match: "derived" as const, derivation: { suffix: "ian", base: "Brask" } };
+  it("a word derived from the whole label, or the label itself, is the whole name", () => {
+    expect(wholeName(m)).toBe(true);
+    expect(wholeName({ ...m, match: "label" })).toBe(true);
+    expect(wholeName({ ...m, derivation: { suffix: "ian", base: "North Brask" } })).toBe(false);
+    expect(wholeName({ ...m, match: "partial" })).toBe(false);
+  });
+  it("a partial match, or a derivation inside a name of several words, is part of a longer name", () => {
+    expect(partOfLongerName({ id: "o:bsc", label: "Braskian Sea Company", confidence: 0.2, match: "partial" })).toBe(true);
+    expect(partOfLongerName({ id: "k:nb", label: "North Brask", confidence: 0.2, match: "derived" })).toBe(true);
+    expect(partOfLongerName({ id: "l:b", label: "Braskish", confidence: 0.2, match: "derived" })).toBe(false);
+    expect(partOfLongerName({ id: "k:b2", label: "Brask", confidence: 0.2, match: "label" })).toBe(false);
   });
 });

@@ -16,7 +16,12 @@
  * reading fits nothing (verdict.ts rule 1).
  *
  * Doubt: a clue mention whose next sense has at least `faintRatio` × the chosen sense's
- * confidence (verdict.ts DEFAULTS, reasons there), unless the user pinned it. Up to
+ * confidence (verdict.ts DEFAULTS, reasons there), unless the user pinned it. When the word is
+ * the chosen sense's whole name (its label or alias, or derived from its whole label:
+ * "African" ← Africa), a sense that takes it as one word of a longer name ("Central African
+ * Republic", "South Africa") is no other sense: a generic word of a long form does not name
+ * that entity (issue 16, names not written as the catalog writes them); the next sense that
+ * is not such a part is read instead. Up to
  * `maxSenses` such mentions are evaluated: the question is read again with the mention pinned
  * to the other sense, and the answers that satisfy that reading (ranking `Ranked.matched`,
  * after the conditions' filters) are the other sense's answers — when every clue of that
@@ -40,6 +45,16 @@ export const DEFAULTS = {
   /** Doubtful mentions evaluated with their other sense (each costs one more reading and ranking). */
   maxSenses: 2,
 } as const;
+
+/** True when the mention's word is its sense's whole name: the label or an alias, or derived from the whole label ("African" ← Africa). */
+export function wholeName(m: Analysis["mentions"][number]): boolean {
+  return m.match === "label" || m.match === "alias" || (m.match === "derived" && m.derivation?.base.toLowerCase() === m.entity.label.toLowerCase());
+}
+
+/** True when an other sense takes the word as one word of a longer name ("Central African Republic", "South Africa" for "African"). */
+export function partOfLongerName(a: Analysis["mentions"][number]["alternatives"][number]): boolean {
+  return a.match === "partial" || (a.match === "derived" && words(a.label).length > 1);
+}
 
 /** The word of the question a span stands in: extended over the characters up to the next space, sentence punctuation left out. */
 export function writtenWord(question: string, start: number, end: number): { text: string; start: number; end: number } {
@@ -128,7 +143,7 @@ export function linkFacts(
       continue;
     }
     if (m.match === "partial") partial.push({ ...base, notFound: true });
-    const next = m.alternatives[0];
+    const next = m.alternatives.find((a) => !(wholeName(m) && partOfLongerName(a)));
     if (!next || next.confidence < faintRatio * m.confidence || doubts.length >= maxSenses) continue;
     const other = { id: next.id, label: next.label, confidence: next.confidence };
     doubts.push({ mention: { ...base, next: other }, answers: source.otherSense(m.text, next.id, next.label === m.entity.label), modified: closeAppositive(question, m.start) });
