@@ -42,7 +42,7 @@ import type { Analysis, AnswerType } from "./analyze.js";
 import type { QuestionModel } from "./question-model.js";
 import { findQuantities, unitMatches, type Quantity } from "./quantity.js";
 import { isFunctionWord, words, type Word } from "./words.js";
-import { AFTER_QUANTITY, BEFORE_QUANTITY, COMPASS_COMPARATIVES, COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
+import { AFTER_QUANTITY, ANSWER_TYPE_WORDS, BEFORE_QUANTITY, COMPASS_COMPARATIVES, COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
 
 /** Options of {@link detectConditions}; all optional. */
 export interface ConditionOptions {
@@ -216,6 +216,21 @@ export interface ConditionAnalysis {
   readonly value?: ValueQuestion;
   /** A comparison between named entities ("Which is bigger, A or B?"): the answer is one of them. */
   readonly compare?: EntityComparison;
+  /** An identity question ("Which package is the lightweight PDF viewer?"): the answer is the entity the description names. */
+  readonly identity?: IdentityQuestion;
+}
+
+/**
+ * An identity question: "Which/What TYPE is/are (the) D?" with D one linked mention and
+ * nothing else: the copula identifies the subject with its complement (Quirk et al. 1985
+ * §10.8, the subject complement identifies the subject; a definite description denotes the one
+ * entity it fits, Russell 1905), so the answer is the entity D is linked to, not what is
+ * linked to it; the mention's other senses of the expected type are the other answers.
+ */
+export interface IdentityQuestion extends ConditionBase {
+  /** Index into `Analysis.mentions` of the description (or name). */
+  readonly mention: number;
+  readonly node: number;
 }
 
 /** A value question: the asked attribute of one named entity. */
@@ -542,7 +557,10 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
     const notesLeft = analysis.notes.filter((n) => n !== gap);
     return { analysis: { ...analysis, notes: notesLeft }, conditions: rest, ...direct };
   }
-  if (conditions.length === 0) return { analysis, conditions };
+  if (conditions.length === 0) {
+    const identity = identityQuestion(analysis, ws, model);
+    return identity ? { analysis, conditions, identity } : { analysis, conditions };
+  }
 
   // condition words are no relation cues; excluded mentions are no clues
   const usedText = new Set([...used].map((k) => ws[k]!.text));
@@ -913,6 +931,32 @@ function directQuestion(
   return { value: { mention: mi, node: m.num, choices, words: question.slice(ws[from]!.start, ws[last]!.end), start: ws[from]!.start, end: ws[last]!.end } };
 }
 
+
+/**
+ * An identity question (see {@link IdentityQuestion}): a wh-determiner ("which", "what") and
+ * the answer-type words, a copula, an optional article, then one clue mention that ends the
+ * question; every other word is one of those. The clue's entity must have an expected type.
+ */
+function identityQuestion(analysis: Analysis, ws: readonly Word[], model: QuestionModel): IdentityQuestion | undefined {
+  if (analysis.clues.length !== 1 || analysis.answerTypes.length === 0 || ws.length === 0) return undefined;
+  const clue = analysis.clues[0]!;
+  const m = analysis.mentions[clue.mention];
+  if (!m || ws[ws.length - 1]!.end > m.end) return undefined;
+  const inType = (w: Word) => (analysis.answerTypeWords ?? []).some((s) => w.start >= s.start && w.end <= s.end);
+  const before = ws.filter((w) => w.end <= m.start);
+  if (before.length < 3 || !ANSWER_TYPE_WORDS.WH_WHICH.has(before[0]!.norm)) return undefined;
+  let k = before.length - 1;
+  if (ARTICLES.has(before[k]!.norm)) k--;
+  if (k < 2 || !COPULAS.has(before[k]!.norm)) return undefined;
+  if (!before.slice(1, k).every(inType)) return undefined;
+  // the entity must be of an expected type (the catalog's hierarchy included)
+  const want = new Set(analysis.answerTypes.flatMap((t) => model.typeByNum.get(t.num)?.descendants ?? [t.num]));
+  if (!model.typesOf || !model.typesOf(m.num).some((t) => want.has(t))) return undefined;
+  return { mention: clue.mention, node: m.num, words: analysis.question.slice(before[0]!.start, m.end), start: before[0]!.start, end: m.end };
+}
+
+/** Articles before the complement of an identity question ("is *the* …"; Quirk et al. 1985 §5.10 ff., central determiners). */
+const ARTICLES: ReadonlySet<string> = new Set(["the", "a", "an"]);
 
 /** Stored values that read as booleans (xsd:boolean's lexical forms, W3C XML Schema 1.1 Part 2 §3.3.2). */
 const BOOLEAN_TRUE: ReadonlySet<string> = new Set(["true", "1"]);

@@ -35,7 +35,7 @@ export type {
   AttributeRef,
   AttributeChoice,
 } from "./conditions.js";
-export type { ValueQuestion, EntityComparison } from "./conditions.js";
+export type { ValueQuestion, EntityComparison, IdentityQuestion } from "./conditions.js";
 export { readQuestion, readingText, readingDoc, constraintTexts } from "./query-graph.js";
 export type { QueryGraph, QueryNode, QueryEdge, ReadOptions } from "./query-graph.js";
 export { DIMENSIONS, TEMPORAL, ORDINALS, gradable, isComparativeForm, isPluralNoun } from "./lexicon.js";

@@ -260,6 +260,19 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     expect(r.answers[0]!.id).toBe("p:holm");
   });
 
+  it("10. 'Which X is the <description>?' asks which entity the description names: the answer is that entity, not its neighbours", () => {
+    // Lune is "A small ferry across the canal."
+    const r = ask("Which vessel is the small ferry across the canal?");
+    expect(r.reading!.text).toBe("?answer (vessel); identity: ?answer = Lune");
+    expect(r.reading!.edges).toEqual([]);
+    expect(r.answers[0]!.id).toBe("s:lune");
+    expect(r.verdict.status).toBe("unique");
+    // a relation word between the copula and the name is no identity: the home port of Morrow is Vask
+    const h = ask("Which port is the home port of Morrow?");
+    expect(h.reading!.text).not.toMatch(/identity/);
+    expect(h.answers[0]!.id).toBe("p:vask");
+  });
+
   it("11. a plural question asks for the set: one tied group", () => {
     const r = ask("Which vessels have Vask as their home port?");
     expect(r.reading!.plural).toBe(true);

@@ -21,7 +21,7 @@
  * user sees what was ignored.
  */
 import type { Analysis } from "./analyze.js";
-import type { Condition, ConditionAnalysis, EntityComparison, ValueQuestion } from "./conditions.js";
+import type { Condition, ConditionAnalysis, EntityComparison, IdentityQuestion, ValueQuestion } from "./conditions.js";
 import { attachConditions } from "./attach-conditions.js";
 import { cueChains, type CueChain, type CueChainOptions, type StepOption } from "./cue-chains.js";
 import { EXCLUSIVE_WORDS, isPluralNoun, PLURAL_COPULAS, POSSESSIVE_DETERMINERS, SET_WORDS } from "./lexicon.js";
@@ -68,6 +68,8 @@ export interface QueryGraph {
   readonly conditions: readonly Condition[];
   readonly value?: ValueQuestion;
   readonly compare?: EntityComparison;
+  /** An identity question: the answer is the described entity itself (conditions.ts `IdentityQuestion`). */
+  readonly identity?: IdentityQuestion;
   /** True when the question asks for a set. */
   readonly plural: boolean;
   /**
@@ -130,8 +132,9 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
     const ws = [...new Set(opts.flatMap((o) => cueOf(o.cue)?.words ?? []))];
     return { from, to, options: opts, direction, words: ws };
   };
-  // coordinated clues share one chain of variables: build it once per group
-  const done = new Set<number>();
+  // coordinated clues share one chain of variables: build it once per group; an identity
+  // question has no edge (the answer is the clue itself)
+  const done = new Set<number>(cond.identity ? chains.map((_, c) => c) : []);
   chains.forEach((ch, c) => {
     if (done.has(c)) return;
     const group = ch.conjuncts ?? [c];
@@ -160,6 +163,7 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
     conditions: attached.answer,
     ...(cond.value ? { value: cond.value } : {}),
     ...(cond.compare ? { compare: cond.compare } : {}),
+    ...(cond.identity ? { identity: cond.identity } : {}),
     plural: asksForSet(analysis),
     ...(headCue ? { headCue } : {}),
     ignored: ignoredWords(analysis, cond, chains, headCue?.words),
@@ -512,6 +516,7 @@ export function constraintTexts(g: QueryGraph, analysis: Analysis): string[] {
   const out: string[] = [];
   for (const c of g.conditions) out.push(conditionText(c));
   if (g.value) out.push(`value: ${g.value.choices[0]?.label ?? "no attribute"} of ${analysis.mentions[g.value.mention]?.entity.label ?? "?"}`);
+  if (g.identity) out.push(`identity: ?answer = ${analysis.mentions[g.identity.mention]?.entity.label ?? "?"}`);
   if (g.compare) out.push(`compare: ${g.compare.mentions.map((m) => analysis.mentions[m]?.entity.label ?? "?").join(" vs ")} by ${g.compare.choices[0]?.label ?? "no attribute"} (${g.compare.order === "max" ? "larger" : "smaller"} wins)`);
   if (g.plural) out.push("all that fit");
   return out;

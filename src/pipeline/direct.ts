@@ -12,9 +12,13 @@
  * none. Comparison: the named entities ordered by the value (the `order` of the comparative;
  * a temporal word on a non-temporal attribute flips it, as for superlatives); `tied` when
  * the two best values are equal, `weak` when an entity has no value, `none` when none has.
+ * Identity ("Which package is the lightweight PDF viewer?"): the answer is the entity the
+ * description is linked to, then the mention's other senses of an expected type in the
+ * linker's order; `unique` unless an other sense has at least `senseRatio` of the chosen
+ * one's confidence (explain/verdict.ts DEFAULTS, the rule for senses in doubt), then `weak`.
  */
 import type { Catalog } from "../catalog/index.js";
-import type { AttributeChoice, EntityComparison, ValueQuestion } from "../analysis/index.js";
+import type { Analysis, AttributeChoice, EntityComparison, IdentityQuestion, ValueQuestion } from "../analysis/index.js";
 import type { Answer, ValueDoc, Verdict } from "../model/index.js";
 
 /** What a direct answer produced. */
@@ -110,4 +114,18 @@ export function answerComparison(catalog: Catalog, c: EntityComparison, numeric:
         : { status: "unique", margin, tiedWith: [], reason: `${catalog.ref(withValue[0]!).label} has the ${word} ${attr.label} of ${names.join(", ")}` };
   }
   return { answers, values, verdict, notes: [`compared by ${attr.label} (${word} first), read from the catalog (see "values")`] };
+}
+
+/** Answers an identity question: the described entity, then the description's other senses of an expected type. */
+export function answerIdentity(catalog: Catalog, q: IdentityQuestion, analysis: Analysis, senseRatio: number, isExpected: (node: number) => boolean): DirectAnswer {
+  const m = analysis.mentions[q.mention]!;
+  const others = m.alternatives.filter((a) => a.num !== undefined && isExpected(a.num));
+  const answers = [answerOf(catalog, q.node, m.confidence), ...others.map((a) => answerOf(catalog, a.num!, a.confidence))];
+  const pct = (x: number) => `${Math.round(x * 100)} %`;
+  const next = others[0];
+  const verdict: Verdict =
+    next !== undefined && next.confidence >= senseRatio * m.confidence
+      ? { status: "weak", margin: 0, tiedWith: [], reason: `"${m.text}" names ${m.entity.label} (${pct(m.confidence)}); it may also be ${next.label} (${pct(next.confidence)})` }
+      : { status: "unique", margin: next !== undefined ? Math.min(1, 1 - next.confidence / m.confidence) : 1, tiedWith: [], reason: `the question asks which entity "${m.text}" is: ${m.entity.label} (${pct(m.confidence)})` };
+  return { answers, values: [], verdict, notes: [`"${q.words}": the answer is the entity "${m.text}" names itself, not what is linked to it`] };
 }

@@ -11,7 +11,7 @@ import { Linker, linkQuestion, notFoundNote, type LinkResult, type Pin } from ".
 import { DEADLINE_DEFAULTS, DISCLAIMER, Deadline, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type EntityRef, type Mention, type Verdict } from "../model/index.js";
 import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { linkFacts } from "./link-facts.js";
-import { answerComparison, answerValue, type DirectAnswer } from "./direct.js";
+import { answerComparison, answerIdentity, answerValue, type DirectAnswer } from "./direct.js";
 import { StoreEdges, type PullFigures, type StoreOptions } from "./store-edges.js";
 import { LocalEdges, type EdgeAccess, type StoreDescription } from "./edge-access.js";
 import { conditionDocs, conditionExplanation, conditionSteps, countDoc, decideVerdict, explain, whyNotFigures, whyNotReasons, PATH_DEFAULTS, VERDICT_DEFAULTS, WHY_NOT_DEFAULTS, type Explanation, type VerdictContext, type WhyNot } from "../explain/index.js";
@@ -220,8 +220,13 @@ export class Session {
     const { cond, analysis, reading, ranked: maybeRanked, matchedNodes, conditions, pprMemo, lookup, readMs } = this.readAndRank(question, link, deadline, options.dropClues);
     // the reading (analysis, conditions, query graph) apart from the ranking that follows it in readAndRank
     const tRead = t1 + readMs;
-    if (cond.value || cond.compare) {
-      const direct = cond.value ? answerValue(this.catalog, cond.value) : answerComparison(this.catalog, cond.compare!, this.attributes().attributes.map((a) => ({ ...a, score: 0, wordIndexes: [] })));
+    if (cond.value || cond.compare || cond.identity) {
+      const expected = new Set(analysis.answerTypes.map((t) => t.num));
+      const direct = cond.value
+        ? answerValue(this.catalog, cond.value)
+        : cond.compare
+          ? answerComparison(this.catalog, cond.compare, this.attributes().attributes.map((a) => ({ ...a, score: 0, wordIndexes: [] })))
+          : answerIdentity(this.catalog, cond.identity!, analysis, VERDICT_DEFAULTS.senseRatio, (n) => this.index.isA(n, expected));
       // a value question has no ranking to compare a --why-not entity with: say so (names still checked)
       const asked = options.whyNot ?? [];
       for (const name of asked) this.whyNotEntities(name);
@@ -345,7 +350,7 @@ export class Session {
     const lookup = this.attributeLookup();
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();
-    if (cond.value || cond.compare) return { cond, analysis, reading, lookup, pprMemo, readMs };
+    if (cond.value || cond.compare || cond.identity) return { cond, analysis, reading, lookup, pprMemo, readMs };
     const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, deadline, attributes: lookup, ...(dropClues ? { dropClues } : {}) });
     const conditions = reading.conditions.length > 0 ? applyConditions(analysis, ranked0, reading.conditions, this.index, lookup, { deadline }) : undefined;
     // the entities that satisfy the reading (all of them, not only the ranking's first `matched`), before any filter or reordering
@@ -400,7 +405,7 @@ export class Session {
       notes: [...limitNotes, ...analysis.notes, ...direct.notes],
       disclaimer: DISCLAIMER,
       values: direct.values,
-      reading: readingDoc(reading, analysis, this.model, { matched: direct.values.length > 0 ? answers.length : 0, fallback: false }),
+      reading: readingDoc(reading, analysis, this.model, { matched: direct.values.length > 0 ? answers.length : reading.identity ? 1 : 0, fallback: false }),
     };
     const total = performance.now() - t0;
     return { result, analysis, ranked, reading, timings: { link: times.link, analyze: times.analyze, rank: total - times.link - times.analyze, explain: 0, total } };
