@@ -10,8 +10,9 @@
  * - a 32-bit FNV-1a hash set of every alias's normalised and stemmed key, so n-gram spans
  *   that cannot match skip the SQLite lookup (a false positive only costs one lookup);
  * - the alias vocabulary's trigram table (fuzzy-index.ts) and the inverted index of the
- *   descriptions (description-match.ts), read from the file only when a question first needs
- *   them (one read; the sections after the others), so opening the snapshot does not pay for them;
+ *   descriptions (description-match.ts), each read from the file only when a question first
+ *   needs it (one read of its own sections; both after the others), so opening the snapshot
+ *   does not pay for them, nor a question for the one it does not use;
  * - context-term document frequencies for BM25 (stemmed). An entity's context document is its
  *   description, its neighbours' labels and (at half weight) its neighbours' descriptions, in
  *   the spirit of extended gloss overlap (S. Banerjee and T. Pedersen, CICLing 2002). The
@@ -33,7 +34,9 @@ import type { DescriptionTable } from "./description-match.js";
 const MAGIC = "tiepoint-link-4";
 
 /** Sections read when a question first needs them (the trigram table, the description index), not at open. */
-const LAZY = ["gramKeys", "gramOffsets", "gramPostings", "descOffsets", "descPostings", "descTf", "descLengths", "descTerms"] as const;
+const LAZY_GRAMS = ["gramKeys", "gramOffsets", "gramPostings"] as const;
+const LAZY_DESCRIPTIONS = ["descOffsets", "descPostings", "descTf", "descLengths", "descTerms"] as const;
+const LAZY: readonly string[] = [...LAZY_GRAMS, ...LAZY_DESCRIPTIONS];
 
 /** The snapshot file's header. */
 interface Header {
@@ -148,25 +151,31 @@ export class LexicalSnapshot {
 
   /** The vocabulary's trigram table (fuzzy-index.ts); undefined when the file no longer holds this generation's. */
   grams(): TrigramTable | undefined {
-    if (!this.gramTable) this.readLazy();
+    if (!this.gramTable) this.readLazy("grams");
     return this.gramTable;
   }
 
   /** The description index's table (description-match.ts); undefined when the file no longer holds this generation's. */
   descriptions(): DescriptionTable | undefined {
-    if (!this.descTable) this.readLazy();
+    if (!this.descTable) this.readLazy("descriptions");
     return this.descTable;
   }
 
-  /** Reads the lazy sections with one read, after checking that the file is still this snapshot's. */
-  private readLazy(): void {
+  /**
+   * Reads one lazy part (the trigram table, or the description index) with one read of its
+   * sections only, after checking that the file is still this snapshot's: a question that
+   * corrects a misspelling does not pay for the description index, nor the other way round
+   * (each fresh megabyte read costs its page faults as well as the copy).
+   */
+  private readLazy(part: "grams" | "descriptions"): void {
     if (!this.file) return;
     let fd: number | undefined;
     try {
       fd = openSync(this.file.path, "r");
       const { h, base } = readHeader(fd);
       if (h.magic !== MAGIC || h.uid !== this.uid || h.generation !== this.generation || JSON.stringify(h.sections) !== JSON.stringify(this.file.sections)) return;
-      const [from, to] = spanOf(h.sections, LAZY);
+      const names = part === "grams" ? LAZY_GRAMS : LAZY_DESCRIPTIONS;
+      const [from, to] = spanOf(h.sections, names);
       const buf = readRange(fd, base + from, to - from);
       const sec = (name: string) => {
         const [o, n] = h.sections[name]!;
@@ -176,8 +185,11 @@ export class LexicalSnapshot {
         const b = sec(name);
         return new Int32Array(b.buffer, b.byteOffset, b.length / 4);
       };
-      const gk = sec("gramKeys");
-      this.gramTable = { keys: new Float64Array(gk.buffer, gk.byteOffset, gk.length / 8), offsets: ints("gramOffsets"), postings: ints("gramPostings") };
+      if (part === "grams") {
+        const gk = sec("gramKeys");
+        this.gramTable = { keys: new Float64Array(gk.buffer, gk.byteOffset, gk.length / 8), offsets: ints("gramOffsets"), postings: ints("gramPostings") };
+        return;
+      }
       const terms = h.descTermCount === 0 ? [] : sec("descTerms").toString("utf8").split("\n");
       if (terms.length !== h.descTermCount) return;
       this.descTable = { terms, offsets: ints("descOffsets"), postings: ints("descPostings"), tf: ints("descTf"), lengths: ints("descLengths"), documents: h.descDocuments, avgLength: h.descAvgLength };

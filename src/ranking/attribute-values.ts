@@ -43,6 +43,8 @@ export interface AttributeValues {
   some(node: number, test: (v: number) => boolean): boolean;
   /** The largest ("max") or smallest value of each of `nodes`, NaN for none (one merge pass over the column while `nodes` ascend, as a set enumerated by num does). */
   extremes(nodes: readonly number[], order: "max" | "min"): Float64Array;
+  /** How many of `nodes` carry a value (the same pass as {@link extremes}, nothing allocated). */
+  carriers(nodes: readonly number[]): number;
 }
 
 export function attributeValues(lookup: AttributeLookup, predicate: number): AttributeValues {
@@ -76,6 +78,20 @@ export function attributeValues(lookup: AttributeLookup, predicate: number): Att
         }
         return out;
       },
+      carriers: (nodes) => {
+        let count = 0;
+        let at = 0;
+        let ascending = true;
+        for (let i = 0; i < nodes.length; i++) {
+          const n = nodes[i]!;
+          if (i > 0 && n < nodes[i - 1]!) ascending = false;
+          if (ascending) {
+            while (at < entities.length && entities[at]! < n) at++;
+            if (at < entities.length && entities[at] === n) count++;
+          } else if (rowIndex(entities, n) >= 0) count++;
+        }
+        return count;
+      },
     };
   }
   return {
@@ -86,6 +102,11 @@ export function attributeValues(lookup: AttributeLookup, predicate: number): Att
         const vs = lookup.numbers(n, predicate);
         return vs.length === 0 ? NaN : order === "max" ? vs[vs.length - 1]! : vs[0]!;
       }),
+    carriers: (nodes) => {
+      let count = 0;
+      for (const n of nodes) if (lookup.numbers(n, predicate).length > 0) count++;
+      return count;
+    },
   };
 }
 
@@ -144,9 +165,7 @@ export function pickAttribute(choices: readonly AttributeChoice[], scope: readon
   let best: AttributeChoice | null = null;
   let bestCarry = 0;
   for (const a of choices) {
-    const keys = values(a.num).extremes(scope, "min");
-    let carry = 0;
-    for (let i = 0; i < keys.length; i++) if (!Number.isNaN(keys[i]!)) carry++;
+    const carry = values(a.num).carriers(scope);
     if (carry === 0) continue;
     if (best === null || a.score > best.score + 1e-9 || (Math.abs(a.score - best.score) <= 1e-9 && carry > bestCarry)) {
       best = a;

@@ -139,6 +139,47 @@ function unmatchedNote(question: string, c: ComparisonCondition | SuperlativeCon
 const membersCache = new WeakMap<RelationIndex, Map<string, readonly number[]>>();
 const MEMBER_SETS_KEPT = 8;
 
+/**
+ * The k-th best of the keys that are not NaN (k ≥ 1, at most their number): the k-th largest
+ * for "max", the k-th smallest for "min", duplicates counted — what a sort of those keys puts
+ * at place k, found with a binary heap of the k best seen (Williams 1964, "Algorithm 232:
+ * Heapsort", CACM 7(6)), so a set of 10^5 keys needs no sorted copy.
+ */
+function kthBest(keys: Float64Array, k: number, dir: "max" | "min"): number {
+  // the root is the worst of the k kept: the smallest for "max", the largest for "min"
+  const heap = new Float64Array(k);
+  const worse = dir === "max" ? (a: number, b: number) => a < b : (a: number, b: number) => a > b;
+  let size = 0;
+  for (let i = 0; i < keys.length; i++) {
+    const v = keys[i]!;
+    if (Number.isNaN(v)) continue;
+    if (size < k) {
+      // sift up
+      let c = size++;
+      while (c > 0) {
+        const p = (c - 1) >> 1;
+        if (!worse(v, heap[p]!)) break;
+        heap[c] = heap[p]!;
+        c = p;
+      }
+      heap[c] = v;
+    } else if (worse(heap[0]!, v)) {
+      // replace the root and sift down
+      let c = 0;
+      for (;;) {
+        let w = 2 * c + 1;
+        if (w >= size) break;
+        if (w + 1 < size && worse(heap[w + 1]!, heap[w]!)) w++;
+        if (!worse(heap[w]!, v)) break;
+        heap[c] = heap[w]!;
+        c = w;
+      }
+      heap[c] = v;
+    }
+  }
+  return heap[0]!;
+}
+
 /** How a filter or an ordering judges one node, asked only for the nodes shown (answers, why-not). */
 type Judge = (node: number) => ConditionCheck;
 
@@ -198,7 +239,8 @@ export function applyConditions(
     // every entity of the expected types: a function of the index alone, enumerated once per index and kept
     const key = [...typeSet].sort((a, b) => a - b).join(",");
     const kept = membersCache.get(index)?.get(key);
-    if (kept) order = [...kept];
+    // the kept list is never changed in place (every step below makes a new array)
+    if (kept) order = kept as number[];
     else {
       // the time budget, looked at every 4,096 nodes: the candidates enumerated so far are kept
       const members = index.membersOf(typeSet, options.deadline ? () => options.deadline!.stop("conditions") : undefined);
@@ -207,7 +249,7 @@ export function applyConditions(
       else {
         const perIndex = membersCache.get(index) ?? new Map<string, readonly number[]>();
         if (perIndex.size >= MEMBER_SETS_KEPT) perIndex.delete(perIndex.keys().next().value!);
-        perIndex.set(key, order.slice());
+        perIndex.set(key, order);
         membersCache.set(index, perIndex);
       }
     }
@@ -332,50 +374,54 @@ export function applyConditions(
     }
     // one key per fit candidate (largest value for "max", smallest for "min"), NaN: none
     const keys = vals.extremes(inFit, dir);
-    const withIdx: number[] = [];
-    const without: number[] = [];
-    for (let i = 0; i < inFit.length; i++) {
-      if (Number.isNaN(keys[i]!)) without.push(inFit[i]!);
-      else withIdx.push(i);
-    }
+    const n = inFit.length;
+    let valued = 0;
+    for (let i = 0; i < n; i++) if (!Number.isNaN(keys[i]!)) valued++;
     const better = (i: number, j: number) => (dir === "max" ? keys[j]! - keys[i]! : keys[i]! - keys[j]!) || i - j;
     // only the first `limit` + position places need their order (a selection, then a sort of
-    // those: Hoare's FIND idea, common practice for top-k); ties of value keep the ranking order (index)
-    const k = Math.min(withIdx.length, limit + c.position);
-    let head = withIdx;
-    let tail: number[] = [];
-    if (withIdx.length > 2 * k) {
-      const sorted = new Float64Array(withIdx.length);
-      for (let j = 0; j < withIdx.length; j++) sorted[j] = keys[withIdx[j]!]!;
-      sorted.sort();
-      const bound = dir === "max" ? sorted[sorted.length - k]! : sorted[k - 1]!;
-      head = [];
-      for (const i of withIdx) (dir === "max" ? keys[i]! >= bound : keys[i]! <= bound) ? head.push(i) : tail.push(i);
+    // those: Hoare's FIND idea, common practice for top-k); ties of value keep the ranking order (index).
+    // The head: every candidate with a value when they are few, else those at least as good as the k-th best value
+    const k = Math.min(valued, limit + c.position);
+    const bound = valued > 2 * k ? kthBest(keys, k, dir) : dir === "max" ? -Infinity : Infinity;
+    const head: number[] = [];
+    const tail: number[] = [];
+    const without: number[] = [];
+    for (let i = 0; i < n; i++) {
+      const v = keys[i]!;
+      if (Number.isNaN(v)) without.push(inFit[i]!);
+      else if (dir === "max" ? v >= bound : v <= bound) head.push(i);
+      else tail.push(i);
     }
     head.sort(better);
-    const sortedIdx = head.concat(tail);
-    const pos = Math.min(c.position, sortedIdx.length) - 1;
-    const ordered = pos > 0 ? [sortedIdx[pos]!].concat(sortedIdx.slice(0, pos), sortedIdx.slice(pos + 1)) : sortedIdx;
-    if (ordered.length > 0) {
+    // the asked place first, then the other places in order, the rest of the valued ones, those without, the others
+    const pos = Math.min(c.position, valued) - 1;
+    const next: number[] = [];
+    if (valued > 0) {
+      const first = head[pos]!;
+      next.push(inFit[first]!);
+      for (let j = 0; j < head.length; j++) if (j !== pos) next.push(inFit[head[j]!]!);
+      for (const i of tail) next.push(inFit[i]!);
       // every other candidate with the asked place's value, in ranking order
-      const top = keys[sortedIdx[pos]!]!;
-      const first = sortedIdx[pos]!;
-      tiedWith = withIdx.filter((i) => i !== first && keys[i] === top).sort(better).map((i) => inFit[i]!);
+      const top = keys[first]!;
+      const tied: number[] = [];
+      for (let i = 0; i < n; i++) if (i !== first && keys[i] === top) tied.push(i);
+      tiedWith = tied.sort(better).map((i) => inFit[i]!);
     }
-    const slot = new Map<number, number>();
+    for (const v of without) next.push(v);
+    for (const v of rest) next.push(v);
     orderings.push((v) => {
-      // the place is the rank among the fit candidates with a value (asked place first: the rest keep theirs)
-      if (slot.size === 0) inFit.forEach((x, i) => slot.set(x, i));
-      const i = slot.get(v);
-      if (i === undefined) return { condition: ci, attribute: attr.num, values: [], satisfied: false };
+      // the place is the rank among the fit candidates with a value (asked place first: the rest keep theirs);
+      // the judge is asked for the nodes shown only, so a scan costs less than a map of every candidate
+      const i = inFit.lastIndexOf(v);
+      if (i < 0) return { condition: ci, attribute: attr.num, values: [], satisfied: false };
       if (Number.isNaN(keys[i]!)) return { condition: ci, attribute: attr.num, values: [], satisfied: false };
       let place = 1;
-      for (const j of withIdx) if (j !== i && better(j, i) < 0) place++;
+      for (let j = 0; j < n; j++) if (j !== i && !Number.isNaN(keys[j]!) && better(j, i) < 0) place++;
       return { condition: ci, attribute: attr.num, values: vals.list(v), satisfied: place === c.position, place };
     });
-    order = ordered.map((i) => inFit[i]!).concat(without, rest);
+    order = next;
     applied.push({ condition: c, attribute: attr, before, after: order.length });
-    notes.push(`ordered by ${attr.label} (${dir === "max" ? "largest" : "smallest"} first${c.position > 1 ? `, place ${c.position} asked` : ""}) among ${ordered.length} candidate${ordered.length === 1 ? "" : "s"} that fit the clues and have it`);
+    notes.push(`ordered by ${attr.label} (${dir === "max" ? "largest" : "smallest"} first${c.position > 1 ? `, place ${c.position} asked` : ""}) among ${valued} candidate${valued === 1 ? "" : "s"} that fit the clues and have it`);
   });
 
   const fitNow = fit === null ? order : order.filter(isFit);
