@@ -383,32 +383,32 @@ export function applyConditions(
     // The head: every candidate with a value when they are few, else those at least as good as the k-th best value
     const k = Math.min(valued, limit + c.position);
     const bound = valued > 2 * k ? kthBest(keys, k, dir) : dir === "max" ? -Infinity : Infinity;
+    const inHead = (v: number) => (dir === "max" ? v >= bound : v <= bound);
     const head: number[] = [];
-    const tail: number[] = [];
-    const without: number[] = [];
-    for (let i = 0; i < n; i++) {
-      const v = keys[i]!;
-      if (Number.isNaN(v)) without.push(inFit[i]!);
-      else if (dir === "max" ? v >= bound : v <= bound) head.push(i);
-      else tail.push(i);
-    }
+    for (let i = 0; i < n; i++) if (inHead(keys[i]!)) head.push(i);
     head.sort(better);
-    // the asked place first, then the other places in order, the rest of the valued ones, those without, the others
+    // the new order in one array of its final length (the sets run to 10^5: no growing copies):
+    // the asked place first, the other head places in order, the rest of the valued ones and
+    // those without a value (each in ranking order), then the candidates that do not fit
     const pos = Math.min(c.position, valued) - 1;
-    const next: number[] = [];
+    const next = new Array<number>(n + rest.length);
+    let w = 0;
     if (valued > 0) {
       const first = head[pos]!;
-      next.push(inFit[first]!);
-      for (let j = 0; j < head.length; j++) if (j !== pos) next.push(inFit[head[j]!]!);
-      for (const i of tail) next.push(inFit[i]!);
+      next[w++] = inFit[first]!;
+      for (let j = 0; j < head.length; j++) if (j !== pos) next[w++] = inFit[head[j]!]!;
       // every other candidate with the asked place's value, in ranking order
       const top = keys[first]!;
       const tied: number[] = [];
       for (let i = 0; i < n; i++) if (i !== first && keys[i] === top) tied.push(i);
       tiedWith = tied.sort(better).map((i) => inFit[i]!);
     }
-    for (const v of without) next.push(v);
-    for (const v of rest) next.push(v);
+    for (let i = 0; i < n; i++) {
+      const v = keys[i]!;
+      if (!Number.isNaN(v) && !inHead(v)) next[w++] = inFit[i]!;
+    }
+    for (let i = 0; i < n; i++) if (Number.isNaN(keys[i]!)) next[w++] = inFit[i]!;
+    for (const v of rest) next[w++] = v;
     orderings.push((v) => {
       // the place is the rank among the fit candidates with a value (asked place first: the rest keep theirs);
       // the judge is asked for the nodes shown only, so a scan costs less than a map of every candidate
