@@ -19,9 +19,15 @@
  * repeats the PageRank comparison on a seeded power-law graph of the size's node and edge
  * counts without any catalog, src/bench/graph.ts),
  * --work DIR (generated catalogs; default $TMPDIR/tiepoint-bench), --out DIR.
+ *
+ * Conditions over a real catalog (issue 23): `--case conditions` runs only the Debian
+ * superlative, comparison and count questions (src/eval/debian-conditions.ts: 30 questions,
+ * median and max per question, checked against SQL; builds its catalog once, a few minutes);
+ * the default run adds that table at the end when its catalog is already built (about 15 s),
+ * and says how to build it otherwise.
  */
 import { spawnSync } from "node:child_process";
-import { mkdirSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, writeFileSync } from "node:fs";
 import { cpus, totalmem, tmpdir } from "node:os";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -46,8 +52,12 @@ type SizeName = keyof typeof SIZES | typeof HUB_SIZE;
 const HERE = dirname(fileURLToPath(import.meta.url));
 const ROOT = resolve(HERE, "../..");
 const CLI = join(ROOT, "dist/cli/main.js");
+const CONDITIONS = join(ROOT, "dist/eval/debian-conditions.js");
+/** Where `npm run bench:conditions` keeps its catalog (its default `--dir`). */
+const CONDITIONS_DB = join(tmpdir(), "tiepoint-bench-debian", "debian.db");
 
 const USAGE = `usage: npm run bench -- [--size S|M|L]… [--questions N] [--work DIR] [--out DIR] [--phases LIST]
+       npm run bench -- --case conditions
 
   --size S|M|L|H   catalog size(s), repeatable or comma-separated (default S,M):
                    S 10,000 entities / 50,000 edges, M 100,000 / 500,000, L 1,000,000 / 5,000,000;
@@ -60,6 +70,10 @@ const USAGE = `usage: npm run bench -- [--size S|M|L]… [--questions N] [--work
   --out DIR        where the JSON and Markdown results go (default bench-results/)
   --phases LIST    comma-separated subset of generate,load,index,ready,ask,ppr,compose,graph
                    (default all but graph; later phases reuse the work folder of earlier runs)
+  --case conditions  only the 30 Debian superlative, comparison and count questions (issue 23):
+                   per-question wall and CPU time, median and max, answers against SQL
+                   (builds the catalog once, a few minutes); the default run adds this table
+                   when that catalog is already built
 
 The igraph columns need python3-igraph (apt-get install python3-igraph, or pip install igraph);
 they are skipped, and say so, when it is absent.
@@ -78,6 +92,7 @@ function args(argv: readonly string[]) {
   let out = join(ROOT, "bench-results");
   let phase: string | undefined;
   let phases = ["generate", "load", "index", "ready", "ask", "ppr", "compose"];
+  let only: "conditions" | undefined;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     if (a === "--help" || a === "-h") {
@@ -97,13 +112,18 @@ function args(argv: readonly string[]) {
     else if (a === "--hubs-db") hubsDb = resolve(next());
     else if (a === "--out") out = resolve(next());
     else if (a === "--phase") phase = next();
+    else if (a === "--case") {
+      const c = next();
+      if (c !== "conditions") usage(`unknown case "${c}" (conditions)`);
+      only = c;
+    }
     else if (a === "--phases") {
       phases = next().split(",").map((x) => x.trim());
       for (const x of phases) if (!["generate", "load", "index", "ready", "ask", "ppr", "compose", "graph"].includes(x)) usage(`unknown phase "${x}" (generate, load, index, ready, ask, ppr, compose, graph)`);
     }
     else usage(`unknown option ${a}`);
   }
-  return { sizes: sizes.length > 0 ? sizes : (["S", "M"] as SizeName[]), questions, work, out, phase, phases, hubsDb };
+  return { sizes: sizes.length > 0 ? sizes : (["S", "M"] as SizeName[]), questions, work, out, phase, phases, hubsDb, only };
 }
 
 /** Runs one phase in a child process; returns its JSON record. */
@@ -146,8 +166,20 @@ function runPhase(phase: string, size: SizeName, work: string, questions: number
   }
 }
 
+/** Runs the conditions case (its own process: its figures are a fresh process's, first question included); its table, or null when it failed. */
+function conditionsCase(): string | null {
+  const r = spawnSync(process.execPath, [CONDITIONS], { encoding: "utf8", stdio: ["ignore", "pipe", "inherit"], maxBuffer: 1 << 24 });
+  return r.status === 0 ? r.stdout : null;
+}
+
 function main(): void {
   const o = args(process.argv.slice(2));
+  if (o.only === "conditions") {
+    const table = conditionsCase();
+    if (table === null) process.exit(1);
+    process.stdout.write(table);
+    return;
+  }
   if (o.phase !== undefined) {
     const size = o.sizes[0]!;
     const work = join(o.work, size);
@@ -198,7 +230,13 @@ function main(): void {
   const base = join(o.out, `bench-${o.sizes.join("")}-${stamp}`);
   const doc = { machine, results };
   writeFileSync(base + ".json", JSON.stringify(doc, null, 2) + "\n");
-  const md = renderMarkdown(doc);
+  let md = renderMarkdown(doc);
+  // the conditions case over the real catalog, when its catalog is built (else how to build it)
+  if (o.phase === undefined && existsSync(CONDITIONS_DB)) {
+    process.stderr.write("bench: conditions over the Debian catalog…\n");
+    const table = conditionsCase();
+    md += `\nConditions over a real catalog (issue 23, \`npm run bench -- --case conditions\`):\n\n\`\`\`\n${table ?? "failed (see stderr)\n"}\`\`\`\n`;
+  } else md += "\nConditions over a real catalog (issue 23): not run, its catalog is not built; `npm run bench -- --case conditions` builds it (a few minutes) and runs it.\n";
   writeFileSync(base + ".md", md);
   writeFileSync(join(o.out, "latest.md"), md);
   process.stdout.write(md);

@@ -16,6 +16,10 @@ export const DEFAULTS = {
   maxPrefix: 4,
 } as const;
 
+/** Match-flag scratch of {@link jaro} (synchronous, so one pair is enough). */
+let flagsA = new Uint8Array(64);
+let flagsB = new Uint8Array(64);
+
 /** Jaro similarity in [0, 1]. */
 export function jaro(a: string, b: string): number {
   if (a === b) return a.length === 0 ? 1 : 1;
@@ -23,8 +27,14 @@ export function jaro(a: string, b: string): number {
   const lb = b.length;
   if (la === 0 || lb === 0) return 0;
   const window = Math.max(0, Math.floor(Math.max(la, lb) / 2) - 1);
-  const ma = new Uint8Array(la);
-  const mb = new Uint8Array(lb);
+  // the match flags in two scratch arrays kept between calls (cleared over the used length):
+  // a question compares thousands of token pairs, and two fresh arrays per pair is garbage
+  if (la > flagsA.length) flagsA = new Uint8Array(Math.max(la, 2 * flagsA.length));
+  if (lb > flagsB.length) flagsB = new Uint8Array(Math.max(lb, 2 * flagsB.length));
+  const ma = flagsA;
+  const mb = flagsB;
+  ma.fill(0, 0, la);
+  mb.fill(0, 0, lb);
   let matches = 0;
   for (let i = 0; i < la; i++) {
     const lo = Math.max(0, i - window);
