@@ -31,7 +31,8 @@
  * seeds cost −ln(seed share); {@link buildEvidenceGraph} the same subgraph as a graphology
  * graph (for inspection and drawing).
  */
-import { DirectedGraph } from "graphology";
+import { createRequire } from "node:module";
+import type { DirectedGraph } from "graphology";
 import type { ArcGraph } from "./dijkstra.js";
 import type { FlatRows, PathCostModel } from "./path-cost.js";
 import { grown, linkInverse, linkRelation } from "../ranking/index.js";
@@ -569,7 +570,9 @@ export function buildEvidenceGraph(
   options: EvidenceOptions = {},
 ): DirectedGraph<Record<string, never>, EvidenceEdge> {
   const sub = evidenceSubgraph(graph, cost, [clues.map((node) => ({ node, weight: 1 }))], answers, options);
-  const g = new DirectedGraph<Record<string, never>, EvidenceEdge>();
+  // graphology is loaded here, on first use: the questions' path search reads the compact subgraph
+  const Graph = (createRequire(import.meta.url)("graphology") as { DirectedGraph: typeof DirectedGraph }).DirectedGraph;
+  const g = new Graph<Record<string, never>, EvidenceEdge>();
   for (let u = 0; u < sub.realCount; u++) g.addNode(String(sub.nums[u]));
   for (let u = 0; u < sub.realCount; u++) {
     for (let e = sub.offsets[u]!; e < sub.offsets[u + 1]!; e++) {

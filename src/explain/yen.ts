@@ -21,8 +21,9 @@
  * `yenOnArcs` is the same algorithm on a compact CSR graph (the evidence subgraph of one
  * question), with the spur searches done by dijkstra.ts; the query path uses it.
  */
+import { createRequire } from "node:module";
 import type { DirectedGraph } from "graphology";
-import dijkstra from "graphology-shortest-path/dijkstra.js";
+import type dijkstraModule from "graphology-shortest-path/dijkstra.js";
 import { DijkstraScratch, type ArcGraph } from "./dijkstra.js";
 
 /** Options of {@link yenKShortestPaths}; all optional. */
@@ -64,6 +65,15 @@ function compareCandidates(a: WeightedPath, b: WeightedPath): number {
 }
 
 /**
+ * graphology-shortest-path's Dijkstra, loaded on first use: only this reference version over
+ * a graphology graph needs it, not the questions' path search ({@link yenOnArcs}), so a
+ * process that answers questions does not load it.
+ */
+function graphologyDijkstra(): typeof dijkstraModule {
+  return createRequire(import.meta.url)("graphology-shortest-path/dijkstra.js") as typeof dijkstraModule;
+}
+
+/**
  * Up to `k` cheapest loopless paths from `source` to `target`, cheapest first.
  * Returns `[]` when the target is unreachable; `[[source]]` (cost 0) when source = target.
  * @throws RangeError when a node is missing, `k` is not a positive integer, or a weight is negative.
@@ -85,6 +95,7 @@ export function yenKShortestPaths(graph: DirectedGraph, source: string, target: 
     if (blockedNodes.size > 0 && (blockedNodes.has(graph.source(edge)) || blockedNodes.has(graph.target(edge)))) return Infinity;
     return w;
   };
+  const dijkstra = graphologyDijkstra();
   const search = (from: string): string[] | null => dijkstra.bidirectional(graph, from, target, getter as never) as string[] | null;
 
   const first = search(source);

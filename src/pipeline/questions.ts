@@ -16,7 +16,8 @@
  */
 import { readFileSync, statSync } from "node:fs";
 import { extname } from "node:path";
-import { parse as parseCsv } from "csv-parse/sync";
+import { createRequire } from "node:module";
+import type { parse as csvParseSync } from "csv-parse/sync";
 import { LIMITS, TiepointError, checkQuestionLength, type VerdictStatus } from "../model/index.js";
 
 /** Limits of question-file parsing. */
@@ -116,6 +117,8 @@ function parseLines(text: string, problems: Problems): QuestionItem[] {
 }
 
 function parseCsvText(text: string, problems: Problems): QuestionItem[] {
+  // csv-parse is loaded here, on the first CSV question file, not with every command (its CommonJS build: the same parser)
+  const parseCsv = (createRequire(import.meta.url)("csv-parse/sync") as { parse: typeof csvParseSync }).parse;
   // records are kept as they come (on_record), so the rows before a syntax error are still checked
   const records: { record: string[]; info: { lines: number } }[] = [];
   let syntax: { line: number; message: string } | undefined;

@@ -5,10 +5,11 @@
  * IEEE TSE 19(3), 1993 (the `dot` engine); https://github.com/mdaines/viz-js (the wasm build).
  *
  * tiepoint writes the graph (src/present/dot.ts); Graphviz lays it out. The SVG is stripped of
- * its XML prolog and doctype so it can be inlined in an HTML page. The wasm module is loaded
- * once per process and reused for every drawing.
+ * its XML prolog and doctype so it can be inlined in an HTML page. The wasm module (1.2 MB of
+ * JavaScript) is imported on the first drawing, not with the program, and reused for every
+ * drawing after it.
  */
-import { instance, type Viz } from "@viz-js/viz";
+import type { Viz } from "@viz-js/viz";
 import { TiepointError } from "../model/index.js";
 
 /** Options of {@link dotToSvg}; all optional. */
@@ -45,7 +46,7 @@ let vizPromise: Promise<Viz> | undefined;
 
 /** The shared Graphviz instance (loaded on first use). */
 function viz(): Promise<Viz> {
-  vizPromise ??= instance();
+  vizPromise ??= import("@viz-js/viz").then((m) => m.instance());
   return vizPromise;
 }
 

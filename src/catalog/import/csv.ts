@@ -6,7 +6,8 @@
  * `label`, `aliases`, `types`, `subClassOf` (`|`-separated), `description`; every other
  * column is an attribute named by its header. Documented in README.md, "Import formats".
  */
-import { Parser } from "csv-parse";
+import { createRequire } from "node:module";
+import type { Parser as CsvParser } from "csv-parse";
 import type { LoadContext } from "./context.js";
 import { readBlocks } from "./lines.js";
 
@@ -50,6 +51,8 @@ function list(cell: string | undefined): string[] {
 
 /** Imports one CSV or TSV file into the load's transaction. */
 export function importCsv(ctx: LoadContext, file: string, format: "csv" | "tsv"): void {
+  // csv-parse is loaded here, on the first CSV or TSV file, not with every command (its CommonJS build: the same parser)
+  const { Parser } = createRequire(import.meta.url)("csv-parse") as { Parser: typeof CsvParser };
   const parser = new Parser({
     delimiter: format === "tsv" ? "\t" : ",",
     quote: format === "tsv" ? false : '"',
