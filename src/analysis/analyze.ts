@@ -11,13 +11,14 @@
  */
 import type { LinkResult, LinkedMention } from "../linking/index.js";
 import type { EntityRef } from "../model/index.js";
+import { stemKey } from "../catalog/index.js";
 import { detectAnswerType, type AnswerTypeOptions, type AnswerTypeSource } from "./answer-type.js";
 import type { QuestionModel } from "./question-model.js";
 import { relationCues, type RelationCue, type RelationCueOptions } from "./relation-cues.js";
 import { findQuantities } from "./quantity.js";
 import { relationalAnswerType, whereRangeType, type RelationRangeOptions } from "./relation-range.js";
-import { isFunctionWord, words } from "./words.js";
-import { DETERMINERS } from "./lexicon.js";
+import { isFunctionWord, words, type Word } from "./words.js";
+import { ANSWER_TYPE_WORDS, DETERMINERS } from "./lexicon.js";
 import { findTypeWords, type TypeWord } from "./type-words.js";
 
 /** A linked entity that seeds one personalized PageRank. */
@@ -125,6 +126,26 @@ function withoutQuantities(question: string, link: LinkResult, notes: string[], 
   return keep.length === link.mentions.length ? link : { ...link, mentions: keep };
 }
 
+/**
+ * The mention in the head-noun slot of the wh-phrase ("Which *editor* is the second largest
+ * package in the editors section?") when another clue mention is the same word (equal Porter
+ * stem keys) linked to another entity: the two corefer (string match, the strict sieve of
+ * Raghunathan et al. 2010, "A Multi-Pass Sieve for Coreference Resolution", EMNLP), the
+ * wh-phrase's noun names the answer's class (Li & Roth 2002) and the other mention says which
+ * entity that class is; the slot's own link (a package named "editor") is no clue.
+ */
+function classNounMention(ws: readonly Word[], mentions: readonly LinkedMention[], isClue: readonly boolean[]): { mention: number; same: number } | undefined {
+  const wh = ws.findIndex((w) => ANSWER_TYPE_WORDS.WH_WHICH.has(w.norm));
+  if (wh < 0 || ws.slice(0, wh).some((w) => !isFunctionWord(w.norm))) return undefined;
+  const slot = ws[wh + 1];
+  if (!slot) return undefined;
+  const i = mentions.findIndex((m, k) => isClue[k] && m.start === slot.start);
+  if (i < 0) return undefined;
+  const key = stemKey(mentions[i]!.text);
+  const same = mentions.findIndex((m, k) => k !== i && isClue[k] && m.num !== mentions[i]!.num && stemKey(m.text) === key);
+  return same >= 0 ? { mention: i, same } : undefined;
+}
+
 /** Analyses one linked question against the catalog's vocabulary. */
 export function analyze(question: string, linked: LinkResult, model: QuestionModel, options: AnalyzeOptions = {}): Analysis {
   const ws = words(question);
@@ -157,8 +178,13 @@ export function analyze(question: string, linked: LinkResult, model: QuestionMod
 
   const modifierWeight = options.modifierWeight ?? DEFAULTS.modifierWeight;
   const clues: Clue[] = [];
+  const classNoun = classNounMention(ws, link.mentions, clueMention);
   link.mentions.forEach((m, i) => {
     if (!clueMention[i]) return;
+    if (i === classNoun?.mention) {
+      notes.push(`"${m.text}" names the class of the answer, as "${link.mentions[classNoun.same]!.text}" (${link.mentions[classNoun.same]!.entity.label}) does: not a clue of its own`);
+      return;
+    }
     const head = modifierOf(question, link.mentions, i, clueMention, model);
     if (head !== undefined) notes.push(`"${m.text}" qualifies "${link.mentions[head]!.text}": weighed as a weaker clue`);
     clues.push({ node: m.num, id: m.entity.id, label: m.entity.label, weight: m.confidence * (head !== undefined ? modifierWeight : 1), mention: i });

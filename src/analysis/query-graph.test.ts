@@ -19,7 +19,9 @@ const LINES = [
   { kind: "type", id: "t:Port", label: "port", aliases: ["harbour"] },
   { kind: "type", id: "t:Vessel", label: "vessel", aliases: ["ship"] },
   { kind: "type", id: "t:Person", label: "person" },
+  { kind: "type", id: "t:Fleet", label: "fleet" },
   { kind: "relation", id: "r:commands", label: "commands" },
+  { kind: "relation", id: "r:fleet", label: "in fleet" },
   { kind: "relation", id: "r:homePort", label: "home port", aliases: ["based at"] },
   { kind: "relation", id: "r:in", label: "located in" },
   { kind: "relation", id: "r:borders", label: "borders", aliases: ["neighbour"] },
@@ -34,10 +36,12 @@ const LINES = [
   { id: "p:vask", label: "Vask", types: ["t:Port"], description: "A deep-water port in a fjord.", relations: { "r:in": ["k:brask"] }, attributes: { "a:lat": 61.5 } },
   { id: "p:holm", label: "Holm", types: ["t:Port"], description: "A canal port with a lock.", relations: { "r:in": ["k:ostrelia"] }, attributes: { "a:lat": 52 } },
   { id: "p:kess", label: "Kess", types: ["t:Port"], description: "A river port in the forest.", relations: { "r:in": ["k:quenland"] }, attributes: { "a:lat": -3.25 } },
-  { id: "s:skell", label: "Skell", types: ["t:Vessel"], description: "A survey ship that maps the sea floor.", relations: { "r:homePort": ["p:vask"] }, attributes: { "a:length": 41, "a:launched": 1994, "a:condition": "poor" } },
+  { id: "s:skell", label: "Skell", types: ["t:Vessel"], description: "A survey ship that maps the sea floor.", relations: { "r:fleet": ["f:surveys"], "r:homePort": ["p:vask"] }, attributes: { "a:length": 41, "a:launched": 1994, "a:condition": "poor" } },
   { id: "s:morrow", label: "Morrow", types: ["t:Vessel"], description: "A cargo ship that carries timber.", relations: { "r:homePort": ["p:vask"] }, attributes: { "a:length": 63, "a:launched": 2003, "a:condition": "good" } },
   { id: "s:lune", label: "Lune", types: ["t:Vessel"], description: "A small ferry across the canal.", relations: { "r:homePort": ["p:holm"] }, attributes: { "a:length": 28, "a:launched": 1988, "a:condition": "poor" } },
-  { id: "s:gull", label: "Gull", types: ["t:Vessel"], description: "An ice breaker for the northern sea lanes.", relations: { "r:homePort": ["p:kess"] }, attributes: { "a:length": 50, "a:launched": 2010, "a:condition": "good" } },
+  { id: "s:gull", label: "Gull", types: ["t:Vessel"], description: "An ice breaker for the northern sea lanes.", relations: { "r:fleet": ["f:surveys"], "r:homePort": ["p:kess"] }, attributes: { "a:length": 50, "a:launched": 2010, "a:condition": "good" } },
+  { id: "f:surveys", label: "surveys", types: ["t:Fleet"] },
+  { id: "x:survey", label: "Survey", types: ["t:Person"] },
   { id: "x:ada", label: "Ada Quell", types: ["t:Person"], relations: { "r:commands": ["s:skell"] } },
   { id: "x:bo", label: "Bo Tarrant", types: ["t:Person"], relations: { "r:commands": ["s:morrow"] } },
   { id: "x:cyl", label: "Cyl Venn", types: ["t:Person"], relations: { "r:commands": ["s:lune", "s:gull"] } },
@@ -271,6 +275,15 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     const h = ask("Which port is the home port of Morrow?");
     expect(h.reading!.text).not.toMatch(/identity/);
     expect(h.answers[0]!.id).toBe("p:vask");
+  });
+
+  it("3. the wh-phrase's noun names the answer's class when another mention is the same word: it is no clue of its own", () => {
+    // "survey" links to the person Survey, "surveys" to the fleet; the fleet surveys holds Skell (41 m) and Gull (50 m)
+    const r = ask("Which survey is the longest vessel in the surveys fleet?");
+    expect(r.reading!.text).toBe("?answer (vessel) — in fleet → surveys; largest by length");
+    expect(r.notes!.some((n) => /"survey" names the class of the answer, as "surveys" \(surveys\) does/.test(n))).toBe(true);
+    expect(r.answers[0]!.id).toBe("s:gull");
+    expect(r.verdict.status).toBe("unique");
   });
 
   it("11. a plural question asks for the set: one tied group", () => {
