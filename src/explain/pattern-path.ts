@@ -14,9 +14,12 @@
  * product construction of regular path query evaluation (Mendelzon & Wood 1995, "Finding
  * regular simple paths in graph databases", SIAM J. Comput. 24(6)) with the path cost model's
  * step costs (path-cost.ts), so among the walks on the pattern the one carrying the most of
- * the walk's mass is shown. The layers before the last hop are built once per clue, and the
- * last hop is taken forwards once for all answers when its rows fit in the budget (else each
- * answer costs one read of its own row, its entries walked backwards). A walk that comes
+ * the walk's mass is shown. The layers before the last hop are built once per clue. The last
+ * hop costs each answer one read of its own row, its entries walked backwards, until those
+ * reads would pass the last layer's rows: then it is taken forwards once for all answers (when
+ * those rows fit in the budget). Both give the same path (the cheapest option, by the same
+ * order; the backward read is the one used when that option walks a node twice), so a hub in
+ * the last layer is read only when the answers' own rows cost more. A walk that comes
  * back to a node it passed is not shown (the best simple one is taken instead, when the last
  * hop offers one).
  */
@@ -101,10 +104,11 @@ export function patternWalks(graph: WalkGraph, cost: PathCostModel, start: numbe
   // the last hop taken forwards once for every answer, when the last layer's rows fit in what
   // is left of the budget: per node reached, its best option (same order as the per-answer scan)
   let ahead: Map<number, Option> | null | undefined;
+  // entries of the last layer's rows, and those of the answers' rows read so far
+  let lastWork = -1;
+  let answerWork = 0;
   const forward = (): Map<number, Option> | null => {
-    let work = 0;
-    for (const u of last.keys()) work += graph.degree(u);
-    if (visits + work > maxVisits) return null;
+    if (visits + lastWork > maxVisits) return null;
     const best = new Map<number, Option>();
     for (const [u, at] of last) {
       graph.forEach(u, (v, rel, inverse) => {
@@ -121,8 +125,15 @@ export function patternWalks(graph: WalkGraph, cost: PathCostModel, start: numbe
   return {
     path(answer: number): NumStep[] | undefined {
       if (!(answer >= 0 && answer < graph.nodeCount) || answer === start) return undefined;
-      if (ahead === undefined) ahead = forward();
-      if (ahead !== null) {
+      if (ahead === undefined) {
+        if (lastWork < 0) {
+          lastWork = 0;
+          for (const u of last.keys()) lastWork += graph.degree(u);
+        }
+        answerWork += graph.degree(answer);
+        if (answerWork > lastWork) ahead = forward();
+      }
+      if (ahead !== undefined && ahead !== null) {
         const o = ahead.get(answer);
         if (!o) return undefined;
         const steps = [...back(o.u), { from: o.u, to: answer, rel: o.rel, inverse: o.inverse, cost: o.step }];

@@ -9,7 +9,7 @@ import { Catalog, NumericColumns, demoCatalogPath, normalize, readBinding } from
 import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type QueryGraph, type QuestionModel } from "../analysis/index.js";
 import { Linker, linkQuestion, notFoundNote, type LinkResult, type Pin } from "../linking/index.js";
 import { DEADLINE_DEFAULTS, DISCLAIMER, Deadline, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type EntityRef, type Mention, type Verdict } from "../model/index.js";
-import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type RelationIndex, type SparseScores } from "../ranking/index.js";
+import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type ReachMemo, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { linkFacts } from "./link-facts.js";
 import { answerComparison, answerIdentity, answerValue, type DirectAnswer } from "./direct.js";
 import { StoreEdges, type PullFigures, type StoreOptions } from "./store-edges.js";
@@ -217,7 +217,7 @@ export class Session {
     const limitNotes =
       link === linked ? [] : [`${linked.mentions.length} names were linked; only the ${LIMITS.maxMentions} most confident are used as clues (limit: README "Failure modes")`];
     const t1 = performance.now();
-    const { cond, analysis, reading, ranked: maybeRanked, matchedNodes, conditions, pprMemo, lookup, readMs } = this.readAndRank(question, link, deadline, options.dropClues);
+    const { cond, analysis, reading, ranked: maybeRanked, matchedNodes, conditions, pprMemo, reachMemo, lookup, readMs } = this.readAndRank(question, link, deadline, options.dropClues);
     // the reading (analysis, conditions, query graph) apart from the ranking that follows it in readAndRank
     const tRead = t1 + readMs;
     if (cond.value || cond.compare || cond.identity) {
@@ -257,7 +257,7 @@ export class Session {
     const whyNot = [...new Set(asked.flatMap((x) => x.nums))];
     const sharedNotes = asked.filter((x) => x.nums.length > 1).map((x) => this.sharedNameNote(x.name, x.nums));
     const parts = { ablation: options.verdictOnly !== true && (options.ablation ?? true), suggestions: options.verdictOnly !== true && (options.suggestions ?? true), paths: options.verdictOnly !== true };
-    const made = this.answersOf(analysis, ranked, top, { reading, dropClues: options.dropClues ?? [], whyNot, pprMemo, deadline, verdictContext, parts, ...(conditions ? { rerankWith: withConditions } : {}) });
+    const made = this.answersOf(analysis, ranked, top, { reading, dropClues: options.dropClues ?? [], whyNot, pprMemo, reachMemo, deadline, verdictContext, parts, ...(conditions ? { rerankWith: withConditions } : {}) });
     let { answers } = made;
     const verdict = made.verdict;
     if (conditions) {
@@ -350,12 +350,14 @@ export class Session {
     const lookup = this.attributeLookup();
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
     const pprMemo = new Map<string, SparseScores>();
-    if (cond.value || cond.compare || cond.identity) return { cond, analysis, reading, lookup, pprMemo, readMs };
-    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reading, deadline, attributes: lookup, ...(dropClues ? { dropClues } : {}) });
+    // and its clues' pattern end sets, reused likewise
+    const reachMemo: ReachMemo = new Map();
+    if (cond.value || cond.compare || cond.identity) return { cond, analysis, reading, lookup, pprMemo, reachMemo, readMs };
+    const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reachMemo, reading, deadline, attributes: lookup, ...(dropClues ? { dropClues } : {}) });
     const conditions = reading.conditions.length > 0 ? applyConditions(analysis, ranked0, reading.conditions, this.index, lookup, { deadline }) : undefined;
     // the entities that satisfy the reading (all of them, not only the ranking's first `matched`), before any filter or reordering
     const matchedNodes = new Set(ranked0.fallback ? [] : (ranked0.matchedNodes?.() ?? ranked0.candidates.slice(0, ranked0.matched ?? 0).map((c) => c.node)));
-    return { cond, analysis, reading, lookup, pprMemo, readMs, ranked: conditions?.ranked ?? ranked0, matchedNodes, ...(conditions ? { conditions } : {}) };
+    return { cond, analysis, reading, lookup, pprMemo, reachMemo, readMs, ranked: conditions?.ranked ?? ranked0, matchedNodes, ...(conditions ? { conditions } : {}) };
   }
 
   /**
@@ -428,6 +430,8 @@ export class Session {
       readonly rerankWith?: (r: Ranked) => Ranked;
       /** Per-clue PageRank vectors of this analysis (rank's `pprMemo`), shared by the re-rankings. */
       readonly pprMemo?: Map<string, SparseScores>;
+      /** The clues' pattern end sets of this analysis (rank's `reachMemo`), shared by the re-rankings. */
+      readonly reachMemo?: ReachMemo;
       /** The question's time budget (explain's long stages stop early once it is spent). */
       readonly deadline?: Deadline;
       /** What the verdict reads besides the ranking (explain/verdict.ts): reading, conditions, link facts. */
@@ -455,13 +459,14 @@ export class Session {
     const dropped = new Set(extra.dropClues ?? []);
     const kept = analysis.clues.map((_, i) => i).filter((i) => !dropped.has(i));
     const pprMemo = extra.pprMemo ?? new Map<string, SparseScores>();
+    const reachMemo: ReachMemo = extra.reachMemo ?? new Map();
     const explanation = explain(analysis, ranked, this.index, this.catalog, {
       top,
       ...(this.rankOptions.alpha !== undefined ? { restart: this.rankOptions.alpha } : {}),
       ...(this.rankOptions.hubExponent !== undefined ? { hubExponent: this.rankOptions.hubExponent } : {}),
       // re-ranking without a clue reuses the other clues' walks (same relation weights, pprMemo)
       rerank: (a, drop) => {
-        const r = rank(a, this.index, { ...this.rankOptions, pprMemo, walkWeights: ranked.relationWeights, attributes: this.attributeLookup(), ...(extra.reading ? { reading: extra.reading } : {}), dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
+        const r = rank(a, this.index, { ...this.rankOptions, pprMemo, reachMemo, walkWeights: ranked.relationWeights, attributes: this.attributeLookup(), ...(extra.reading ? { reading: extra.reading } : {}), dropClues: [...dropped, ...drop.map((i) => kept[i]!)] });
         return extra.rerankWith ? extra.rerankWith(r) : r;
       },
       whyNot: extra.whyNot ?? [],
@@ -606,6 +611,7 @@ interface ReadAndRank {
   readonly reading: QueryGraph;
   readonly lookup: { numbers: (e: number, p: number) => readonly number[]; texts: (e: number, p: number) => string[]; entitiesWith: (p: number, v: string) => number[] };
   readonly pprMemo: Map<string, SparseScores>;
+  readonly reachMemo: ReachMemo;
   /** Milliseconds of the reading alone (analysis, conditions, query graph), before the ranking. */
   readonly readMs: number;
   readonly ranked?: Ranked;

@@ -111,6 +111,13 @@ export interface RankOptions extends CombineOptions {
    */
   readonly pprMemo?: Map<string, SparseScores>;
   /**
+   * The clues' pattern end sets (chain-reach.ts) already computed for this same question,
+   * keyed by clue entity, pattern and variant; filled and reused, so the re-rankings without a
+   * clue (ablation) do not search the other clues' patterns again. Valid for one question's
+   * reading and options only. @default none
+   */
+  readonly reachMemo?: ReachMemo;
+  /**
    * Factor of a candidate that the clue's relation-path pattern (analysis cue-chains.ts)
    * does not reach, when some candidate is reached by it; combined over the clues as a
    * weighted geometric mean. 1 disables the check. @default 0.05 — about the ratio of a one-hop to a two-hop neighbour's normalised walk score, so a candidate off the pattern falls behind one on it unless it is far closer
@@ -139,6 +146,9 @@ export interface RankOptions extends CombineOptions {
   /** The question's time budget: once spent, the cue-path check (an ordering refinement) is left out and "ranking" is recorded as cut. @default none */
   readonly deadline?: { stop(stage: "ranking"): boolean };
 }
+
+/** Pattern end sets of one question by clue, pattern and variant ({@link RankOptions}.reachMemo). */
+export type ReachMemo = Map<string, NodeSet | null>;
 
 /** The parts of the question's reading (analysis `QueryGraph`) that the ranking evaluates. */
 export type RankReading = Pick<QueryGraph, "chains" | "cueDirections">;
@@ -681,10 +691,24 @@ function chainFitOf(
     };
     const keep = (h: number, v: number) => (typeSets[h] === undefined || index.isA(v, typeSets[h]!)) && countOk(h, v);
     const base = { ...options.chainReach };
+    // the end sets are the same in every ranking of this question (its re-rankings without a
+    // clue included): searched once per clue, pattern and variant; a selection on an inner
+    // node (conditions) is searched each time
+    const memo = options.reachMemo;
+    const hopsKey = `${clue.node}|${JSON.stringify(hops)}|${base.maxVisits ?? ""}`;
+    const reach = (variant: string, run: () => NodeSet | null): NodeSet | null => {
+      if (!memo) return run();
+      const key = `${variant}|${hopsKey}`;
+      if (memo.has(key)) return memo.get(key)!;
+      const r = run();
+      memo.set(key, r);
+      return r;
+    };
     const select = conds.some((x) => x !== undefined) ? (h: number, frontier: Set<number>) => (conds[h] ? selectAt(frontier, conds[h]!, options.attributes!, index, new Set(ch.steps[h]!.types)) : frontier) : undefined;
-    const typedExact = typed ? chainReach(index, clue.node, hops, { ...base, directed: true, keep, ...(select ? { select } : {}) }) : null;
-    const exact = chainReach(index, clue.node, hops, { ...base, directed: true });
-    const undirected = chainReach(index, clue.node, hops, { ...base, directed: false });
+    const typedRun = () => chainReach(index, clue.node, hops, { ...base, directed: true, keep, ...(select ? { select } : {}) });
+    const typedExact = !typed ? null : select ? typedRun() : reach(`typed ${JSON.stringify(ch.steps.map((st) => [st.types, st.only ?? null]))}`, typedRun);
+    const exact = reach("directed", () => chainReach(index, clue.node, hops, { ...base, directed: true }));
+    const undirected = reach("undirected", () => chainReach(index, clue.node, hops, { ...base, directed: false }));
     const pattern = (withTypes: boolean, directed: boolean): RankedPattern => ({ hops, types: ch.steps.map((st, h) => (withTypes && typeSets[h] ? st.types : [])), directed });
     if (hits(typedExact)) checks.push({ exact: typedExact!, loose: exact, weight: weights[c]!, group, clue: c });
     else if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]!, group, clue: c });
