@@ -234,23 +234,228 @@ function resized<T extends Float64Array | Int32Array>(a: T, size: number): T {
   return b;
 }
 
+/** A surrogate code unit without its pair (in Unicode mode a pair is one code point, not matched). */
+const LONE_SURROGATE = /\p{Cs}/u;
+/**
+ * Strings kept as UTF-8 in one growing byte buffer (a column of a held table), so that a
+ * load holding millions of rows keeps neither a JS string object per value nor, through a
+ * substring, the parser's input block it was cut from. Values that do not survive a UTF-8
+ * round trip (a lone surrogate from an escape) are kept as strings on the side.
+ */
+export class TextColumn {
+  private bytes = Buffer.allocUnsafe(1 << 12);
+  private used = 0;
+  private starts = new Float64Array(256);
+  /** Byte length per row; −1 = null, −2 = kept in `odd`. */
+  private lengths = new Int32Array(256);
+  private readonly odd = new Map<number, string>();
+  private n = 0;
+
+  /** Rows held. */
+  get length(): number {
+    return this.n;
+  }
+
+  /** Appends a value; returns its row. */
+  push(value: string | null): number {
+    if (this.n === this.starts.length) {
+      this.starts = resized(this.starts, this.n * 2);
+      this.lengths = resized(this.lengths, this.n * 2);
+    }
+    const i = this.n++;
+    this.set(i, value);
+    return i;
+  }
+
+  /** Replaces row `i`'s value (the old bytes stay unused in the buffer). */
+  set(i: number, value: string | null): void {
+    if (value === null) {
+      this.lengths[i] = -1;
+      return;
+    }
+    if (LONE_SURROGATE.test(value)) {
+      this.odd.set(i, value);
+      this.lengths[i] = -2;
+      return;
+    }
+    const most = value.length * 3;
+    if (this.used + most > this.bytes.length) {
+      const bigger = Buffer.allocUnsafe(Math.max(this.bytes.length * 2, this.used + most));
+      this.bytes.copy(bigger, 0, 0, this.used);
+      this.bytes = bigger;
+    }
+    const k = this.bytes.write(value, this.used, "utf8");
+    this.starts[i] = this.used;
+    this.lengths[i] = k;
+    this.used += k;
+  }
+
+  /** Row `i`'s value. */
+  get(i: number): string | null {
+    const k = this.lengths[i]!;
+    if (k === -1) return null;
+    if (k === -2) return this.odd.get(i)!;
+    const a = this.starts[i]!;
+    return this.bytes.toString("utf8", a, a + k);
+  }
+
+  /** Drops every row. */
+  clear(): void {
+    if (this.bytes.length > 1 << 20) this.bytes = Buffer.allocUnsafe(1 << 12);
+    if (this.starts.length > 1 << 16) {
+      this.starts = new Float64Array(256);
+      this.lengths = new Int32Array(256);
+    }
+    this.used = 0;
+    this.n = 0;
+    this.odd.clear();
+  }
+}
+
+/**
+ * Rows of one table whose first column is an entity num. When told to {@link HeldRows.hold}
+ * them (a load into an empty catalog) it keeps every row until the next `flush` and writes
+ * them then ordered by that num, rows of one entity in arrival order (a stable sort, so an
+ * `INSERT OR IGNORE` keeps the same first row of each key): the table's B-tree, whose key
+ * starts with the entity, is filled nearly left to right instead of at random leaves (the
+ * files usually name entities in another order than the nums they got). Otherwise rows go
+ * straight to a {@link RowBatch}.
+ */
+export class HeldRows {
+  private readonly batch: RowBatch;
+  /** Per column: numbers (null as NaN) or text. */
+  private readonly kinds: readonly ("num" | "text")[];
+  private nums: Float64Array[] = [];
+  private texts: TextColumn[] = [];
+  private n = 0;
+  private holding = false;
+
+  /**
+   * @param head the statement up to `VALUES`, as for {@link RowBatch}
+   * @param kinds each column's kind, the first an entity num
+   */
+  constructor(db: Database.Database, head: string, kinds: readonly ("num" | "text")[]) {
+    this.batch = new RowBatch(db, head, kinds.length);
+    this.kinds = kinds;
+  }
+
+  /** Rows inserted so far (ignored duplicates not counted). */
+  get changes(): number {
+    return this.batch.changes;
+  }
+
+  /** From now on keeps every row until the next `flush`. */
+  hold(): void {
+    if (this.holding) return;
+    this.batch.flush();
+    this.holding = true;
+    this.nums = this.kinds.map((k) => new Float64Array(k === "num" ? 1024 : 0));
+    this.texts = this.kinds.map((k) => (k === "text" ? new TextColumn() : (undefined as unknown as TextColumn)));
+    this.n = 0;
+  }
+
+  /** Adds one row (a value per column; a num column's value a number or null). */
+  add(...row: unknown[]): void {
+    if (!this.holding) {
+      this.batch.add(...row);
+      return;
+    }
+    const i = this.n++;
+    const kinds = this.kinds;
+    for (let c = 0; c < kinds.length; c++) {
+      if (kinds[c] === "text") this.texts[c]!.push(row[c] as string | null);
+      else {
+        let col = this.nums[c]!;
+        if (i === col.length) col = this.nums[c] = resized(col, col.length * 2);
+        col[i] = row[c] === null ? NaN : (row[c] as number);
+      }
+    }
+  }
+
+  /**
+   * Writes every row (held ones ordered by entity, see the class note) and stops holding,
+   * unless `holdOn` (a flush before one statement reads or changes the rows written so far).
+   */
+  flush(holdOn = false): void {
+    const held = this.holding;
+    if (this.holding) {
+      this.holding = false;
+      const n = this.n;
+      const order = stableOrder(this.nums[0]!, n);
+      const row: unknown[] = new Array(this.kinds.length);
+      for (let k = 0; k < n; k++) {
+        const i = order[k]!;
+        for (let c = 0; c < this.kinds.length; c++) {
+          if (this.kinds[c] === "text") row[c] = this.texts[c]!.get(i);
+          else {
+            const v = this.nums[c]![i]!;
+            row[c] = Number.isNaN(v) ? null : v;
+          }
+        }
+        this.batch.add(...row);
+      }
+      this.nums = [];
+      this.texts = [];
+      this.n = 0;
+    }
+    this.batch.flush();
+    if (held && holdOn) this.hold();
+  }
+
+  /** Drops the buffered rows (after a rollback). */
+  discard(): void {
+    this.holding = false;
+    this.nums = [];
+    this.texts = [];
+    this.n = 0;
+    this.batch.discard();
+  }
+}
+
+/** Positions 0 … n − 1 ordered by `key` (non-negative integers), ties in position order. */
+function stableOrder(key: Float64Array, n: number): Uint32Array {
+  const order = new Uint32Array(n);
+  let max = 0;
+  for (let i = 0; i < n; i++) if (key[i]! > max) max = key[i]!;
+  const span = 2 ** Math.ceil(Math.log2(n + 1));
+  if ((max + 1) * span <= Number.MAX_SAFE_INTEGER) {
+    // one numeric sort of packed keys: num · span + position
+    const packed = new Float64Array(n);
+    for (let i = 0; i < n; i++) packed[i] = key[i]! * span + i;
+    packed.sort();
+    for (let k = 0; k < n; k++) order[k] = packed[k]! % span;
+  } else {
+    for (let i = 0; i < n; i++) order[i] = i;
+    order.sort((a, b) => key[a]! - key[b]! || a - b);
+  }
+  return order;
+}
+
 /**
  * Entity rows made in this transaction, held back until `capacity` of them are waiting, so
- * that a new entity's label and description go into its INSERT instead of two UPDATEs.
- * Nums are handed out in order, as SQLite would (the largest num + 1), so the pending rows
- * are always the nums `base … base + count − 1`.
+ * that a new entity's label and description go into its INSERT instead of two UPDATEs; when
+ * told to {@link PendingEntities.hold} them (a load into an empty catalog), every one until
+ * the next `flush`, so no row is written before the files have given its label and
+ * description. Nums are handed out in order, as SQLite would (the largest num + 1), so the
+ * pending rows are always the nums `base … base + count − 1`, and they are written in that order.
  */
 export class PendingEntities {
   private readonly batch: RowBatch;
   private readonly capacity: number;
+  private holding = false;
   private base = 0;
-  private ids: string[] = [];
-  private labels: (string | null)[] = [];
-  private descriptions: (string | null)[] = [];
+  private readonly ids = new TextColumn();
+  private readonly labels = new TextColumn();
+  private readonly descriptions = new TextColumn();
 
   constructor(db: Database.Database, capacity: number) {
     this.batch = new RowBatch(db, "INSERT INTO entity(num, id, label, description)", 4);
     this.capacity = Math.max(1, capacity);
+  }
+
+  /** From now on keeps every row until the next `flush`. */
+  hold(): void {
+    this.holding = true;
   }
 
   /** True when entity `num` is still waiting to be written. */
@@ -260,7 +465,7 @@ export class PendingEntities {
 
   /** True when `capacity` rows are waiting (the caller writes them before adding another). */
   get full(): boolean {
-    return this.ids.length >= this.capacity;
+    return !this.holding && this.ids.length >= this.capacity;
   }
 
   /** Adds the row of a new entity; `num` must follow the last one added (or start a run after a flush). */
@@ -273,38 +478,40 @@ export class PendingEntities {
   }
 
   label(num: number): string | null {
-    return this.labels[num - this.base]!;
+    return this.labels.get(num - this.base);
   }
 
   setLabel(num: number, text: string): void {
-    this.labels[num - this.base] = text;
+    this.labels.set(num - this.base, text);
   }
 
   description(num: number): string | null {
-    return this.descriptions[num - this.base]!;
+    return this.descriptions.get(num - this.base);
   }
 
   setDescription(num: number, text: string): void {
-    this.descriptions[num - this.base] = text;
+    this.descriptions.set(num - this.base, text);
   }
 
-  /** Writes every waiting row, in num order. */
+  /** Writes every waiting row, in num order, and stops holding. */
   flush(): void {
     const { ids, labels, descriptions, batch } = this;
-    for (let i = 0; i < ids.length; i++) batch.add(this.base + i, ids[i], labels[i], descriptions[i]);
+    for (let i = 0; i < ids.length; i++) batch.add(this.base + i, ids.get(i), labels.get(i), descriptions.get(i));
     batch.flush();
     this.clear();
+    this.holding = false;
   }
 
   /** Drops the waiting rows (after a rollback). */
   discard(): void {
     this.batch.discard();
     this.clear();
+    this.holding = false;
   }
 
   private clear(): void {
-    this.ids = [];
-    this.labels = [];
-    this.descriptions = [];
+    this.ids.clear();
+    this.labels.clear();
+    this.descriptions.clear();
   }
 }

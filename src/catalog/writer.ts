@@ -10,7 +10,7 @@ import type Database from "better-sqlite3";
 import { normalize, stemToken } from "./normalize.js";
 import { labelFromId } from "./store.js";
 import type { Catalog } from "./store.js";
-import { PendingEntities, RowBatch, SortedEdges } from "./rows.js";
+import { HeldRows, PendingEntities, SortedEdges } from "./rows.js";
 import { IdTable } from "./intern.js";
 import type { LoadSink, RowsWritten } from "./load-sink.js";
 import { ReloadTracker } from "./reload.js";
@@ -40,6 +40,15 @@ export const DEFAULTS = {
   pendingEntities: 4096,
   /** Stems remembered per token (labels repeat their words; the memo is emptied when full). */
   stemMemo: 100_000,
+  /**
+   * In a load into an empty catalog, hold the entity, alias, type and attribute rows until the
+   * end and write each table once, in key order (rows.ts `HeldRows`, `PendingEntities.hold`):
+   * no entity row is updated after it is written (with the edges file first, every entity was
+   * written before its label and description came: 2M UPDATEs at L). Measured 5 December 2026
+   * (shared 2-CPU machine, load average 9–14): the load's thread at M 7.65 → 7.16 CPU s
+   * (median of 5 runs each), at L 77.7–106.1 → 80.0–89.8 CPU s; catalog rows identical.
+   */
+  holdRows: true,
 };
 
 /** Porter stems of recent tokens (`stemToken` is a pure function of the token). */
@@ -82,9 +91,9 @@ export class CatalogWriter {
   private deferred: { name: string; sql: string }[] = [];
   /** Rows buffered for multi-row INSERTs (written by `flush`, before anything reads them). */
   private readonly entities: PendingEntities;
-  private readonly aliases: RowBatch;
-  private readonly types: RowBatch;
-  private readonly attributes: RowBatch;
+  private readonly aliases: HeldRows;
+  private readonly types: HeldRows;
+  private readonly attributes: HeldRows;
   private readonly edges: SortedEdges;
   /** The num the next new entity gets (0: read it from the table first). */
   private nextNum = 0;
@@ -125,9 +134,9 @@ export class CatalogWriter {
       bump: p("UPDATE meta SET value = CAST(CAST(value AS INTEGER) + 1 AS TEXT) WHERE key = 'generation'"),
     };
     this.entities = new PendingEntities(this.db, DEFAULTS.pendingEntities);
-    this.aliases = new RowBatch(this.db, "INSERT OR IGNORE INTO alias(entity, text, norm, stem, kind)", 5);
-    this.types = new RowBatch(this.db, "INSERT OR IGNORE INTO entity_type(entity, type)", 2);
-    this.attributes = new RowBatch(this.db, "INSERT OR IGNORE INTO attribute(entity, predicate, value, datatype, lang, num)", 6);
+    this.aliases = new HeldRows(this.db, "INSERT OR IGNORE INTO alias(entity, text, norm, stem, kind)", ["num", "text", "text", "text", "num"]);
+    this.types = new HeldRows(this.db, "INSERT OR IGNORE INTO entity_type(entity, type)", ["num", "num"]);
+    this.attributes = new HeldRows(this.db, "INSERT OR IGNORE INTO attribute(entity, predicate, value, datatype, lang, num)", ["num", "num", "text", "text", "text", "num"]);
     this.edges = new SortedEdges(this.db);
   }
 
@@ -226,6 +235,7 @@ export class CatalogWriter {
   deferIndexes(): void {
     if (!this.open || this.deferred.length > 0) return;
     this.edges.hold();
+    if (DEFAULTS.holdRows) for (const b of [this.entities, this.aliases, this.types, this.attributes]) b.hold();
     const rows = this.db.prepare("SELECT name, sql FROM sqlite_master WHERE type = 'index' AND sql IS NOT NULL ORDER BY name").all() as { name: string; sql: string }[];
     for (const r of rows) this.db.exec(`DROP INDEX "${r.name.replace(/"/g, '""')}"`);
     this.deferred = rows;
@@ -352,7 +362,7 @@ export class CatalogWriter {
     const cur = this.labelOf(n);
     if (preferred) {
       // the UPDATEs below must see every alias row added so far
-      this.aliases.flush();
+      this.aliases.flush(true);
       if (cur !== text) this.s.demoteLabel!.run(n);
       this.setLabelOf(n, text);
       const [norm, stem] = forms(text);
