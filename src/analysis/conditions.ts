@@ -252,6 +252,12 @@ export interface EntityComparison extends ConditionBase {
   /** True when the word is temporal ("older"): on a non-temporal attribute (an age) the order flips. */
   readonly temporal: boolean;
   readonly choices: readonly AttributeChoice[];
+  /**
+   * True when each compared entity is described, not named ("the country whose capital is
+   * A or the one whose capital is B"): the entities compared are those each clue's chain of
+   * the reading reaches (`nodes` are the clues' own until then). Absent: the clues themselves.
+   */
+  readonly described?: boolean;
 }
 
 function surfaceStems(text: string): string[] {
@@ -874,9 +880,14 @@ function directQuestion(
   if (clueMentions.length >= 2) {
     const spans = clueMentions.map((mi) => analysis.mentions[mi]!);
     const coordinated = spans.every((m, k) => k === 0 || /^\s*(?:,|or|and|,\s*or|,\s*and)\s*(?:the\s+)?$/i.test(question.slice(spans[k - 1]!.end, m.start)));
-    if (coordinated) {
+    // "Which is larger, the country whose capital is A or the one whose capital is B?": an
+    // alternative question over described noun phrases (Quirk et al. 1985 §11.20), one clue in
+    // each alternative, "or" between them, the alternatives after a comma that follows the comparative
+    const alternatives = !coordinated && spans.every((m, k) => k === 0 || /\bor\b/i.test(question.slice(spans[k - 1]!.end, m.start)));
+    if (coordinated || alternatives) {
       for (let i = 0; i < ws.length; i++) {
         if (inMention[i] || ws[i + 1]?.norm === "than") continue;
+        if (alternatives && !(ws[i]!.end <= spans[0]!.start && /,/.test(question.slice(ws[i]!.end, spans[0]!.start)))) continue;
         const n = ws[i]!.norm;
         const g = isComparativeForm(n) ? gradable(n) : QUANTITY_COMPARATIVES[n] !== undefined ? { order: QUANTITY_COMPARATIVES[n]!, temporal: false } : undefined;
         if (!g) continue;
@@ -889,6 +900,7 @@ function directQuestion(
             order: g.order,
             temporal: g.temporal,
             choices,
+            ...(alternatives ? { described: true } : {}),
             words: ws[i]!.text,
             start: ws[i]!.start,
             end: ws[i]!.end,

@@ -146,6 +146,14 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     expect(r.verdict.status).toBe("unique");
   });
 
+  it("5. comparing described entities: each alternative is what its clue's chain reaches", () => {
+    // Ada Quell commands Skell (41 m), Bo Tarrant commands Morrow (63 m)
+    const r = ask("Which is longer, the vessel that Ada Quell commands or the one that Bo Tarrant commands?");
+    expect(r.reading!.constraints).toEqual(["compare: (… Ada Quell) vs (… Bo Tarrant) by length (larger wins)"]);
+    expect(r.answers.map((a) => a.id)).toEqual(["s:morrow", "s:skell"]);
+    expect(r.verdict.status).toBe("unique");
+  });
+
   it("6. a superlative over the set a chain defines", () => {
     // home port Vask: Skell (41 m) and Morrow (63 m); Gull (50 m) is based elsewhere
     const r = ask("Which is the longest vessel whose home port is Vask?");

@@ -517,7 +517,7 @@ export function constraintTexts(g: QueryGraph, analysis: Analysis): string[] {
   for (const c of g.conditions) out.push(conditionText(c));
   if (g.value) out.push(`value: ${g.value.choices[0]?.label ?? "no attribute"} of ${analysis.mentions[g.value.mention]?.entity.label ?? "?"}`);
   if (g.identity) out.push(`identity: ?answer = ${analysis.mentions[g.identity.mention]?.entity.label ?? "?"}`);
-  if (g.compare) out.push(`compare: ${g.compare.mentions.map((m) => analysis.mentions[m]?.entity.label ?? "?").join(" vs ")} by ${g.compare.choices[0]?.label ?? "no attribute"} (${g.compare.order === "max" ? "larger" : "smaller"} wins)`);
+  if (g.compare) out.push(`compare: ${g.compare.mentions.map((m) => (g.compare!.described ? `(… ${analysis.mentions[m]?.entity.label ?? "?"})` : (analysis.mentions[m]?.entity.label ?? "?"))).join(" vs ")} by ${g.compare.choices[0]?.label ?? "no attribute"} (${g.compare.order === "max" ? "larger" : "smaller"} wins)`);
   if (g.plural) out.push("all that fit");
   return out;
 }

@@ -6,10 +6,10 @@
  * stage timed. Answers and verdict are made in one place, {@link Session.answersOf}.
  */
 import { Catalog, NumericColumns, demoCatalogPath, normalize, readBinding } from "../catalog/index.js";
-import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type QueryGraph, type QuestionModel } from "../analysis/index.js";
+import { analyze, buildAttributeModel, buildQuestionModel, detectConditions, readQuestion, readingDoc, type Analysis, type AttributeModel, type EntityComparison, type QueryGraph, type QuestionModel } from "../analysis/index.js";
 import { Linker, linkQuestion, notFoundNote, type LinkResult, type Pin } from "../linking/index.js";
 import { DEADLINE_DEFAULTS, DISCLAIMER, Deadline, LIMITS, TiepointError, checkQuestionLength, checkTop, type Answer, type AskResult, type EntityRef, type Mention, type Verdict } from "../model/index.js";
-import { applyConditions, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type ReachMemo, type RelationIndex, type SparseScores } from "../ranking/index.js";
+import { applyConditions, chainReach, clueSeeds, openIndex, rank, type ConditionOutcome, type IndexProgress, type Ranked, type RankOptions, type ReachMemo, type RelationIndex, type SparseScores } from "../ranking/index.js";
 import { linkFacts } from "./link-facts.js";
 import { answerComparison, answerIdentity, answerValue, type DirectAnswer } from "./direct.js";
 import { StoreEdges, type PullFigures, type StoreOptions } from "./store-edges.js";
@@ -225,7 +225,7 @@ export class Session {
       const direct = cond.value
         ? answerValue(this.catalog, cond.value)
         : cond.compare
-          ? answerComparison(this.catalog, cond.compare, this.attributes().attributes.map((a) => ({ ...a, score: 0, wordIndexes: [] })))
+          ? answerComparison(this.catalog, cond.compare.described ? this.describedComparison(cond.compare, analysis, reading) : cond.compare, this.attributes().attributes.map((a) => ({ ...a, score: 0, wordIndexes: [] })))
           : answerIdentity(this.catalog, cond.identity!, analysis, VERDICT_DEFAULTS.senseRatio, (n) => this.index.isA(n, expected));
       // a value question has no ranking to compare a --why-not entity with: say so (names still checked)
       const asked = options.whyNot ?? [];
@@ -327,6 +327,23 @@ export class Session {
   readingOf(question: string, pins: readonly Pin[] | undefined): QueryGraph {
     const link = capMentions(linkQuestion(question, this.linker, pins !== undefined ? { pins } : {}));
     return readQuestion(detectConditions(analyze(question, link, this.model), this.model, this.lazyAttributes()), this.model);
+  }
+
+  /**
+   * A comparison between described entities ("the country whose capital is A or the one whose
+   * capital is B"): each compared clue stands for the entities its chain of the reading reaches
+   * (ranking chain-reach.ts, the stored directions); a clue whose chain reaches none stands for itself.
+   */
+  private describedComparison(c: EntityComparison, analysis: Analysis, reading: QueryGraph): EntityComparison {
+    const nodes = c.mentions.flatMap((mi, k) => {
+      const ci = analysis.clues.findIndex((x) => x.mention === mi);
+      const ch = ci >= 0 ? reading.chains[ci] : undefined;
+      const own = c.nodes[k]!;
+      if (!ch || ch.steps.length === 0 || !(own >= 0 && own < this.index.nodeCount)) return [own];
+      const reached = chainReach(this.index, own, ch.steps.map((st) => st.options));
+      return reached && reached.size > 0 ? [...reached].sort((a, b) => a - b) : [own];
+    });
+    return { ...c, nodes };
   }
 
   /** Attribute values for the conditions: numbers through per-predicate columns, texts and value lookups from the catalog. */
