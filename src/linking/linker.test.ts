@@ -160,6 +160,27 @@ describe("a name that is a relation word only by its stem", () => {
   });
 });
 
+describe("a name written with an initialism for some of its words", () => {
+  it("links 'ZR crown' to 'Zeldan Republic crown' (initials of consecutive words, Schwartz & Hearst 2003), not a lower-case word", () => {
+    // invented currency names
+    const c = Catalog.open(":memory:", { create: true });
+    const w = new CatalogWriter(c);
+    w.begin();
+    const { type, ent } = catalogShorthands(w);
+    type("t:Currency", "currency");
+    ent("m:zrc", "Zeldan Republic crown", ["t:Currency"]);
+    ent("m:oc", "Ostrel crown", ["t:Currency"]);
+    w.commit();
+    const l = Linker.fromCatalog(c);
+    const r = linkQuestion("Which towns pay with the ZR crown?", l);
+    expect(r.mentions.map((m) => [m.text, m.entity.id, m.match])).toEqual([["ZR crown", "m:zrc", "fuzzy"]]);
+    // initials that spell no name's words, or a word not in capitals, make no such link
+    expect(linkQuestion("Which towns pay with the ZQ crown?", l).mentions.map((m) => m.entity.id)).not.toContain("m:zrc");
+    expect(linkQuestion("Which towns pay with the zr crown?", l).mentions.map((m) => m.text)).not.toContain("zr crown");
+    c.close();
+  });
+});
+
 describe("linkQuestion on arbitrary text (properties)", () => {
   const check = (s: string) => {
     const r = link(s);

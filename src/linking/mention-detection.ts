@@ -22,6 +22,8 @@
  * In a case-blind question a fuzzy name needs `blindSimilarity`, except the one word of a
  * definite description ("the kyat") that exactly one entity's names hold (`soleHolder`; cf.
  * definite descriptions, Russell 1905, linker.ts): it refers to that entity.
+ * An initialism in capitals before one word of a name ("US dollar") links to the names whose
+ * words before that word have those initials ("United States dollar"; `initialismSpan`).
  * Rules: a fuzzy span needs a word with a letter that is not a type or relation word (numbers
  * alone never become fuzzy names); a span may not end with a stop word, may start with one only when it is exactly an
  * alias ("the Dawn"), and a span that is only stop words or
@@ -72,6 +74,8 @@ export const DEFAULTS = {
    * loosely ("tarns" ~ one word of "Tarn Kingdom") is no name; a misspelt whole name still is.
    */
   blindSimilarity: 0.75,
+  /** Similarity of a name written with an initialism for some of its words ("US dollar"). */
+  initialismSimilarity: 0.85,
   /** Lowest similarity for a fuzzy name that absorbs a neighbouring exact span. */
   mergeSimilarity: 0.8,
   /** Lowest similarity for a suggestion on an unlinked span. */
@@ -200,6 +204,38 @@ export function writtenAs(tok: QuestionToken, alias: string, caseBlind: boolean)
   return true;
 }
 
+/**
+ * An initialism in capitals followed by one word of a name, the name being the words the
+ * initials stand for and that word ("US dollar" → "United States dollar"): the short form's
+ * letters are the initials of consecutive words of the long form (the abbreviation matching of
+ * Schwartz & Hearst 2003, "A simple algorithm for identifying abbreviation definitions in
+ * biomedical text", PSB, restricted to word initials). The candidates are the entities whose
+ * label or alias is exactly that, at `initialismSimilarity` (a name not written as the
+ * catalog writes it, shown as a fuzzy match the user can pin).
+ */
+function initialismSpan(toks: readonly QuestionToken[], k: number, lex: AliasLexicon, o: Options): DetectedSpan | undefined {
+  const short = toks[k]!;
+  const word = toks[k + 1]!;
+  const letters = short.norm;
+  if (letters.length < 2 || letters.length > 5 || !/^\p{L}+$/u.test(letters) || short.upper !== letters.length) return undefined;
+  if (isStopWord(word.norm) || !LETTER.test(word.norm)) return undefined;
+  const id = lex.snapshot.tokenId(word.norm);
+  if (id < 0) return undefined;
+  const holders = lex.snapshot.entitiesWithToken(id);
+  if (holders.length > o.maxGenerator) return undefined;
+  const candidates: SpanCandidate[] = [];
+  for (const e of holders) {
+    if (lex.isTypeEntity(e)) continue;
+    for (const [, norm, kind] of lex.aliasRows(e)) {
+      const ws = norm.split(" ");
+      if (ws.length !== letters.length + 1 || ws[ws.length - 1] !== word.norm) continue;
+      if (ws.slice(0, -1).map((w) => w[0]).join("") !== letters) continue;
+      if (!candidates.some((c) => c.num === e)) candidates.push({ num: e, similarity: o.initialismSimilarity, kind, match: "fuzzy" });
+    }
+  }
+  return candidates.length > 0 ? { first: k, last: k + 2, match: "fuzzy", candidates } : undefined;
+}
+
 /** The best few of a span's candidates as suggestions: by similarity, then prominence, then num. */
 function asSuggestions(cands: readonly SpanCandidate[], lex: AliasLexicon): SpanCandidate[] {
   const d = (n: number) => lex.snapshot.degreeOf(n);
@@ -321,6 +357,17 @@ export function detectMentions(
       for (let k = found.first; k < found.last; k++) covered[k] = true;
       i = found.last;
     } else i++;
+  }
+  // 1b. an initialism written in capitals before a word of a name ("US dollar" for "United
+  //     States dollar"): the initials of the name's words before that word spell it
+  for (let k = 0; k + 1 < n; k++) {
+    if (covered[k] || covered[k + 1] || caseBlind()) continue;
+    const found = initialismSpan(toks, k, lex, o);
+    if (found) {
+      spans.push(found);
+      covered[k] = covered[k + 1] = true;
+      k++;
+    }
   }
   // 2. fuzzy spans over runs of uncovered content words; capitalised type or relation words
   //    may sit inside a run (as in a misspelt "Shoal Chian Survey") but never form one alone
