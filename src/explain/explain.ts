@@ -295,12 +295,15 @@ export function explain<A extends ExplainAnalysis>(
   const answerPaths = options.answerPaths ?? true;
   // the lead paths (the reading's pattern) only order the shown paths; the verdict reads `byClue`
   const leads = answerPaths && ranked.patterns ? { patterns: ranked.patterns } : {};
+  // without answer paths (a verdict-only re-ask) only the best answer's alternatives are read
+  // (the verdict's relation patterns); the others need their cheapest path, Yen's first one
+  const verdictOnly = answerPaths ? {} : { alternativesFor: Math.min(1, options.paths?.alternativesFor ?? PATH_DEFAULTS.alternativesFor) };
   const pathSet = findPaths(
     index,
     cost,
     clueSeeds,
     shown.map((c) => c.node),
-    { ...options.paths, ...leads, ...(missOf ? { offPattern: (ci: number, a: number) => missOf(a).includes(ci) } : {}) },
+    { ...options.paths, ...leads, ...verdictOnly, ...(missOf ? { offPattern: (ci: number, a: number) => missOf(a).includes(ci) } : {}) },
     deadline,
   );
   const byNode = new Map(pathSet.answers.map((a) => [a.answer, a]));
