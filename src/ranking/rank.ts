@@ -398,21 +398,48 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   }
   const chainCheck = chainFitOf(chains, clues, weights, index, new Set(eligible.map((slot) => poolNodes[slot]!)), options);
   const chainFit = chainCheck?.fit;
-  const candidates: RankedCandidate[] = eligible.map((slot) => {
+  // every eligible candidate's figures in flat arrays (a hub's clue makes tens of thousands
+  // eligible); objects are made only for the `limit` returned, picked by a bounded heap
+  const n = eligible.length;
+  const nodeAt = new Int32Array(n);
+  const scoreAt = new Float64Array(n);
+  const coveredAt = new Int32Array(n);
+  const missingAt = new Float64Array(n);
+  const fitAt = new Float64Array(n);
+  const normOf = (slot: number): number[] => Array.from(rowOf(slot), (s, c) => (max[c]! > 0 ? s / max[c]! : 0));
+  const norm = new Float64Array(C);
+  for (let i = 0; i < n; i++) {
+    const slot = eligible[i]!;
     const v = poolNodes[slot]!;
-    const row = rowOf(slot);
-    const norm = Array.from(row, (s, c) => (max[c]! > 0 ? s / max[c]! : 0));
+    for (let c = 0; c < C; c++) norm[c] = max[c]! > 0 ? rows[slot * C + c]! / max[c]! : 0;
     const { score, covered } = combineClueScores(norm, weights, options);
     const missing = cueFit ? cueFit(v) : 0;
     const fit = chainFit ? chainFit(v) : 1;
-    const total = score * Math.pow(cueMiss, missing) * fit;
+    nodeAt[i] = v;
+    scoreAt[i] = score * Math.pow(cueMiss, missing) * fit;
+    coveredAt[i] = covered;
+    missingAt[i] = missing;
+    fitAt[i] = fit;
+  }
+  const candidateAt = (i: number): RankedCandidate => {
+    const v = nodeAt[i]!;
+    const perClue = normOf(eligible[i]!);
+    const [score, covered, missing, fit] = [scoreAt[i]!, coveredAt[i]!, missingAt[i]!, fitAt[i]!];
     // (no object spread: one literal per shape, same keys in the same order)
-    if (cueFit && chainFit) return { node: v, score: total, perClue: norm, covered, cueMissing: missing, chainFit: fit };
-    if (cueFit) return { node: v, score: total, perClue: norm, covered, cueMissing: missing };
-    if (chainFit) return { node: v, score: total, perClue: norm, covered, chainFit: fit };
-    return { node: v, score: total, perClue: norm, covered };
-  });
-  candidates.sort((a, b) => b.covered - a.covered || b.score - a.score || a.node - b.node);
+    if (cueFit && chainFit) return { node: v, score, perClue, covered, cueMissing: missing, chainFit: fit };
+    if (cueFit) return { node: v, score, perClue, covered, cueMissing: missing };
+    if (chainFit) return { node: v, score, perClue, covered, chainFit: fit };
+    return { node: v, score, perClue, covered };
+  };
+  const limit = options.limit ?? DEFAULTS.limit;
+  // best first: (the whole reading satisfied, when some candidate does), coverage, score, node
+  const firstOf = (fitsFirst: Uint8Array | undefined) =>
+    topOf(n, limit, (i, j) => {
+      if (fitsFirst && fitsFirst[i] !== fitsFirst[j]) return fitsFirst[i]! > fitsFirst[j]!;
+      if (coveredAt[i] !== coveredAt[j]) return coveredAt[i]! > coveredAt[j]!;
+      if (scoreAt[i] !== scoreAt[j]) return scoreAt[i]! > scoreAt[j]!;
+      return nodeAt[i]! < nodeAt[j]!;
+    }).map(candidateAt);
   // a clue with no relation word ("~" in the reading: "*Nordic* towns", "in *Africa*") is a
   // one-hop constraint of any relation, kept only when some eligible candidate is its
   // neighbour (else it says nothing about this catalog) and the clue has at most `anyMaxDegree` edges
@@ -440,10 +467,13 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   });
   // the reading's structure first: the candidates every checked pattern reaches exactly
   // (a conjunctive path query over the clues' patterns), each group in score order
-  if (!chainCheck && adjacency.length === 0) return { clues, candidates: candidates.slice(0, options.limit ?? DEFAULTS.limit), typeFiltered, relationWeights: rho, notes };
-  const fits = (c: RankedCandidate) => (!chainCheck || (c.chainFit === 1 && chainCheck.misses(c.node).length === 0)) && adjacency.every((a) => a.has(c.node));
-  const matched = (chainCheck?.ignored ?? 0) > 0 ? [] : candidates.filter(fits);
-  const ordered = matched.length > 0 ? [...matched, ...candidates.filter((c) => !fits(c))] : candidates;
+  if (!chainCheck && adjacency.length === 0) return { clues, candidates: firstOf(undefined), typeFiltered, relationWeights: rho, notes };
+  const fits = (i: number) => (!chainCheck || (chainFit !== undefined && fitAt[i] === 1 && chainCheck.misses(nodeAt[i]!).length === 0)) && adjacency.every((a) => a.has(nodeAt[i]!));
+  const fitFlags = new Uint8Array(n);
+  let matchedCount = 0;
+  if ((chainCheck?.ignored ?? 0) === 0) for (let i = 0; i < n; i++) if (fits(i)) matchedCount += fitFlags[i] = 1;
+  const matched = { length: matchedCount };
+  const ordered = firstOf(matched.length > 0 ? fitFlags : undefined);
   if (matched.length === 0) notes.push("no entity satisfies the whole reading of the question: the answers are ranked by PageRank alone and fit only part of it");
   // the whole matched set, beyond the walk's pool: the intersection of the patterns' exact
   // end sets and the neighbour sets, smallest first, then the pool's other tests
@@ -464,7 +494,7 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   };
   return {
     clues,
-    candidates: ordered.slice(0, options.limit ?? DEFAULTS.limit),
+    candidates: ordered,
     typeFiltered,
     relationWeights: rho,
     notes,
@@ -739,4 +769,41 @@ function chainFitOf(
     return Math.exp(log);
   };
   return { fit, misses, ignored, patterns, exact: checks.map((ch) => ch.exact) };
+}
+
+/**
+ * The `k` best of the items 0 … n − 1 by `before` (a strict total order: true when i comes
+ * before j), best first: a bounded binary heap holding the k best so far, its worst at the
+ * root (n log k comparisons instead of sorting all n).
+ */
+function topOf(n: number, k: number, before: (i: number, j: number) => boolean): number[] {
+  const heap: number[] = [];
+  // the heap's order: a parent is worse than (after) its children
+  const down = (at: number): void => {
+    for (;;) {
+      const l = 2 * at + 1;
+      const r = l + 1;
+      let worst = at;
+      if (l < heap.length && before(heap[worst]!, heap[l]!)) worst = l;
+      if (r < heap.length && before(heap[worst]!, heap[r]!)) worst = r;
+      if (worst === at) return;
+      [heap[at], heap[worst]] = [heap[worst]!, heap[at]!];
+      at = worst;
+    }
+  };
+  for (let i = 0; i < n; i++) {
+    if (heap.length < k) {
+      heap.push(i);
+      for (let at = heap.length - 1; at > 0; ) {
+        const parent = (at - 1) >> 1;
+        if (!before(heap[parent]!, heap[at]!)) break;
+        [heap[at], heap[parent]] = [heap[parent]!, heap[at]!];
+        at = parent;
+      }
+    } else if (k > 0 && before(i, heap[0]!)) {
+      heap[0] = i;
+      down(0);
+    }
+  }
+  return heap.sort((i, j) => (before(i, j) ? -1 : before(j, i) ? 1 : 0));
 }
