@@ -130,8 +130,9 @@ describe.skipIf(!HAVE_VIRTUOSO)("a catalog attached to a SPARQL store (Virtuoso 
   it("answers through the store agree with the local catalog: same first answer and verdict on >= 98 % of the questions", async () => {
     const qfile = join(dir, "questions.txt");
     writeFileSync(qfile, questions.join("\n") + "\n");
-    const ra = await run(["check", qfile, "--db", attached, "--json"]);
-    const rl = await run(["check", qfile, "--db", local, "--json"]);
+    // both without the time budget (as bench:store): on a loaded machine the budget cuts the slower side's stages, not the pipeline's answers
+    const ra = await run(["check", qfile, "--db", attached, "--json", "--time-limit", "0"]);
+    const rl = await run(["check", qfile, "--db", local, "--json", "--time-limit", "0"]);
     expect(ra.status, ra.stderr).toBe(0);
     expect(rl.status).toBe(0);
     type Doc = { answers: { id: string; paths: unknown }[]; verdict: { status: string; tiedWith?: string[] } };
@@ -277,7 +278,7 @@ describe.skipIf(!HAVE_VIRTUOSO)("a catalog attached to a SPARQL store (Virtuoso 
     const cases: [StoreRelay["mode"], RegExp][] = [
       ["http500", /HTTP 500.*the relay was told to fail/],
       ["http404", /HTTP 404/],
-      ["garbage", /not JSON/],
+      ["garbage", /not a SPARQL 1\.1 results document|not JSON/],
       ["reset", /not reachable: the connection was closed/],
       ["slow", /no answer within 1500 ms \(--timeout\)/],
     ];
@@ -357,7 +358,9 @@ describe.skipIf(!HAVE_VIRTUOSO)("a catalog attached to a SPARQL store (Virtuoso 
     const el = await run(["ask", q, "--db", local, "--json"]);
     expect(e.status, e.stderr).toBe(0);
     const [x, y] = [JSON.parse(e.stdout), JSON.parse(el.stdout)];
-    expect(x.answers.map((a: { id: string }) => a.id)).toEqual(y.answers.map((a: { id: string }) => a.id));
+    // the order inside a group of exactly equal scores is no claim (it follows entity numbers, which differ between the two catalog files)
+    const ranked = (d: { answers: { id: string; score: number }[] }) => [...d.answers].sort((a, b) => b.score - a.score || (a.id < b.id ? -1 : 1)).map((a) => a.id);
+    expect(ranked(x)).toEqual(ranked(y));
     expect(x.verdict.status).toBe(y.verdict.status);
     relay.upstream = store.url;
   });

@@ -110,7 +110,7 @@ async function main(): Promise<void> {
     // the store case alone first (its memory), then the local case
     const a = Session.open({ db: attached });
     for (const q of questions.slice(0, 3)) await a.askAsync(q, NO_BUDGET); // warm-up, not counted
-    const store: { ms: number; cpu: number; requests: number; rows: number; pullMs: number; hubs: number; result: AskResult }[] = [];
+    const store: { ms: number; cpu: number; requests: number; rows: number; cached: number; pullMs: number; hubs: number; result: AskResult }[] = [];
     const la0 = loadavg()[0]!;
     for (const q of questions) {
       const c = process.cpuUsage();
@@ -118,7 +118,7 @@ async function main(): Promise<void> {
       const x = await a.askAsync(q, NO_BUDGET);
       const ms = performance.now() - s0;
       const f = a.pullFigures()!;
-      store.push({ ms, cpu: cpuMs(c), requests: f.requests, rows: f.rows, pullMs: f.ms, hubs: f.hubs, result: x.result });
+      store.push({ ms, cpu: cpuMs(c), requests: f.requests, rows: f.rows, cached: f.cached ?? 0, pullMs: f.ms, hubs: f.hubs, result: x.result });
     }
     const rssStore = mib();
     a.close();
@@ -156,9 +156,10 @@ async function main(): Promise<void> {
     const r = quantiles(store.map((x) => x.requests));
     const w = quantiles(store.map((x) => x.rows));
     const p = quantiles(store.map((x) => x.pullMs));
+    const k = quantiles(store.map((x) => x.cached));
     say(
       `questions: ${questions.length}${Number.isNaN(loadS) ? "" : ` (local load of the same triples ${loadS.toFixed(1)} s)`}; load average ${la0.toFixed(1)} → ${la1.toFixed(1)}\n` +
-        `  store: median ${fix(qs.median)} ms, p95 ${fix(qs.p95)} ms (CPU ${fix(qsc.median)} / ${fix(qsc.p95)} ms); pulling ${fix(p.median)} / ${fix(p.p95)} ms; requests median ${r.median}, p95 ${r.p95}, max ${Math.max(...store.map((x) => x.requests))}; rows median ${w.median}, p95 ${w.p95}\n` +
+        `  store: median ${fix(qs.median)} ms, p95 ${fix(qs.p95)} ms (CPU ${fix(qsc.median)} / ${fix(qsc.p95)} ms); pulling ${fix(p.median)} / ${fix(p.p95)} ms; requests median ${r.median}, p95 ${r.p95}, max ${Math.max(...store.map((x) => x.requests))}; rows median ${w.median}, p95 ${w.p95}; entity rows from the session's cache median ${k.median}, p95 ${k.p95}\n` +
         `  local: median ${fix(ql.median)} ms, p95 ${fix(ql.p95)} ms (CPU ${fix(qlc.median)} / ${fix(qlc.p95)} ms)\n` +
         `  same verdict and first answer: ${questions.length - differ.length}/${questions.length} (${(((questions.length - differ.length) / questions.length) * 100).toFixed(1)} %)\n` +
         `  resident memory: ${rssStore} MiB with the attached catalog alone, ${rssBoth} MiB after the local one too`,

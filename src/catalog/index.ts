@@ -13,6 +13,6 @@ export type { CatalogStats, Hub } from "./stats.js";
 export { demoCatalogPath, demoSourceFiles, demoDataDir, cacheDir, DEMO_SOURCES } from "./demo.js";
 export type { DemoCatalogOptions } from "./demo.js";
 export { NUMERIC_COLUMN_SQL, NumericColumn, NumericColumns, numericColumnsPath, readAllNumericColumns, readNumericColumn, rowIndex, writeNumericColumnsTemp } from "./numeric-column.js";
-export { iriRef, stringLiteral, literal, ntTerm, nodeId, bnodeLabel, isWritableIri, SparqlClient, checkEndpoint, shownEndpoint, CLIENT_DEFAULTS, bindingPath, readBinding, writeBinding, BINDING_FORMAT } from "./sparql/index.js";
+export { iriRef, stringLiteral, literal, ntTerm, nodeId, bnodeLabel, isWritableIri, csvNode, csvLiteral, csvTrue, SparqlClient, checkEndpoint, shownEndpoint, CLIENT_DEFAULTS, bindingPath, readBinding, writeBinding, BINDING_FORMAT } from "./sparql/index.js";
 export type { ResultTerm, ClientOptions, Row, SelectResult, StoreBinding, EndTableRows } from "./sparql/index.js";
 export { VOCABULARY, UNIT_VOCABULARY } from "./import/rdf.js";

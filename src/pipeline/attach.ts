@@ -8,11 +8,14 @@
  *
  * 1. the predicates with their triple counts (literal objects and node objects apart);
  * 2. every triple with a literal object (labels, aliases, descriptions, attributes), every
- *    `rdf:type`, `rdfs:subClassOf` and unit triple, one predicate at a time — written to a
- *    temporary N-Triples file as the pages arrive and read by the same importer as `load`
- *    (contract "RDF mapping"), so the catalog rows and the name index are the ones a local
- *    load of the same triples makes;
- * 3. per relation, how many edges each entity has out and in (`GROUP BY` in the store): every
+ *    `rdf:type`, `rdfs:subClassOf` and unit triple, asked per predicate as CONSTRUCT pages
+ *    answered in N-Triples (terms exact, nothing to parse here) — written to one temporary
+ *    N-Triples file per predicate as the pages arrive and read by the same importer as `load`
+ *    (contract "RDF mapping") in predicate order, so the catalog rows and the name index are
+ *    the ones a local load of the same triples makes; the predicates and their pages are asked
+ *    at the same time (the client keeps at most `parallel` requests in flight);
+ * 3. per relation, how many edges each entity has out and in (`GROUP BY` in the store, read
+ *    as CSV, every relation and end at the same time): every
  *    edge end becomes an entity of the catalog (a JSON Lines record `{"id": …}`), its degree
  *    (edges in + out, what the relation index counts) goes into the name index and the
  *    binding file, and the counts per relation end give the relation ends' direct types
@@ -35,10 +38,10 @@ import {
   loadFiles,
   nodeId,
   numericColumnsPath,
-  ntTerm,
+  csvNode,
+  csvTrue,
   readBinding,
   writeBinding,
-  type Row,
   type StoreBinding,
 } from "../catalog/index.js";
 import { LexicalSnapshot } from "../linking/index.js";
@@ -129,7 +132,6 @@ export async function attachStore(endpoint: string, db: string, options: AttachO
   const G = (body: string) => inGraph(graph, body);
   const work = mkdtempSync(join(dirname(db) === "" ? "." : dirname(db), `.${basename(db)}.attach-`));
   const temp = join(work, "catalog.db");
-  const nt = join(work, "store.nt");
   const jsonl = join(work, "nodes.jsonl");
   let published = false;
   try {
@@ -137,11 +139,13 @@ export async function attachStore(endpoint: string, db: string, options: AttachO
     const predicateCount = await client.count(`SELECT (COUNT(DISTINCT ?p) AS ?n) WHERE { ${G("?s ?p ?o")} }`);
     const predicates: { id: string; all: number; literals: number }[] = [];
     await client.paged(
-      `SELECT ?p (COUNT(*) AS ?n) (SUM(IF(isLiteral(?o), 1, 0)) AS ?lit) WHERE { ${G("?s ?p ?o")} } GROUP BY ?p`,
+      `SELECT ?p (COUNT(*) AS ?n) (SUM(IF(isLiteral(?o), 1, 0)) AS ?lit) (isIRI(?p) AS ?pi) WHERE { ${G("?s ?p ?o")} } GROUP BY ?p`,
+      (q) => client.csvRows(q, ["p", "n", "lit", "pi"]),
+      (row) => row.join("\u0000"),
       predicateCount,
       "?p",
       (rows) => {
-        for (const r of rows) if (r.p?.type === "uri") predicates.push({ id: r.p.value, all: Number(r.n?.value ?? 0), literals: Number(r.lit?.value ?? 0) });
+        for (const [p, n, lit, pi] of rows) if (csvTrue(pi!)) predicates.push({ id: p!, all: Number(n), literals: Number(lit) });
       },
       () => (predicates.length = 0),
     );
@@ -149,97 +153,105 @@ export async function attachStore(endpoint: string, db: string, options: AttachO
     const relations = predicates.filter((p) => !SPECIAL.has(p.id) && p.all > p.literals);
     say(`attach: ${predicateCount} predicates in the store, ${relations.length} of them relations`);
 
-    // 2. literal, type, subtype and unit triples, streamed into an N-Triples file
-    const out = openSync(nt, "w");
+    // 2. literal, type, subtype and unit triples, streamed into one N-Triples file per
+    // predicate (read by the importer in predicate order, so the catalog does not depend on
+    // which answer came first); the predicates are pulled at the same time
+    let pulledRows = 0;
+    let lastSay = performance.now();
+    const ntFiles: string[] = [];
+    const perPredicate = await Promise.all(
+      predicates.map(async (p, k) => {
+        const special = SPECIAL.has(p.id);
+        const want = special ? p.all : p.literals;
+        if (want === 0) return 0;
+        const pred = iriRef(p.id);
+        const file = join(work, `p${String(k).padStart(4, "0")}.nt`);
+        ntFiles[k] = file;
+        const out = openSync(file, "w");
+        let pos = 0;
+        let mine = 0;
+        try {
+          await client.paged(
+            `CONSTRUCT { ?s ${pred} ?o } WHERE { ${G(`?s ${pred} ?o`)} ${special ? "" : "FILTER(isLiteral(?o))"} }`,
+            (q) => client.constructLines(q),
+            (line) => line,
+            want,
+            "?s ?o",
+            (lines) => {
+              pos += writeSync(out, lines.join(""), pos);
+              mine += lines.length;
+              pulledRows += lines.length;
+              const now = performance.now();
+              if (now - lastSay > 1000) {
+                lastSay = now;
+                say(`attach: ${pulledRows.toLocaleString("en-US")} name, type and attribute triples pulled (${((now - t0) / 1000).toFixed(1)} s)`);
+              }
+            },
+            () => {
+              // a sorted retry of this predicate: drop what its unsorted pages wrote
+              ftruncateSync(out, 0);
+              pulledRows -= mine;
+              pos = 0;
+              mine = 0;
+            },
+          );
+        } finally {
+          closeSync(out);
+        }
+        return mine;
+      }),
+    );
     let literalTriples = 0;
     let typeTriples = 0;
     let labels = 0;
-    let lastSay = performance.now();
-    let pos = 0;
-    try {
-      for (const p of predicates) {
-        const special = SPECIAL.has(p.id);
-        const want = special ? p.all : p.literals;
-        if (want === 0) continue;
-        const pred = iriRef(p.id);
-        const startPos = pos;
-        let mine = 0;
-        await client.paged(
-          `SELECT ?s ?o WHERE { ${G(`?s ${pred} ?o`)} ${special ? "" : "FILTER(isLiteral(?o))"} }`,
-          want,
-          "?s ?o",
-          (rows) => {
-            const lines: string[] = [];
-            for (const r of rows) {
-              const s = r.s && r.s.type !== "literal" ? ntTerm(r.s) : undefined;
-              const o = r.o && ntTerm(r.o);
-              if (s && o) lines.push(`${s} ${pred} ${o} .\n`); // a term no RDF syntax can write is left out
-            }
-            pos += writeSync(out, lines.join(""), pos);
-            mine += lines.length;
-            const now = performance.now();
-            if (now - lastSay > 1000) {
-              lastSay = now;
-              say(`attach: ${(literalTriples + typeTriples + mine).toLocaleString("en-US")} name, type and attribute triples pulled (${((now - t0) / 1000).toFixed(1)} s)`);
-            }
-          },
-          () => {
-            // a sorted retry of this predicate: drop what its unsorted pages wrote
-            ftruncateSync(out, startPos);
-            pos = startPos;
-            mine = 0;
-          },
-        );
-        if (special) typeTriples += mine;
-        else literalTriples += mine;
-        if (LABELS.has(p.id)) labels += mine;
-      }
-    } finally {
-      closeSync(out);
-    }
+    predicates.forEach((p, k) => {
+      const mine = perPredicate[k]!;
+      if (SPECIAL.has(p.id)) typeTriples += mine;
+      else literalTriples += mine;
+      if (LABELS.has(p.id)) labels += mine;
+    });
     say(`attach: ${(literalTriples + typeTriples).toLocaleString("en-US")} name, type and attribute triples pulled (${labels.toLocaleString("en-US")} labels)`);
 
-    // 3. per relation, edges per entity at each end
+    // 3. per relation, edges per entity at each end, every relation and end at the same time
+    const counted = await Promise.all(
+      relations.flatMap((p) =>
+        (["?s", "?o"] as const).map(async (v): Promise<EndCounts> => {
+          const where = `${G(`?s ${iriRef(p.id)} ?o`)} FILTER(!isLiteral(?o))`;
+          const distinct = await client.count(`SELECT (COUNT(DISTINCT ${v}) AS ?n) WHERE { ${where} }`);
+          const target: EndCounts = { ids: [], counts: [] };
+          await client.paged(
+            `SELECT ${v} (COUNT(*) AS ?n) (isBlank(${v}) AS ?b) WHERE { ${where} } GROUP BY ${v}`,
+            (q) => client.csvRows(q, [v.slice(1), "n", "b"]),
+            (row) => row.join("\u0000"),
+            distinct,
+            v,
+            (rows) => {
+              for (const [x, n, b] of rows) {
+                target.ids.push(nodeId(csvNode(x!, csvTrue(b!))));
+                target.counts.push(Number(n));
+              }
+            },
+            () => {
+              target.ids.length = 0;
+              target.counts.length = 0;
+            },
+          );
+          return target;
+        }),
+      ),
+    );
+    // degrees summed in relation order (the entity records, and so the catalog's nums, do not depend on which answer came first)
     const ends = new Map<string, { out: EndCounts; in: EndCounts }>();
     const degree = new Map<string, number>();
     let edges = 0;
-    for (const p of relations) {
-      const pred = iriRef(p.id);
-      const both = { out: { ids: [], counts: [] } as EndCounts, in: { ids: [], counts: [] } as EndCounts };
-      for (const [end, v] of [
-        ["out", "?s"],
-        ["in", "?o"],
-      ] as const) {
-        const where = `${G(`?s ${pred} ?o`)} FILTER(!isLiteral(?o))`;
-        const distinct = await client.count(`SELECT (COUNT(DISTINCT ${v}) AS ?n) WHERE { ${where} }`);
-        const target = both[end];
-        await client.paged(
-          `SELECT ${v} (COUNT(*) AS ?n) WHERE { ${where} } GROUP BY ${v}`,
-          distinct,
-          v,
-          (rows: readonly Row[]) => {
-            for (const r of rows) {
-              const t = r[v.slice(1)];
-              if (!t || t.type === "literal") continue;
-              const id = nodeId(t);
-              const n = Number(r.n?.value ?? 0);
-              target.ids.push(id);
-              target.counts.push(n);
-              degree.set(id, (degree.get(id) ?? 0) + n);
-            }
-          },
-          () => {
-            for (let i = 0; i < target.ids.length; i++) degree.set(target.ids[i]!, degree.get(target.ids[i]!)! - target.counts[i]!);
-            target.ids.length = 0;
-            target.counts.length = 0;
-          },
-        );
-      }
+    relations.forEach((p, k) => {
+      const both = { out: counted[2 * k]!, in: counted[2 * k + 1]! };
+      for (const list of [both.out, both.in]) for (let i = 0; i < list.ids.length; i++) degree.set(list.ids[i]!, (degree.get(list.ids[i]!) ?? 0) + list.counts[i]!);
       const outEdges = both.out.counts.reduce((a, b) => a + b, 0);
       edges += outEdges;
       ends.set(p.id, both);
       say(`attach: relation ${p.id}: ${outEdges.toLocaleString("en-US")} edges`);
-    }
+    });
 
     // the relations and every edge end as JSON Lines records (the project's own layout)
     const jl = openSync(jsonl, "w");
@@ -271,7 +283,7 @@ export async function attachStore(endpoint: string, db: string, options: AttachO
         }
         return d;
       };
-      loadFiles(cat, [nt, jsonl], { sink: new LoadPreparation(undefined, { degrees: degreesByNum }) });
+      loadFiles(cat, [...ntFiles.filter((f) => f !== undefined), jsonl], { sink: new LoadPreparation(undefined, { degrees: degreesByNum }) });
       binding = storeBinding(cat, client.endpoint, graph, client.pageSize, edges, ends, degreesByNum(cat, cat.maxEntityNum() + 1));
     } finally {
       cat.close();

@@ -33,8 +33,15 @@
  * store's row limit cut it (the batch is split and asked again); any other difference means
  * the store changed since the attach (an error asking for `attach --refresh`). An entity
  * with more than `maxRow` edges is never pulled, and the answer says so in a note.
+ *
+ * Rows are read as SPARQL 1.1 Query Results CSV (catalog/sparql/csv.ts), the blank-node ends
+ * told apart by `isBlank` columns. The session keeps every row it pulled (up to `cacheEdges`
+ * edges, the oldest rows leaving first): a later question that needs the same entity's row
+ * takes it from there without a request. Which rows a question takes does not depend on the
+ * cache (the rings are grown the same way); only the order of its edges in the index may (a
+ * cached row comes in the order it was first answered), which breaks exact ties only.
  */
-import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, nodeId, shownEndpoint, type Row, type StoreBinding } from "../catalog/index.js";
+import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, nodeId, csvNode, csvTrue, shownEndpoint, type StoreBinding } from "../catalog/index.js";
 import { linkQuestion, type Pin } from "../linking/index.js";
 import { RelationIndex } from "../ranking/index.js";
 import { TiepointError } from "../model/index.js";
@@ -62,6 +69,8 @@ export const DEFAULTS = {
   answerRings: 3,
   /** Rows of the reading's exact-match query asked of the store (its variables' entities are pulled, hubs not). */
   matchCap: 2000,
+  /** Edges the session keeps of the rows it pulled (12 bytes each), for the next questions; the oldest rows go first. */
+  cacheEdges: 1_000_000,
 };
 
 /** Options of a store session. */
@@ -83,7 +92,12 @@ export interface PullFigures {
   matchesCut?: boolean;
   /** Rings not pulled for `ringRows`. */
   ringsCut?: number;
+  /** Rows taken from the session's cache (pulled by an earlier question) instead of the store. */
+  cached?: number;
 }
+
+/** The columns of an edge-row pull (`rowsQuery`): the triple, and whether its ends are blank nodes (CSV writes terms as plain text). */
+const ROW_VARS = ["s", "p", "o", "sb", "ob"];
 
 const NOT_EDGES = [VOCABULARY.type, VOCABULARY.subClassOf, ...Object.keys(UNIT_VOCABULARY)];
 
@@ -105,6 +119,9 @@ export class StoreEdges implements EdgeAccess {
   private readonly seen = new Set<string>();
   figures: PullFigures = { requests: 0, rows: 0, entities: 0, ms: 0, hubs: 0, tooLarge: 0 };
   private readonly skipped = new Set<number>();
+  /** The rows pulled so far in this session, per entity: its edges as flat (src, rel, dst) triples; oldest first (Map order). */
+  private readonly rowCache = new Map<number, Int32Array>();
+  private cachedEdges = 0;
 
   /** Installs the temporary edge table on `catalog` (before any edge statement is prepared) and records the linker's edge reads. */
   constructor(catalog: Catalog, binding: StoreBinding, options: StoreOptions = {}) {
@@ -188,6 +205,7 @@ export class StoreEdges implements EdgeAccess {
         this.skipped.add(n);
         continue;
       }
+      if (this.adopt(n)) continue;
       todo.push(n);
     }
     todo.sort((a, b) => a - b);
@@ -222,17 +240,17 @@ export class StoreEdges implements EdgeAccess {
     const values = batch.map((n) => iriRef(this.idStmt.get(n) as string)).join(" ");
     const G = (body: string) => inGraph(this.binding.graph, body);
     const notEdges = NOT_EDGES.map(iriRef).join(", ");
-    return `SELECT ?s ?p ?o WHERE { { VALUES ?s { ${values} } ${G("?s ?p ?o")} } UNION { VALUES ?o { ${values} } ${G("?s ?p ?o")} } FILTER(!isLiteral(?o) && ?p NOT IN (${notEdges})) }`;
+    return `SELECT ?s ?p ?o (isBlank(?s) AS ?sb) (isBlank(?o) AS ?ob) WHERE { { VALUES ?s { ${values} } ${G("?s ?p ?o")} } UNION { VALUES ?o { ${values} } ${G("?s ?p ?o")} } FILTER(!isLiteral(?o) && ?p NOT IN (${notEdges})) }`;
   }
 
   /** The rows of one entity with more edges than one answer of the store holds: paged, checked against the store's count (client `paged`). */
   private async pullPaged(num: number): Promise<void> {
     const before = this.client.requests;
-    const rows: Row[] = [];
-    await this.client.paged(this.rowsQuery([num]), this.degree(num), "?s ?p ?o", (page) => rows.push(...page), () => (rows.length = 0));
+    const rows: string[][] = [];
+    await this.client.paged(this.rowsQuery([num]), (q) => this.client.csvRows(q, ROW_VARS), (row) => row.join("\u0000"), this.degree(num), "?s ?p ?o", (page) => rows.push(...page), () => (rows.length = 0));
     this.figures.requests += this.client.requests - before;
     this.figures.rows += rows.length;
-    this.take(rows);
+    this.take(rows, [num]);
     this.pulled.add(num);
     this.figures.entities++;
   }
@@ -240,15 +258,16 @@ export class StoreEdges implements EdgeAccess {
   private async pullBatch(batch: readonly number[]): Promise<void> {
     const expected = batch.reduce((s, n) => s + this.degree(n), 0);
     const before = this.client.requests;
-    const r = await this.client.select(this.rowsQuery(batch));
+    const rows: string[][] = [];
+    const r = await this.client.selectCsv(this.rowsQuery(batch), ROW_VARS, (f) => rows.push(f));
     this.figures.requests += this.client.requests - before;
-    this.figures.rows += r.rows.length;
-    if (r.rows.length !== expected) {
-      const cut = r.cutAt !== undefined || (r.rows.length < expected && r.rows.length === this.client.pageSize);
-      if (cut || r.rows.length < expected) {
+    this.figures.rows += r.rows;
+    if (r.rows !== expected) {
+      const cut = r.cutAt !== undefined || (r.rows < expected && r.rows === this.client.pageSize);
+      if (cut || r.rows < expected) {
         if (cut && batch.length > 1) {
           // the store's row limit cut the answer: smaller batches
-          this.client.pageSize = Math.max(1, Math.min(this.client.pageSize, r.cutAt ?? r.rows.length));
+          this.client.pageSize = Math.max(1, Math.min(this.client.pageSize, r.cutAt ?? r.rows));
           const half = Math.ceil(batch.length / 2);
           await this.pullBatch(batch.slice(0, half));
           await this.pullBatch(batch.slice(half));
@@ -256,34 +275,80 @@ export class StoreEdges implements EdgeAccess {
         }
         if (cut) {
           // one entity's edges exceed the store's row limit: pull them in pages of what it answers
-          this.client.pageSize = Math.max(1, Math.min(this.client.pageSize, r.cutAt ?? r.rows.length));
-          this.figures.rows -= r.rows.length;
+          this.client.pageSize = Math.max(1, Math.min(this.client.pageSize, r.cutAt ?? r.rows));
+          this.figures.rows -= r.rows;
           await this.pullPaged(batch[0]!);
           return;
         }
       }
-      throw new TiepointError("store/changed", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: the store returned ${r.rows.length} edge rows where the attach counted ${expected} (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
+      throw new TiepointError("store/changed", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: the store returned ${r.rows} edge rows where the attach counted ${expected} (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
     }
-    this.take(r.rows);
+    this.take(rows, batch);
     for (const n of batch) this.pulled.add(n);
     this.figures.entities += batch.length;
   }
 
-  /** Adds pulled edge rows (each edge once) to the temporary edge table and the pulled arrays. */
-  private take(rows: readonly Row[]): void {
-    for (const row of rows) {
-      const s = this.entityNum(nodeId(row.s!));
-      const o = this.entityNum(nodeId(row.o!));
-      const p = this.predicateNum.get(row.p!.value);
-      if (p === undefined) throw new TiepointError("store/changed", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: an edge uses relation ${row.p!.value}, which the catalog does not know (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
-      const key = `${s} ${p} ${o}`;
-      if (this.seen.has(key)) continue;
-      this.seen.add(key);
-      this.src.push(s);
-      this.rel.push(p);
-      this.dst.push(o);
-      this.insert.run(s, p, o);
+  /** Adds pulled edge rows (each edge once) to the temporary edge table and the pulled arrays, and keeps the rows of `entities` (those pulled) in the session's cache. */
+  private take(rows: readonly string[][], entities: readonly number[]): void {
+    const mine = new Set(entities);
+    const per = new Map<number, number[]>();
+    const keep = (n: number, s: number, p: number, o: number) => {
+      let l = per.get(n);
+      if (!l) per.set(n, (l = []));
+      l.push(s, p, o);
+    };
+    for (const [sv, pv, ov, sb, ob] of rows) {
+      const s = this.entityNum(nodeId(csvNode(sv!, csvTrue(sb!))));
+      const o = this.entityNum(nodeId(csvNode(ov!, csvTrue(ob!))));
+      const p = this.predicateNum.get(pv!);
+      if (p === undefined) throw new TiepointError("store/changed", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: an edge uses relation ${pv!}, which the catalog does not know (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
+      this.addEdge(s, p, o);
+      if (mine.has(s)) keep(s, s, p, o);
+      if (mine.has(o) && o !== s) keep(o, s, p, o);
     }
+    for (const n of entities) this.remember(n, per.get(n) ?? []);
+  }
+
+  /** One edge into the question's pulled edges (once). */
+  private addEdge(s: number, p: number, o: number): void {
+    const key = `${s} ${p} ${o}`;
+    if (this.seen.has(key)) return;
+    this.seen.add(key);
+    this.src.push(s);
+    this.rel.push(p);
+    this.dst.push(o);
+    this.insert.run(s, p, o);
+  }
+
+  /** Keeps an entity's row for the session (the oldest rows leave when more than `cacheEdges` edges are kept). */
+  private remember(num: number, triples: readonly number[]): void {
+    const edges = triples.length / 3;
+    if (edges > DEFAULTS.cacheEdges) return;
+    const old = this.rowCache.get(num);
+    if (old) {
+      this.rowCache.delete(num);
+      this.cachedEdges -= old.length / 3;
+    }
+    for (const [k, v] of this.rowCache) {
+      if (this.cachedEdges + edges <= DEFAULTS.cacheEdges) break;
+      this.rowCache.delete(k);
+      this.cachedEdges -= v.length / 3;
+    }
+    this.rowCache.set(num, Int32Array.from(triples));
+    this.cachedEdges += edges;
+  }
+
+  /** Takes an entity's row from the session's cache (no request); false when it is not there. */
+  private adopt(num: number): boolean {
+    const r = this.rowCache.get(num);
+    if (!r) return false;
+    this.rowCache.delete(num); // most recently used last
+    this.rowCache.set(num, r);
+    for (let i = 0; i < r.length; i += 3) this.addEdge(r[i]!, r[i + 1]!, r[i + 2]!);
+    this.pulled.add(num);
+    this.figures.entities++;
+    this.figures.cached = (this.figures.cached ?? 0) + 1;
+    return true;
   }
 
   /**
@@ -346,7 +411,6 @@ export class StoreEdges implements EdgeAccess {
     const n = this.src.length;
     return RelationIndex.withPulledEdges(base, base.relationCount, { src: Int32Array.from(this.src), rel: Int32Array.from(this.rel), dst: Int32Array.from(this.dst), n }, this.binding.degree);
   }
-
   /** True when `ring` (the `r`-th, 0 the clues) may be pulled: the first two always, later ones when their rows fit in `ringRows`. */
   ringFits(ring: ReadonlySet<number>, r: number): boolean {
     if (r <= 1) return true;

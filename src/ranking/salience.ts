@@ -74,36 +74,34 @@ export function salienceOf(index: RelationIndex, options: SalienceOptions = {}, 
   const maxIterations = options.maxIterations ?? DEFAULTS.maxIterations;
   const { offsets, targets } = csrOf(index);
   const n = index.nodeCount;
+  // the linked nodes (with edges) only: every loop runs over them, so an index whose edges
+  // touch a few of its nodes (an attached catalog's pulled neighbourhood) costs by its edges,
+  // not by its node count; the others keep PageRank 0 and percentile 0
   let linked = 0;
   for (let u = 0; u < n; u++) if (offsets[u + 1]! > offsets[u]!) linked++;
+  const nodes = new Int32Array(linked);
+  for (let u = 0, k = 0; u < n; u++) if (offsets[u + 1]! > offsets[u]!) nodes[k++] = u;
   let x = new Float64Array(n);
   let y = new Float64Array(n);
   // x[u] / deg(u), once per iteration, so the pull loop reads one array at random
   const share = new Float64Array(n);
   const inv = new Float64Array(n);
-  for (let u = 0; u < n; u++) {
-    const d = offsets[u + 1]! - offsets[u]!;
-    inv[u] = d > 0 ? 1 / d : 0;
-  }
+  for (const u of nodes) inv[u] = 1 / (offsets[u + 1]! - offsets[u]!);
   let iterations = 0;
   if (linked > 0) {
-    for (let u = 0; u < n; u++) if (offsets[u + 1]! > offsets[u]!) x[u] = 1 / linked;
+    for (const u of nodes) x[u] = 1 / linked;
     for (; iterations < maxIterations; ) {
       iterations++;
-      for (let u = 0; u < n; u++) share[u] = x[u]! * inv[u]!;
+      for (const u of nodes) share[u] = x[u]! * inv[u]!;
       // pull form over the symmetric adjacency: y[v] = Σ_{u ~ v} x[u] / deg(u)
-      for (let v = 0; v < n; v++) {
+      const teleport = (1 - damping) / linked;
+      let change = 0;
+      for (const v of nodes) {
         const s = offsets[v]!;
         const e = offsets[v + 1]!;
         let sum = 0;
         for (let i = s; i < e; i++) sum += share[targets[i]!]!;
-        y[v] = sum;
-      }
-      const teleport = (1 - damping) / linked;
-      let change = 0;
-      for (let v = 0; v < n; v++) {
-        if (offsets[v + 1]! === offsets[v]!) continue;
-        const nv = teleport + damping * y[v]!;
+        const nv = teleport + damping * sum;
         change += Math.abs(nv - x[v]!);
         y[v] = nv;
       }
@@ -118,13 +116,11 @@ export function salienceOf(index: RelationIndex, options: SalienceOptions = {}, 
   // percentile = (linked entities with a strictly smaller PageRank) / (linked − 1): a native
   // sort of the values, then a binary search per entity (ties share the lower rank)
   const values = new Float64Array(linked);
-  let k = 0;
-  for (let u = 0; u < n; u++) if (offsets[u + 1]! > offsets[u]!) values[k++] = pr[u]!;
+  for (let k = 0; k < linked; k++) values[k] = pr[nodes[k]!]!;
   values.sort();
   const percentile = new Float32Array(n);
   const denom = Math.max(linked - 1, 1);
-  for (let u = 0; u < n; u++) {
-    if (offsets[u + 1]! === offsets[u]!) continue;
+  for (const u of nodes) {
     const v = pr[u]!;
     let lo = 0;
     let hi = linked;

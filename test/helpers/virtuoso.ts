@@ -93,7 +93,9 @@ export async function startVirtuoso(options: StartOptions = {}): Promise<Virtuos
     "[HTTPServer]",
     `ServerPort = 127.0.0.1:${httpPort}`,
     `ServerRoot = ${dir}`,
-    "ServerThreads = 4",
+    // 8 HTTP threads: tiepoint keeps up to 4 requests in flight (catalog/sparql/client.ts), a test may run two clients at once
+    "ServerThreads = 8",
+    "MaxClientConnections = 8",
     "[SPARQL]",
     `ResultSetMaxRows = ${options.maxRows ?? 10000}`,
     "MaxQueryExecutionTime = 120",

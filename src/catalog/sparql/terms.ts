@@ -109,3 +109,22 @@ export function bnodeLabel(value: string): string {
 export function nodeId(t: ResultTerm): string {
   return t.type === "bnode" ? `_:${bnodeLabel(t.value)}` : t.value;
 }
+
+/** "1"/"true" as a boolean cell of a CSV answer (SPARQL 1.1 CSV writes a boolean as its lexical form; Virtuoso as 1/0). */
+export function csvTrue(cell: string): boolean {
+  return cell === "1" || cell === "true";
+}
+
+/**
+ * A node read from a CSV answer (SPARQL 1.1 Query Results CSV §2 writes an IRI as its text and
+ * a blank node as `_:label`; Virtuoso writes `nodeID://…` as in its JSON), told apart by the
+ * query's own `isBlank` column.
+ */
+export function csvNode(text: string, blank: boolean): ResultTerm {
+  return blank ? { type: "bnode", value: text.startsWith("_:") ? text.slice(2) : text } : { type: "uri", value: text };
+}
+
+/** A literal read from a CSV answer, with the `lang` and `datatype` the query projected beside it (empty when none). */
+export function csvLiteral(text: string, lang: string, datatype: string): ResultTerm {
+  return lang !== "" ? { type: "literal", value: text, "xml:lang": lang } : datatype !== "" ? { type: "typed-literal", value: text, datatype } : { type: "literal", value: text };
+}
