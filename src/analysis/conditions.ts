@@ -42,7 +42,7 @@ import type { Analysis, AnswerType } from "./analyze.js";
 import type { QuestionModel } from "./question-model.js";
 import { findQuantities, unitMatches, type Quantity } from "./quantity.js";
 import { isFunctionWord, words, type Word } from "./words.js";
-import { AFTER_QUANTITY, ANSWER_TYPE_WORDS, BEFORE_QUANTITY, COMPASS_COMPARATIVES, COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
+import { AFTER_QUANTITY, ANSWER_TYPE_WORDS, BEFORE_QUANTITY, COMPASS_COMPARATIVES, COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SHARING_VERBS, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
 
 /** Options of {@link detectConditions}; all optional. */
 export interface ConditionOptions {
@@ -538,6 +538,25 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
     }
   }
 
+  // --- "shares X with Y": Y is the partner the sharer is not (lexicon.ts SHARING_VERBS) -----
+  for (let i = 0; i < ws.length; i++) {
+    if (inMention[i] || used.has(i) || !SHARING_VERBS.has(ws[i]!.norm)) continue;
+    const clueAfter = (from: number) =>
+      analysis.mentions.findIndex((m, mi) => m.start >= from && !excluded.has(mi) && !numeric.has(mi) && analysis.clues.some((c) => c.mention === mi));
+    const object = clueAfter(ws[i]!.end);
+    if (object < 0) continue;
+    const withAt = ws.findIndex((w, k) => k > i && w.start >= analysis.mentions[object]!.end && w.norm === "with");
+    if (withAt < 0 || /[,;:]/.test(question.slice(ws[i]!.end, ws[withAt]!.start))) continue;
+    const partner = clueAfter(ws[withAt]!.end);
+    if (partner < 0) continue;
+    const m = analysis.mentions[partner]!;
+    if (!argumentGapWords(question.slice(ws[withAt]!.end, m.start))) continue;
+    excluded.add(partner);
+    used.add(i);
+    used.add(withAt);
+    conditions.push({ kind: "exclusion", node: m.num, id: m.entity.id, label: m.entity.label, mention: partner, mode: "other", relations: [], words: question.slice(ws[withAt]!.start, m.end), start: ws[withAt]!.start, end: m.end });
+  }
+
   // --- literal conditions on text attributes ----------------------------------------------
   const literal = detectLiterals(analysis, ws, inMention, used, attributes, o);
   for (const c of literal.conditions) conditions.push(c);
@@ -632,6 +651,11 @@ function negationScope(analysis: Analysis, ws: readonly Word[], cueEnd: number, 
     }
   }
   return { relations, end };
+}
+
+/** True when `gap` holds only function words (no content word, no punctuation): a preposition and its object. */
+function argumentGapWords(gap: string): boolean {
+  return !/[,;:.!?()]/.test(gap) && words(gap).every((w) => isFunctionWord(w.norm));
 }
 
 /** Most words between a negated relation word and the type noun of its missing object ("border *any other* country"). */

@@ -251,5 +251,13 @@ export const EXCLUDE_CUES: readonly (readonly [string, "other" | "not"])[] = [
   ["but not", "not"], ["not", "not"], ["never", "not"], ["isnt", "not"], ["arent", "not"], ["wasnt", "not"], ["werent", "not"], ["doesnt", "not"], ["dont", "not"], ["didnt", "not"],
 ];
 
+/**
+ * Verbs of sharing, a closed set of symmetric predicates ("A shares X with B": A and B both have
+ * X, and A is not B; Quirk et al. 1985 §6.29 and §10.11, reciprocal meaning with a
+ * with-phrase; common practice): before a named object and "with" + a name, the second name
+ * is the partner the sharer differs from.
+ */
+export const SHARING_VERBS: ReadonlySet<string> = new Set(["share", "shares", "shared", "sharing"]);
+
 /** Negation words before a predicate adjective or a value (Quirk et al. 1985 §10.54 ff.; contractions normalised without the apostrophe). */
 export const NEGATIONS: ReadonlySet<string> = new Set(["not", "never", "isnt", "arent", "wasnt", "werent", "dont", "doesnt", "didnt", "no"]);

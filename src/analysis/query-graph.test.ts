@@ -183,6 +183,15 @@ describe("the reader: a sentence → its query graph (issue 16)", () => {
     expect(p.conditions?.[0]).toMatchObject({ kind: "superlative", applied: false });
   });
 
+  it("2. three hops through a shared object: 'the vessel that shares Vask with the Skell' is a vessel based at Vask other than the Skell", () => {
+    // Skell and Morrow have home port Vask; Bo Tarrant commands Morrow
+    const r = ask("Who commands the vessel that shares Vask with the Skell?");
+    expect(r.reading!.text).toBe("?answer (person) — commands → ?v1 (vessel; not Skell) — home port → Vask");
+    expect(r.reading!.ignored).toEqual([]);
+    expect(r.answers[0]!.id).toBe("x:bo");
+    expect(r.verdict.status).toBe("unique");
+  });
+
   it("7. negation over a relation excludes, and its relation word makes no hop of the other clue", () => {
     const r = ask("Which vessels whose home port is Vask are not commanded by Ada Quell?");
     expect(edges(r)).toEqual([["p:vask", "r:homePort", "backward", "?answer"]]);

@@ -24,7 +24,7 @@ import type { Analysis } from "./analyze.js";
 import type { Condition, ConditionAnalysis, EntityComparison, IdentityQuestion, ValueQuestion } from "./conditions.js";
 import { attachConditions } from "./attach-conditions.js";
 import { cueChains, type CueChain, type CueChainOptions, type StepOption } from "./cue-chains.js";
-import { EXCLUSIVE_WORDS, isPluralNoun, PLURAL_COPULAS, POSSESSIVE_DETERMINERS, SET_WORDS } from "./lexicon.js";
+import { EXCLUSIVE_WORDS, isPluralNoun, PLURAL_COPULAS, POSSESSIVE_DETERMINERS, SET_WORDS, SHARING_VERBS } from "./lexicon.js";
 import type { QuestionModel } from "./question-model.js";
 import type { ReadingDoc } from "../model/index.js";
 import { isFunctionWord, words } from "./words.js";
@@ -443,6 +443,8 @@ function ignoredWords(analysis: Analysis, cond: ConditionAnalysis, chains: reado
   const out: string[] = [];
   ws.forEach((w, k) => {
     if (isFunctionWord(w.norm) || w.norm === "s" || /^\d/.test(w.norm)) return;
+    // the verb of a "shares X with Y" exclusion (conditions.ts; its span starts at "with")
+    if (SHARING_VERBS.has(w.norm) && cond.conditions.some((c) => c.kind === "exclusion" && c.start > w.start)) return;
     if (attributeWords.has(k) || usedWords.has(w.text)) return;
     if (spans.some((s) => w.start < s.end && w.end > s.start)) return;
     out.push(w.text);
