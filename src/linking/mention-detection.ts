@@ -76,6 +76,8 @@ export const DEFAULTS = {
   blindSimilarity: 0.75,
   /** Similarity of a name written with an initialism for some of its words ("US dollar"). */
   initialismSimilarity: 0.85,
+  /** Names holding the word after an initialism checked at most (each is one alias read; a more common word names too little). */
+  maxInitialismHolders: 256,
   /** Lowest similarity for a fuzzy name that absorbs a neighbouring exact span. */
   mergeSimilarity: 0.8,
   /** Lowest similarity for a suggestion on an unlinked span. */
@@ -222,7 +224,7 @@ function initialismSpan(toks: readonly QuestionToken[], k: number, lex: AliasLex
   const id = lex.snapshot.tokenId(word.norm);
   if (id < 0) return undefined;
   const holders = lex.snapshot.entitiesWithToken(id);
-  if (holders.length > o.maxGenerator) return undefined;
+  if (holders.length > o.maxInitialismHolders) return undefined;
   const candidates: SpanCandidate[] = [];
   for (const e of holders) {
     if (lex.isTypeEntity(e)) continue;
