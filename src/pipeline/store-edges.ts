@@ -108,15 +108,19 @@ export class StoreEdges implements EdgeAccess {
   private readonly catalog: Catalog;
   private readonly numOf = new Map<string, number>();
   private readonly predicateNum = new Map<string, number>();
+  /** 1 + the largest predicate num (the edge keys' radix). */
+  private relSpan = 1;
   private readonly idStmt;
   private readonly numStmt;
+  private readonly numsStmt;
   private readonly insert;
   private readonly pulled = new Set<number>();
   private demand = new Set<number>();
   private src: number[] = [];
   private rel: number[] = [];
   private dst: number[] = [];
-  private readonly seen = new Set<string>();
+  /** Edges taken for this question, as numbers ((src · relations + rel) · nodes + dst, exact below 2^53) or, past that, strings. */
+  private readonly seen = new Set<number | string>();
   figures: PullFigures = { requests: 0, rows: 0, entities: 0, ms: 0, hubs: 0, tooLarge: 0 };
   private readonly skipped = new Set<number>();
   /** The rows pulled so far in this session, per entity: its edges as flat (src, rel, dst) triples; oldest first (Map order). */
@@ -133,8 +137,12 @@ export class StoreEdges implements EdgeAccess {
     db.exec("CREATE INDEX IF NOT EXISTS temp.edge_by_dst ON edge(dst, rel)");
     this.idStmt = db.prepare("SELECT id FROM main.entity WHERE num = ?").pluck();
     this.numStmt = db.prepare("SELECT num FROM main.entity WHERE id = ?").pluck();
+    this.numsStmt = db.prepare("SELECT e.id, e.num FROM json_each(?) j JOIN main.entity e ON e.id = j.value").raw(true);
     this.insert = db.prepare("INSERT OR IGNORE INTO temp.edge (src, rel, dst) VALUES (?, ?, ?)");
-    for (const [num, id] of db.prepare("SELECT num, id FROM main.predicate").raw(true).all() as [number, string][]) this.predicateNum.set(id, num);
+    for (const [num, id] of db.prepare("SELECT num, id FROM main.predicate").raw(true).all() as [number, string][]) {
+      this.predicateNum.set(id, num);
+      this.relSpan = Math.max(this.relSpan, num + 1);
+    }
     // the edge reads of the linker (and show) record which entities' rows a question needs
     const record = (num: number) => {
       if (!this.pulled.has(num)) this.demand.add(num);
@@ -290,7 +298,18 @@ export class StoreEdges implements EdgeAccess {
 
   /** Adds pulled edge rows (each edge once) to the temporary edge table and the pulled arrays, and keeps the rows of `entities` (those pulled) in the session's cache. */
   private take(rows: readonly string[][], entities: readonly number[]): void {
+    // one transaction for the temporary table's inserts (each would otherwise be its own)
+    this.catalog.db.transaction(() => this.takeRows(rows, entities))();
+  }
+
+  private takeRows(rows: readonly string[][], entities: readonly number[]): void {
     const mine = new Set(entities);
+    // the nums of the ids not seen before in this session, in one statement (not one lookup per id)
+    const unknown = new Set<string>();
+    for (const [sv, , ov, sb, ob] of rows) {
+      for (const id of [nodeId(csvNode(sv!, csvTrue(sb!))), nodeId(csvNode(ov!, csvTrue(ob!)))]) if (!this.numOf.has(id)) unknown.add(id);
+    }
+    if (unknown.size > 0) for (const [id, num] of this.numsStmt.all(JSON.stringify([...unknown])) as [string, number][]) this.numOf.set(id, num);
     const per = new Map<number, number[]>();
     const keep = (n: number, s: number, p: number, o: number) => {
       let l = per.get(n);
@@ -311,7 +330,10 @@ export class StoreEdges implements EdgeAccess {
 
   /** One edge into the question's pulled edges (once). */
   private addEdge(s: number, p: number, o: number): void {
-    const key = `${s} ${p} ${o}`;
+    const nodes = this.binding.degree.length;
+    const rels = this.relSpan;
+    const numeric = (s * rels + p) * nodes + o;
+    const key = Number.isSafeInteger(numeric) && nodes * nodes * rels < Number.MAX_SAFE_INTEGER ? numeric : `${s} ${p} ${o}`;
     if (this.seen.has(key)) return;
     this.seen.add(key);
     this.src.push(s);
@@ -344,7 +366,9 @@ export class StoreEdges implements EdgeAccess {
     if (!r) return false;
     this.rowCache.delete(num); // most recently used last
     this.rowCache.set(num, r);
-    for (let i = 0; i < r.length; i += 3) this.addEdge(r[i]!, r[i + 1]!, r[i + 2]!);
+    this.catalog.db.transaction(() => {
+      for (let i = 0; i < r.length; i += 3) this.addEdge(r[i]!, r[i + 1]!, r[i + 2]!);
+    })();
     this.pulled.add(num);
     this.figures.entities++;
     this.figures.cached = (this.figures.cached ?? 0) + 1;
