@@ -27,6 +27,7 @@ export type {
   SuperlativeCondition,
   ExclusionCondition,
   AbsenceCondition,
+  LiteralCondition,
   CountCondition,
   ConditionAnalysis,
   ConditionOptions,

@@ -10,7 +10,7 @@
  * exclusion is an anti-join with the excluded entity's neighbourhood (NOT EXISTS in SQL,
  * ISO/IEC 9075).
  */
-import type { AbsenceCondition, AttributeChoice, ComparisonCondition, ExclusionCondition, SuperlativeCondition } from "../analysis/index.js";
+import type { AbsenceCondition, AttributeChoice, ComparisonCondition, ExclusionCondition, LiteralCondition, SuperlativeCondition } from "../analysis/index.js";
 import { rowIndex } from "../catalog/index.js";
 import type { RelationIndex } from "./relation-index.js";
 
@@ -186,4 +186,10 @@ export function absenceTest(c: AbsenceCondition, index: RelationIndex): (v: numb
     });
     return !found;
   };
+}
+
+/** True when an entity's text values of a literal condition's attribute hold its value, case-blind (false for a negated one). */
+export function literalHolds(c: LiteralCondition, texts: readonly string[]): boolean {
+  const want = c.value.toLowerCase();
+  return texts.some((t) => t.toLowerCase() === want) !== c.negated;
 }

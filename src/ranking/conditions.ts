@@ -32,7 +32,7 @@ import type { AttributeChoice, Analysis, Condition, ComparisonCondition, Superla
 import { words } from "../analysis/index.js";
 import type { Ranked, RankedCandidate } from "./rank.js";
 import type { RelationIndex } from "./relation-index.js";
-import { absenceTest, attributeValues, exclusionSet, orderOf, pickAttribute, satisfies, type AttributeLookup, type AttributeValues } from "./attribute-values.js";
+import { absenceTest, attributeValues, exclusionSet, literalHolds, orderOf, pickAttribute, satisfies, type AttributeLookup, type AttributeValues } from "./attribute-values.js";
 
 export { satisfies, type AttributeLookup };
 
@@ -314,7 +314,6 @@ export function applyConditions(
         applied.push({ condition: c, attribute: attr, before, after: before });
         return;
       }
-      const want = c.value.toLowerCase();
       const texts = (v: number) => (lookup.texts ? lookup.texts(v, attr.num) : []);
       // an attribute no candidate carries describes another node of the question ("the capital of the *landlocked* country"): not applied here
       if (!order.some((v) => texts(v).length > 0)) {
@@ -322,7 +321,7 @@ export function applyConditions(
         notes.push(`"${c.words}": no candidate has ${attr.label}, so the condition is not applied`);
         return;
       }
-      const ok = (ts: readonly string[]) => ts.some((t) => t.toLowerCase() === want) !== c.negated;
+      const ok = (ts: readonly string[]) => literalHolds(c, ts);
       order = order.filter((v) => ok(texts(v)));
       filters.push((v) => {
         const ts = texts(v);

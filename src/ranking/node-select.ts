@@ -14,7 +14,7 @@
  * set can be tested on (no choice carried, no literal value) leaves the set as it is.
  */
 import type { AttributeChoice, Condition } from "../analysis/index.js";
-import { absenceTest, attributeValues, exclusionSet, orderOf, pickAttribute, satisfies, type AttributeLookup } from "./attribute-values.js";
+import { absenceTest, attributeValues, literalHolds, exclusionSet, orderOf, pickAttribute, satisfies, type AttributeLookup } from "./attribute-values.js";
 import type { RelationIndex } from "./relation-index.js";
 
 /** The entities of `nodes` that satisfy `conditions` (filters first, then each ordering keeps its asked place); `types`: the node's types (an "other than X" of that type removes X alone). */
@@ -35,8 +35,7 @@ export function selectAt(nodes: ReadonlySet<number>, conditions: readonly Condit
       const attr = c.choices[0]!;
       const texts = (v: number) => lookup.texts!(v, attr.num);
       if (!set.some((v) => texts(v).length > 0)) continue;
-      const want = c.value.toLowerCase();
-      set = set.filter((v) => texts(v).some((t) => t.toLowerCase() === want) !== c.negated);
+      set = set.filter((v) => literalHolds(c, texts(v)));
     }
   }
   for (const c of conditions) {
