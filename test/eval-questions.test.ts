@@ -79,9 +79,20 @@ describe.each(SETS.map((s) => [s.name, s] as const))("evaluation set %s", (_name
 describe("evaluation sets together", () => {
   it("at least 250 questions over both datasets, at least 15 per phenomenon of issue 16", () => {
     const all = SETS.flatMap((s) => questionsOf(s));
-    expect(new Set(all.map((q) => q.set))).toEqual(new Set(["world", "debian"]));
+    expect(new Set(all.map((q) => q.set))).toEqual(new Set(["world", "debian", "world-b", "debian-b"]));
     expect(all.length).toBeGreaterThanOrEqual(MIN_QUESTIONS);
     const short = PHENOMENA.filter((p) => all.filter((q) => q.phenomena.includes(p.key)).length < MIN_PER_PHENOMENON).map((p) => p.key);
+    expect(short).toEqual([]);
+  });
+});
+
+describe("second sets (world-b, debian-b), written before tiepoint was run on them", () => {
+  it("at least 70 questions each, every phenomenon of issue 16 at least 8 times across the two", () => {
+    const b = SETS.filter((s) => s.name.endsWith("-b")).map((s) => questionsOf(s));
+    expect(b.length).toBe(2);
+    for (const qs of b) expect(qs.length).toBeGreaterThanOrEqual(70);
+    const all = b.flat();
+    const short = PHENOMENA.filter((p) => all.filter((q) => q.phenomena.includes(p.key)).length < 8).map((p) => p.key);
     expect(short).toEqual([]);
   });
 });
