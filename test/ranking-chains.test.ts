@@ -180,6 +180,28 @@ describe("chainReach (fixed-length path pattern, level by level)", () => {
   it("returns null when the budget runs out", () => {
     expect(chainReach(g, 1, [[{ relation: 1, inverse: false }], [{ relation: 2, inverse: false }]], { maxVisits: 2 })).toBeNull();
   });
+  it("coordinated sources meet after the first hop: the selection there sees their intersection (a join on the shared variable)", () => {
+    // 6 -r1-> 7, 6 -r1-> 8, 9 -r1-> 8, 9 -r1-> 10; 7, 8, 10 -r2-> 11, 12, 13. Shared variable after hop 1 from {6, 9}: {8}
+    const h = RelationIndex.fromEdges(14, 3, [
+      [6, 1, 7],
+      [6, 1, 8],
+      [9, 1, 8],
+      [9, 1, 10],
+      [7, 2, 11],
+      [8, 2, 12],
+      [10, 2, 13],
+    ]);
+    const hops = [[{ relation: 1, inverse: false }], [{ relation: 2, inverse: false }]];
+    // "the largest" by node number, per source: 6 → 8 → 12, 9 → 10 → 13; over the meeting set {8}: 12
+    const largest = (_h: number, f: Set<number>) => new Set([Math.max(...f)]);
+    expect([...chainReach(h, 6, hops, { select: largest })!]).toEqual([12]);
+    expect([...chainReach(h, 9, hops, { select: largest })!]).toEqual([13]);
+    const seen: number[][] = [];
+    const record = (_h: number, f: Set<number>) => (seen.push([...f].sort((a, b) => a - b)), f);
+    expect([...chainReach(h, 9, hops, { select: record, meet: [6] })!]).toEqual([12]);
+    expect(seen).toEqual([[8]]);
+    expect([...chainReach(h, 6, hops, { meet: [9] })!]).toEqual([12]);
+  });
 });
 
 describe("verdict and the relation-path pattern", () => {

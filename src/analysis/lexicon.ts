@@ -261,3 +261,21 @@ export const SHARING_VERBS: ReadonlySet<string> = new Set(["share", "shares", "s
 
 /** Negation words before a predicate adjective or a value (Quirk et al. 1985 §10.54 ff.; contractions normalised without the apostrophe). */
 export const NEGATIONS: ReadonlySet<string> = new Set(["not", "never", "isnt", "arent", "wasnt", "werent", "dont", "doesnt", "didnt", "no"]);
+
+/**
+ * Words that open a relative clause (relative pronouns and the relative adverb "where"; Quirk
+ * et al. 1985 §17.9 ff.). Reason: a condition after one of them, before its own finite verb,
+ * belongs to the noun the clause post-modifies ("the country *that* borders A and has …").
+ */
+export const RELATIVE_WORDS: ReadonlySet<string> = new Set(["that", "which", "who", "whom", "whose", "where"]);
+
+/**
+ * Finite forms of the primary verbs be, have, do and the modals (Quirk et al. 1985 §3.21 ff.,
+ * operators). Reason: one of them between a noun and a condition, outside a relative clause,
+ * is the main clause's verb ("countries bordering a landlocked country *have* an area above
+ * …"), whose subject is the question's answer, not that noun.
+ */
+export const FINITE_OPERATORS: ReadonlySet<string> = new Set([
+  "is", "are", "was", "were", "has", "have", "had", "do", "does", "did", "isnt", "arent", "wasnt", "werent", "doesnt", "dont", "didnt",
+  "can", "could", "will", "would", "shall", "should", "may", "might", "must",
+]);

@@ -434,8 +434,12 @@ function ignoredWords(analysis: Analysis, cond: ConditionAnalysis, chains: reado
   const usedWords = new Set<string>();
   for (const ch of chains) for (const st of ch.steps) for (const o of st.options) for (const w of analysis.relationCues[o.cue]?.words ?? []) usedWords.add(w);
   for (const w of headWords ?? []) usedWords.add(w);
-  // a cue that made no hop still weighs the walk: its words are used
-  for (const c of analysis.relationCues) for (const w of c.words) usedWords.add(w);
+  // a cue that made no hop still weighs the walk: its words are used, at every place it stands
+  const cuePlaces = new Set<number>();
+  for (const c of analysis.relationCues) {
+    for (const w of c.words) usedWords.add(w);
+    for (const o of c.occurrences ?? []) cuePlaces.add(o.start);
+  }
   const attributeWords = new Set<number>();
   for (const c of [...cond.conditions, ...(cond.value ? [cond.value] : []), ...(cond.compare ? [cond.compare] : [])]) {
     if ("choices" in c && c.choices.length > 0) for (const k of c.choices[0]!.wordIndexes) attributeWords.add(k);
@@ -445,7 +449,7 @@ function ignoredWords(analysis: Analysis, cond: ConditionAnalysis, chains: reado
     if (isFunctionWord(w.norm) || w.norm === "s" || /^\d/.test(w.norm)) return;
     // the verb of a "shares X with Y" exclusion (conditions.ts; its span starts at "with")
     if (SHARING_VERBS.has(w.norm) && cond.conditions.some((c) => c.kind === "exclusion" && c.start > w.start)) return;
-    if (attributeWords.has(k) || usedWords.has(w.text)) return;
+    if (attributeWords.has(k) || usedWords.has(w.text) || cuePlaces.has(w.start)) return;
     if (spans.some((s) => w.start < s.end && w.end > s.start)) return;
     out.push(w.text);
   });
@@ -530,7 +534,7 @@ export function readingDoc(g: QueryGraph, analysis: Analysis, model: QuestionMod
   return {
     text: readingText(g, analysis, model),
     nodes: g.nodes.map((n) => {
-      if (n.kind !== "constant") return { name: n.name, kind: n.kind, types: typeIds(n.types) };
+      if (n.kind !== "constant") return { name: n.name, kind: n.kind, types: typeIds(n.types), ...(n.conditions && n.conditions.length > 0 ? { conditions: n.conditions.map(conditionText) } : {}) };
       const clue = analysis.clues[n.clue!]!;
       const m = analysis.mentions[clue.mention];
       return { name: n.name, kind: n.kind, entity: { id: clue.id, label: clue.label }, ...(m ? { text: m.text, confidence: m.confidence } : {}), types: [] };

@@ -215,6 +215,8 @@ export interface ReadingNodeDoc {
   readonly confidence?: number;
   /** Type ids the node must have (empty: any). */
   readonly types: readonly string[];
+  /** Variables: the conditions on this middle node in words ("coastal = true", "largest by area"), as `constraints` are the answer's; absent when none. */
+  readonly conditions?: readonly string[];
 }
 
 /** An edge of the question's reading (`reading.edges`, additive). */

@@ -8,7 +8,9 @@
  * direction when `directed` is false), optionally restricted by a per-hop node test (the
  * type a noun of the question gives the node in between) and a per-hop selection of the frontier
  * (a condition on the node in between, node-select.ts). The search stops after `maxVisits` adjacency entries
- * and then returns null, so the caller does not penalise nodes it never looked at.
+ * and then returns null, so the caller does not penalise nodes it never looked at. With
+ * several sources of one pattern (`meet`), the first hop's frontiers are intersected: the
+ * conjunctive query's shared variable (a join on it, as in a conjunctive regular path query).
  */
 import { csrOf, type RelationIndex } from "./relation-index.js";
 import { NodeBits } from "./stamped.js";
@@ -23,6 +25,12 @@ export interface ChainReachOptions {
   readonly keep?: (hop: number, node: number) => boolean;
   /** The frontier after hop `hop` (0-based) replaced by a subset of it (conditions on an inner node, node-select.ts). @default all kept */
   readonly select?: (hop: number, frontier: Set<number>) => Set<number>;
+  /**
+   * Other sources of the same pattern (coordinated clues, "borders both A and B"): the
+   * frontier after the first hop is the intersection of every source's, the one node of the
+   * query graph where their edges meet, so a selection there sees the meeting set. @default none
+   */
+  readonly meet?: readonly number[];
 }
 
 /** Defaults of {@link ChainReachOptions}. */
@@ -90,7 +98,8 @@ export class NodeSet implements Iterable<number> {
 export function chainReach(index: RelationIndex, source: number, hops: readonly ChainHop[], options: ChainReachOptions = {}): NodeSet | null {
   const directed = options.directed ?? DEFAULTS.directed;
   const maxVisits = options.maxVisits ?? DEFAULTS.maxVisits;
-  if (!(source >= 0 && source < index.nodeCount)) throw new RangeError(`ranking/chain-reach: source ${source} is not a node`);
+  const sources = [source, ...(options.meet ?? []).filter((x) => x !== source)];
+  for (const s of sources) if (!(s >= 0 && s < index.nodeCount)) throw new RangeError(`ranking/chain-reach: source ${s} is not a node`);
   let frontier: Int32Array = Int32Array.of(source);
   let visits = 0;
   const keep = options.keep;
@@ -101,24 +110,53 @@ export function chainReach(index: RelationIndex, source: number, hops: readonly 
   for (let h = 0; h < hops.length; h++) {
     allowed.fill(0);
     for (const o of hops[h]!) if (o.relation >= 0 && o.relation < allowed.length) allowed[o.relation]! |= directed ? (o.inverse ? 2 : 1) : 3;
-    next.clear();
-    for (let i = 0; i < frontier.length; i++) {
-      const u = frontier[i]!;
-      visits += index.degree(u);
-      if (visits > maxVisits) return null;
-      const end = offsets[u + 1]!;
-      for (let e = offsets[u]!; e < end; e++) {
-        const l = links[e]!;
-        const a = allowed[l >>> 1]!;
-        if (a === 0 || (a & ((l & 1) === 1 ? 2 : 1)) === 0) continue;
-        const v = targets[e]!;
-        if (!next.has(v) && (keep === undefined || keep(h, v))) next.add(v);
+    // one hop from `from`; null when over budget
+    const step = (from: Int32Array): Int32Array | null => {
+      next.clear();
+      for (let i = 0; i < from.length; i++) {
+        const u = from[i]!;
+        visits += index.degree(u);
+        if (visits > maxVisits) return null;
+        const end = offsets[u + 1]!;
+        for (let e = offsets[u]!; e < end; e++) {
+          const l = links[e]!;
+          const a = allowed[l >>> 1]!;
+          if (a === 0 || (a & ((l & 1) === 1 ? 2 : 1)) === 0) continue;
+          const v = targets[e]!;
+          if (!next.has(v) && (keep === undefined || keep(h, v))) next.add(v);
+        }
+      }
+      return next.sorted();
+    };
+    const reached = step(frontier);
+    if (reached === null) return null;
+    frontier = reached;
+    // the other sources' first hops: the meeting set is what all of them reach
+    if (h === 0) {
+      for (let k = 1; k < sources.length && frontier.length > 0; k++) {
+        const other = step(Int32Array.of(sources[k]!));
+        if (other === null) return null;
+        frontier = intersectSorted(frontier, other);
       }
     }
-    frontier = next.sorted();
     // a selection of the frontier between hops (node-select.ts), on a Set as it takes it
     if (options.select && h < hops.length - 1) frontier = Int32Array.from(options.select(h, new Set(frontier))).sort();
     if (frontier.length === 0) break;
   }
   return new NodeSet(frontier);
+}
+
+/** The values two ascending arrays share, ascending (a merge). */
+function intersectSorted(a: Int32Array, b: Int32Array): Int32Array {
+  const out: number[] = [];
+  for (let i = 0, j = 0; i < a.length && j < b.length; ) {
+    if (a[i]! < b[j]!) i++;
+    else if (a[i]! > b[j]!) j++;
+    else {
+      out.push(a[i]!);
+      i++;
+      j++;
+    }
+  }
+  return Int32Array.from(out);
 }

@@ -735,7 +735,10 @@ function chainFitOf(
       return r;
     };
     const select = conds.some((x) => x !== undefined) ? (h: number, frontier: Set<number>) => (conds[h] ? selectAt(frontier, conds[h]!, options.attributes!, index, new Set(ch.steps[h]!.types)) : frontier) : undefined;
-    const typedRun = () => chainReach(index, clue.node, hops, { ...base, directed: true, keep, ...(select ? { select } : {}) });
+    // coordinated clues ("the largest country that borders both A and B") share the inner
+    // nodes: a condition there is evaluated on the set where their first hops meet, not per clue
+    const meet = select && group >= 0 ? (ch.conjuncts ?? []).filter((x) => x !== ch.clue && present.has(x)).map((x) => clues[chains.findIndex((y) => y.clue === x)]!.node).filter((n) => n >= 0 && n < index.nodeCount) : [];
+    const typedRun = () => chainReach(index, clue.node, hops, { ...base, directed: true, keep, ...(select ? { select } : {}), ...(meet.length > 0 ? { meet } : {}) });
     const typedExact = !typed ? null : select ? typedRun() : reach(`typed ${JSON.stringify(ch.steps.map((st) => [st.types, st.only ?? null]))}`, typedRun);
     const exact = reach("directed", () => chainReach(index, clue.node, hops, { ...base, directed: true }));
     const undirected = reach("undirected", () => chainReach(index, clue.node, hops, { ...base, directed: false }));
