@@ -18,7 +18,9 @@
  *   position;
  * - exclusion: "not", "other than", "except (for)", "apart from", "aside from",
  *   "excluding", "besides", "but not" before a linked mention (that mention stops being a
- *   clue and becomes an exclusion); "not" before a comparison inverts the comparison;
+ *   clue and becomes an exclusion); "not" before a comparison inverts the comparison; a
+ *   negated copula after a name and before an article and a relation noun ("where X isn't an
+ *   R") excludes what has X as its R ({@link negatedPredicate});
  * - count: "how many", "number of".
  *
  * The attribute is found the way relation cues are matched to relations (relation-cues.ts):
@@ -42,7 +44,7 @@ import type { Analysis, AnswerType } from "./analyze.js";
 import type { QuestionModel } from "./question-model.js";
 import { findQuantities, unitMatches, type Quantity } from "./quantity.js";
 import { isFunctionWord, words, type Word } from "./words.js";
-import { AFTER_QUANTITY, ANSWER_TYPE_WORDS, BEFORE_QUANTITY, COMPASS_COMPARATIVES, COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SHARING_VERBS, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
+import { AFTER_QUANTITY, ANSWER_TYPE_WORDS, BEFORE_QUANTITY, COMPASS_COMPARATIVES, COPULAS, NEGATED_COPULAS, DIMENSIONS, EXCLUDE_CUES, HOW_AMOUNT, NEGATIONS, ORDINALS, QUANTITY_COMPARATIVES, SHARING_VERBS, SUPERLATIVE_FORM, TEMPORAL, VALUE_WH, gradable, isComparativeForm, type Dimension } from "./lexicon.js";
 
 /** Options of {@link detectConditions}; all optional. */
 export interface ConditionOptions {
@@ -499,6 +501,31 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
       const len = phraseAt(ws, i, phrase);
       if (len === 0) continue;
       const cueEnd = ws[i + len - 1]!.end;
+      // "X is not an R": the negated predicate noun names the relation, X before the negation
+      const pred = mode === "not" ? negatedPredicate(analysis, ws, i, len, (mi) => excluded.has(mi) || numeric.has(mi)) : undefined;
+      /** Records the exclusion of mention `mi` negated by the cue at i, over `scope` in [start, end). */
+      const exclude = (mi: number, scope: readonly { relation: number; inverse: boolean }[], start: number, end: number) => {
+        const m = analysis.mentions[mi]!;
+        excluded.add(mi);
+        for (let k = i; k < i + len; k++) used.add(k);
+        conditions.push({
+          kind: "exclusion",
+          node: m.num,
+          id: m.entity.id,
+          label: m.entity.label,
+          mention: mi,
+          mode,
+          relations: scope.map((r) => r.relation),
+          ...(scope.length > 0 ? { inverse: scope.map((r) => r.inverse) } : {}),
+          words: question.slice(start, end),
+          start,
+          end,
+        });
+      };
+      if (pred) {
+        exclude(pred.mention, pred.relations, analysis.mentions[pred.mention]!.start, pred.end);
+        break;
+      }
       // the first clue mention after the cue, within the window, with no comma between
       let best = -1;
       analysis.mentions.forEach((m, mi) => {
@@ -511,21 +538,7 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
         const between = words(gap);
         if (!/[,;:]/.test(gap) && between.length <= o.negationWindow) {
           const scope = negationScope(analysis, ws, cueEnd, m);
-          excluded.add(best);
-          for (let k = i; k < i + len; k++) used.add(k);
-          conditions.push({
-            kind: "exclusion",
-            node: m.num,
-            id: m.entity.id,
-            label: m.entity.label,
-            mention: best,
-            mode,
-            relations: scope.relations.map((r) => r.relation),
-            ...(scope.relations.length > 0 ? { inverse: scope.relations.map((r) => r.inverse) } : {}),
-            words: question.slice(ws[i]!.start, scope.end),
-            start: ws[i]!.start,
-            end: scope.end,
-          });
+          exclude(best, scope.relations, ws[i]!.start, scope.end);
         }
       } else if (mode === "not") {
         const absence = absenceAt(analysis, ws, i + len, inMention);
@@ -558,7 +571,9 @@ export function detectConditions(analysis: Analysis, model: QuestionModel, attri
   }
 
   // --- literal conditions on text attributes ----------------------------------------------
-  const literal = detectLiterals(analysis, ws, inMention, used, attributes, o);
+  const wanted = new Set(analysis.answerTypes.flatMap((t) => model.typeByNum.get(t.num)?.descendants ?? [t.num]));
+  const ofAnswerType = (num: number) => wanted.size > 0 && model.typesOf !== undefined && model.typesOf(num).some((t) => wanted.has(t));
+  const literal = detectLiterals(analysis, ws, inMention, used, attributes, o, ofAnswerType);
   for (const c of literal.conditions) conditions.push(c);
   for (const mi of literal.mentions) numeric.add(mi);
 
@@ -651,6 +666,49 @@ function negationScope(analysis: Analysis, ws: readonly Word[], cueEnd: number, 
     }
   }
   return { relations, end };
+}
+
+/** Most function words between a negation and the predicate noun after it ("is not *an* official language"). */
+const PREDICATE_GAP = 2;
+
+/**
+ * A negated copular clause whose predicate is a relational noun, after a name: "where X is not
+ * an R", "X isn't the R" (Quirk et al. 1985 §10.54 ff., negation of the clause; §16.43,
+ * predicate nouns): the entity asked for does not have X as its R. The clue mention X ends right
+ * before the negation (or before a copula right before it: "is not"), no punctuation between,
+ * and a relation cue's word follows the negation after an article and at most `PREDICATE_GAP`
+ * function words in all.
+ * X is the object of R, so the walk from X to what it excludes runs against the cue (`inverse`
+ * = not the cue's flip, as in {@link negationScope}). Undefined when the words are no such clause.
+ */
+function negatedPredicate(analysis: Analysis, ws: readonly Word[], at: number, len: number, skip: (mention: number) => boolean): { mention: number; relations: { relation: number; inverse: boolean }[]; end: number } | undefined {
+  // a copular negation only: "is not", "are never", or a contracted copula ("isn't"); "don't use" negates a verb
+  let j = at - 1;
+  const contracted = NEGATED_COPULAS.has(ws[at]!.norm);
+  if (!contracted && !(j >= 0 && COPULAS.has(ws[j]!.norm))) return undefined;
+  if (!contracted) j--;
+  if (j < 0 || /[,;:.!?()]/.test(analysis.question.slice(ws[j]!.end, ws[at]!.start))) return undefined;
+  const mention = analysis.mentions.findIndex((m, mi) => m.end === ws[j]!.end && !skip(mi) && analysis.clues.some((c) => c.mention === mi));
+  if (mention < 0) return undefined;
+  // a predicate noun phrase opens with an article ("is not *an* official language"); a participle
+  // ("are not commanded by") is a passive verb, read by the exclusion after it
+  let k = at + len;
+  if (!ARTICLES.has(ws[k]?.norm ?? "")) return undefined;
+  while (k < ws.length && k < at + len + PREDICATE_GAP && isFunctionWord(ws[k]!.norm)) k++;
+  const head = ws[k];
+  if (!head || /[,;:.!?()]/.test(analysis.question.slice(ws[at + len - 1]!.end, head.start))) return undefined;
+  const relations: { relation: number; inverse: boolean }[] = [];
+  let end = head.end;
+  for (const c of analysis.relationCues) {
+    for (const p of c.occurrences ?? [{ start: c.start, flip: c.flip }]) {
+      if (p.start !== head.start) continue;
+      if (!relations.some((r) => r.relation === c.relation && r.inverse === !p.flip)) relations.push({ relation: c.relation, inverse: !p.flip });
+      let e = k;
+      while (e + 1 < ws.length && c.words.includes(ws[e + 1]!.text)) e++;
+      end = Math.max(end, ws[e]!.end);
+    }
+  }
+  return relations.length > 0 ? { mention, relations, end } : undefined;
 }
 
 /** True when `gap` holds only function words (no content word, no punctuation): a preposition and its object. */
@@ -1014,6 +1072,7 @@ function detectLiterals(
   used: ReadonlySet<number>,
   attributes: AttributeModel,
   o: Required<ConditionOptions>,
+  ofAnswerType: (num: number) => boolean = () => false,
 ): { conditions: LiteralCondition[]; mentions: Set<number> } {
   const out: LiteralCondition[] = [];
   const mentions = new Set<number>();
@@ -1104,5 +1163,24 @@ function detectLiterals(
       out.push({ kind: "literal", value: trueValue, negated, choices: [choice], words: question.slice(ws[from]!.start, ws[last]!.end), start: ws[from]!.start, end: ws[last]!.end });
     }
   }
+  // (c) a word linked only as a derived form of a name of the answer type ("known as
+  //     *Kazakhstani*") that is, as written, a stored value of a text attribute: the word is that
+  //     value — the form the catalog stores for the entity — not a clue next to the answer.
+  //     Not when it modifies a type noun ("Kazakhstani towns": the attributive adjective names a
+  //     place, Quirk et al. 1985 §7.15 ff.) nor with a negation before it.
+  analysis.mentions.forEach((m, mi) => {
+    if (m.match !== "derived" || mentions.has(mi) || !ofAnswerType(m.num) || !analysis.clues.some((c) => c.mention === mi)) return;
+    if (taken.some((t) => m.start < t.end && m.end > t.start)) return;
+    const k = ws.findIndex((w) => w.start >= m.end);
+    if (k >= 0 && (analysis.typeWords ?? []).some((t) => t.start === ws[k]!.start)) return;
+    const first = ws.findIndex((w) => w.start >= m.start);
+    if (first > 0 && [first - 1, first - 2].some((j) => j >= 0 && NEGATIONS.has(ws[j]!.norm))) return;
+    const hits = texts.flatMap((a) => lookup(a.num, [m.text]).filter((v) => v.toLowerCase() === m.text.toLowerCase()).map((value) => ({ a, value })));
+    if (hits.length !== 1) return;
+    const { a, value } = hits[0]!;
+    mentions.add(mi);
+    taken.push({ start: m.start, end: m.end });
+    out.push({ kind: "literal", value, negated: false, choices: [{ num: a.num, id: a.id, label: a.label, score: o.minScore, wordIndexes: [] }], words: m.text, start: m.start, end: m.end });
+  });
   return { conditions: out, mentions };
 }

@@ -217,6 +217,13 @@ export const DECADE_PART: Readonly<Record<string, readonly [number, number]>> = 
 /** Words after a number that are not its unit (function words and comparatives; common practice). */
 export const NOT_UNIT: ReadonlySet<string> = new Set(["and", "or", "to", "in", "on", "at", "of", "the", "a", "an", "than", "but", "with", "for", "by", "as", "is", "are", "was", "were", "ago", "more", "less", "fewer"]);
 
+/**
+ * Words that raise the unit after them to a power ("500 *square* kilometres", "*cubic* metres"):
+ * the unit is both words. Source: the SI Brochure (BIPM, 9th edition 2019, §5.2: unit names
+ * of powers are formed with "square" and "cubic"), and their common abbreviations "sq", "cu".
+ */
+export const UNIT_POWERS: ReadonlySet<string> = new Set(["square", "cubic", "sq", "cu"]);
+
 /** Comparison operators of a condition phrase. */
 export type QuantityOperator = "before" | "after" | "since" | "until" | "in" | ">" | "<" | ">=" | "<=" | "=";
 
@@ -258,6 +265,9 @@ export const EXCLUDE_CUES: readonly (readonly [string, "other" | "not"])[] = [
  * is the partner the sharer differs from.
  */
 export const SHARING_VERBS: ReadonlySet<string> = new Set(["share", "shares", "shared", "sharing"]);
+
+/** Contracted negative copulas (Quirk et al. 1985 §3.23, §10.54; normalised without the apostrophe): "X *isn't* the R". */
+export const NEGATED_COPULAS: ReadonlySet<string> = new Set(["isnt", "arent", "wasnt", "werent"]);
 
 /** Negation words before a predicate adjective or a value (Quirk et al. 1985 §10.54 ff.; contractions normalised without the apostrophe). */
 export const NEGATIONS: ReadonlySet<string> = new Set(["not", "never", "isnt", "arent", "wasnt", "werent", "dont", "doesnt", "didnt", "no"]);

@@ -115,3 +115,16 @@ describe("units written as the catalog declares them, or abbreviated", () => {
     expect(findQuantities("launched in 1994 carry", { units: ["kibibytes"] })[0]).toMatchObject({ kind: "year" });
   });
 });
+
+describe("units raised to a power (SI Brochure, 9th edition 2019, §5.2: \"square\", \"cubic\")", () => {
+  it("reads 'square kilometres' as one unit that matches the declared km²; a four-digit number before it is no year", () => {
+    const [q] = findQuantities("less than 500 square kilometres?", { units: ["km²"] });
+    expect(q).toMatchObject({ kind: "number", lo: 500, unit: "square kilometres" });
+    expect(unitMatches("square kilometres", "km²")).toBe(true);
+    expect(unitMatches("km2", "km²")).toBe(true);
+    expect(unitMatches("square kilometres", "kibibytes")).toBe(false);
+    expect(findQuantities("over 1500 square kilometres", { units: ["km²"] })[0]).toMatchObject({ kind: "number", lo: 1500, unit: "square kilometres" });
+    // a power word with no unit after it stays a word of its own
+    expect(findQuantities("500 square.")[0]).toMatchObject({ unit: "square" });
+  });
+});

@@ -15,7 +15,7 @@
  * followed by a unit the catalog declares, written out or abbreviated ("2000 KiB" for
  * kibibytes; abbreviation matching of Schwartz & Hearst 2003), is that many units, not a year.
  */
-import { DECADE_PART, MULTIPLIER, NOT_UNIT } from "./lexicon.js";
+import { DECADE_PART, MULTIPLIER, NOT_UNIT, UNIT_POWERS } from "./lexicon.js";
 
 /** What a quantity was written as. */
 export type QuantityKind = "number" | "year" | "date" | "decade";
@@ -94,7 +94,7 @@ export function parseIsoDate(text: string): { lo: number; hi: number; kind: "yea
 
 /** Letters and digits of a unit, lower-cased ("km²" → "km", "KiB" → "kib"). */
 function unitChars(u: string): string {
-  return u.toLowerCase().replace(/[^\p{L}\p{N}\s]/gu, "").trim();
+  return u.toLowerCase().replace(/[^\p{L}\p{Nd}\s]/gu, "").trim();
 }
 
 /**
@@ -136,6 +136,22 @@ const TOKEN =
   /(?:\b(early|mid|late)[- ])?\b(?:the )?(\d{3}0)['’]?s\b|\b(\d{4}-\d{2}(?:-\d{2})?)\b|(?<![\w.])([+\u2212-]?(?:\d{1,3}(?:,\d{3})+|\d+)(?:\.\d+)?)(?![\w,.]\d)(?:\s+(thousand|million|billion)\b)?/giu;
 const UNIT_AFTER = /^\s*([\p{L}][\p{L}\p{N}²³/.]*|%)/u;
 
+/**
+ * The unit written at the start of `rest` (right after a number), lower-cased, and the length
+ * it takes (a final full stop is the sentence's): one word, or a power word and the unit it
+ * raises ("square kilometres"; lexicon.ts `UNIT_POWERS`). Undefined when the next word is no unit.
+ */
+function unitAfter(rest: string): { unit: string; length: number } | undefined {
+  const one = UNIT_AFTER.exec(rest);
+  if (!one || NOT_UNIT.has(one[1]!.toLowerCase())) return undefined;
+  const word = (m: RegExpExecArray) => m[1]!.toLowerCase().replace(/\.$/, "");
+  const len = (m: RegExpExecArray) => m[0].length - (m[1]!.endsWith(".") ? 1 : 0);
+  const first = word(one);
+  const two = UNIT_POWERS.has(first) && !one[1]!.endsWith(".") ? UNIT_AFTER.exec(rest.slice(one[0].length)) : null;
+  if (two && !NOT_UNIT.has(two[1]!.toLowerCase())) return { unit: `${first} ${word(two)}`, length: one[0].length + len(two) };
+  return { unit: first, length: len(one) };
+}
+
 /** Every quantity in `text`, in order. */
 export function findQuantities(text: string, options: QuantityOptions = {}): Quantity[] {
   const [ylo, yhi] = options.yearRange ?? DEFAULTS.yearRange;
@@ -159,17 +175,17 @@ export function findQuantities(text: string, options: QuantityOptions = {}): Qua
       const mult = m[5] ? MULTIPLIER[m[5].toLowerCase()]! : 1;
       v *= mult;
       // a four-digit number before a unit of the catalog is that many units ("2000 KiB"), not a year
-      const unitNext = UNIT_AFTER.exec(text.slice(end))?.[1];
+      const unitNext = unitAfter(text.slice(end))?.unit;
       const measured = unitNext !== undefined && (options.units ?? []).some((u) => unitMatches(unitNext, u));
       const isYear = mult === 1 && /^\d{4}$/.test(m[4]) && v >= ylo && v <= yhi && !measured;
       q = isYear ? { kind: "year", lo: v, hi: v + 1, text: m[0] } : { kind: "number", lo: v, hi: v, text: m[0] };
     }
     if (!q) continue;
     let unit: string | undefined;
-    const after = UNIT_AFTER.exec(text.slice(end));
-    if (after && !NOT_UNIT.has(after[1]!.toLowerCase()) && q.kind === "number") {
-      unit = after[1]!.toLowerCase().replace(/\.$/, "");
-      end += after[0].length - (after[1]!.endsWith(".") ? 1 : 0);
+    const after = unitAfter(text.slice(end));
+    if (after && q.kind === "number") {
+      unit = after.unit;
+      end += after.length;
     }
     // a sign is part of the value and of `text`, not of the span: the span starts at the first
     // digit, so it begins on a word of the question (words are letter and digit runs, words.ts)

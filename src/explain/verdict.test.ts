@@ -103,6 +103,15 @@ describe("decideVerdict with the question's reading and link facts", () => {
     // a best answer off the reading: every candidate is a rival (E2 at 2 ≥ 0.9 × 1 ties)
     expect(decideVerdict(input({ ref, reading: open([3]) }, [c(1, 1), c(2, 2), c(3, 0.95)])).tiedWith).toEqual(["e2", "e3"]);
   });
+  it("a plural question whose clue is held only by a neighbour constraint: every candidate on the reading is in the tied group", () => {
+    const open = (matched: number[], plural: boolean) => ({ ...reading(matched), graph: { ...graph, plural }, open: 1 });
+    // E3 satisfies the reading at 0.3 of the best: the score rules alone leave E1 unique
+    expect(decideVerdict(input({ ref, reading: open([1, 3], false) }, [c(1, 1), c(2, 2), c(3, 0.3)])).status).toBe("unique");
+    const v = decideVerdict(input({ ref, reading: open([1, 3], true) }, [c(1, 1), c(2, 2), c(3, 0.3)]));
+    expect(v.status).toBe("tied");
+    expect(v.tiedWith).toEqual(["e3"]); // E2 is off the reading
+  });
+
   it("an entity satisfying the reading counts as reached by every clue, even with no path found to it", () => {
     // the path search found no path to E1 (another sense of the clue's own mention is a seed), but the reading's pattern reaches it
     const v = decideVerdict(input({ ref, reading: reading([1]) }, [c(1, 1, [false, true]), c(2, 0.1)]));

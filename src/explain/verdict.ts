@@ -48,7 +48,8 @@
  *    and only when the best answer does not satisfy the reading: when it does (a clue held
  *    only by a neighbour constraint — "a South American country" —, which orders the answers
  *    but cannot decide the set: the question may mean a longer path), its rivals below are only
- *    the candidates that satisfy the reading too:
+ *    the candidates that satisfy the reading too; a plural question asks for the set, so there
+ *    every candidate that satisfies the reading is `tied` with it;
  *    - `tied` — the best answer is reached by every clue and other candidates fit about
  *      equally well: either their score is at least `tieRatio` × the best score with the
  *      same clue coverage (and their paths follow the cued relations wherever the best
@@ -298,6 +299,11 @@ function baseVerdict(input: VerdictInput, ctx: VerdictContext, o: Required<Verdi
   const top = input.candidates[0];
   if (r && readingMatched && top && r.matched.has(top.node)) {
     const fitting = input.candidates.filter((c, i) => i === 0 || r.matched.has(c.node));
+    // a plural question asks for the set: every candidate that satisfies the reading is an answer,
+    // even when a neighbour constraint cannot prove the set complete (rule 3's "plural")
+    if (r.graph.plural && fitting.length >= 2 && fitting.every((c) => r.matched.has(c.node))) {
+      return out({ status: "tied", margin: 0, tiedWith: fitting.slice(1).map((c) => c.id), reason: `${fitting.length} entities satisfy the reading (the question asks for all of them): ${names(fitting)}` }, false, true);
+    }
     if (fitting.length < input.candidates.length) return out(scoreVerdict({ ...input, candidates: fitting }, o), false, true);
   }
   return out(scored, false, readingMatched);

@@ -181,6 +181,30 @@ describe("a name written with an initialism for some of its words", () => {
   });
 });
 
+describe("a name written as separate words that the catalog writes as one", () => {
+  it("links 'Zel Dania' to Zeldania and 'corvo 3' to corvo3 (compound spelling variants, Christen 2012 §4.2), never gluing a type or relation word", () => {
+    // invented names
+    const c = Catalog.open(":memory:", { create: true });
+    const w = new CatalogWriter(c);
+    w.begin();
+    const { type, rel, ent } = catalogShorthands(w);
+    type("t:Realm", "realm");
+    type("t:Tool", "tool");
+    rel("r:uses", "uses");
+    ent("k:zel", "Zeldania", ["t:Realm"]);
+    ent("x:corvo3", "corvo3", ["t:Tool"]);
+    ent("x:realmuses", "realmuses", ["t:Tool"]);
+    w.commit();
+    const l = Linker.fromCatalog(c);
+    const ids = (q: string) => linkQuestion(q, l).mentions.map((m) => [m.text, m.entity.id, m.match]);
+    expect(ids("Which realm borders Zel Dania?")).toEqual([["Zel Dania", "k:zel", "fuzzy"]]);
+    expect(ids("Which realm uses corvo 3?")).toEqual([["corvo 3", "x:corvo3", "fuzzy"]]);
+    // "realm uses": a type word and a relation word are never glued into a name
+    expect(ids("Which realm uses corvo 3?").map((x) => x[1])).not.toContain("x:realmuses");
+    c.close();
+  });
+});
+
 describe("linkQuestion on arbitrary text (properties)", () => {
   const check = (s: string) => {
     const r = link(s);

@@ -78,6 +78,10 @@ export const DEFAULTS = {
   initialismSimilarity: 0.85,
   /** Names holding the word after an initialism checked at most (each is one alias read; a more common word names too little). */
   maxInitialismHolders: 256,
+  /** Similarity of a name written as separate words that the catalog writes as one ("Viet Nam" for Vietnam). */
+  joinedSimilarity: 0.9,
+  /** Most words joined into one name. */
+  maxJoined: 3,
   /** Lowest similarity for a fuzzy name that absorbs a neighbouring exact span. */
   mergeSimilarity: 0.8,
   /** Lowest similarity for a suggestion on an unlinked span. */
@@ -260,7 +264,8 @@ export function detectMentions(
 ): Detection {
   const o: Options = { ...DEFAULTS, ...options };
   const n = toks.length;
-  const maxLen = Math.min(o.maxTokens, lex.snapshot.maxAliasTokens);
+  // joined names ("Viet Nam") span up to maxJoined words even where every alias is one word
+  const maxLen = Math.min(o.maxTokens, Math.max(lex.snapshot.maxAliasTokens, o.maxJoined));
   const spans: DetectedSpan[] = [];
   const unmatched: UnmatchedRun[] = [];
   const covered = blocked.slice();
@@ -304,6 +309,28 @@ export function detectMentions(
     }
     return extra.length === 0 ? span : { ...span, candidates: [...span.candidates, ...extra] };
   };
+  /**
+   * Tokens [k, k + len) written as separate words of a name the catalog writes as one ("Viet
+   * Nam" for Vietnam, "SQLite 3" for sqlite3, "Neo Vim" for neovim): the words joined without
+   * their spaces equal a label or alias. Every word must be a content word (no stop word, no
+   * type or relation word of the catalog), so that a relation phrase or a type noun is never
+   * glued to a name. A name not written as the catalog writes it: a fuzzy link at
+   * `joinedSimilarity`, shown and pinnable as any other (issue 16, names not written as the
+   * catalog writes them; compound spelling variation, open/closed compounds, is common
+   * practice in record linkage: cf. P. Christen, "Data Matching", Springer 2012, §4.2).
+   */
+  const joinedSpan = (k: number, len: number): DetectedSpan | undefined => {
+    let joined = "";
+    for (let j = k; j < k + len; j++) {
+      const t = toks[j]!;
+      if (isStopWord(t.norm) || !/[\p{L}\p{N}]/u.test(t.norm) || /\s/u.test(t.norm) || lex.isVocabularyPhrase(t.norm, t.stem)) return undefined;
+      joined += t.norm;
+    }
+    if (!lex.snapshot.mayBeKey(joined)) return undefined;
+    const hits = lex.byNorm(joined).filter((h) => !lex.isTypeEntity(h.entity));
+    if (hits.length === 0) return undefined;
+    return { first: k, last: k + len, match: "fuzzy", candidates: hitsToCandidates(hits, o.joinedSimilarity).map((c) => ({ ...c, match: "fuzzy" as const })) };
+  };
   // 1. leftmost-longest exact (normalised) or stemmed match
   let i = 0;
   while (i < n) {
@@ -329,7 +356,10 @@ export function detectMentions(
       if (isStopWord(toks[i + len - 1]!.norm) || (leadingStop && len < 2)) continue;
       const normKey = lex.snapshot.mayBeKey(kn);
       const stemKey = !leadingStop && lex.snapshot.mayBeKey(ks);
-      if (!normKey && !stemKey) continue;
+      if (!normKey && !stemKey) {
+        if (len >= 2 && len <= o.maxJoined && !leadingStop) found = joinedSpan(i, len);
+        continue;
+      }
       // a word that is a type or relation phrase only by its stem ("required" ~ "requires") but is
       // written exactly as a name, before a type noun ("required packages"), is that name used as a modifier
       if (lex.isVocabularyPhrase(kn, ks) && !(len === 1 && normKey && !lex.isVocabularyPhrase(kn, kn) && modifiesTypeNoun(i + 1))) continue;
@@ -342,6 +372,7 @@ export function detectMentions(
         hits = lex.byStem(ks);
         if (hits.length > 0) found = { first: i, last: i + len, match: "stem", candidates: hitsToCandidates(hits, o.stemSimilarity) };
       }
+      if (!found && len >= 2 && len <= o.maxJoined && !leadingStop) found = joinedSpan(i, len);
       if (found && len === 1 && relationWord(i)) {
         const tok = toks[i]!;
         const named = found.match === "exact" ? new Set(hits.filter((h) => writtenAs(tok, h.text, caseBlind())).map((h) => h.entity)) : new Set<number>();

@@ -125,13 +125,23 @@ export function exclusionSet(c: ExclusionCondition, typeSet: ReadonlySet<number>
   const rels = new Set(c.relations);
   const directed = c.mode === "not" && c.inverse !== undefined && c.relations.length > 0 && inNodes && !reciprocalAt(index, c.node, rels);
   const linked = new Set<number>(directed ? [] : [c.node]);
-  const selfOnly = c.mode === "other" && typeSet.size > 0 && index.isA(c.node, typeSet);
-  if (selfOnly || !inNodes) return linked;
+  if (exclusionSelfOnly(c, typeSet, index) || !inNodes) return linked;
   index.forEach(c.node, (v, rel, inverse) => {
     if (rels.size === 0) linked.add(v);
     else if (directed ? c.relations.some((r, k) => r === rel && c.inverse![k] === inverse) : rels.has(rel)) linked.add(v);
   });
   return linked;
+}
+
+/**
+ * True when an exclusion removes only the excluded entity: "other than X" (and "apart from",
+ * "besides" …) where X is of the answer type, or where the question names no answer type —
+ * then X is taken as a peer of the answers ("what does A depend on apart from X"), since a
+ * question excluding what is linked to a non-peer names the answers' type ("countries other
+ * than those in X").
+ */
+export function exclusionSelfOnly(c: ExclusionCondition, typeSet: ReadonlySet<number>, index: RelationIndex): boolean {
+  return c.mode === "other" && (typeSet.size === 0 || index.isA(c.node, typeSet));
 }
 
 /** True when every edge of `rels` at `node` is stored both ways (and there is one): the relation is symmetric there. */

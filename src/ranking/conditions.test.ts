@@ -68,6 +68,11 @@ describe("applyConditions", () => {
     expect(ids(applyConditions(analysis, ranked, [ex], index, lookup).ranked)).toEqual([3, 4]);
     const other: Condition = { ...ex, mode: "other" };
     expect(ids(applyConditions(analysis, ranked, [other], index, lookup).ranked)).toEqual([3, 4, 5]); // A is a country: only A itself
+    // no answer type ("what … apart from A"): A is taken as a peer of the answers, so only A goes
+    // (D, which borders A, stays); "not A" still takes what is linked to A
+    const untyped: Analysis = { ...analysis, answerTypes: [] };
+    expect(ids(applyConditions(untyped, ranked, [other], index, lookup).ranked)).toEqual([3, 4, 5]);
+    expect(ids(applyConditions(untyped, ranked, [ex], index, lookup).ranked)).toEqual([3, 4]);
   });
 
   it("satisfies honours strict and inclusive bounds and negation", () => {

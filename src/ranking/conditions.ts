@@ -32,7 +32,7 @@ import type { AttributeChoice, Analysis, Condition, ComparisonCondition, Superla
 import { words } from "../analysis/index.js";
 import type { Ranked, RankedCandidate } from "./rank.js";
 import type { RelationIndex } from "./relation-index.js";
-import { absenceTest, attributeValues, exclusionSet, literalHolds, orderOf, pickAttribute, satisfies, type AttributeLookup, type AttributeValues } from "./attribute-values.js";
+import { absenceTest, attributeValues, exclusionSelfOnly, exclusionSet, literalHolds, orderOf, pickAttribute, satisfies, type AttributeLookup, type AttributeValues } from "./attribute-values.js";
 
 export { satisfies, type AttributeLookup };
 
@@ -296,7 +296,7 @@ export function applyConditions(
     const before = order.length;
     if (c.kind === "exclusion") {
       const linked = exclusionSet(c, typeSet, index);
-      const selfOnly = c.mode === "other" && typeSet.size > 0 && index.isA(c.node, typeSet);
+      const selfOnly = exclusionSelfOnly(c, typeSet, index);
       order = order.filter((v) => !linked.has(v));
       filters.push((v) => (linked.has(v) ? { condition: ci, values: [], satisfied: false, excludedBy: c.node } : { condition: ci, values: [], satisfied: true }));
       applied.push({ condition: c, attribute: null, before, after: order.length });
