@@ -203,6 +203,23 @@ describe("a name written as separate words that the catalog writes as one", () =
     expect(ids("Which realm uses corvo 3?").map((x) => x[1])).not.toContain("x:realmuses");
     c.close();
   });
+
+  it("leaves a lower-case verb form alone whose stem is a lower-case name ('filed' ~ file, Quirk et al. 1985 §3.5: -ed, -ing)", () => {
+    const c = Catalog.open(":memory:", { create: true });
+    const w = new CatalogWriter(c);
+    w.begin();
+    const { type, ent } = catalogShorthands(w);
+    type("t:Tool", "tool");
+    ent("x:file", "file", ["t:Tool"]);
+    ent("x:corvo3", "corvo3", ["t:Tool"]);
+    w.commit();
+    const l = Linker.fromCatalog(c);
+    const r = linkQuestion("Which tool is Corvo 3 filed under?", l);
+    expect(r.mentions.map((m) => m.entity.id)).toEqual(["x:corvo3"]);
+    // the name as written still links
+    expect(linkQuestion("Which tool uses file?", l).mentions.map((m) => m.entity.id)).toEqual(["x:file"]);
+    c.close();
+  });
 });
 
 describe("linkQuestion on arbitrary text (properties)", () => {

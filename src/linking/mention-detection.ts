@@ -94,6 +94,9 @@ export const DEFAULTS = {
   maxGenerator: 5000,
 } as const;
 
+/** Verb inflections that a name never carries (the -ed and -ing forms, Quirk et al. 1985 §3.5 ff.; see `verbForm` in {@link detectMentions}). */
+const VERBAL_INFLECTIONS: readonly string[] = ["ed", "ing"];
+
 /** {@link DEFAULTS} with any values. */
 type Options = { -readonly [K in keyof typeof DEFAULTS]: number };
 
@@ -310,6 +313,18 @@ export function detectMentions(
     return extra.length === 0 ? span : { ...span, candidates: [...span.candidates, ...extra] };
   };
   /**
+   * True when token k, not written like a name (no capital of its own), ends in a verbal
+   * inflection (`VERBAL_INFLECTIONS`: the -ed and -ing forms of English verbs, Quirk et al. 1985
+   * §3.5 ff.) that none of the stem-matched aliases `hits` ends in ("filed" against "file").
+   */
+  const verbForm = (k: number, hits: readonly AliasHit[]): boolean => {
+    const t = toks[k]!;
+    if (t.marked && !caseBlind()) return false;
+    const suffix = VERBAL_INFLECTIONS.find((x) => t.norm.endsWith(x) && t.norm.length > x.length + 2);
+    if (suffix === undefined) return false;
+    return hits.every((h) => !h.text.toLowerCase().endsWith(suffix));
+  };
+  /**
    * Tokens [k, k + len) written as separate words of a name the catalog writes as one ("Viet
    * Nam" for Vietnam, "SQLite 3" for sqlite3, "Neo Vim" for neovim): the words joined without
    * their spaces equal a label or alias. Every word must be a content word (no stop word, no
@@ -373,6 +388,14 @@ export function detectMentions(
         if (hits.length > 0) found = { first: i, last: i + len, match: "stem", candidates: hitsToCandidates(hits, o.stemSimilarity) };
       }
       if (!found && len >= 2 && len <= o.maxJoined && !leadingStop) found = joinedSpan(i, len);
+      // a lower-case word whose stem names something only through a verb's inflection ("filed" ~
+      // "file") is the verb: a name is not inflected for tense or aspect
+      if (found && found.match === "stem" && len === 1 && verbForm(i, hits)) {
+        unmatched.push({ first: i, last: i + 1, suggestions: asSuggestions(found.candidates, lex) });
+        covered[i] = true;
+        found = undefined;
+        break;
+      }
       if (found && len === 1 && relationWord(i)) {
         const tok = toks[i]!;
         const named = found.match === "exact" ? new Set(hits.filter((h) => writtenAs(tok, h.text, caseBlind())).map((h) => h.entity)) : new Set<number>();
