@@ -389,8 +389,9 @@ export function detectMentions(
       }
       if (!found && len >= 2 && len <= o.maxJoined && !leadingStop) found = joinedSpan(i, len);
       // a lower-case word whose stem names something only through a verb's inflection ("filed" ~
-      // "file") is the verb: a name is not inflected for tense or aspect
-      if (found && found.match === "stem" && len === 1 && verbForm(i, hits)) {
+      // "file") is the verb: a name is not inflected for tense or aspect (a relation word's form,
+      // "hosted", is left to the relation-word rule below)
+      if (found && found.match === "stem" && len === 1 && !relationWord(i) && verbForm(i, hits)) {
         unmatched.push({ first: i, last: i + 1, suggestions: asSuggestions(found.candidates, lex) });
         covered[i] = true;
         found = undefined;
