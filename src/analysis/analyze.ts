@@ -16,7 +16,7 @@ import { detectAnswerType, type AnswerTypeOptions, type AnswerTypeSource } from 
 import type { QuestionModel } from "./question-model.js";
 import { relationCues, type RelationCue, type RelationCueOptions } from "./relation-cues.js";
 import { findQuantities } from "./quantity.js";
-import { relationalAnswerType, whereRangeType, type RelationRangeOptions } from "./relation-range.js";
+import { relationalAnswerType, subjectRangeType, whereRangeType, type RelationRangeOptions } from "./relation-range.js";
 import { isFunctionWord, words, type Word } from "./words.js";
 import { ANSWER_TYPE_WORDS, DETERMINERS } from "./lexicon.js";
 import { findTypeWords, type TypeWord } from "./type-words.js";
@@ -225,7 +225,11 @@ export function analyze(question: string, linked: LinkResult, model: QuestionMod
   if ((at.source === "where" || (at.source === "who" && at.types.length === 0 && (at.usedWords[0] ?? 0) <= 1)) && model.relationEnds) {
     const defaults = at.source === "where" ? model.placeTypes : model.agentTypes;
     const places = new Set(defaults.flatMap((t) => model.typeByNum.get(t)?.descendants ?? [t]));
-    const r = whereRangeType(cues, clues.map((c) => c.node), places, model, options.relationRange);
+    // "who" + a relation verb: the answer is that verb's subject ("who maintains …"); else the last relation word's far end
+    const whoAt = at.usedWords[0] ?? 0;
+    const r =
+      (at.source === "who" && ws[whoAt + 1] !== undefined ? subjectRangeType(cues, ws[whoAt + 1]!.start, model, options.relationRange) : undefined) ??
+      whereRangeType(cues, clues.map((c) => c.node), places, model, options.relationRange);
     if (r) {
       typeNums = r.types;
       typeSource = "relation";

@@ -23,6 +23,7 @@ beforeAll(() => {
     w.predicateLabel("r:ruler", "ruler");
     w.predicateLabel("r:coin", "coin");
     w.predicateLabel("r:neighbour", "neighbour");
+    w.predicateLabel("r:guard", "guarded by");
     const realms = ["Avenmark", "Brisca", "Coldhollow", "Dunmere"];
     realms.forEach((r, i) => {
       w.label(`x:${r}`, r);
@@ -37,6 +38,7 @@ beforeAll(() => {
       w.label(`x:${r}-coin`, `${r} mark`);
       w.type(`x:${r}-coin`, "t:Coin");
       w.edge(`x:${r}`, "r:coin", `x:${r}-coin`);
+      w.edge(`x:${r}-coin`, "r:guard", `x:${r}-lord`);
       if (i > 0) w.edge(`x:${r}`, "r:neighbour", `x:${realms[i - 1]!}`);
     });
   });
@@ -110,6 +112,15 @@ describe("relationalAnswerType, through analyze", () => {
     const a = analyze(q, linkOf(q, ["Brisca"]), model);
     expect(a.answerTypeSource).toBe("relation");
     expect(ids(a)).toEqual(["t:Noble"]);
+  });
+
+  it("'who' + a relation verb right after it: the verb's subject, however far the clue (active 'guards' for the passive label 'guarded by': the stored object)", () => {
+    // the clue Brisca Keep is a town, two hops away; the last relation word ("seat") would give realms
+    const q = "Who guards the coin of the realm whose seat is Brisca Keep?";
+    const a = analyze(q, linkOf(q, ["Brisca Keep"]), model);
+    expect(a.answerTypeSource).toBe("relation");
+    expect(ids(a)).toEqual(["t:Noble"]);
+    expect(a.notes.join(" ")).toMatch(/"who" with "guards" \(guarded by\)/);
   });
 });
 

@@ -17,7 +17,8 @@
  * "where" questions ({@link whereRangeType}): "where" asks for the entity at the far end of
  * the question's last relation word ("where did X *study*" — a university, not a town), so
  * when that relation's far end holds no place-like type at all, its types replace the
- * place-like default; when it holds one, the default stays.
+ * place-like default; when it holds one, the default stays. "Who" followed at once by a
+ * relation verb ({@link subjectRangeType}) asks for that verb's subject: its end's types.
  */
 import type { QuestionModel } from "./question-model.js";
 import type { RelationCue } from "./relation-cues.js";
@@ -116,6 +117,29 @@ export function whereRangeType(cues: readonly RelationCue[], clueNodes: readonly
   const r = farEnd(last, clueNodes, model, options);
   if (!r || r.types.some((t) => placeTypes.has(t))) return undefined;
   return r;
+}
+
+/**
+ * "Who" as the subject of a relation verb right after it ("who *maintains* the packages …"):
+ * the answer is the sentence's subject (SVO order, Quirk et al. 1985 §2.11), the stored
+ * subject of the relation unless the voice flips it (an active verb for a passive label:
+ * "maintains" for "maintained by" — the stored object). Its types are that end's, however
+ * far away the clues stand. `next`: UTF-16 offset of the word after the wh-word; undefined
+ * when no cue starts there or that end holds no type.
+ */
+export function subjectRangeType(cues: readonly RelationCue[], next: number, model: QuestionModel, options: RelationRangeOptions = {}): RelationalType | undefined {
+  const minScore = options.minScore ?? DEFAULTS.minScore;
+  const minShare = options.minShare ?? DEFAULTS.minShare;
+  if (!model.relationEnds) return undefined;
+  const cue = cues.filter((c) => c.score >= minScore && c.start === next).sort((a, b) => b.score - a.score)[0];
+  if (!cue) return undefined;
+  const ends = model.relationEnds();
+  const total = ends.edges(cue.relation);
+  if (!(total > 0)) return undefined;
+  const object = cue.flip;
+  const types = ends.types(cue.relation, object).filter((t) => t.count >= minShare * total).map((t) => t.type);
+  if (types.length === 0) return undefined;
+  return { types: [...new Set(types)].sort((a, b) => a - b), cue, end: object ? "object" : "subject" };
 }
 
 function farEnd(cue: RelationCue, clueNodes: readonly number[], model: QuestionModel, options: RelationRangeOptions, nearTypes?: readonly number[]): RelationalType | undefined {
