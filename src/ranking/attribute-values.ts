@@ -43,8 +43,8 @@ export interface AttributeValues {
   some(node: number, test: (v: number) => boolean): boolean;
   /** The largest ("max") or smallest value of each of `nodes`, NaN for none (one merge pass over the column while `nodes` ascend, as a set enumerated by num does). */
   extremes(nodes: readonly number[], order: "max" | "min"): Float64Array;
-  /** How many of `nodes` carry a value (the same pass as {@link extremes}, nothing allocated). */
-  carriers(nodes: readonly number[]): number;
+  /** How many of `nodes` carry a value (the same pass as {@link extremes}, nothing allocated); the count stops at `atLeast` when given. */
+  carriers(nodes: readonly number[], atLeast?: number): number;
 }
 
 export function attributeValues(lookup: AttributeLookup, predicate: number): AttributeValues {
@@ -64,6 +64,8 @@ export function attributeValues(lookup: AttributeLookup, predicate: number): Att
       },
       extremes: (nodes, order) => {
         const out = new Float64Array(nodes.length);
+        // a row's largest value is its last, its smallest its first: values[offsets[r + last] − last]
+        const last = order === "max" ? 1 : 0;
         let at = 0;
         let ascending = true;
         for (let i = 0; i < nodes.length; i++) {
@@ -74,15 +76,15 @@ export function attributeValues(lookup: AttributeLookup, predicate: number): Att
             while (at < entities.length && entities[at]! < n) at++;
             r = at < entities.length && entities[at] === n ? at : -1;
           } else r = rowIndex(entities, n);
-          out[i] = r < 0 ? NaN : order === "max" ? values[offsets[r + 1]! - 1]! : values[offsets[r]!]!;
+          out[i] = r < 0 ? NaN : values[offsets[r + last]! - last]!;
         }
         return out;
       },
-      carriers: (nodes) => {
+      carriers: (nodes, atLeast = Infinity) => {
         let count = 0;
         let at = 0;
         let ascending = true;
-        for (let i = 0; i < nodes.length; i++) {
+        for (let i = 0; i < nodes.length && count < atLeast; i++) {
           const n = nodes[i]!;
           if (i > 0 && n < nodes[i - 1]!) ascending = false;
           if (ascending) {
@@ -102,9 +104,9 @@ export function attributeValues(lookup: AttributeLookup, predicate: number): Att
         const vs = lookup.numbers(n, predicate);
         return vs.length === 0 ? NaN : order === "max" ? vs[vs.length - 1]! : vs[0]!;
       }),
-    carriers: (nodes) => {
+    carriers: (nodes, atLeast = Infinity) => {
       let count = 0;
-      for (const n of nodes) if (lookup.numbers(n, predicate).length > 0) count++;
+      for (let i = 0; i < nodes.length && count < atLeast; i++) if (lookup.numbers(nodes[i]!, predicate).length > 0) count++;
       return count;
     },
   };
@@ -169,17 +171,27 @@ export function orderOf(c: SuperlativeCondition, attr: AttributeChoice): "max" |
 /**
  * The attribute a condition uses among its `choices` (best word match first): the best score
  * among those some entity of `scope` carries, ties going to the one most of them carry, then
- * the choices' order; null when none is carried.
+ * the choices' order; null when none is carried. The carriers are counted in full only for
+ * choices tied on score (otherwise one carrier is enough, often found in the scope's first entities).
  */
 export function pickAttribute(choices: readonly AttributeChoice[], scope: readonly number[], values: (attr: number) => AttributeValues): AttributeChoice | null {
   let best: AttributeChoice | null = null;
-  let bestCarry = 0;
+  /** The best choice's carriers: counted when a tie asks for it. */
+  let bestCarry = -1;
   for (const a of choices) {
-    const carry = values(a.num).carriers(scope);
+    if (best !== null && a.score < best.score - 1e-9) continue;
+    const tie = best !== null && Math.abs(a.score - best.score) <= 1e-9;
+    const carry = values(a.num).carriers(scope, tie ? Infinity : 1);
     if (carry === 0) continue;
-    if (best === null || a.score > best.score + 1e-9 || (Math.abs(a.score - best.score) <= 1e-9 && carry > bestCarry)) {
+    if (best === null || a.score > best.score + 1e-9) {
       best = a;
-      bestCarry = carry;
+      bestCarry = -1;
+    } else if (tie) {
+      if (bestCarry < 0) bestCarry = values(best.num).carriers(scope);
+      if (carry > bestCarry) {
+        best = a;
+        bestCarry = carry;
+      }
     }
   }
   return best;

@@ -82,3 +82,34 @@ describe("applyConditions", () => {
     expect(satisfies({ ...c, negated: true }, 3)).toBe(true);
   });
 });
+
+describe("applyConditions over a large clue-less set (the k-th best bound, issue 23)", () => {
+  // 2,000 entities of one type (node 0), values drawn with many ties and some without a value;
+  // the expected order is a plain sort written here: value best first, ties by node number
+  // (the ranking order of a clue-less set), those without a value after, in node order
+  const N = 2000;
+  const TYPE = 0;
+  const big = RelationIndex.fromEdges(N + 1, 1, [], Array.from({ length: N }, (_, i) => [i + 1, TYPE] as [number, number]));
+  const value = (v: number): number[] => (v % 7 === 3 ? [] : [((v * 7919) % 97) + (v % 5 === 0 ? 0.5 : 0), ((v * 31) % 97) - 50]);
+  const bigLookup: AttributeLookup = { numbers: (e, p) => (p === AREA.num && e >= 1 ? value(e).sort((a, b) => a - b) : []) };
+  const clueless: Analysis = { ...analysis, clues: [], answerTypes: [{ num: TYPE, id: "t:T", label: "thing" }] };
+  const none: Ranked = { clues: [], candidates: [], typeFiltered: true, relationWeights: new Float64Array(1).fill(1), notes: [] };
+  for (const order of ["max", "min"] as const) {
+    for (const position of [1, 3]) {
+      it(`${order}, place ${position}: the first 200 and the ties agree with a plain sort`, () => {
+        const sup: Condition = { kind: "superlative", order, position, temporal: false, choices: [AREA], ...base };
+        const out = applyConditions(clueless, none, [sup], big, bigLookup);
+        const key = (v: number) => (order === "max" ? Math.max(...value(v)) : Math.min(...value(v)));
+        const valued = Array.from({ length: N }, (_, i) => i + 1).filter((v) => value(v).length > 0);
+        const sorted = [...valued].sort((a, b) => (order === "max" ? key(b) - key(a) : key(a) - key(b)) || a - b);
+        const asked = sorted[position - 1]!;
+        const expected = [asked, ...sorted.filter((v) => v !== asked)].slice(0, 200);
+        expect(ids(out.ranked)).toEqual(expected);
+        expect(out.tiedWith).toEqual(sorted.filter((v) => v !== asked && key(v) === key(asked)));
+        expect(out.fit.length).toBe(N);
+        // the candidates without a value come after every valued one
+        expect(out.fit.slice(valued.length).every((v) => value(v).length === 0)).toBe(true);
+      });
+    }
+  }
+});

@@ -143,41 +143,51 @@ const MEMBER_SETS_KEPT = 8;
  * The k-th best of the keys that are not NaN (k ≥ 1, at most their number): the k-th largest
  * for "max", the k-th smallest for "min", duplicates counted — what a sort of those keys puts
  * at place k, found with a binary heap of the k best seen (Williams 1964, "Algorithm 232:
- * Heapsort", CACM 7(6)), so a set of 10^5 keys needs no sorted copy.
+ * Heapsort", CACM 7(6)), so a set of 10^5 keys needs no sorted copy. "min" runs as "max" on
+ * the negated keys (`sign` −1), so the loop calls no comparison function: it runs once per
+ * question over sets of 10^5, often before the engine has compiled it.
  */
 function kthBest(keys: Float64Array, k: number, dir: "max" | "min"): number {
-  // the root is the worst of the k kept: the smallest for "max", the largest for "min"
+  const sign = dir === "max" ? 1 : -1;
+  // a min-heap of the k largest signed keys seen: the root is the worst of them
   const heap = new Float64Array(k);
-  const worse = dir === "max" ? (a: number, b: number) => a < b : (a: number, b: number) => a > b;
   let size = 0;
   for (let i = 0; i < keys.length; i++) {
-    const v = keys[i]!;
-    if (Number.isNaN(v)) continue;
+    const key = keys[i]!;
+    if (key !== key) continue; // NaN: no value
+    const v = sign * key;
     if (size < k) {
       // sift up
       let c = size++;
       while (c > 0) {
         const p = (c - 1) >> 1;
-        if (!worse(v, heap[p]!)) break;
+        if (!(v < heap[p]!)) break;
         heap[c] = heap[p]!;
         c = p;
       }
       heap[c] = v;
-    } else if (worse(heap[0]!, v)) {
+    } else if (heap[0]! < v) {
       // replace the root and sift down
       let c = 0;
       for (;;) {
         let w = 2 * c + 1;
         if (w >= size) break;
-        if (w + 1 < size && worse(heap[w + 1]!, heap[w]!)) w++;
-        if (!worse(heap[w]!, v)) break;
+        if (w + 1 < size && heap[w + 1]! < heap[w]!) w++;
+        if (!(heap[w]! < v)) break;
         heap[c] = heap[w]!;
         c = w;
       }
       heap[c] = v;
     }
   }
-  return heap[0]!;
+  return sign * heap[0]!;
+}
+
+/** How many of `keys` are not NaN. */
+function countValued(keys: Float64Array): number {
+  let valued = 0;
+  for (let i = 0; i < keys.length; i++) if (keys[i] === keys[i]) valued++;
+  return valued;
 }
 
 /** How a filter or an ordering judges one node, asked only for the nodes shown (answers, why-not). */
@@ -374,21 +384,21 @@ export function applyConditions(
     // one key per fit candidate (largest value for "max", smallest for "min"), NaN: none
     const keys = vals.extremes(inFit, dir);
     const n = inFit.length;
-    let valued = 0;
-    for (let i = 0; i < n; i++) if (!Number.isNaN(keys[i]!)) valued++;
+    const valued = countValued(keys);
     const better = (i: number, j: number) => (dir === "max" ? keys[j]! - keys[i]! : keys[i]! - keys[j]!) || i - j;
     // only the first `limit` + position places need their order (a selection, then a sort of
     // those: Hoare's FIND idea, common practice for top-k); ties of value keep the ranking order (index).
-    // The head: every candidate with a value when they are few, else those at least as good as the k-th best value
+    // The head: every candidate with a value when they are few, else those at least as good as
+    // the k-th best value (signed: "min" compares the negated keys, so one test serves both)
     const k = Math.min(valued, limit + c.position);
-    const bound = valued > 2 * k ? kthBest(keys, k, dir) : dir === "max" ? -Infinity : Infinity;
-    const inHead = (v: number) => (dir === "max" ? v >= bound : v <= bound);
+    const sign = dir === "max" ? 1 : -1;
+    const bound = sign * (valued > 2 * k ? kthBest(keys, k, dir) : dir === "max" ? -Infinity : Infinity);
     const head: number[] = [];
-    for (let i = 0; i < n; i++) if (inHead(keys[i]!)) head.push(i);
+    for (let i = 0; i < n; i++) if (sign * keys[i]! >= bound) head.push(i);
     head.sort(better);
     // the new order in one array of its final length (the sets run to 10^5: no growing copies):
     // the asked place first, the other head places in order, the rest of the valued ones and
-    // those without a value (each in ranking order), then the candidates that do not fit
+    // those without a value (each in ranking order, in one pass), then the candidates that do not fit
     const pos = Math.min(c.position, valued) - 1;
     const next = new Array<number>(n + rest.length);
     let w = 0;
@@ -396,17 +406,21 @@ export function applyConditions(
       const first = head[pos]!;
       next[w++] = inFit[first]!;
       for (let j = 0; j < head.length; j++) if (j !== pos) next[w++] = inFit[head[j]!]!;
-      // every other candidate with the asked place's value, in ranking order
+      // every other candidate with the asked place's value, in ranking order: all in the head
+      // (their value is the asked place's, at least as good as the bound), which is in that order
       const top = keys[first]!;
       const tied: number[] = [];
-      for (let i = 0; i < n; i++) if (i !== first && keys[i] === top) tied.push(i);
-      tiedWith = tied.sort(better).map((i) => inFit[i]!);
+      for (let j = 0; j < head.length; j++) if (j !== pos && keys[head[j]!] === top) tied.push(inFit[head[j]!]!);
+      tiedWith = tied;
     }
+    // the valued ones outside the head fill [w, w + valued − head), those without a value follow
+    let wNone = w + valued - head.length;
     for (let i = 0; i < n; i++) {
       const v = keys[i]!;
-      if (!Number.isNaN(v) && !inHead(v)) next[w++] = inFit[i]!;
+      if (v !== v) next[wNone++] = inFit[i]!;
+      else if (!(sign * v >= bound)) next[w++] = inFit[i]!;
     }
-    for (let i = 0; i < n; i++) if (Number.isNaN(keys[i]!)) next[w++] = inFit[i]!;
+    w = wNone;
     for (const v of rest) next[w++] = v;
     orderings.push((v) => {
       // the place is the rank among the fit candidates with a value (asked place first: the rest keep theirs);

@@ -419,20 +419,25 @@ export class RelationIndex {
   membersOf(typeSet: ReadonlySet<number>, stop?: () => boolean): { readonly nodes: number[]; readonly cut?: number } {
     const c = this.#c;
     const n = this.nodeCount;
-    // per type num: 0 not judged yet, 1 in the set's closure, 2 not
-    const judged = new Uint8Array(n);
+    const typeOffsets = c.typeOffsets;
+    const typeList = c.typeList;
+    // per node num: bits 0–1 the judgement of it as a type (0 not judged yet, 1 in the set's
+    // closure, 2 not), bit 2 when it is in the set itself (left out); the pass below reads
+    // typed arrays only (it runs once per question that needs it, often before the engine has compiled it)
+    const flags = new Uint8Array(n);
+    for (const t of typeSet) if (t >= 0 && t < n) flags[t] = 4;
     const nodes: number[] = [];
     for (let u = 0; u < n; u++) {
-      if ((u & 4095) === 0 && u > 0 && stop?.()) return { nodes, cut: u };
-      const from = c.typeOffsets[u]!;
-      const to = c.typeOffsets[u + 1]!;
-      if (from === to || typeSet.has(u)) continue;
+      if ((u & 4095) === 0 && u > 0 && stop !== undefined && stop()) return { nodes, cut: u };
+      const from = typeOffsets[u]!;
+      const to = typeOffsets[u + 1]!;
+      if (from === to || (flags[u]! & 4) !== 0) continue;
       for (let i = from; i < to; i++) {
-        const t = c.typeList[i]!;
-        let j = t >= 0 && t < n ? judged[t]! : 0;
+        const t = typeList[i]!;
+        let j = t >= 0 && t < n ? flags[t]! & 3 : 0;
         if (j === 0) {
           j = this.supertypesClosure(t).some((x) => typeSet.has(x)) ? 1 : 2;
-          if (t >= 0 && t < n) judged[t] = j;
+          if (t >= 0 && t < n) flags[t] = flags[t]! | j;
         }
         if (j === 1) {
           nodes.push(u);
@@ -442,6 +447,7 @@ export class RelationIndex {
     }
     return { nodes };
   }
+
 
   /**
    * {@link isA} for one `typeSet`, as a function that keeps its answer per direct type (a
