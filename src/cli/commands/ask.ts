@@ -6,7 +6,7 @@ import type { Command } from "commander";
 import { parsePin, type Pin } from "../../linking/index.js";
 import { DEADLINE_DEFAULTS, TiepointError, checkTop } from "../../model/index.js";
 import { Session } from "../../pipeline/index.js";
-import { askJson, catalogLabels, evidenceDot, renderAskText, renderExplanationText } from "../../present/index.js";
+import { askJson, catalogLabels, evidenceDot, renderAskText, renderExplanationText } from "../../present/ask/index.js";
 import { STORE_TIMEOUT_HELP, storeSessionOptions } from "./attach.js";
 import { guarded } from "../run.js";
 
