@@ -146,6 +146,9 @@ export const SET_WORDS: ReadonlySet<string> = new Set(["all", "every", "ones"]);
 /** Copulas of a question ("what *is* the depth of …", "how deep *is* …"; Quirk et al. 1985 §11.14). */
 export const COPULAS: ReadonlySet<string> = new Set(["is", "are", "was", "were", "s"]);
 
+/** Prepositions of place that open a wh-question about where something is ("*in* which section …"; Quirk et al. 1985 §9.15 ff.). */
+export const LOCATIVE_PREPOSITIONS: ReadonlySet<string> = new Set(["in", "on", "at", "within", "inside", "under", "into"]);
+
 /** Plural copulas ("which *are* …"): the question asks for a set. */
 export const PLURAL_COPULAS: ReadonlySet<string> = new Set(["are", "were"]);
 

@@ -114,6 +114,17 @@ describe("relationalAnswerType, through analyze", () => {
     expect(ids(a)).toEqual(["t:Noble"]);
   });
 
+  it("'in which R are the T …': the subject T after the copula stands at the near end of R", () => {
+    // realms are at the subject end of "seat": the answer is at its object end (one port town, three towns)
+    const q = "In which seat are the realms that Lord of Brisca rules?";
+    const a = analyze(q, linkOf(q, ["Lord of Brisca"]), model);
+    expect(ids(a)).toEqual(["t:Port", "t:Town"]);
+    // without a preposition of place the copula identifies ("which seat is the realm …"): not read so,
+    // the clue (a noble, at neither end of "seat") leaves both ends
+    const b = "Which seat are the realms that Lord of Brisca rules?";
+    expect(ids(analyze(b, linkOf(b, ["Lord of Brisca"]), model))).toEqual(["t:Port", "t:Realm", "t:Town"]);
+  });
+
   it("'who' + a relation verb right after it: the verb's subject, however far the clue (active 'guards' for the passive label 'guarded by': the stored object)", () => {
     // the clue Brisca Keep is a town, two hops away; the last relation word ("seat") would give realms
     const q = "Who guards the coin of the realm whose seat is Brisca Keep?";

@@ -22,6 +22,7 @@
  */
 import type { QuestionModel } from "./question-model.js";
 import type { RelationCue } from "./relation-cues.js";
+import { COPULAS, LOCATIVE_PREPOSITIONS } from "./lexicon.js";
 import { isFunctionWord, type Word } from "./words.js";
 
 /** Options of {@link relationalAnswerType}; all optional. */
@@ -56,7 +57,7 @@ export function relationalAnswerType(ws: readonly Word[], headPhrase: readonly n
   const starts = new Set(headPhrase.map((k) => ws[k]!.start));
   const cue = cues.filter((c) => c.score >= minScore && starts.has(c.start)).sort((a, b) => b.score - a.score || a.start - b.start)[0];
   if (!cue) return undefined;
-  const ofType = ofPhraseType(ws, Math.max(...headPhrase), model) ?? ofPhraseRelation(ws, Math.max(...headPhrase), cues, cue, model, options);
+  const ofType = ofPhraseType(ws, Math.max(...headPhrase), model, LOCATIVE_PREPOSITIONS.has(ws[Math.min(...headPhrase) - 2]?.norm ?? "")) ?? ofPhraseRelation(ws, Math.max(...headPhrase), cues, cue, model, options);
   return farEnd(cue, clueNodes, model, options, ofType);
 }
 
@@ -65,10 +66,15 @@ export function relationalAnswerType(ws: readonly Word[], headPhrase: readonly n
  * country* that …"): "of", then function words, up to two pre-modifiers, then a type label or
  * alias (one or two words, by stem). The of-phrase is the relational noun's argument (Quirk et al. 1985 §17.38 ff., the
  * of-genitive; from memory), so that type stands at the relation's near end, whatever the
- * clues further away are.
+ * clues further away are. Likewise the subject after a copula in a wh-question opened by a
+ * preposition of place, with inversion ("*in* which section *are the packages* that …",
+ * Quirk et al. 1985 §11.14, §9.15 ff.): the subject is located at the relational noun's
+ * referent, so its type stands at the near end (without the preposition, "which capital is
+ * the city …" identifies the two, and nothing is read).
  */
-function ofPhraseType(ws: readonly Word[], head: number, model: QuestionModel): number[] | undefined {
-  if (ws[head + 1]?.norm !== "of") return undefined;
+function ofPhraseType(ws: readonly Word[], head: number, model: QuestionModel, locative = false): number[] | undefined {
+  const next = ws[head + 1]?.norm ?? "";
+  if (next !== "of" && !(locative && COPULAS.has(next))) return undefined;
   let k = head + 2;
   while (k < ws.length && isFunctionWord(ws[k]!.norm)) k++;
   // up to two pre-modifiers before the type noun ("of the *largest* country")
