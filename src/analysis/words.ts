@@ -21,8 +21,33 @@ export interface Word {
 
 const WORD = /[\p{L}\p{N}]+(?:['’][\p{L}]+)*/gu;
 
-/** Splits a question into words with offsets. A word that normalises to several tokens is split evenly. */
-export function words(question: string): Word[] {
+/**
+ * The last texts split ({@link DEFAULTS}.keep), oldest first: one question's reading splits
+ * its text a dozen times (analysis, conditions, query graph, cue chains, link facts), and the
+ * re-asks that check suggested clues split the same prefix again.
+ */
+const recent = new Map<string, readonly Word[]>();
+
+/** Defaults of {@link words}. */
+export const DEFAULTS = {
+  /** Texts whose words are kept (a question and the texts split while reading it). */
+  keep: 16,
+} as const;
+
+/**
+ * Splits a question into words with offsets. A word that normalises to several tokens is split
+ * evenly. The array is shared between calls with the same text (read-only).
+ */
+export function words(question: string): readonly Word[] {
+  const kept = recent.get(question);
+  if (kept !== undefined) return kept;
+  const out = split(question);
+  if (recent.size >= DEFAULTS.keep) recent.delete(recent.keys().next().value!);
+  recent.set(question, out);
+  return out;
+}
+
+function split(question: string): readonly Word[] {
   const out: Word[] = [];
   for (const m of question.matchAll(WORD)) {
     const text = m[0];
