@@ -83,7 +83,7 @@ async function main(): Promise<void> {
   try {
     const attached = join(dir, "attached.db");
     const copyCatalog = (from: string, to: string) => {
-      for (const suffix of ["", ".idx", ".link", ".store"]) if (existsSync(from + suffix)) copyFileSync(from + suffix, to + suffix);
+      for (const suffix of ["", ".idx", ".link", ".num", ".store"]) if (existsSync(from + suffix)) copyFileSync(from + suffix, to + suffix);
     };
     const reuse = opt("attached");
     if (reuse) copyCatalog(reuse, attached);

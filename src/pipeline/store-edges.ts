@@ -7,9 +7,9 @@
  * and puts it where those stages read edges from, so that linking, reading, ranking,
  * explanation and verdict run the same code as for a loaded catalog:
  *
- * - into a temporary `edge` table of the session's SQLite connection (`CREATE TEMP TABLE`;
- *   SQLite resolves an unqualified table name in the temp schema first, "Schema Objects",
- *   https://www.sqlite.org/lang_naming.html), which the linker's and `show`'s edge reads see;
+ * - into per-entity adjacency lists in memory (pulled-edges.ts), which answer the catalog's
+ *   edge reads (the linker's, `show`'s, the entity card's) for this session's catalog, in the
+ *   order the catalog's `edge` table would give;
  * - into a relation index over the pulled edges (`RelationIndex.withPulledEdges`) whose
  *   degrees are the store's own counts (binding file), so the walk's hub damping and every
  *   degree test are those of the whole graph.
@@ -41,11 +41,12 @@
  * cache (the rings are grown the same way); only the order of its edges in the index may (a
  * cached row comes in the order it was first answered), which breaks exact ties only.
  */
-import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, nodeId, csvNode, csvTrue, shownEndpoint, type StoreBinding } from "../catalog/index.js";
+import { Catalog, SparqlClient, UNIT_VOCABULARY, VOCABULARY, iriRef, labelFromId, nodeId, csvNode, csvTrue, shownEndpoint, type NeighbourInfo, type StoreBinding } from "../catalog/index.js";
 import { linkQuestion, type Pin } from "../linking/index.js";
 import { RelationIndex } from "../ranking/index.js";
 import { TiepointError } from "../model/index.js";
 import { inGraph } from "./attach.js";
+import { PulledEdges } from "./pulled-edges.js";
 import type { EdgeAccess, EdgeContext, EdgeCounts, QuestionRun, StoreDescription } from "./edge-access.js";
 import type { QueryGraph } from "../analysis/index.js";
 
@@ -113,7 +114,12 @@ export class StoreEdges implements EdgeAccess {
   private readonly idStmt;
   private readonly numStmt;
   private readonly numsStmt;
-  private readonly insert;
+  private readonly textStmt;
+  private readonly cardStmt;
+  /** Predicate id and label by num. */
+  private readonly predicateOf = new Map<number, { id: string; label: string }>();
+  /** The question's pulled edges, for the catalog's edge reads. */
+  private readonly edges = new PulledEdges();
   private readonly pulled = new Set<number>();
   private demand = new Set<number>();
   private src: number[] = [];
@@ -127,38 +133,63 @@ export class StoreEdges implements EdgeAccess {
   private readonly rowCache = new Map<number, Int32Array>();
   private cachedEdges = 0;
 
-  /** Installs the temporary edge table on `catalog` (before any edge statement is prepared) and records the linker's edge reads. */
+  /** Answers `catalog`'s edge reads from the pulled edges (pulled-edges.ts), recording which entities' rows they ask for. */
   constructor(catalog: Catalog, binding: StoreBinding, options: StoreOptions = {}) {
     this.catalog = catalog;
     this.binding = binding;
     this.client = new SparqlClient(binding.endpoint, { ...options, pageSize: binding.pageSize });
     const db = catalog.db;
-    db.exec("CREATE TEMP TABLE IF NOT EXISTS edge (src INTEGER NOT NULL, rel INTEGER NOT NULL, dst INTEGER NOT NULL, PRIMARY KEY (src, rel, dst)) WITHOUT ROWID");
-    db.exec("CREATE INDEX IF NOT EXISTS temp.edge_by_dst ON edge(dst, rel)");
     this.idStmt = db.prepare("SELECT id FROM main.entity WHERE num = ?").pluck();
     this.numStmt = db.prepare("SELECT num FROM main.entity WHERE id = ?").pluck();
     this.numsStmt = db.prepare("SELECT e.id, e.num FROM json_each(?) j JOIN main.entity e ON e.id = j.value").raw(true);
-    this.insert = db.prepare("INSERT OR IGNORE INTO temp.edge (src, rel, dst) VALUES (?, ?, ?)");
-    for (const [num, id] of db.prepare("SELECT num, id FROM main.predicate").raw(true).all() as [number, string][]) {
+    this.textStmt = db.prepare("SELECT label, description FROM main.entity WHERE num = ?").raw(true);
+    this.cardStmt = db.prepare("SELECT id, label FROM main.entity WHERE num = ?").raw(true);
+    for (const [num, id, label] of db.prepare("SELECT num, id, label FROM main.predicate").raw(true).all() as [number, string, string | null][]) {
       this.predicateNum.set(id, num);
+      this.predicateOf.set(num, { id, label: label ?? labelFromId(id) });
       this.relSpan = Math.max(this.relSpan, num + 1);
     }
     // the edge reads of the linker (and show) record which entities' rows a question needs
     const record = (num: number) => {
       if (!this.pulled.has(num)) this.demand.add(num);
     };
-    const proto = Object.getPrototypeOf(catalog) as Catalog;
+    const e = this.edges;
     Object.defineProperties(catalog, {
-      neighbourNums: { value: (num: number, limit?: number) => (record(num), proto.neighbourNums.call(catalog, num, limit)) },
-      neighbourTexts: { value: (num: number, limit?: number) => (record(num), proto.neighbourTexts.call(catalog, num, limit)) },
-      hasRelationEdge: { value: (num: number, rel: number) => (record(num), proto.hasRelationEdge.call(catalog, num, rel)) },
-      neighbours: { value: (num: number, limit?: number) => (record(num), proto.neighbours.call(catalog, num, limit)) },
+      neighbourNums: { value: (num: number, limit = 1000) => (record(num), e.neighbourNums(num, limit)) },
+      neighbourTexts: { value: (num: number, limit = 50) => (record(num), e.neighbourNums(num, limit).map((n) => this.textStmt.get(n) as [string | null, string | null])) },
+      hasRelationEdge: { value: (num: number, rel: number) => (record(num), e.hasRelation(num, rel)) },
+      neighbours: { value: (num: number, limit = 200) => (record(num), this.neighbours(num, limit)) },
+      hasEdge: { value: (s: string, p: string, o: string) => this.hasEdge(s, p, o) },
+      edges: { value: () => e.ordered() },
     });
+  }
+
+  /** `Catalog.neighbours` over the pulled edges: both directions, each by relation id then entity id (its `ORDER BY`), at most `limit` each. */
+  private neighbours(num: number, limit: number): NeighbourInfo[] {
+    const side = (pairs: readonly number[], direction: "out" | "in"): NeighbourInfo[] => {
+      const rows: NeighbourInfo[] = [];
+      for (let i = 0; i < pairs.length; i += 2) {
+        const p = this.predicateOf.get(pairs[i]!)!;
+        const [id, label] = this.cardStmt.get(pairs[i + 1]!) as [string, string | null];
+        rows.push({ relation: p.id, relationLabel: p.label, direction, id, label: label ?? labelFromId(id) });
+      }
+      const cmp = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+      return rows.sort((a, b) => cmp(a.relation, b.relation) || cmp(a.id, b.id)).slice(0, limit);
+    };
+    return [...side(this.edges.outPairs(num), "out"), ...side(this.edges.inPairs(num), "in")];
+  }
+
+  /** `Catalog.hasEdge` over the pulled edges. */
+  private hasEdge(s: string, p: string, o: string): boolean {
+    const sn = this.numOfId(s);
+    const on = this.numOfId(o);
+    const pn = this.predicateNum.get(p);
+    return sn !== undefined && on !== undefined && pn !== undefined && this.edges.has(sn, pn, on);
   }
 
   /** Forgets the previous question's edges. */
   reset(): void {
-    this.catalog.db.exec("DELETE FROM temp.edge");
+    this.edges.clear();
     this.pulled.clear();
     this.demand.clear();
     this.skipped.clear();
@@ -296,13 +327,8 @@ export class StoreEdges implements EdgeAccess {
     this.figures.entities += batch.length;
   }
 
-  /** Adds pulled edge rows (each edge once) to the temporary edge table and the pulled arrays, and keeps the rows of `entities` (those pulled) in the session's cache. */
+  /** Adds pulled edge rows (each edge once) to the pulled edges (the catalog's edge reads and the pulled arrays), and keeps the rows of `entities` (those pulled) in the session's cache. */
   private take(rows: readonly string[][], entities: readonly number[]): void {
-    // one transaction for the temporary table's inserts (each would otherwise be its own)
-    this.catalog.db.transaction(() => this.takeRows(rows, entities))();
-  }
-
-  private takeRows(rows: readonly string[][], entities: readonly number[]): void {
     const mine = new Set(entities);
     // the nums of the ids not seen before in this session, in one statement (not one lookup per id)
     const unknown = new Set<string>();
@@ -339,7 +365,7 @@ export class StoreEdges implements EdgeAccess {
     this.src.push(s);
     this.rel.push(p);
     this.dst.push(o);
-    this.insert.run(s, p, o);
+    this.edges.add(s, p, o);
   }
 
   /** Keeps an entity's row for the session (the oldest rows leave when more than `cacheEdges` edges are kept). */
@@ -366,9 +392,7 @@ export class StoreEdges implements EdgeAccess {
     if (!r) return false;
     this.rowCache.delete(num); // most recently used last
     this.rowCache.set(num, r);
-    this.catalog.db.transaction(() => {
-      for (let i = 0; i < r.length; i += 3) this.addEdge(r[i]!, r[i + 1]!, r[i + 2]!);
-    })();
+    for (let i = 0; i < r.length; i += 3) this.addEdge(r[i]!, r[i + 1]!, r[i + 2]!);
     this.pulled.add(num);
     this.figures.entities++;
     this.figures.cached = (this.figures.cached ?? 0) + 1;
@@ -479,7 +503,7 @@ export class StoreEdges implements EdgeAccess {
     return { edges: this.binding.edges, degree: this.binding.degree, relationEdges: this.binding.relationEdges };
   }
 
-  /** The rows of `nums` and `rings` rings of neighbours around them (hubs not expanded), as a relation index; the temporary edge table holds the same rows. */
+  /** The rows of `nums` and `rings` rings of neighbours around them (hubs not expanded), as a relation index; the catalog's edge reads see the same rows. */
   async around(ctx: EdgeContext, nums: readonly number[], rings: number): Promise<RelationIndex> {
     this.reset();
     let ring = new Set(nums);

@@ -81,6 +81,32 @@ interface HubTables {
 
 const tables_ = new WeakMap<Csr, Map<number, HubTables>>();
 
+/**
+ * Hub factors deg(u)^(−β) of a partial index, kept per degree array and β: an attached
+ * catalog builds an index per question over the same whole-graph degrees, so the factors
+ * (one power per node of the catalog) are computed once per session, not per question.
+ */
+const hubsByDegrees_ = new WeakMap<ArrayBufferLike, Map<string, Float64Array>>();
+
+function hubFactors(c: Csr, beta: number): Float64Array {
+  const n = c.nodeCount;
+  const degrees = c.degrees;
+  const key = degrees ? `${beta} ${degrees.byteOffset} ${n}` : "";
+  let byKey = degrees ? hubsByDegrees_.get(degrees.buffer) : undefined;
+  const kept = byKey?.get(key);
+  if (kept) return kept;
+  const hub = new Float64Array(n);
+  for (let u = 0; u < n; u++) {
+    const d = degrees ? degrees[u]! : c.offsets[u + 1]! - c.offsets[u]!;
+    hub[u] = d === 0 ? 1 : beta === 0 ? 1 : Math.pow(d, -beta);
+  }
+  if (degrees) {
+    if (!byKey) hubsByDegrees_.set(degrees.buffer, (byKey = new Map()));
+    byKey.set(key, hub);
+  }
+  return hub;
+}
+
 function hubTables(c: Csr, beta: number): HubTables {
   let byBeta = tables_.get(c);
   if (!byBeta) {
@@ -90,11 +116,7 @@ function hubTables(c: Csr, beta: number): HubTables {
   let t = byBeta.get(beta);
   if (!t) {
     const n = c.nodeCount;
-    const hub = new Float64Array(n);
-    for (let u = 0; u < n; u++) {
-      const d = c.degrees ? c.degrees[u]! : c.offsets[u + 1]! - c.offsets[u]!;
-      hub[u] = d === 0 ? 1 : beta === 0 ? 1 : Math.pow(d, -beta);
-    }
+    const hub = hubFactors(c, beta);
     const rowTotal = new Float64Array(n);
     const rowScale = c.degrees ? new Float64Array(n).fill(1) : null;
     for (let u = 0; u < n; u++) {
