@@ -59,7 +59,7 @@ export interface AskOptions {
   readonly ablation?: boolean;
   /** Suggest clues for a tied or weak verdict. @default true */
   readonly suggestions?: boolean;
-  /** Only the answers and the verdict (the re-asks that check suggestions): no ablation, no suggestions, no answer paths or coverage rows. @default false */
+  /** Only the answers and the verdict (the re-asks that check suggestions): no ablation, no suggestions, no answer paths, coverage rows or per-answer condition values. @default false */
   readonly verdictOnly?: boolean;
 }
 
@@ -260,7 +260,8 @@ export class Session {
     const made = this.answersOf(analysis, ranked, top, { reading, dropClues: options.dropClues ?? [], whyNot, pprMemo, reachMemo, deadline, verdictContext, parts, ...(conditions ? { rerankWith: withConditions } : {}) });
     let { answers } = made;
     const verdict = made.verdict;
-    if (conditions) {
+    // a verdict-only re-ask (a suggestion's check) reads the verdict and the first answer's id: no condition steps per answer, no explanation
+    if (conditions && options.verdictOnly !== true) {
       const nodeOf = new Map(ranked.candidates.slice(0, top).map((c) => [this.ref(c.node).id, c.node]));
       answers = answers.map((a) => {
         const node = nodeOf.get(a.id);
