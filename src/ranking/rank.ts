@@ -362,6 +362,33 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     }
   }
 
+  // the ends of a clue's pattern that the walk left out of the pool join it, with no walk
+  // score (the pattern puts them first): those of a pattern with conditions on an inner node
+  // (the largest package is a hub, whose neighbours the walk's hub penalty starves), and those
+  // of a pattern none of whose ends the pool holds (a three-hop chain through hubs) — the
+  // conjunctive query's answers are its matches, whatever the walk reached (Mendelzon & Wood 1995)
+  const selected = new Map<number, NodeSet | null>();
+  const reachCache = options.reachMemo ?? new Map<string, NodeSet | null>();
+  if (chains.some((ch) => ch.steps.length > 1)) {
+    const ends = new Map<number, { set: NodeSet | null; selected: boolean }>();
+    chainFitOf(chains, clues, clues.map(() => 1), index, new Set(), { ...options, reachMemo: reachCache }, selected, ends);
+    for (const { set, selected: sel } of ends.values()) {
+      if (set === null || set.size === 0 || set.size > MAX_ADDED_ENDS) continue;
+      if (!sel && set.some((v) => inPool.has(v))) continue;
+      for (const v of set) {
+        if (inPool.has(v) || isSeed(v)) continue;
+        slots.set(v, poolNodes.length);
+        inPool.add(v);
+        poolNodes.push(v);
+        if (poolNodes.length * C > rows.length) {
+          const grown = new Float64Array(rows.length * 2);
+          grown.set(rows);
+          rows = grown;
+        }
+      }
+    }
+  }
+
   const typeSet = new Set(analysis.answerTypes.map((t) => t.num));
   const isAnswerType = index.isATest(typeSet);
   // eligible candidates as pool slots, in pool order
@@ -396,7 +423,7 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     for (const v of seedList) if (v >= 0 && v < index.nodeCount) within.add(v);
     cueFit = cueFitOf(analysis, clues, directions, index, options, (v) => within.has(v));
   }
-  const chainCheck = chainFitOf(chains, clues, weights, index, new Set(eligible.map((slot) => poolNodes[slot]!)), options);
+  const chainCheck = chainFitOf(chains, clues, weights, index, new Set(eligible.map((slot) => poolNodes[slot]!)), { ...options, reachMemo: reachCache }, selected);
   const chainFit = chainCheck?.fit;
   // every eligible candidate's figures in flat arrays (a hub's clue makes tens of thousands
   // eligible); objects are made only for the `limit` returned, picked by a bounded heap
@@ -652,6 +679,9 @@ function cuesWithoutDropped(analysis: Analysis, chains: readonly CueChain[], dro
  * ignored). When a type noun names an intermediate node, the typed directed pattern comes
  * first and the untyped directed one counts as loose. The clues' factors are combined like their scores (weighted geometric mean).
  */
+/** Most ends of a pattern added to the candidate pool (more: the pattern says little). */
+const MAX_ADDED_ENDS = 1000;
+
 /** Share of a relation's edges a type needs at an end to count for {@link symmetricEnds}. */
 const END_SHARE = 0.02;
 const symmetricMemo = new WeakMap<RelationIndex, Map<number, boolean>>();
@@ -678,6 +708,8 @@ function chainFitOf(
   index: RelationIndex,
   eligible: ReadonlySet<number>,
   options: RankOptions,
+  selected?: Map<number, NodeSet | null>,
+  ends?: Map<number, { set: NodeSet | null; selected: boolean }>,
 ): { fit: (v: number) => number; misses: (v: number) => number[]; ignored: number; patterns: readonly (RankedPattern | undefined)[]; exact: readonly NodeSet[] } | undefined {
   const miss = options.chainMiss ?? DEFAULTS.chainMiss;
   const loose = options.chainLoose ?? DEFAULTS.chainLoose;
@@ -739,9 +771,15 @@ function chainFitOf(
     // nodes: a condition there is evaluated on the set where their first hops meet, not per clue
     const meet = select && group >= 0 ? (ch.conjuncts ?? []).filter((x) => x !== ch.clue && present.has(x)).map((x) => clues[chains.findIndex((y) => y.clue === x)]!.node).filter((n) => n >= 0 && n < index.nodeCount) : [];
     const typedRun = () => chainReach(index, clue.node, hops, { ...base, directed: true, keep, ...(select ? { select } : {}), ...(meet.length > 0 ? { meet } : {}) });
-    const typedExact = !typed ? null : select ? typedRun() : reach(`typed ${JSON.stringify(ch.steps.map((st) => [st.types, st.only ?? null]))}`, typedRun);
+    const selectedRun = () => {
+      if (!selected) return typedRun();
+      if (!selected.has(c)) selected.set(c, typedRun());
+      return selected.get(c)!;
+    };
+    const typedExact = !typed ? null : select ? selectedRun() : reach(`typed ${JSON.stringify(ch.steps.map((st) => [st.types, st.only ?? null]))}`, typedRun);
     const exact = reach("directed", () => chainReach(index, clue.node, hops, { ...base, directed: true }));
     const undirected = reach("undirected", () => chainReach(index, clue.node, hops, { ...base, directed: false }));
+    ends?.set(c, { set: typedExact ?? exact, selected: select !== undefined });
     const pattern = (withTypes: boolean, directed: boolean): RankedPattern => ({ hops, types: ch.steps.map((st, h) => (withTypes && typeSets[h] ? st.types : [])), directed });
     if (hits(typedExact)) checks.push({ exact: typedExact!, loose: exact, weight: weights[c]!, group, clue: c });
     else if (hits(exact)) checks.push({ exact: exact!, loose: undirected, weight: weights[c]!, group, clue: c });
