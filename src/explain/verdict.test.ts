@@ -112,6 +112,22 @@ describe("decideVerdict with the question's reading and link facts", () => {
     expect(v.tiedWith).toEqual(["e3"]); // E2 is off the reading
   });
 
+  it("a candidate whose id and label are getters of its class keeps them when the reading marks it reached (tied ids and reason named)", () => {
+    class Lazy {
+      constructor(readonly node: number, readonly score: number, readonly reached: readonly boolean[], readonly covered = 2) {}
+      get id(): string {
+        return `e${this.node}`;
+      }
+      get label(): string {
+        return `E${this.node}`;
+      }
+    }
+    const v = decideVerdict(input({ ref, reading: reading([1, 2]) }, [new Lazy(1, 1, [true, false]), new Lazy(2, 0.5, [true, true])]));
+    expect(v.status).toBe("tied");
+    expect(v.tiedWith).toEqual(["e2"]);
+    expect(v.reason).toMatch(/E1, E2/);
+  });
+
   it("an entity satisfying the reading counts as reached by every clue, even with no path found to it", () => {
     // the path search found no path to E1 (another sense of the clue's own mention is a seed), but the reading's pattern reaches it
     const v = decideVerdict(input({ ref, reading: reading([1]) }, [c(1, 1, [false, true]), c(2, 0.1)]));

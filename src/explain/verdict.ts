@@ -194,6 +194,15 @@ export function notFoundText(m: MentionFacts): string {
 }
 
 /** A list of labels, at most five named. */
+/**
+ * `c` with `reached` replaced. A candidate may read its id and label on demand through getters
+ * of its class (explain.ts `NamedCandidate`); an object spread would copy only own fields and
+ * drop them, so the copy keeps the prototype.
+ */
+function withReached(c: VerdictCandidate, reached: readonly boolean[]): VerdictCandidate {
+  return Object.assign(Object.create(Object.getPrototypeOf(c) as object) as VerdictCandidate, c, { reached });
+}
+
 function names(list: readonly { label: string }[]): string {
   return list.slice(0, 5).map((c) => c.label).join(", ") + (list.length > 5 ? `, … (${list.length} in all)` : "");
 }
@@ -274,7 +283,7 @@ function baseVerdict(input: VerdictInput, ctx: VerdictContext, o: Required<Verdi
   // it), even where the path search found no path: one that is itself another sense of a clue
   // ("Luxembourg", the city, for the mention "Luxembourg" read as the country) is a seed of it
   if (r && readingMatched && input.candidates.some((c) => r.matched.has(c.node) && c.reached?.some((x) => !x))) {
-    input = { ...input, candidates: input.candidates.map((c) => (r.matched.has(c.node) && c.reached ? { ...c, reached: c.reached.map(() => true) } : c)) };
+    input = { ...input, candidates: input.candidates.map((c) => (r.matched.has(c.node) && c.reached ? withReached(c, c.reached.map(() => true)) : c)) };
   }
   const scored = scoreVerdict(input, o);
   if (scored.status === "none") return out(scored, true);
