@@ -204,7 +204,7 @@ export class Session {
   }
 
   /** Answers one question on this session's relation index as it is (the pipeline itself; {@link askAsync} for any catalog). */
-  ask(question: string, options: AskOptions = {}): AskOutcome {
+  ask(question: string, options: AskOptions = {}, shared?: SharedWork): AskOutcome {
     if (this.edges.store) throw new TypeError("pipeline/session: an attached catalog's questions go through askAsync (its edges are pulled per question)");
     const top = options.top ?? DEFAULTS.top;
     checkTop(top);
@@ -217,7 +217,7 @@ export class Session {
     const limitNotes =
       link === linked ? [] : [`${linked.mentions.length} names were linked; only the ${LIMITS.maxMentions} most confident are used as clues (limit: README "Failure modes")`];
     const t1 = performance.now();
-    const { cond, analysis, reading, ranked: maybeRanked, matchedNodes, conditions, pprMemo, reachMemo, lookup, readMs } = this.readAndRank(question, link, deadline, options.dropClues);
+    const { cond, analysis, reading, ranked: maybeRanked, matchedNodes, conditions, pprMemo, reachMemo, lookup, readMs } = this.readAndRank(question, link, deadline, options.dropClues, shared);
     // the reading (analysis, conditions, query graph) apart from the ranking that follows it in readAndRank
     const tRead = t1 + readMs;
     if (cond.value || cond.compare || cond.identity) {
@@ -273,12 +273,14 @@ export class Session {
     let explanation = whyNot.length > 0 ? this.completeWhyNot(whyNot, made.explanation, answers, verdict, analysis, ranked, conditions ? { list: answerConditions, outcome: conditions } : undefined) : made.explanation;
     if (options.verifySuggestions && explanation && explanation.suggestions.length > 0 && answers[0]) {
       const want = answers[0].id;
+      // the checks share this question's clue walks and pattern end sets: each is the same wherever its memo key is (ranking rank.ts)
+      const checks: SharedWork = { pprMemo, reachMemo };
       // each re-ask gets what is left of the budget; once it is spent the rest stay unchecked
       const checked = explanation.suggestions.map((sg) => {
         if (deadline.stop("suggestion checks")) return sg;
         const left = deadline.remaining();
         // the re-ask needs only its answers and verdict: no ablation, no suggestions of its own
-        const again = this.ask(sg.question, { top: 3, verdictOnly: true, timeLimitMs: left === Infinity ? 0 : Math.max(1, left), ...(options.pins !== undefined ? { pins: options.pins } : {}) }).result;
+        const again = this.ask(sg.question, { top: 3, verdictOnly: true, timeLimitMs: left === Infinity ? 0 : Math.max(1, left), ...(options.pins !== undefined ? { pins: options.pins } : {}) }, checks).result;
         return { ...sg, verified: again.verdict.status === "unique" && again.answers[0]?.id === want };
       });
       explanation = { ...explanation, suggestions: [...checked.filter((x) => x.verified), ...checked.filter((x) => !x.verified)] };
@@ -357,7 +359,7 @@ export class Session {
     };
   }
 
-  private readAndRank(question: string, link: LinkResult, deadline: Deadline, dropClues?: readonly number[]): ReadAndRank {
+  private readAndRank(question: string, link: LinkResult, deadline: Deadline, dropClues?: readonly number[], shared?: SharedWork): ReadAndRank {
     // conditions (comparisons, superlatives, exclusions, counts): src/analysis/conditions.ts
     const t0 = performance.now();
     const cond = detectConditions(analyze(question, link, this.model), this.model, this.lazyAttributes());
@@ -367,9 +369,9 @@ export class Session {
     // numeric values through per-predicate columns (one statement per attribute, kept by the session)
     const lookup = this.attributeLookup();
     // per-clue PageRank vectors of this question, reused by the ablation's re-rankings
-    const pprMemo = new Map<string, SparseScores>();
+    const pprMemo = shared?.pprMemo ?? new Map<string, SparseScores>();
     // and its clues' pattern end sets, reused likewise
-    const reachMemo: ReachMemo = new Map();
+    const reachMemo: ReachMemo = shared?.reachMemo ?? new Map();
     if (cond.value || cond.compare || cond.identity) return { cond, analysis, reading, lookup, pprMemo, reachMemo, readMs };
     const ranked0 = rank(analysis, this.index, { ...this.rankOptions, pprMemo, reachMemo, reading, deadline, attributes: lookup, ...(dropClues ? { dropClues } : {}) });
     const conditions = reading.conditions.length > 0 ? applyConditions(analysis, ranked0, reading.conditions, this.index, lookup, { deadline }) : undefined;
@@ -620,6 +622,17 @@ function mentionDocs(analysis: Analysis): Mention[] {
 /** True when every clue of the reading is held by a relation-path pattern the ranking evaluated (explain/verdict.ts rule 3). */
 function readingHolds(reading: QueryGraph, ranked: Ranked): boolean {
   return reading.chains.length === ranked.clues.length && (ranked.open ?? 0) === 0 && reading.chains.every((ch) => ch.steps.length > 0 && ch.steps.length <= VERDICT_DEFAULTS.maxSteps);
+}
+
+/**
+ * Work one question shares with the questions it asks in turn (the checks of its suggested
+ * clues): the per-clue PageRank vectors, keyed by seeds and relation weights, and the clues'
+ * pattern end sets, keyed by clue, relation hops and hop types (ranking rank.ts); a check whose
+ * clue walks the same way, or reads the same pattern, reuses them instead of searching again.
+ */
+interface SharedWork {
+  readonly pprMemo: Map<string, SparseScores>;
+  readonly reachMemo: ReachMemo;
 }
 
 /** A question read and ranked ({@link Session}.readAndRank); no ranking for a value or comparison question. */
