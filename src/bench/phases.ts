@@ -7,7 +7,7 @@ import { createHash } from "node:crypto";
 import { appendFileSync, existsSync, mkdirSync, rmSync, writeFileSync, readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { loadavg } from "node:os";
-import { Catalog, loadFiles, numericColumnsPath, type LoadProgress } from "../catalog/index.js";
+import { Catalog, loadFiles, numericColumnsPath, type LoadProgress, type LoadStep } from "../catalog/index.js";
 import { generateCatalog } from "../gen/index.js";
 import { LoadPreparation, parseQuestionFile, rankOfExpected, Session } from "../pipeline/index.js";
 import {
@@ -120,7 +120,17 @@ export function phaseLoad(work: string): Record<string, unknown> {
   const cpu0 = process.cpuUsage();
   const thread0 = procCpuSeconds("thread");
   const t0 = performance.now();
-  const report = loadFiles(cat, files, { sink, onProgress });
+  // CPU seconds of the load's own thread per step of the load (/proc task stats), printed as each ends
+  const stepCpu: Partial<Record<LoadStep, number>> = {};
+  let stepAt = thread0;
+  const onStep = (step: LoadStep) => {
+    const now = procCpuSeconds("thread");
+    if (now === undefined || stepAt === undefined) return;
+    stepCpu[step] = +(now - stepAt).toFixed(2);
+    stepAt = now;
+    process.stderr.write(`  load: step ${step} done, ${stepCpu[step]!.toFixed(2)} CPU s in the load's thread, load average ${loadAverage()}\n`);
+  };
+  const report = loadFiles(cat, files, { sink, onProgress, onStep });
   const t1 = performance.now();
   const seconds = (t1 - t0) / 1000;
   const cpu = process.cpuUsage(cpu0);
@@ -134,6 +144,8 @@ export function phaseLoad(work: string): Record<string, unknown> {
     /** CPU seconds of the whole process (both threads) and of the load's own thread. */
     cpuSeconds: (cpu.user + cpu.system) / 1e6,
     mainThreadCpuSeconds: thread0 !== undefined && thread1 !== undefined ? thread1 - thread0 : null,
+    /** The load's thread, CPU seconds per step (catalog/load.ts `LoadStep`). */
+    mainThreadStepCpuSeconds: stepCpu,
     triplesPerCpuSecond: report.statements / ((cpu.user + cpu.system) / 1e6),
     /** From the last row to the end (SQLite's indexes, end-of-load steps, commit, publishing). */
     secondsAfterLastRow: rowsAt > 0 ? (t1 - rowsAt) / 1000 : null,

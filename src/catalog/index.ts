@@ -5,7 +5,7 @@ export { normalize, tokens, stemToken, stemKey } from "./normalize.js";
 export { fnv1a32 } from "./intern.js";
 export { SCHEMA_VERSION } from "./schema.js";
 export { loadFiles, formatOf } from "./load.js";
-export type { LoadOptions, LoadReport, FileReport, ImportFormat, LoadProgress, LoadWarning, WarningKind, UpdateSummary } from "./load.js";
+export type { LoadOptions, LoadReport, LoadStep, FileReport, ImportFormat, LoadProgress, LoadWarning, WarningKind, UpdateSummary } from "./load.js";
 export type { LoadSink, PreparedFiles, RowsWritten } from "./load-sink.js";
 export { catalogStats, nearestRank, typeMembers, unionFindComponents } from "./stats.js";
 export type { StoreEdgeCounts } from "./stats.js";

@@ -36,8 +36,9 @@ export const DEFAULTS = {
   /**
    * SQLite page cache during a load, in KiB (PRAGMA cache_size = -N; the handle's own
    * setting is restored afterwards). Large enough that a 1M-entity / 5M-edge catalog
-   * (~460 MiB) is built without spilling dirty pages to the log mid-transaction, and that
-   * the sorter of the index rebuild works in memory (SQLite bounds it by the cache size).
+   * (~460 MiB) is built without spilling dirty pages to the log mid-transaction. (The index
+   * rebuild at the end runs with a small cache, writer.ts `DEFAULTS.indexBuildCacheKiB`: SQLite's
+   * sorter is faster in small runs.)
    */
   cacheKiB: 512 * 1024,
   /**
@@ -74,7 +75,18 @@ export interface LoadOptions {
    * adding to it; see reload.ts. @default false
    */
   readonly update?: boolean;
+  /** Called as each step of the load ends (for per-step timings, e.g. CPU time of this thread). */
+  readonly onStep?: (step: LoadStep) => void;
 }
+
+/**
+ * The steps of a load, in order, named when each ends ({@link LoadOptions.onStep}): reading
+ * the files; writing the rows held until then (a load into an empty catalog); SQLite's
+ * deferred indexes (and the held edges); the end-of-load fix-ups and checks; the derived
+ * files the sink builds in this thread; the attribute summary; the planner statistics; the
+ * commit.
+ */
+export type LoadStep = "files" | "heldRows" | "indexes" | "endOfLoad" | "derivedFiles" | "summary" | "statistics" | "commit";
 
 /** What one file contributed. */
 export interface FileReport {
@@ -213,9 +225,13 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
         reports.push({ file, format, statements, bytes: size });
       }
       ctx.checkPending();
+      const step = options.onStep ?? (() => {});
+      step("files");
       if (ctx.errors.length === 0) {
         if (sink?.rowsWritten) sink.rowsWritten(writer.rowsWritten(rdf));
+        step("heldRows");
         writer.restoreIndexes();
+        step("indexes");
         updated = writer.applyReload();
         writer.writeUnits();
         finishLoad(writer, { rdf });
@@ -236,13 +252,18 @@ function loadInTransaction(cat: Catalog, files: readonly string[], options: Load
       throw new TiepointError(errs[0]!.code, errs[0]!.message, { file: errs[0]!.file, line: errs[0]!.line, more });
     }
     writer.flush();
+    options.onStep?.("endOfLoad");
     // the commit bumps the generation by one: derived files are stamped with the new one; a
     // sink may build them in a second thread while the summary, ANALYZE and the commit run
     prepared = sink?.finish(cat, { uid: cat.version().uid, generation: cat.version().generation + 1 });
     writer.sink = undefined;
+    options.onStep?.("derivedFiles");
     cat.storeAttributeSummary();
+    options.onStep?.("summary");
     gatherStatistics(cat);
+    options.onStep?.("statistics");
     writer.commit();
+    options.onStep?.("commit");
   } catch (e) {
     writer.sink = undefined;
     writer.rollback();
