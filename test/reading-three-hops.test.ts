@@ -6,7 +6,9 @@
  * (src/ranking/rank.ts, the conjunctive query's matches first, Mendelzon & Wood 1995). The
  * readings themselves come from src/analysis/relation-range.ts ("who *maintains*" against a
  * label "maintained by": the maintainer; "in which *section* are the packages …": the archive
- * section) and attach-conditions.ts.
+ * section), attach-conditions.ts, and cue-chains.ts (a clue coordinated with a described noun
+ * phrase: "depends on both core *and the package that libbar is needed by*", where "needed"
+ * names the same relation as "depends" through its alias "needs", relation-cues.ts).
  *
  * Catalog: an invented package archive (a hub package "core" that 300 packages depend on,
  * a tool and two libraries), written as N-Triples, loaded through the real loader and asked
@@ -32,6 +34,7 @@ function triples(): string {
     `<${E}Maintainer> ${LABEL} "maintainer" .`,
     `<${E}Section> ${LABEL} "archive section" .`,
     `<${E}depends> ${LABEL} "depends on" .`,
+    `<${E}depends> <http://www.w3.org/2004/02/skos/core#altLabel> "needs" .`,
     `<${E}maintainer> ${LABEL} "maintained by" .`,
     `<${E}section> ${LABEL} "in section" .`,
     `<${E}size> ${LABEL} "installed size" .`,
@@ -44,11 +47,12 @@ function triples(): string {
     for (const d of deps) out.push(`<${E}p/${id}> <${E}depends> <${E}p/${d}> .`);
   };
   for (const [id, label] of [["core-team", "Core Team"], ["foo-folk", "Foo Folk"], ["bar-band", "Bar Band"], ["tia-runn", "Tia Runn"], ["mass-crew", "Mass Crew"]]) entity(`m/${id}`, "Maintainer", label!);
-  for (const s of ["base", "libs", "utils", "misc"]) entity(`s/${s}`, "Section", s);
+  for (const s of ["base", "libs", "utils", "misc", "devel"]) entity(`s/${s}`, "Section", s);
   pkg("core", 5000, "core-team", "base", []);
   pkg("libfoo", 300, "foo-folk", "libs", ["core"]);
   pkg("libbar", 100, "bar-band", "libs", []);
   pkg("tool", 50, "tia-runn", "utils", ["core", "libfoo", "libbar"]);
+  pkg("suite", 70, "foo-folk", "devel", ["core", "tool"]);
   for (let i = 0; i < 300; i++) pkg(`filler${i}`, 10 + i, "mass-crew", "misc", ["core"]);
   return out.join("\n") + "\n";
 }
@@ -98,6 +102,18 @@ describe("three hops: the pattern's ends are candidates, whatever the walk reach
     expect(r.reading!.text).toBe("?answer (maintainer) ← maintained by — ?v1 (package; largest by installed size) ← depends on — tool");
     const want = gold(`SELECT ?m WHERE { :p\\/tool :depends ?d . ?d :size ?s ; :maintainer ?m FILTER NOT EXISTS { :p\\/tool :depends ?e . ?e :size ?t FILTER(?t > ?s) } }`);
     expect(want).toEqual([`${E}m/core-team`]);
+    expect(group(r)).toEqual(want);
+    expect(r.verdict.status).toBe("unique");
+  });
+
+  it("a named clue coordinated with a described one: the described clue's chain runs through the relative clause, then takes the named clue's hops", () => {
+    const r = ask("What is the section of the package that depends on both core and the package that libbar is needed by?");
+    expect(r.reading!.text).toBe(
+      "?answer (archive section) ← in section — ?v1 (package) — depends on → core; ?answer (archive section) ← in section — ?v3 (package) — depends on → ?v2 (package) — depends on → libbar",
+    );
+    expect(r.reading!.ignored).toEqual([]);
+    const want = gold(`SELECT DISTINCT ?s WHERE { ?p :depends :p\\/core , ?q . ?q :depends :p\\/libbar . ?p :section ?s }`);
+    expect(want).toEqual([`${E}s/devel`]);
     expect(group(r)).toEqual(want);
     expect(r.verdict.status).toBe("unique");
   });

@@ -29,6 +29,10 @@
  * "*A, B or C*") are conjuncts of one noun phrase and fill the same slot of the sentence
  * (Quirk et al. 1985, §13.1 ff., coordination of noun phrases), so each of them takes the
  * steps attributed to any of them, ordered and directed from the group's span.
+ * (6) a described conjunct — a clue coordinated with a noun phrase described by a relative
+ * clause ("depends on both A *and the package that* B is needed by") — gives the clue inside
+ * the clause its own steps first, then those of the clue it is coordinated with: the described
+ * noun fills that clue's slot.
  * Pure string positions: no catalog names or words are involved.
  */
 import type { Analysis } from "./analyze.js";
@@ -55,6 +59,14 @@ const COORDINATION = /\b(?:and|or|but|nor)\b|[,;]/i;
  */
 const CONJUNCT_GAP = /^(?:\s|,|;|&|\b(?:and|or|nor|as well as|also|the|a|an)\b)*$/i;
 const HAS_CONJUNCTION = /,|;|&|\b(?:and|or|nor|as well as)\b/i;
+
+/**
+ * The text between a clue and a clue inside a described noun phrase coordinated with it: a
+ * conjunction, a determiner, the phrase's head words and a relative word opening the clause
+ * the second clue stands in ("automake *and the package that* m4 is needed by"; Quirk et al.
+ * 1985 §13.1 ff. and §17.9 ff.).
+ */
+const DESCRIBED_CONJUNCT = /^\s*,?\s*(?:and|or|as well as)\s+(?:also\s+)?(?:the|a|an)\s+[^,;:.!?]*?\b(?:that|which|who|whom)\s+(?:[^,;:.!?\s]+\s+)?$/i;
 
 /** The text from the end of a relation phrase to a following clue: only function words (no content word, no punctuation). */
 function argumentGap(gap: string): boolean {
@@ -191,8 +203,22 @@ export function cueChains(analysis: Pick<Analysis, "question" | "mentions" | "cl
   // a type noun inside a relation phrase ("home *port*") names the relation, not a node between hops
   const cueSpans = relationPhraseSpans(analysis);
   const typeWords = (analysis.typeWords ?? []).filter((t) => !cueSpans.some((s) => t.start >= s.start && t.end <= s.end));
+  // (6) a described conjunct ("depends on both automake *and the package that m4 is needed
+  // by*"): the clue inside the relative clause reaches the conjunct's noun by its own steps,
+  // and that noun fills the slot of the clue it is coordinated with, so the steps of that
+  // clue's group follow
+  const describedBy = new Map<number, number>();
+  for (let k = 1; k < order.length; k++) {
+    const a = order[k - 1]!;
+    const b = order[k]!;
+    if (groupOf[a]!.includes(b) || spans[a]!.end > spans[b]!.start) continue;
+    if (DESCRIBED_CONJUNCT.test(text.slice(spans[a]!.end, spans[b]!.start))) describedBy.set(b, a);
+  }
+  const byDistance = (c: number, steps: Iterable<[number, StepOption[]]>) => [...steps].sort((x, y) => groupDistance(c, x[0]) - groupDistance(c, y[0]) || x[0] - y[0]);
   return shared.map((steps, c) => {
-    const ordered = [...steps.entries()].sort((a, b) => groupDistance(c, a[0]) - groupDistance(c, b[0]) || a[0] - b[0]);
+    const host = describedBy.get(c);
+    const ordered = byDistance(c, steps.entries());
+    if (host !== undefined) ordered.push(...byDistance(host, [...shared[host]!.entries()].filter(([at]) => !steps.has(at))));
     const chainSteps = ordered.map(([at, opts], i) => {
       // the node this hop reaches: a type noun strictly between this word and the next hop's
       const next = ordered[i + 1]?.[0];

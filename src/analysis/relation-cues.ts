@@ -162,10 +162,14 @@ export function relationCues(ws: readonly Word[], content: readonly number[], mo
       const labelTokens = tokens(r.label);
       const questionPassive = ws[last + 1]?.norm === "by" || relationalNounOf(ws, last, labelTokens);
       const labelPassive = labelTokens[labelTokens.length - 1] === "by";
-      // repeated occurrences: later content words with the first matched word's stem
+      // repeated occurrences: later content words with the first matched word's stem, or that
+      // alone spell another one-word surface of the same relation ("depends on … is *needed*
+      // by" with an alias "needs"): one relation named twice, one hop per place
+      const oneWord = new Set(r.surfaces.filter((x) => x.length === 1).map((x) => x[0]!));
       const occurrences: CueOccurrence[] = [{ start: ws[first]!.start, flip: questionPassive !== labelPassive }];
       for (const k of content) {
-        if (k > last && ws[k]!.stem === ws[first]!.stem) occurrences.push({ start: ws[k]!.start, flip: (ws[k + 1]?.norm === "by") !== labelPassive });
+        if (k <= last || bestWords.includes(k)) continue;
+        if (ws[k]!.stem === ws[first]!.stem || oneWord.has(ws[k]!.stem)) occurrences.push({ start: ws[k]!.start, flip: (ws[k + 1]?.norm === "by") !== labelPassive });
       }
       cues.push({
         relation: r.num,
