@@ -28,6 +28,9 @@ export function parseTimeLimit(value: string | undefined): number {
   return Number(value);
 }
 
+/** The parts of a question `--dot` prints nothing of (the drawing shows clues, answers and their paths): left out. */
+const DOT_ONLY = { ablation: false, suggestions: false } as const;
+
 /** Registers `ask`. */
 export function registerAsk(program: Command): void {
   program
@@ -50,7 +53,7 @@ export function registerAsk(program: Command): void {
         const pins: Pin[] = opts.pin.map(parsePin);
         const session = Session.open({ ...(opts.db !== undefined ? { db: opts.db } : {}), ...storeSessionOptions(opts.timeout) });
         try {
-          const out = await session.askAsync(question, { top, ...(pins.length > 0 ? { pins } : {}), ...(opts.whyNot.length > 0 ? { whyNot: opts.whyNot } : {}), verifySuggestions: !opts.dot, timeLimitMs });
+          const out = await session.askAsync(question, { top, ...(pins.length > 0 ? { pins } : {}), ...(opts.whyNot.length > 0 ? { whyNot: opts.whyNot } : {}), verifySuggestions: !opts.dot, timeLimitMs, ...(opts.dot ? DOT_ONLY : {}) });
           if (opts.dot) process.stdout.write(evidenceDot(out.result, { labels: catalogLabels(session.catalog) }));
           else if (opts.json) process.stdout.write(askJson(out.result, out));
           else
