@@ -100,6 +100,18 @@ function surfaceStems(model: QuestionModel): ReadonlySet<string> {
   return set;
 }
 
+const stemOwners = new WeakMap<QuestionModel, ReadonlyMap<string, ReadonlySet<number>>>();
+/** Per stem, the relations some surface of which holds it (cached per model). */
+function stemRelations(model: QuestionModel): ReadonlyMap<string, ReadonlySet<number>> {
+  let map = stemOwners.get(model);
+  if (!map) {
+    const m = new Map<string, Set<number>>();
+    for (const r of model.relations) for (const x of r.surfaces.flat()) m.set(x, (m.get(x) ?? new Set()).add(r.num));
+    stemOwners.set(model, (map = m));
+  }
+  return map;
+}
+
 /** Suffixes of agent nouns, which name the subject of their verb (-er, -or, -ant, -ent, -ist: Quirk et al. 1985, Appendix I.31–I.34; from memory). */
 const AGENT_SUFFIX = /(?:er|or|ant|ent|ist)$/;
 
@@ -165,7 +177,9 @@ export function relationCues(ws: readonly Word[], content: readonly number[], mo
       // repeated occurrences: later content words with the first matched word's stem, or that
       // alone spell another one-word surface of the same relation ("depends on … is *needed*
       // by" with an alias "needs"): one relation named twice, one hop per place
-      const oneWord = new Set(r.surfaces.filter((x) => x.length === 1).map((x) => x[0]!));
+      // (a word other relations' surfaces hold too is no sure second name: "works" in "works
+      // on" against an alias "works with")
+      const oneWord = new Set(r.surfaces.filter((x) => x.length === 1 && stemRelations(model).get(x[0]!)?.size === 1).map((x) => x[0]!));
       const occurrences: CueOccurrence[] = [{ start: ws[first]!.start, flip: questionPassive !== labelPassive }];
       for (const k of content) {
         if (k <= last || bestWords.includes(k)) continue;
