@@ -21,7 +21,8 @@
  * 2. ring by ring from the linked clue entities, `DEFAULTS.rings` rings: the rows of the
  *    neighbours of the previous ring — except hubs, entities with more than `DEFAULTS.hubCap`
  *    edges by the store's count, whose rows are not pulled (they stay reachable as the end of
- *    a pulled edge, with their true degree);
+ *    a pulled edge, with their true degree); a hub clue's neighbours are pulled all the same
+ *    when their rows, by the store's counts, number at most `DEFAULTS.hubRows`;
  * 3. when a clue reaches none of the `answerRings` best answers' paths: `rings` rings around those
  *    answers too, so that a path from the clue meets them in the middle (up to 2·rings + 2 hops);
  * 4. whatever the final run still asked for (why-not entities, suggestion checks), once more.
@@ -58,6 +59,8 @@ export const DEFAULTS = {
   ringRows: 5000,
   /** Entities with more edges than this (the store's count) are not expanded in the rings. */
   hubCap: 1000,
+  /** A hub clue (or answer) is expanded all the same when its neighbours' rows, by the store's counts, number at most this many. */
+  hubRows: 20_000,
   /** Entities with more edges than this are never pulled (their edges reach the question only from their neighbours' rows). */
   maxRow: 50_000,
   /** Entities per VALUES block. */
@@ -472,7 +475,10 @@ export class StoreEdges implements EdgeAccess {
   /** The next ring around `ring`: the neighbours of its members that are no hubs (a hub clue's row is pulled, its neighbours' rows are not), not in `visited` (which it extends), hubs left out. */
   nextRing(ring: ReadonlySet<number>, visited: Set<number>): Set<number> {
     const next = new Set<number>();
-    const sources = new Set([...ring].filter((n) => this.degree(n) <= DEFAULTS.hubCap));
+    // a hub in the ring (a clue or an answer: later rings hold no hubs) is expanded when its
+    // neighbours' own rows, by the store's counts, fit in `hubRows` (a section of a thousand
+    // small packages does; a library every package depends on does not)
+    const sources = new Set([...ring].filter((n) => this.degree(n) <= DEFAULTS.hubCap || this.neighbourRows(n, visited) <= DEFAULTS.hubRows));
     for (const v of this.neighboursOf(sources)) {
       if (visited.has(v)) continue;
       visited.add(v);
@@ -483,6 +489,16 @@ export class StoreEdges implements EdgeAccess {
       next.add(v);
     }
     return next;
+  }
+
+  /** The rows (store counts) of `num`'s pulled neighbours not in `visited`, hubs left out (they are never expanded as neighbours). */
+  private neighbourRows(num: number, visited: ReadonlySet<number>): number {
+    let rows = 0;
+    for (const v of this.neighboursOf(new Set([num]))) {
+      const d = this.degree(v);
+      if (!visited.has(v) && d <= DEFAULTS.hubCap) rows += d;
+    }
+    return rows;
   }
 
   /** Notes for the answer: what the pull left out. */
