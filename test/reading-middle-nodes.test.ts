@@ -5,7 +5,9 @@
  * post-modifier to the noun before it, a main-clause predicate to the answer), the ranking
  * evaluates it on that node's set (src/ranking/node-select.ts), on the set where coordinated
  * clues' chains meet (src/ranking/chain-reach.ts `meet`), and the reading lists it at its node
- * (text and JSON `reading.nodes[].conditions`).
+ * (text and JSON `reading.nodes[].conditions`); and a verb no relation label names between two
+ * typed nodes is a hop of the catalog's relations between their types (query-graph.ts
+ * `unnamedHops`).
  *
  * Catalog: six invented realms with their capitals, borders (stored both ways), an area and a
  * coastal flag, written as N-Triples and loaded through the real loader; each question read
@@ -130,6 +132,15 @@ describe("conditions on a middle node: attached where their noun phrase is, eval
     // 'bordering' is the second place of the borders cue: no word is ignored
     expect(r.reading!.ignored).toEqual([]);
     expect(group(r)).toEqual(gold(`SELECT DISTINCT ?r WHERE { ?r :borders ?m . ?m :borders :realm\\/Fohr . ?r :area ?a FILTER(?a > 400) }`));
+  });
+
+  it("a verb no relation label names, between two typed nodes, is a hop of the relations the catalog has between their types ('the realm that encircles the one whose capital is F')", () => {
+    // realm to realm, the catalog has one relation: borders (query-graph.ts unnamedHops)
+    const r = ask("What is the capital of the realm that quietly encircles the one whose capital is Fenn?");
+    expect(r.reading!.text).toBe("?answer (town) ← capital — ?v2 (realm) — borders — ?v1 (realm) — capital → Fenn");
+    expect(r.reading!.ignored).toEqual(["quietly"]);
+    expect(group(r)).toEqual(gold(`SELECT DISTINCT ?c WHERE { ?f :capital :town\\/Fenn . { ?r :borders ?f } UNION { ?f :borders ?r } ?r :capital ?c }`));
+    expect(r.verdict.status).toBe("unique");
   });
 
   it("a superlative on the node where coordinated clues meet orders their intersection, not each clue's set", () => {

@@ -24,7 +24,7 @@ import type { Analysis } from "./analyze.js";
 import type { Condition, ConditionAnalysis, EntityComparison, IdentityQuestion, ValueQuestion } from "./conditions.js";
 import { attachConditions } from "./attach-conditions.js";
 import { cueChains, type CueChain, type CueChainOptions, type StepOption } from "./cue-chains.js";
-import { EXCLUSIVE_WORDS, isPluralNoun, PLURAL_COPULAS, POSSESSIVE_DETERMINERS, SET_WORDS, SHARING_VERBS } from "./lexicon.js";
+import { DETERMINERS, EXCLUSIVE_WORDS, isPluralNoun, PLURAL_COPULAS, POSSESSIVE_DETERMINERS, RELATIVE_WORDS, SET_WORDS, SHARING_VERBS } from "./lexicon.js";
 import type { QuestionModel } from "./question-model.js";
 import type { ReadingDoc } from "../model/index.js";
 import { isFunctionWord, words } from "./words.js";
@@ -115,6 +115,8 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
     }
   }
   if (model) chains = bridgeAnswer(bridgeChains(chains, analysis, model, share), analysis, model, share);
+  const unnamed = model ? unnamedHops(chains, analysis, model, share) : { chains, words: [] };
+  chains = unnamed.chains;
   chains = exclusiveSteps(chains, analysis);
   // conditions on an inner node ("the capital of the *largest* country in R") go on its hop
   const attached = model ? attachConditions(chains, cond.conditions, analysis, model) : { chains, answer: [...cond.conditions] };
@@ -166,7 +168,7 @@ export function readQuestion(cond: ConditionAnalysis, model?: QuestionModel, opt
     ...(cond.identity ? { identity: cond.identity } : {}),
     plural: asksForSet(analysis),
     ...(headCue ? { headCue } : {}),
-    ignored: ignoredWords(analysis, cond, chains, headCue?.words),
+    ignored: ignoredWords(analysis, cond, chains, [...(headCue?.words ?? []), ...unnamed.words]),
     cueDirections: analysis.clues.map((c) => analysis.relationCues.map((cue) => expectedInverse(cue, analysis.mentions[c.mention]?.start ?? 0))),
   };
 }
@@ -326,6 +328,58 @@ function bridgeAnswer(chains: CueChain[], analysis: Analysis, model: QuestionMod
     const mid = last.types.length > 0 ? last.types : [...farTypes].sort((a, b) => a - b);
     return { ...ch, steps: [...ch.steps.slice(0, -1), { ...last, types: mid }, { at: last.at, options: bridges, types: [] }] };
   });
+}
+
+/**
+ * A verb no relation label names, between two nodes of a chain: a content word opening a
+ * relative clause ("the country that (completely) *surrounds* the one using the loti": a
+ * relative word, at most one -ly adverb, then the word) that is no name, type noun, relation
+ * word or condition, whose object is a type noun or "one" (not a name), standing between the places of two consecutive hops, is a relation of
+ * its own between the node the earlier hop reaches (typed by that hop's far end in the
+ * catalog) and the node the clause post-modifies (the earlier hop's type noun): the catalog's
+ * relations that join those types make its options (at most `MAX_BRIDGES`; none or more: no
+ * hop) — staged query-graph generation's relation step with the catalog's relation ends as
+ * the only evidence (Yih et al. 2015), as in {@link bridgeChains}.
+ */
+function unnamedHops(chains: CueChain[], analysis: Analysis, model: QuestionModel, share: number): { chains: CueChain[]; words: string[] } {
+  if (!model.relationEnds) return { chains, words: [] };
+  const ws = words(analysis.question);
+  const taken = [...analysis.mentions, ...(analysis.answerTypeWords ?? []), ...(analysis.typeWords ?? [])];
+  const cuePlaces = new Set(analysis.relationCues.flatMap((c) => (c.occurrences ?? [{ start: c.start }]).map((o) => o.start)));
+  const verbs = ws.filter((w, k) => {
+    if (isFunctionWord(w.norm) || /^\d/.test(w.norm) || /ly$/.test(w.norm) || cuePlaces.has(w.start) || taken.some((t) => w.start < t.end && w.end > t.start)) return false;
+    const before = ws[k - 1];
+    const relative = (x: typeof before) => x !== undefined && RELATIVE_WORDS.has(x.norm);
+    if (!(relative(before) || (before !== undefined && /ly$/.test(before.norm) && !isFunctionWord(before.norm) && relative(ws[k - 2])))) return false;
+    // its object is a noun phrase headed by a type noun or the pro-form "one" ("surrounds *the
+    // one* using …"), not a name (the name's own hop already says it: "pays with the som")
+    let j = k + 1;
+    while (j < ws.length && DETERMINERS.has(ws[j]!.norm)) j++;
+    const object = ws[j];
+    return object !== undefined && (object.norm === "one" || object.norm === "ones" || (analysis.typeWords ?? []).some((t) => t.start === object.start));
+  });
+  if (verbs.length === 0) return { chains, words: [] };
+  const typesAt = endTypes(model, share);
+  const expand = (ts: Iterable<number>) => new Set([...ts].flatMap((t) => model.typeByNum.get(t)?.descendants ?? [t]));
+  const used: string[] = [];
+  const out = chains.map((ch) => {
+    let steps = [...ch.steps];
+    // a first hop no word named (bridgeChains) stands where its clue does
+    const clueAt = analysis.mentions[analysis.clues[ch.clue]?.mention ?? -1]?.start;
+    const placeOf = (i: number) => (i === 0 && clueAt !== undefined && steps[0]!.options.every((o) => o.cue < 0) ? clueAt : steps[i]!.at);
+    for (const w of verbs) {
+      const h = steps.findIndex((_, i) => i + 1 < steps.length && Math.min(placeOf(i), placeOf(i + 1)) < w.start && w.start < Math.max(placeOf(i), placeOf(i + 1)));
+      if (h < 0 || steps[h]!.types.length === 0) continue;
+      const st = steps[h]!;
+      const near = new Set(st.options.flatMap((o) => [...typesAt(o.relation, !o.inverse)]));
+      const options = joining(model, typesAt, expand(near), expand(st.types));
+      if (near.size === 0 || options.length === 0 || options.length > MAX_BRIDGES) continue;
+      steps = [...steps.slice(0, h), { ...st, types: [...near].sort((a, b) => a - b) }, { at: w.start, options, types: st.types }, ...steps.slice(h + 1)];
+      if (!used.includes(w.text)) used.push(w.text);
+    }
+    return steps.length === ch.steps.length ? ch : { ...ch, steps };
+  });
+  return { chains: used.length > 0 ? out : chains, words: used };
 }
 
 /** The relation the answer-type words name, with the end of it where the answer types are. */
