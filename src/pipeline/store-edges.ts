@@ -335,9 +335,13 @@ export class StoreEdges implements EdgeAccess {
     const mine = new Set(entities);
     // the nums of the ids not seen before in this session, in one statement (not one lookup per id)
     const unknown = new Set<string>();
-    for (const [sv, , ov, sb, ob] of rows) {
-      for (const id of [nodeId(csvNode(sv!, csvTrue(sb!))), nodeId(csvNode(ov!, csvTrue(ob!)))]) if (!this.numOf.has(id)) unknown.add(id);
-    }
+    // each end's id made once (both passes read it)
+    const ids: string[] = new Array(rows.length * 2);
+    rows.forEach(([sv, , ov, sb, ob], i) => {
+      ids[2 * i] = nodeId(csvNode(sv!, csvTrue(sb!)));
+      ids[2 * i + 1] = nodeId(csvNode(ov!, csvTrue(ob!)));
+    });
+    for (const id of ids) if (!this.numOf.has(id)) unknown.add(id);
     if (unknown.size > 0) for (const [id, num] of this.numsStmt.all(JSON.stringify([...unknown])) as [string, number][]) this.numOf.set(id, num);
     const per = new Map<number, number[]>();
     const keep = (n: number, s: number, p: number, o: number) => {
@@ -345,9 +349,10 @@ export class StoreEdges implements EdgeAccess {
       if (!l) per.set(n, (l = []));
       l.push(s, p, o);
     };
-    for (const [sv, pv, ov, sb, ob] of rows) {
-      const s = this.entityNum(nodeId(csvNode(sv!, csvTrue(sb!))));
-      const o = this.entityNum(nodeId(csvNode(ov!, csvTrue(ob!))));
+    for (let i = 0; i < rows.length; i++) {
+      const pv = rows[i]![1];
+      const s = this.entityNum(ids[2 * i]!);
+      const o = this.entityNum(ids[2 * i + 1]!);
       const p = this.predicateNum.get(pv!);
       if (p === undefined) throw new TiepointError("store/changed", `SPARQL endpoint ${shownEndpoint(this.binding.endpoint)}: an edge uses relation ${pv!}, which the catalog does not know (the store changed since the attach); run attach --db ${this.catalog.path} --refresh`);
       this.addEdge(s, p, o);
