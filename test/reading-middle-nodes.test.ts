@@ -14,14 +14,9 @@
  * and ranked by the real Session. Gold: SPARQL over the same N-Triples in oxigraph (npm
  * `oxigraph`, src/eval/question-set.ts `goldStore`), an engine independent of tiepoint.
  */
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Catalog, loadFiles } from "../src/catalog/index.js";
-import { goldStore } from "../src/eval/question-set.js";
 import type { AskResult } from "../src/model/index.js";
-import { Session } from "../src/pipeline/index.js";
+import { openNtSession, type NtSession } from "./helpers/nt-session.js";
 
 const E = "http://realms.example/";
 const LABEL = "<http://www.w3.org/2000/01/rdf-schema#label>";
@@ -68,36 +63,16 @@ function triples(): string {
   return out.join("\n") + "\n";
 }
 
-let dir: string;
-let session: Session;
+let cat: NtSession;
 let gold: (sparql: string) => string[];
 
 beforeAll(() => {
-  dir = mkdtempSync(join(tmpdir(), "tiepoint-middle-"));
-  const nt = triples();
-  writeFileSync(join(dir, "realms.nt"), nt);
-  writeFileSync(join(dir, "realms-schema.jsonl"), `{"kind":"attribute","id":"${E}area","label":"area","unit":"km²"}\n`);
-  const db = join(dir, "catalog.db");
-  const cat = Catalog.open(db, { create: true });
-  try {
-    loadFiles(cat, [join(dir, "realms.nt"), join(dir, "realms-schema.jsonl")]);
-  } finally {
-    cat.close();
-  }
-  session = Session.open({ db });
-  const store = goldStore(nt);
-  gold = (sparql) => {
-    const r = store.query(`PREFIX : <${E}>\n${sparql}`);
-    if (typeof r === "boolean") throw new Error("not a SELECT");
-    return [...r].map((row) => [...row.values()][0]!.value).sort();
-  };
+  cat = openNtSession("realms", triples(), `{"kind":"attribute","id":"${E}area","label":"area","unit":"km²"}\n`, E);
+  gold = cat.gold;
 });
-afterAll(() => {
-  session?.close();
-  rmSync(dir, { recursive: true, force: true });
-});
+afterAll(() => cat?.close());
 
-const ask = (q: string): AskResult => session.ask(q).result;
+const ask = (q: string): AskResult => cat.session.ask(q).result;
 /** The first answer and the tied group, sorted. */
 const group = (r: AskResult) => [r.answers[0]!.id, ...r.verdict.tiedWith].sort();
 

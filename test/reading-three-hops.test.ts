@@ -15,14 +15,9 @@
  * through the real Session. Gold: SPARQL over the same N-Triples in oxigraph (npm
  * `oxigraph`, src/eval/question-set.ts `goldStore`).
  */
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Catalog, loadFiles } from "../src/catalog/index.js";
-import { goldStore } from "../src/eval/question-set.js";
 import type { AskResult } from "../src/model/index.js";
-import { Session } from "../src/pipeline/index.js";
+import { openNtSession, type NtSession } from "./helpers/nt-session.js";
 
 const E = "http://archive.example/";
 const LABEL = "<http://www.w3.org/2000/01/rdf-schema#label>";
@@ -57,36 +52,16 @@ function triples(): string {
   return out.join("\n") + "\n";
 }
 
-let dir: string;
-let session: Session;
+let cat: NtSession;
 let gold: (sparql: string) => string[];
 
 beforeAll(() => {
-  dir = mkdtempSync(join(tmpdir(), "tiepoint-three-hops-"));
-  const nt = triples();
-  writeFileSync(join(dir, "archive.nt"), nt);
-  writeFileSync(join(dir, "archive-schema.jsonl"), `{"kind":"attribute","id":"${E}size","label":"installed size","unit":"kibibytes"}\n`);
-  const db = join(dir, "catalog.db");
-  const cat = Catalog.open(db, { create: true });
-  try {
-    loadFiles(cat, [join(dir, "archive.nt"), join(dir, "archive-schema.jsonl")]);
-  } finally {
-    cat.close();
-  }
-  session = Session.open({ db });
-  const store = goldStore(nt);
-  gold = (sparql) => {
-    const r = store.query(`PREFIX : <${E}>\n${sparql}`);
-    if (typeof r === "boolean") throw new Error("not a SELECT");
-    return [...r].map((row) => [...row.values()][0]!.value).sort();
-  };
+  cat = openNtSession("archive", triples(), `{"kind":"attribute","id":"${E}size","label":"installed size","unit":"kibibytes"}\n`, E);
+  gold = cat.gold;
 });
-afterAll(() => {
-  session?.close();
-  rmSync(dir, { recursive: true, force: true });
-});
+afterAll(() => cat?.close());
 
-const ask = (q: string): AskResult => session.ask(q).result;
+const ask = (q: string): AskResult => cat.session.ask(q).result;
 const group = (r: AskResult) => [r.answers[0]!.id, ...r.verdict.tiedWith].sort();
 
 describe("three hops: the pattern's ends are candidates, whatever the walk reached", () => {

@@ -326,6 +326,19 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
   };
   const poolNodes: number[] = [];
   let rows = new Float64Array(256 * C);
+  /** Gives node v the next pool slot (rows grow by doubling); returns the slot. */
+  const addToPool = (v: number): number => {
+    const slot = poolNodes.length;
+    slots.set(v, slot);
+    inPool.add(v);
+    poolNodes.push(v);
+    if ((slot + 1) * C > rows.length) {
+      const grown = new Float64Array(rows.length * 2);
+      grown.set(rows);
+      rows = grown;
+    }
+    return slot;
+  };
   perClue.forEach((sp, c) => {
     let top = 0;
     for (let i = 0; i < sp.scores.length; i++) if (sp.scores[i]! > top && !isSeed(sp.nodes[i]!)) top = sp.scores[i]!;
@@ -337,18 +350,7 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
       let s = sp.scores[i]!;
       for (let k = 0; k < rn.length; k++) if (rn[k] === v) s -= rw[k]!;
       if (!(s > cut) || isSeed(v)) continue;
-      let slot = inPool.has(v) ? slots.get(v) : -1;
-      if (slot < 0) {
-        slot = poolNodes.length;
-        slots.set(v, slot);
-        inPool.add(v);
-        poolNodes.push(v);
-        if ((slot + 1) * C > rows.length) {
-          const grown = new Float64Array(rows.length * 2);
-          grown.set(rows);
-          rows = grown;
-        }
-      }
+      const slot = inPool.has(v) ? slots.get(v) : addToPool(v);
       rows[slot * C + c] = s;
     }
   });
@@ -375,17 +377,7 @@ export function rank(analysis: Analysis, index: RelationIndex, options: RankOpti
     for (const { set, selected: sel } of ends.values()) {
       if (set === null || set.size === 0 || set.size > MAX_ADDED_ENDS) continue;
       if (!sel && set.some((v) => inPool.has(v))) continue;
-      for (const v of set) {
-        if (inPool.has(v) || isSeed(v)) continue;
-        slots.set(v, poolNodes.length);
-        inPool.add(v);
-        poolNodes.push(v);
-        if (poolNodes.length * C > rows.length) {
-          const grown = new Float64Array(rows.length * 2);
-          grown.set(rows);
-          rows = grown;
-        }
-      }
+      for (const v of set) if (!inPool.has(v) && !isSeed(v)) addToPool(v);
     }
   }
 
@@ -669,16 +661,6 @@ function cuesWithoutDropped(analysis: Analysis, chains: readonly CueChain[], dro
   return analysis.relationCues.map((_, i) => i).filter((i) => keep.has(i) || !attributed.has(i));
 }
 
-/**
- * The pattern check of one question: a function giving a candidate's factor from the
- * clues' relation-path patterns, or undefined when no pattern applies. Per clue with 1 to
- * `chainMaxSteps` steps: the candidates at the end of the directed pattern get 1, those at
- * the end of the undirected one `chainLoose`, the rest `chainMiss` — only when some
- * eligible candidate is at the end of the directed pattern (else the undirected one takes
- * its place; when neither reaches a candidate the pattern is wrong for this catalog and is
- * ignored). When a type noun names an intermediate node, the typed directed pattern comes
- * first and the untyped directed one counts as loose. The clues' factors are combined like their scores (weighted geometric mean).
- */
 /** Most ends of a pattern added to the candidate pool (more: the pattern says little). */
 const MAX_ADDED_ENDS = 1000;
 
@@ -701,6 +683,16 @@ function symmetricEnds(index: RelationIndex, rel: number): boolean {
   return same;
 }
 
+/**
+ * The pattern check of one question: a function giving a candidate's factor from the
+ * clues' relation-path patterns, or undefined when no pattern applies. Per clue with 1 to
+ * `chainMaxSteps` steps: the candidates at the end of the directed pattern get 1, those at
+ * the end of the undirected one `chainLoose`, the rest `chainMiss` — only when some
+ * eligible candidate is at the end of the directed pattern (else the undirected one takes
+ * its place; when neither reaches a candidate the pattern is wrong for this catalog and is
+ * ignored). When a type noun names an intermediate node, the typed directed pattern comes
+ * first and the untyped directed one counts as loose. The clues' factors are combined like their scores (weighted geometric mean).
+ */
 function chainFitOf(
   chains: readonly CueChain[],
   clues: readonly Clue[],
